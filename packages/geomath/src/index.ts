@@ -12,3 +12,4 @@ export {
   dipVector,
   strikeVector,
 } from './vector.js';
+export * from './rock-mass.js';
