@@ -1,0 +1,46 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { Module, type DynamicModule } from '@nestjs/common';
+import { APP_GUARD } from '@nestjs/core';
+import { ServeStaticModule } from '@nestjs/serve-static';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import type { AppConfig } from './config/app-config.js';
+import { AppConfigModule } from './config/app-config.module.js';
+import { databaseOptions } from './database/options.js';
+import { MailModule } from './infrastructure/mail/mail.module.js';
+import { StorageModule } from './infrastructure/storage/storage.module.js';
+import { AppInfoController } from './modules/app-info/app-info.controller.js';
+import { AuditModule } from './modules/audit/audit.module.js';
+import { AuthModule } from './modules/auth/auth.module.js';
+import { JwtAuthGuard } from './modules/auth/jwt-auth.guard.js';
+import { HealthModule } from './modules/health/health.module.js';
+import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
+import { ProjectsModule } from './modules/projects/projects.module.js';
+
+@Module({})
+export class AppModule {
+  static forRoot(config: AppConfig): DynamicModule {
+    const web =
+      config.webDistDir && existsSync(path.join(config.webDistDir, 'index.html'))
+        ? config.webDistDir
+        : undefined;
+    return {
+      module: AppModule,
+      imports: [
+        AppConfigModule.forRoot(config),
+        TypeOrmModule.forRoot({ ...databaseOptions(config), retryAttempts: 3, retryDelay: 1000 }),
+        StorageModule,
+        MailModule,
+        AuditModule,
+        AuthModule,
+        ProjectsModule,
+        HealthModule,
+        LocalMailModule,
+        // The API serves the built web app, so Roundbook is one address.
+        ...(web ? [ServeStaticModule.forRoot({ rootPath: web, exclude: ['/api/{*path}'] })] : []),
+      ],
+      controllers: [AppInfoController],
+      providers: [{ provide: APP_GUARD, useClass: JwtAuthGuard }],
+    };
+  }
+}

@@ -1,0 +1,75 @@
+import { validateEnvironment, type EnvironmentVariables } from './env.validation.js';
+
+/** The typed configuration, built once from the validated environment and injected where needed. */
+export interface AppConfig {
+  env: EnvironmentVariables['NODE_ENV'];
+  host: string;
+  port: number;
+  appUrl: string;
+  localMode: boolean;
+  database: { host: string; port: number; name: string; user: string; password: string };
+  auth: { jwtSecret: string; jwtExpiresIn: string; loginRateLimit: number };
+  storage: {
+    driver: 's3';
+    endpoint: string;
+    region: string;
+    bucket: string;
+    accessKeyId: string;
+    secretAccessKey: string;
+    forcePathStyle: boolean;
+  };
+  mail: {
+    driver: 'smtp' | 'log';
+    host: string;
+    port: number;
+    secure: boolean;
+    ignoreTls: boolean;
+    user?: string;
+    password?: string;
+    from: string;
+    localInboxDir?: string;
+  };
+  webDistDir?: string;
+  demoPassword?: string;
+}
+
+export const APP_CONFIG = Symbol('APP_CONFIG');
+
+export function toAppConfig(e: EnvironmentVariables): AppConfig {
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    appUrl: e.APP_URL.replace(/\/$/, ''),
+    localMode: e.LOCAL_MODE,
+    database: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD },
+    auth: { jwtSecret: e.JWT_SECRET, jwtExpiresIn: e.JWT_EXPIRES_IN, loginRateLimit: e.LOGIN_RATE_LIMIT },
+    storage: {
+      driver: e.STORAGE_DRIVER,
+      endpoint: e.S3_ENDPOINT,
+      region: e.S3_REGION,
+      bucket: e.S3_BUCKET,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE,
+    },
+    mail: {
+      driver: e.MAIL_DRIVER,
+      host: e.SMTP_HOST,
+      port: e.SMTP_PORT,
+      secure: e.SMTP_SECURE,
+      ignoreTls: e.SMTP_IGNORE_TLS,
+      user: e.SMTP_USER,
+      password: e.SMTP_PASSWORD,
+      from: e.MAIL_FROM,
+      localInboxDir: e.LOCAL_MAIL_DIR,
+    },
+    webDistDir: e.WEB_DIST_DIR,
+    demoPassword: e.DEMO_PASSWORD,
+  };
+}
+
+/** Reads and validates process.env: the one place that does. */
+export function loadAppConfig(): AppConfig {
+  return toAppConfig(validateEnvironment(process.env));
+}

@@ -1,0 +1,182 @@
+import { plainToInstance, Transform } from 'class-transformer';
+import {
+  IsBoolean,
+  IsIn,
+  IsInt,
+  IsNotEmpty,
+  IsOptional,
+  IsString,
+  IsUrl,
+  Matches,
+  Max,
+  MinLength,
+  Min,
+  ValidateIf,
+  validateSync,
+} from 'class-validator';
+
+const toBool = ({ value }: { value: unknown }): unknown =>
+  value === 'true' || value === '1' ? true : value === 'false' || value === '0' ? false : value;
+
+/**
+ * Every variable Roundbook reads, validated once at boot (NestJS config docs' `validate`; immich's EnvDto).
+ * Nothing else reads process.env. Driver-specific variables are required only for the chosen driver.
+ */
+export class EnvironmentVariables {
+  @IsIn(['development', 'production', 'test'])
+  @IsOptional()
+  NODE_ENV: 'development' | 'production' | 'test' = 'production';
+
+  @IsString()
+  HOST = '127.0.0.1';
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(65535)
+  PORT = 8080;
+
+  @IsUrl({ require_tld: false, require_protocol: true })
+  APP_URL = 'http://127.0.0.1:8080';
+
+  /** Local mode: the SMTP fake's inbox is shown to admins; development conveniences on. */
+  @Transform(toBool)
+  @IsBoolean()
+  LOCAL_MODE = false;
+
+  @IsString()
+  @IsNotEmpty()
+  DB_HOST: string;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(65535)
+  DB_PORT: number;
+
+  @Matches(/^[A-Za-z0-9_]+$/, { message: 'DB_NAME may hold only letters, digits and _' })
+  DB_NAME: string;
+
+  @IsString()
+  @IsNotEmpty()
+  DB_USER: string;
+
+  @IsString()
+  @IsNotEmpty()
+  DB_PASSWORD: string;
+
+  @IsString()
+  @MinLength(32, { message: 'JWT_SECRET must be at least 32 characters long' })
+  JWT_SECRET: string;
+
+  @Matches(/^\d+[smhd]$/, { message: 'JWT_EXPIRES_IN must look like 30m, 12h or 7d' })
+  JWT_EXPIRES_IN = '12h';
+
+  @IsIn(['s3'])
+  STORAGE_DRIVER = 's3' as const;
+
+  @ValidateIf((o: EnvironmentVariables) => o.STORAGE_DRIVER === 's3')
+  @IsUrl({ require_tld: false, require_protocol: true })
+  S3_ENDPOINT: string;
+
+  @IsString()
+  S3_REGION = 'us-east-1';
+
+  @ValidateIf((o: EnvironmentVariables) => o.STORAGE_DRIVER === 's3')
+  @Matches(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, {
+    message: 'S3_BUCKET must be 3–63 lower-case letters, digits, dots or hyphens',
+  })
+  S3_BUCKET: string;
+
+  @ValidateIf((o: EnvironmentVariables) => o.STORAGE_DRIVER === 's3')
+  @IsString()
+  @IsNotEmpty()
+  S3_ACCESS_KEY_ID: string;
+
+  @ValidateIf((o: EnvironmentVariables) => o.STORAGE_DRIVER === 's3')
+  @IsString()
+  @IsNotEmpty()
+  S3_SECRET_ACCESS_KEY: string;
+
+  @Transform(toBool)
+  @IsBoolean()
+  S3_FORCE_PATH_STYLE = true;
+
+  @IsIn(['smtp', 'log'])
+  MAIL_DRIVER: 'smtp' | 'log' = 'smtp';
+
+  @ValidateIf((o: EnvironmentVariables) => o.MAIL_DRIVER === 'smtp')
+  @IsString()
+  @IsNotEmpty()
+  SMTP_HOST: string;
+
+  @ValidateIf((o: EnvironmentVariables) => o.MAIL_DRIVER === 'smtp')
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(65535)
+  SMTP_PORT: number;
+
+  @Transform(toBool)
+  @IsBoolean()
+  SMTP_SECURE = false;
+
+  /** Only for the local SMTP fake, whose bundled certificate has expired. */
+  @Transform(toBool)
+  @IsBoolean()
+  SMTP_IGNORE_TLS = false;
+
+  @IsOptional()
+  @IsString()
+  SMTP_USER?: string;
+
+  @IsOptional()
+  @IsString()
+  SMTP_PASSWORD?: string;
+
+  @Matches(/^(.+<)?[^<>\s@]+@[^<>\s@]+>?$/, {
+    message: 'MAIL_FROM must be an address, e.g. Roundbook <roundbook@example.org>',
+  })
+  MAIL_FROM = 'Roundbook <roundbook@roundbook.test>';
+
+  @ValidateIf((o: EnvironmentVariables) => o.LOCAL_MODE)
+  @IsString()
+  @IsNotEmpty({ message: 'LOCAL_MAIL_DIR is required in local mode (the SMTP fake keeps messages there)' })
+  LOCAL_MAIL_DIR?: string;
+
+  @IsOptional()
+  @IsString()
+  WEB_DIST_DIR?: string;
+
+  /** The demo password; used only by the seed command. */
+  @IsOptional()
+  @IsString()
+  @MinLength(8)
+  DEMO_PASSWORD?: string;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  LOGIN_RATE_LIMIT = 10;
+}
+
+/** Returns the validated variables or throws one Error listing every problem, one per line. */
+export function validateEnvironment(config: Record<string, unknown>): EnvironmentVariables {
+  const env = plainToInstance(EnvironmentVariables, config, {
+    enableImplicitConversion: false,
+    exposeDefaultValues: true,
+  });
+  const errors = validateSync(env, { skipMissingProperties: false, whitelist: false });
+  if (errors.length > 0) {
+    const lines = errors.map((e) => {
+      const value = config[e.property];
+      const shown =
+        value === undefined ? 'missing' : e.property.match(/PASSWORD|SECRET/) ? 'set' : JSON.stringify(value);
+      return `  ${e.property} (${shown}): ${Object.values(e.constraints ?? {}).join('; ')}`;
+    });
+    throw new Error(
+      `Roundbook cannot start: the environment is not valid.\n${lines.join('\n')}\nSee .env.example for every variable.`,
+    );
+  }
+  return env;
+}

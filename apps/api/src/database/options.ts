@@ -1,0 +1,30 @@
+import type { DataSourceOptions } from 'typeorm';
+import type { AppConfig } from '../config/app-config.js';
+import { AuditEvent } from '../modules/audit/audit-event.entity.js';
+import { Heading } from '../modules/headings/heading.entity.js';
+import { ProjectMember } from '../modules/projects/project-member.entity.js';
+import { Project } from '../modules/projects/project.entity.js';
+import { User } from '../modules/users/user.entity.js';
+import { migrations } from './migrations/index.js';
+
+export const entities = [User, Project, ProjectMember, Heading, AuditEvent];
+
+/** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */
+export function databaseOptions(config: AppConfig): DataSourceOptions {
+  return {
+    type: 'mariadb',
+    host: config.database.host,
+    port: config.database.port,
+    username: config.database.user,
+    password: config.database.password,
+    database: config.database.name,
+    charset: 'utf8mb4_unicode_ci',
+    timezone: 'Z',
+    entities,
+    migrations,
+    synchronize: false,
+    migrationsTableName: 'migrations',
+    connectTimeout: 10000,
+    extra: { connectionLimit: 10 },
+  };
+}

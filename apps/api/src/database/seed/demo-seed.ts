@@ -1,0 +1,66 @@
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import type { DataSource } from 'typeorm';
+import type { ProjectRole } from '../../common/auth/auth-user.js';
+import { Heading, type ProfileShape, type Stage } from '../../modules/headings/heading.entity.js';
+import { ProjectMember } from '../../modules/projects/project-member.entity.js';
+import { Project, type PlaneNotationSetting } from '../../modules/projects/project.entity.js';
+import { hashPassword } from '../../modules/users/password.js';
+import { User } from '../../modules/users/user.entity.js';
+
+interface Scenario {
+  project: {
+    code: string;
+    name: string;
+    client: string;
+    timeZone: string;
+    qTableEdition: string;
+    defaultNotation: PlaneNotationSetting;
+  };
+  headings: Array<{
+    code: string;
+    name: string;
+    startChainage: number;
+    driveTrend: number;
+    gradientPercent: number;
+    profileShape: ProfileShape;
+    profileWidth: number;
+    profileHeight: number;
+    axisHeight: number;
+    stages: Stage[];
+    plannedRoundLength: number;
+  }>;
+  users: Array<{ email: string; name: string; role: ProjectRole }>;
+}
+
+export const scenarioFile = (): string =>
+  path.resolve(__dirname, '../../../../../fixtures/demo/scenario.json');
+
+/**
+ * Seeds the invented demo scenario when the database holds no users and no projects; never writes over
+ * existing data. Returns whether it seeded.
+ */
+export async function seedDemo(
+  dataSource: DataSource,
+  password: string,
+  file = scenarioFile(),
+): Promise<boolean> {
+  const scenario = JSON.parse(readFileSync(file, 'utf8')) as Scenario;
+  const hash = await hashPassword(password);
+  return dataSource.transaction(async (manager) => {
+    const [users, projects] = await Promise.all([manager.count(User), manager.count(Project)]);
+    if (users > 0 || projects > 0) return false;
+    const project = await manager.save(manager.create(Project, scenario.project));
+    for (const h of scenario.headings)
+      await manager.save(manager.create(Heading, { ...h, projectId: project.id }));
+    for (const u of scenario.users) {
+      const user = await manager.save(
+        manager.create(User, { email: u.email, name: u.name, passwordHash: hash }),
+      );
+      await manager.save(
+        manager.create(ProjectMember, { projectId: project.id, userId: user.id, role: u.role }),
+      );
+    }
+    return true;
+  });
+}

@@ -1,0 +1,35 @@
+import { Module } from '@nestjs/common';
+import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
+import { ThrottlerModule } from '@nestjs/throttler';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
+import { ProjectMember } from '../projects/project-member.entity.js';
+import { User } from '../users/user.entity.js';
+import { AuthController } from './auth.controller.js';
+import { AuthService } from './auth.service.js';
+import { JwtStrategy } from './jwt.strategy.js';
+
+@Module({
+  imports: [
+    PassportModule,
+    TypeOrmModule.forFeature([User, ProjectMember]),
+    JwtModule.registerAsync({
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => ({
+        secret: config.auth.jwtSecret,
+        signOptions: { expiresIn: config.auth.jwtExpiresIn as `${number}h`, algorithm: 'HS256' },
+      }),
+    }),
+    ThrottlerModule.forRootAsync({
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => ({
+        throttlers: [{ name: 'login', ttl: 60_000, limit: config.auth.loginRateLimit }],
+      }),
+    }),
+  ],
+  controllers: [AuthController],
+  providers: [AuthService, JwtStrategy],
+  exports: [AuthService],
+})
+export class AuthModule {}

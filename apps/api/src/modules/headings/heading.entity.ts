@@ -1,0 +1,70 @@
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { decimal } from '../../common/dto/numeric.transformer.js';
+import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
+import { Project } from '../projects/project.entity.js';
+
+export const PROFILE_SHAPES = ['circular', 'horseshoe', 'd-shaped', 'rectangular'] as const;
+export type ProfileShape = (typeof PROFILE_SHAPES)[number];
+export const STAGES = ['full-face', 'top-heading', 'bench', 'invert'] as const;
+export type Stage = (typeof STAGES)[number];
+
+/** One heading (a face advancing along an alignment) with its drive and excavation profile. */
+@Entity('headings')
+@Index('UQ_headings_project_code', ['projectId', 'code'], { unique: true })
+export class Heading {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ name: 'project_id', type: 'uuid' })
+  projectId: string;
+
+  @ManyToOne(() => Project, (p) => p.headings, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'project_id' })
+  project: Project;
+
+  @Column({ type: 'varchar', length: 20 })
+  code: string;
+
+  @Column({ type: 'varchar', length: 160 })
+  name: string;
+
+  /** Chainage of the heading's start, metres. */
+  @Column({ name: 'start_chainage', type: 'decimal', precision: 12, scale: 3, transformer: decimal })
+  startChainage: number;
+
+  /** Drive direction (trend of the axis in the direction of advance), degrees from north. */
+  @Column({ name: 'drive_trend', type: 'decimal', precision: 6, scale: 2, transformer: decimal })
+  driveTrend: number;
+
+  /** Gradient in per cent, positive rising in the direction of advance. */
+  @Column({ name: 'gradient_percent', type: 'decimal', precision: 7, scale: 3, transformer: decimal })
+  gradientPercent: number;
+
+  @Column({ name: 'profile_shape', type: 'enum', enum: PROFILE_SHAPES })
+  profileShape: ProfileShape;
+
+  @Column({ name: 'profile_width', type: 'decimal', precision: 6, scale: 2, transformer: decimal })
+  profileWidth: number;
+
+  @Column({ name: 'profile_height', type: 'decimal', precision: 6, scale: 2, transformer: decimal })
+  profileHeight: number;
+
+  /** Height of the tunnel axis above the invert, metres. */
+  @Column({ name: 'axis_height', type: 'decimal', precision: 6, scale: 2, transformer: decimal })
+  axisHeight: number;
+
+  @Column({ type: 'simple-array' })
+  stages: Stage[];
+
+  @Column({ name: 'planned_round_length', type: 'decimal', precision: 5, scale: 2, transformer: decimal })
+  plannedRoundLength: number;
+
+  @CreatedAt()
+  createdAt: Date;
+
+  @UpdatedAt()
+  updatedAt: Date;
+
+  @Version()
+  version: number;
+}

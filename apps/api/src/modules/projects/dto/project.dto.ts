@@ -1,0 +1,109 @@
+import { ApiProperty } from '@nestjs/swagger';
+import {
+  IsIn,
+  IsInt,
+  IsOptional,
+  IsString,
+  Length,
+  Min,
+  Validate,
+  type ValidatorConstraintInterface,
+  ValidatorConstraint,
+} from 'class-validator';
+import { ROLE_ENUM } from '../../auth/dto/token-response.dto.js';
+import { PLANE_NOTATIONS } from '../project.entity.js';
+
+export class LastHandoverDto {
+  sentAt: string;
+  acknowledgedAt: string | null;
+}
+
+export class HeadingSummaryDto {
+  id: string;
+  code: string;
+  name: string;
+  /** Drive direction, degrees clockwise from north */
+  driveTrend: number;
+  /** Gradient in per cent, positive rising in the direction of advance */
+  gradientPercent: number;
+  /** Start chainage in metres */
+  startChainage: number;
+  @ApiProperty({ enum: ['full-face', 'top-heading', 'bench', 'invert'], enumName: 'Stage', isArray: true })
+  stages: Array<'full-face' | 'top-heading' | 'bench' | 'invert'>;
+  @ApiProperty({ enum: ['circular', 'horseshoe', 'd-shaped', 'rectangular'], enumName: 'ProfileShape' })
+  profileShape: 'circular' | 'horseshoe' | 'd-shaped' | 'rectangular';
+  profileWidth: number;
+  profileHeight: number;
+  plannedRoundLength: number;
+  /** Chainage of the latest mapped face, metres; null before the first round */
+  @ApiProperty({ type: Number, nullable: true })
+  faceChainage: number | null;
+  @ApiProperty({ type: String, nullable: true })
+  lastRoundAt: string | null;
+  /** Rounds submitted and waiting for the engineer's review */
+  roundsToConfirm: number;
+  @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })
+  triggerLevel: 'green' | 'amber' | 'red' | null;
+  @ApiProperty({ type: LastHandoverDto, nullable: true })
+  lastHandover: LastHandoverDto | null;
+}
+
+export class ProjectSummaryDto {
+  id: string;
+  code: string;
+  name: string;
+  client: string;
+  /** IANA time zone; shift dates follow it */
+  timeZone: string;
+  qTableEdition: string;
+  @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation' })
+  defaultNotation: (typeof PLANE_NOTATIONS)[number];
+  /** The caller's role in this project */
+  @ApiProperty({ enum: ROLE_ENUM, enumName: 'ProjectRole' })
+  role: 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';
+  /** Optimistic-locking version; send it back when changing the project */
+  version: number;
+  headings: HeadingSummaryDto[];
+}
+
+@ValidatorConstraint({ name: 'timeZone' })
+class IsTimeZone implements ValidatorConstraintInterface {
+  validate(value: unknown): boolean {
+    if (typeof value !== 'string') return false;
+    try {
+      new Intl.DateTimeFormat('en', { timeZone: value });
+      return true;
+    } catch {
+      return false;
+    }
+  }
+  defaultMessage(): string {
+    return 'Use a time zone name such as Europe/Zurich or America/Lima.';
+  }
+}
+
+export class UpdateProjectDto {
+  @IsOptional()
+  @IsString()
+  @Length(1, 160)
+  name?: string;
+
+  @IsOptional()
+  @IsString()
+  @Length(0, 160)
+  client?: string;
+
+  @IsOptional()
+  @Validate(IsTimeZone)
+  timeZone?: string;
+
+  @IsOptional()
+  @IsIn(PLANE_NOTATIONS)
+  @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation', required: false })
+  defaultNotation?: (typeof PLANE_NOTATIONS)[number];
+
+  /** The version you last read; a stale version is refused with 409 STALE_VERSION */
+  @IsInt()
+  @Min(1)
+  version: number;
+}

@@ -1,0 +1,40 @@
+import { Inject, Injectable, type CanActivate, type ExecutionContext } from '@nestjs/common';
+import { Reflector } from '@nestjs/core';
+import { InjectRepository } from '@nestjs/typeorm';
+import type { Repository } from 'typeorm';
+import type { AuthUser, ProjectAccess, ProjectRole } from '../../common/auth/auth-user.js';
+import { PROJECT_ROLES_KEY } from '../../common/auth/project-roles.decorator.js';
+import { DomainException } from '../../common/errors/domain.exception.js';
+import { ProjectMember } from './project-member.entity.js';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** 404 to a non-member (the project's existence is not revealed), 403 to a member without the role. */
+@Injectable()
+export class ProjectAccessGuard implements CanActivate {
+  constructor(
+    @Inject(Reflector) private readonly reflector: Reflector,
+    @InjectRepository(ProjectMember) private readonly members: Repository<ProjectMember>,
+  ) {}
+
+  async canActivate(context: ExecutionContext): Promise<boolean> {
+    const req = context
+      .switchToHttp()
+      .getRequest<{ user: AuthUser; params: Record<string, string>; projectAccess?: ProjectAccess }>();
+    const projectId = req.params.projectId;
+    if (!projectId || !UUID.test(projectId)) throw DomainException.notFound('The project');
+    const member = await this.members.findOne({ where: { projectId, userId: req.user.id } });
+    if (!member) throw DomainException.notFound('The project');
+    const roles = this.reflector.getAllAndOverride<ProjectRole[] | undefined>(PROJECT_ROLES_KEY, [
+      context.getHandler(),
+      context.getClass(),
+    ]);
+    if (roles && roles.length > 0 && !roles.includes(member.role)) {
+      throw DomainException.forbidden(
+        `Your role in this project (${member.role}) does not allow this. It needs: ${roles.join(' or ')}.`,
+      );
+    }
+    req.projectAccess = { projectId, role: member.role };
+    return true;
+  }
+}

@@ -1,0 +1,47 @@
+import { Column, Entity, OneToMany, PrimaryGeneratedColumn } from 'typeorm';
+import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
+import type { Heading } from '../headings/heading.entity.js';
+import type { ProjectMember } from './project-member.entity.js';
+
+export const PLANE_NOTATIONS = ['dip-direction/dip', 'dip/dip-direction', 'strike/dip-rhr'] as const;
+export type PlaneNotationSetting = (typeof PLANE_NOTATIONS)[number];
+
+@Entity('projects')
+export class Project {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ type: 'varchar', length: 20, unique: true })
+  code: string;
+
+  @Column({ type: 'varchar', length: 160 })
+  name: string;
+
+  @Column({ type: 'varchar', length: 160, default: '' })
+  client: string;
+
+  /** IANA time zone; shift dates follow it. */
+  @Column({ name: 'time_zone', type: 'varchar', length: 64, default: 'UTC' })
+  timeZone: string;
+
+  @Column({ name: 'q_table_edition', type: 'varchar', length: 40, default: '2015' })
+  qTableEdition: string;
+
+  @Column({ name: 'default_notation', type: 'varchar', length: 24, default: 'dip-direction/dip' })
+  defaultNotation: PlaneNotationSetting;
+
+  @OneToMany('Heading', (h: Heading) => h.project)
+  headings: Heading[];
+
+  @OneToMany('ProjectMember', (m: ProjectMember) => m.project)
+  members: ProjectMember[];
+
+  @CreatedAt()
+  createdAt: Date;
+
+  @UpdatedAt()
+  updatedAt: Date;
+
+  @Version()
+  version: number;
+}

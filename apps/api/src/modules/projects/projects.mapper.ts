@@ -1,0 +1,41 @@
+import type { ProjectRole } from '../../common/auth/auth-user.js';
+import type { Heading } from '../headings/heading.entity.js';
+import type { HeadingSummaryDto, ProjectSummaryDto } from './dto/project.dto.js';
+import type { Project } from './project.entity.js';
+
+export function toHeadingSummary(h: Heading): HeadingSummaryDto {
+  return {
+    id: h.id,
+    code: h.code,
+    name: h.name,
+    driveTrend: h.driveTrend,
+    gradientPercent: h.gradientPercent,
+    startChainage: h.startChainage,
+    stages: h.stages,
+    profileShape: h.profileShape,
+    profileWidth: h.profileWidth,
+    profileHeight: h.profileHeight,
+    plannedRoundLength: h.plannedRoundLength,
+    // Rounds, reviews, triggers and handovers arrive with their own features; until then nothing to show.
+    faceChainage: null,
+    lastRoundAt: null,
+    roundsToConfirm: 0,
+    triggerLevel: null,
+    lastHandover: null,
+  };
+}
+
+export function toProjectSummary(p: Project, role: ProjectRole): ProjectSummaryDto {
+  return {
+    id: p.id,
+    code: p.code,
+    name: p.name,
+    client: p.client,
+    timeZone: p.timeZone,
+    qTableEdition: p.qTableEdition,
+    defaultNotation: p.defaultNotation,
+    role,
+    version: p.version,
+    headings: [...(p.headings ?? [])].sort((a, b) => a.code.localeCompare(b.code)).map(toHeadingSummary),
+  };
+}

@@ -1,0 +1,80 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
+import { DataSource, type Repository } from 'typeorm';
+import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
+import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
+import { ProjectMember } from './project-member.entity.js';
+import { Project } from './project.entity.js';
+import { toProjectSummary } from './projects.mapper.js';
+
+@Injectable()
+export class ProjectsService {
+  constructor(
+    @InjectRepository(ProjectMember) private readonly members: Repository<ProjectMember>,
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(AuditService) private readonly audit: AuditService,
+  ) {}
+
+  /** Only the caller's projects, each with the caller's role there. */
+  async listForUser(caller: AuthUser): Promise<ProjectSummaryDto[]> {
+    const memberships = await this.members.find({
+      where: { userId: caller.id },
+      relations: { project: { headings: true } },
+      order: { project: { name: 'ASC' } },
+    });
+    return memberships.map((m) => toProjectSummary(m.project, m.role));
+  }
+
+  async get(access: ProjectAccess): Promise<ProjectSummaryDto> {
+    const project = await this.dataSource.getRepository(Project).findOne({
+      where: { id: access.projectId },
+      relations: { headings: true },
+    });
+    if (!project) throw DomainException.notFound('The project');
+    return toProjectSummary(project, access.role);
+  }
+
+  /** Changes the project's settings with optimistic locking; the change goes to the audit trail. */
+  async update(caller: AuthUser, access: ProjectAccess, dto: UpdateProjectDto): Promise<ProjectSummaryDto> {
+    await this.dataSource.transaction(async (manager) => {
+      const project = await manager.findOne(Project, {
+        where: { id: access.projectId },
+        lock: { mode: 'pessimistic_write' },
+      });
+      if (!project) throw DomainException.notFound('The project');
+      if (project.version !== dto.version) {
+        throw new DomainException(
+          ErrorCode.StaleVersion,
+          'Someone else changed this project since you opened it. Review their version, then apply your change again.',
+          undefined,
+          { currentVersion: project.version },
+        );
+      }
+      const fields = ['name', 'client', 'timeZone', 'defaultNotation'] as const;
+      const before: Record<string, unknown> = {};
+      const after: Record<string, unknown> = {};
+      for (const f of fields) {
+        const next = dto[f];
+        if (next !== undefined && next !== project[f]) {
+          before[f] = project[f];
+          after[f] = next;
+          Object.assign(project, { [f]: next });
+        }
+      }
+      if (Object.keys(after).length === 0) return;
+      await manager.save(project);
+      await this.audit.record(manager, {
+        projectId: project.id,
+        actorId: caller.id,
+        entityType: 'project',
+        entityId: project.id,
+        action: 'update',
+        before,
+        after,
+      });
+    });
+    return this.get(access);
+  }
+}

@@ -1,0 +1,26 @@
+import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
+
+@Entity('users')
+export class User {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ type: 'varchar', length: 254, unique: true })
+  email: string;
+
+  @Column({ type: 'varchar', length: 120 })
+  name: string;
+
+  @Column({ name: 'password_hash', type: 'varchar', length: 255, nullable: true })
+  passwordHash: string | null;
+
+  @CreatedAt()
+  createdAt: Date;
+
+  @UpdatedAt()
+  updatedAt: Date;
+
+  @Version()
+  version: number;
+}

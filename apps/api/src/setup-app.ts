@@ -1,0 +1,32 @@
+import type { INestApplication } from '@nestjs/common';
+import { ValidationPipe } from '@nestjs/common';
+import { DocumentBuilder, SwaggerModule, type OpenAPIObject } from '@nestjs/swagger';
+import { DomainExceptionFilter } from './common/errors/domain-exception.filter.js';
+import { validationExceptionFactory } from './common/errors/validation-exception.factory.js';
+import { APP_VERSION } from './modules/app-info/app-info.controller.js';
+
+/** Everything main.ts, the e2e tests and the OpenAPI export share: prefix, pipe, filter, docs. */
+export function setupApp(app: INestApplication): OpenAPIObject {
+  app.setGlobalPrefix('api');
+  app.useGlobalPipes(
+    new ValidationPipe({
+      whitelist: true,
+      forbidNonWhitelisted: true,
+      transform: true,
+      exceptionFactory: validationExceptionFactory,
+    }),
+  );
+  app.useGlobalFilters(new DomainExceptionFilter());
+  app.enableShutdownHooks();
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Roundbook API')
+      .setDescription('Round-by-round face mapping and shift handover for tunnels and underground headings.')
+      .setVersion(APP_VERSION)
+      .addBearerAuth()
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs/openapi.json' });
+  return document;
+}
