@@ -17,9 +17,6 @@ async function bootstrap(): Promise<void> {
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), {
     bufferLogs: false,
   });
-  app.useBodyParser('json', { limit: '2mb' });
-  app.set('trust proxy', 'loopback');
-  app.disable('x-powered-by');
   setupApp(app);
   await app.listen(config.port, config.host);
   Logger.log(`Roundbook listening on http://${config.host}:${config.port}`, 'Main');

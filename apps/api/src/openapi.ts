@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
 import { AppModule } from './app.module.js';
 import { toAppConfig } from './config/app-config.js';
 import { EnvironmentVariables } from './config/env.validation.js';
@@ -26,7 +27,10 @@ async function main(): Promise<void> {
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: 25,
   });
-  const app = await NestFactory.create(AppModule.forRoot(toAppConfig(env)), { preview: true, logger: false });
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(toAppConfig(env)), {
+    preview: true,
+    logger: false,
+  });
   const document = setupApp(app);
   const out = process.argv[2] ?? path.resolve(__dirname, '../openapi.json');
   writeFileSync(out, JSON.stringify(document, null, 2) + '\n');

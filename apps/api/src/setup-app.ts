@@ -1,12 +1,15 @@
-import type { INestApplication } from '@nestjs/common';
 import { ValidationPipe } from '@nestjs/common';
+import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule, type OpenAPIObject } from '@nestjs/swagger';
 import { DomainExceptionFilter } from './common/errors/domain-exception.filter.js';
 import { validationExceptionFactory } from './common/errors/validation-exception.factory.js';
 import { APP_VERSION } from './modules/app-info/app-info.controller.js';
 
 /** Everything main.ts, the e2e tests and the OpenAPI export share: prefix, pipe, filter, docs. */
-export function setupApp(app: INestApplication): OpenAPIObject {
+export function setupApp(app: NestExpressApplication): OpenAPIObject {
+  app.useBodyParser('json', { limit: '2mb' });
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
   app.setGlobalPrefix('api');
   app.useGlobalPipes(
     new ValidationPipe({

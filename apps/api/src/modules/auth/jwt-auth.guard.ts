@@ -1,36 +1,52 @@
-import { Inject, Injectable, type ExecutionContext } from '@nestjs/common';
+import { Inject, Injectable, type CanActivate, type ExecutionContext } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import { AuthGuard } from '@nestjs/passport';
+import { JwtService } from '@nestjs/jwt';
+import type { Request } from 'express';
+import type { AuthUser } from '../../common/auth/auth-user.js';
 import { IS_PUBLIC } from '../../common/auth/public.decorator.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { AuthService, type JwtPayload } from './auth.service.js';
 
-/** Global guard: every route needs a valid bearer token unless marked @Public(). */
+/**
+ * Global guard: every route needs a valid bearer token unless marked @Public(). The token is verified with
+ * the app's own JwtService (no process-wide strategy registry), and the account must still exist.
+ */
 @Injectable()
-export class JwtAuthGuard extends AuthGuard('jwt') {
-  constructor(@Inject(Reflector) private readonly reflector: Reflector) {
-    super();
-  }
+export class JwtAuthGuard implements CanActivate {
+  constructor(
+    @Inject(Reflector) private readonly reflector: Reflector,
+    @Inject(JwtService) private readonly jwt: JwtService,
+    @Inject(AuthService) private readonly auth: AuthService,
+  ) {}
 
-  override canActivate(
-    context: ExecutionContext,
-  ): ReturnType<InstanceType<ReturnType<typeof AuthGuard>>['canActivate']> {
+  async canActivate(context: ExecutionContext): Promise<boolean> {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, [
       context.getHandler(),
       context.getClass(),
     ]);
     if (isPublic) return true;
-    return super.canActivate(context);
-  }
-
-  override handleRequest<T>(err: unknown, user: T, info: unknown): T {
-    if (err instanceof DomainException) throw err;
-    if (err || !user) {
-      const expired = info instanceof Error && info.name === 'TokenExpiredError';
+    const req = context.switchToHttp().getRequest<Request & { user?: AuthUser }>();
+    const [scheme, token] = (req.headers.authorization ?? '').split(' ');
+    if (scheme?.toLowerCase() !== 'bearer' || !token) {
+      throw new DomainException(ErrorCode.Unauthenticated, 'Please sign in to continue.');
+    }
+    let payload: JwtPayload;
+    try {
+      payload = await this.jwt.verifyAsync<JwtPayload>(token, { algorithms: ['HS256'] });
+    } catch (e) {
+      const expired = e instanceof Error && e.name === 'TokenExpiredError';
       throw new DomainException(
         ErrorCode.Unauthenticated,
         expired ? 'Your session has expired. Please sign in again.' : 'Please sign in to continue.',
       );
     }
-    return user;
+    const user = await this.auth.userOfToken(payload);
+    if (!user)
+      throw new DomainException(
+        ErrorCode.Unauthenticated,
+        'This account no longer exists. Please sign in again.',
+      );
+    req.user = user;
+    return true;
   }
 }
