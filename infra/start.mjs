@@ -9,12 +9,14 @@ import {
   checkEnvironment,
   migrateAndSeed,
 } from './lib/bootstrap.mjs';
-import { profileEnv } from './lib/env.mjs';
+import path from 'node:path';
+import { profileEnv, root } from './lib/env.mjs';
 import { InfraError, fail, step } from './lib/log.mjs';
-import { stopAll } from './lib/proc.mjs';
+import { startChild, stopAll, waitForLine } from './lib/proc.mjs';
 import { startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
 
 const { dataDir, env } = profileEnv('local');
+const dev = process.argv.includes('--dev');
 let stopping = false;
 
 async function shutdown(code) {
@@ -32,12 +34,16 @@ try {
   step('Roundbook: checking what is installed');
   ensureAptPackages(['mariadb-server', 'mariadb-client', 'fonts-open-sans']);
   ensureNodeModules();
-  buildAll();
+  buildAll({ web: !dev });
   checkEnvironment(env);
   await startMariadb({ dataDir, env });
   await startS3({ dataDir, env });
   await startSmtp({ dataDir, env });
   migrateAndSeed(env);
+  if (dev) {
+    await startDev();
+    await new Promise(() => {}); // until Ctrl-C
+  }
   const api = await startApi({ dataDir, env });
   api.on('exit', (code) => {
     if (!stopping) {
@@ -63,4 +69,19 @@ try {
 } catch (err) {
   fail(err instanceof InfraError ? err.message : (err?.stack ?? String(err)));
   await shutdown(1);
+}
+
+/** `npm run dev`: the API with reload (nest start --watch) and the Vite dev server proxying /api to it. */
+async function startDev() {
+  step('Development mode: API with reload, Vite dev server');
+  const apiEnv = { ...process.env, ...env, NODE_ENV: 'development', WEB_DIST_DIR: '' };
+  const api = startChild('API (watch)', 'npx', ['nest', 'start', '--watch', '--preserveWatchOutput'], { cwd: path.join(root, 'apps/api'), env: apiEnv });
+  api.stdout.pipe(process.stdout);
+  api.stderr.pipe(process.stderr);
+  await waitForLine(api, /Roundbook listening/, { name: 'The API', timeoutMs: 120000 });
+  const web = startChild('Vite dev server', 'npx', ['vite', '--host', '127.0.0.1', '--port', '5173', '--strictPort'], { cwd: path.join(root, 'apps/web') });
+  web.stdout.pipe(process.stdout);
+  web.stderr.pipe(process.stderr);
+  await waitForLine(web, /Local:/, { name: 'The Vite dev server', timeoutMs: 60000 });
+  console.log(`\n  Development: web app with reload at http://127.0.0.1:5173 (API on ${env.HOST}:${env.PORT}). Ctrl-C stops all.\n`);
 }

@@ -47,8 +47,8 @@ export function ensureNodeModules() {
   });
 }
 
-export function buildAll() {
-  step('Building geomath, the API and the web app');
+export function buildAll({ web = true } = {}) {
+  step(web ? 'Building geomath, the API and the web app' : 'Building geomath and the API');
   const env = { ...process.env, NODE_ENV: 'production' };
   run('npm', ['run', '--silent', 'build', '-w', '@roundbook/geomath'], {
     cwd: root,
