@@ -2,6 +2,7 @@
 // `npm start`: install what is missing, build, start MariaDB, the S3 fake, the SMTP fake and Roundbook on
 // loopback, migrate, seed the demo when the database is empty, print the address and logins. Ctrl-C stops
 // everything this script started, by PID.
+import path from 'node:path';
 import {
   ensureAptPackages,
   ensureNodeModules,
@@ -9,7 +10,6 @@ import {
   checkEnvironment,
   migrateAndSeed,
 } from './lib/bootstrap.mjs';
-import path from 'node:path';
 import { profileEnv, root } from './lib/env.mjs';
 import { InfraError, fail, step } from './lib/log.mjs';
 import { startChild, stopAll, waitForLine } from './lib/proc.mjs';
@@ -75,13 +75,23 @@ try {
 async function startDev() {
   step('Development mode: API with reload, Vite dev server');
   const apiEnv = { ...process.env, ...env, NODE_ENV: 'development', WEB_DIST_DIR: '' };
-  const api = startChild('API (watch)', 'npx', ['nest', 'start', '--watch', '--preserveWatchOutput'], { cwd: path.join(root, 'apps/api'), env: apiEnv });
+  const api = startChild('API (watch)', 'npx', ['nest', 'start', '--watch', '--preserveWatchOutput'], {
+    cwd: path.join(root, 'apps/api'),
+    env: apiEnv,
+  });
   api.stdout.pipe(process.stdout);
   api.stderr.pipe(process.stderr);
   await waitForLine(api, /Roundbook listening/, { name: 'The API', timeoutMs: 120000 });
-  const web = startChild('Vite dev server', 'npx', ['vite', '--host', '127.0.0.1', '--port', '5173', '--strictPort'], { cwd: path.join(root, 'apps/web') });
+  const web = startChild(
+    'Vite dev server',
+    'npx',
+    ['vite', '--host', '127.0.0.1', '--port', '5173', '--strictPort'],
+    { cwd: path.join(root, 'apps/web') },
+  );
   web.stdout.pipe(process.stdout);
   web.stderr.pipe(process.stderr);
   await waitForLine(web, /Local:/, { name: 'The Vite dev server', timeoutMs: 60000 });
-  console.log(`\n  Development: web app with reload at http://127.0.0.1:5173 (API on ${env.HOST}:${env.PORT}). Ctrl-C stops all.\n`);
+  console.log(
+    `\n  Development: web app with reload at http://127.0.0.1:5173 (API on ${env.HOST}:${env.PORT}). Ctrl-C stops all.\n`,
+  );
 }
