@@ -1,6 +1,6 @@
 // Public exports of @roundbook/geomath. Contract: shared/design/geomath-contract.md.
 export * from './types.js';
-export { EPSILON, normalizeAzimuth, azimuthDifference } from './math.js';
+export { EPSILON, normalizeAzimuth, azimuthDifference, sinDeg, cosDeg } from './math.js';
 export {
   dot,
   cross,
@@ -12,4 +12,23 @@ export {
   dipVector,
   strikeVector,
 } from './vector.js';
+export { parsePlane, parseLine, formatPlane } from './notation.js';
+export type { PlaneNotation } from './notation.js';
+export { poleOf, planeOfPole, rightHandStrike } from './orientation.js';
+export {
+  intersectionOf,
+  angleBetweenLines,
+  angleBetweenPlanes,
+  apparentDip,
+  planeFromApparentDips,
+  axisToLine,
+} from './angles.js';
+export { project, unproject, greatCircle, smallCircle } from './projection.js';
+export type { Net } from './projection.js';
+export { fisherStatistics, terzaghiWeight } from './statistics.js';
+export type { FisherResult } from './statistics.js';
+export { densityGrid, densityContours, exponentialK, kambFraction } from './density.js';
+export type { DensityGrid, DensityMethod, DensityContour } from './density.js';
+export { findSets, SET_SEPARATION, SET_SIGNIFICANCE } from './sets.js';
+export type { JointSet } from './sets.js';
 export * from './rock-mass.js';

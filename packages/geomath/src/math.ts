@@ -29,3 +29,26 @@ export function azimuthDifference(a: number, b: number): number {
   const d = Math.abs(normalizeAzimuth(a) - normalizeAzimuth(b));
   return d > 180 ? 360 - d : d;
 }
+
+/**
+ * Sine of an angle in degrees, exact (0, ±1) at multiples of 90° so that horizontal and vertical
+ * orientations carry no rounding residue such as cos(90°) ≈ 6e-17.
+ */
+export function sinDeg(degrees: number): number {
+  const r = degrees % 360;
+  if (r % 90 === 0) {
+    const q = (((r / 90) % 4) + 4) % 4;
+    return q === 1 ? 1 : q === 3 ? -1 : 0;
+  }
+  return Math.sin(degrees * DEG);
+}
+
+/** Cosine of an angle in degrees, exact at multiples of 90°. */
+export function cosDeg(degrees: number): number {
+  const r = degrees % 360;
+  if (r % 90 === 0) {
+    const q = (((r / 90) % 4) + 4) % 4;
+    return q === 0 ? 1 : q === 2 ? -1 : 0;
+  }
+  return Math.cos(degrees * DEG);
+}
