@@ -31,4 +31,12 @@ export { densityGrid, densityContours, exponentialK, kambFraction } from './dens
 export type { DensityGrid, DensityMethod, DensityContour } from './density.js';
 export { findSets, SET_SEPARATION, SET_SIGNIFICANCE } from './sets.js';
 export type { JointSet } from './sets.js';
+export {
+  gradientPercentToDegrees,
+  gradientDegreesToPercent,
+  driveOf,
+  formatChainage,
+  parseChainage,
+  type ChainageStyle,
+} from './alignment.js';
 export * from './rock-mass.js';
