@@ -13,9 +13,13 @@ import { AppInfoController } from './modules/app-info/app-info.controller.js';
 import { AuditModule } from './modules/audit/audit.module.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { JwtAuthGuard } from './modules/auth/jwt-auth.guard.js';
+import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
+import { SupportClassesModule } from './modules/support-classes/support-classes.module.js';
+import { TeamModule } from './modules/team/team.module.js';
+import { TriggerRulesModule } from './modules/trigger-rules/trigger-rules.module.js';
 
 @Module({})
 export class AppModule {
@@ -34,6 +38,10 @@ export class AppModule {
         AuditModule,
         AuthModule,
         ProjectsModule,
+        HeadingsModule,
+        SupportClassesModule,
+        TriggerRulesModule,
+        TeamModule,
         HealthModule,
         LocalMailModule,
         // The API serves the built web app, so Roundbook is one address.

@@ -4,10 +4,22 @@ import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
+import { SupportClass } from '../modules/support-classes/support-class.entity.js';
+import { Invitation } from '../modules/team/invitation.entity.js';
+import { TriggerRule } from '../modules/trigger-rules/trigger-rule.entity.js';
 import { User } from '../modules/users/user.entity.js';
 import { migrations } from './migrations/index.js';
 
-export const entities = [User, Project, ProjectMember, Heading, AuditEvent];
+export const entities = [
+  User,
+  Project,
+  ProjectMember,
+  Heading,
+  AuditEvent,
+  SupportClass,
+  TriggerRule,
+  Invitation,
+];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */
 export function databaseOptions(config: AppConfig): DataSourceOptions {

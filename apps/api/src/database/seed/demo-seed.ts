@@ -2,34 +2,33 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { DataSource } from 'typeorm';
 import type { ProjectRole } from '../../common/auth/auth-user.js';
-import { Heading, type ProfileShape, type Stage } from '../../modules/headings/heading.entity.js';
+import { Heading } from '../../modules/headings/heading.entity.js';
 import { ProjectMember } from '../../modules/projects/project-member.entity.js';
-import { Project, type PlaneNotationSetting } from '../../modules/projects/project.entity.js';
+import { Project } from '../../modules/projects/project.entity.js';
+import { SupportClass } from '../../modules/support-classes/support-class.entity.js';
+import { TriggerRule } from '../../modules/trigger-rules/trigger-rule.entity.js';
 import { hashPassword } from '../../modules/users/password.js';
 import { User } from '../../modules/users/user.entity.js';
 
 interface Scenario {
-  project: {
-    code: string;
-    name: string;
-    client: string;
-    timeZone: string;
-    qTableEdition: string;
-    defaultNotation: PlaneNotationSetting;
-  };
-  headings: Array<{
-    code: string;
-    name: string;
-    startChainage: number;
-    driveTrend: number;
-    gradientPercent: number;
-    profileShape: ProfileShape;
-    profileWidth: number;
-    profileHeight: number;
-    axisHeight: number;
-    stages: Stage[];
-    plannedRoundLength: number;
-  }>;
+  project: Pick<
+    Project,
+    | 'code'
+    | 'name'
+    | 'client'
+    | 'timeZone'
+    | 'qTableEdition'
+    | 'defaultNotation'
+    | 'distributionList'
+    | 'coordinateGrid'
+  >;
+  headings: Array<Omit<Heading, 'id' | 'projectId' | 'project' | 'createdAt' | 'updatedAt' | 'version'>>;
+  supportClasses: Array<
+    Omit<SupportClass, 'id' | 'projectId' | 'sortOrder' | 'retired' | 'createdAt' | 'updatedAt' | 'version'>
+  >;
+  triggerRules: Array<
+    Omit<TriggerRule, 'id' | 'projectId' | 'enabled' | 'createdAt' | 'updatedAt' | 'version'>
+  >;
   users: Array<{ email: string; name: string; role: ProjectRole }>;
 }
 
@@ -53,6 +52,14 @@ export async function seedDemo(
     const project = await manager.save(manager.create(Project, scenario.project));
     for (const h of scenario.headings)
       await manager.save(manager.create(Heading, { ...h, projectId: project.id }));
+    for (const [i, c] of scenario.supportClasses.entries()) {
+      await manager.save(
+        manager.create(SupportClass, { ...c, projectId: project.id, sortOrder: i + 1, retired: false }),
+      );
+    }
+    for (const r of scenario.triggerRules) {
+      await manager.save(manager.create(TriggerRule, { ...r, projectId: project.id, enabled: true }));
+    }
     for (const u of scenario.users) {
       const user = await manager.save(
         manager.create(User, { email: u.email, name: u.name, passwordHash: hash }),

@@ -2,12 +2,7 @@ import { Controller, Get, Inject } from '@nestjs/common';
 import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Public } from '../../common/auth/public.decorator.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
-
-export class AppInfoDto {
-  /** Local mode: the SMTP fake's inbox is available to admins */
-  localMode: boolean;
-  version: string;
-}
+import { AppInfoDto } from './app-info.dto.js';
 
 export const APP_VERSION = '0.1.0';
 

@@ -5,6 +5,8 @@ import { Project } from '../projects/project.entity.js';
 
 export const PROFILE_SHAPES = ['circular', 'horseshoe', 'd-shaped', 'rectangular'] as const;
 export type ProfileShape = (typeof PROFILE_SHAPES)[number];
+export const CHAINAGE_STYLES = ['km+m', 'metres'] as const;
+export type ChainageStyle = (typeof CHAINAGE_STYLES)[number];
 export const STAGES = ['full-face', 'top-heading', 'bench', 'invert'] as const;
 export type Stage = (typeof STAGES)[number];
 
@@ -32,6 +34,14 @@ export class Heading {
   @Column({ name: 'start_chainage', type: 'decimal', precision: 12, scale: 3, transformer: decimal })
   startChainage: number;
 
+  /** How chainages of this heading are written: 'km+m' (1+250.0) or plain metres (1250.0). */
+  @Column({ name: 'chainage_style', type: 'enum', enum: CHAINAGE_STYLES, default: 'km+m' })
+  chainageStyle: ChainageStyle;
+
+  /** Decimals shown in chainages (0–3). */
+  @Column({ name: 'chainage_decimals', type: 'tinyint', default: 1 })
+  chainageDecimals: number;
+
   /** Drive direction (trend of the axis in the direction of advance), degrees from north. */
   @Column({ name: 'drive_trend', type: 'decimal', precision: 6, scale: 2, transformer: decimal })
   driveTrend: number;
@@ -58,6 +68,37 @@ export class Heading {
 
   @Column({ name: 'planned_round_length', type: 'decimal', precision: 5, scale: 2, transformer: decimal })
   plannedRoundLength: number;
+
+  /** Optional start coordinates in the project's grid (metres). */
+  @Column({
+    name: 'start_easting',
+    type: 'decimal',
+    precision: 12,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  startEasting: number | null;
+
+  @Column({
+    name: 'start_northing',
+    type: 'decimal',
+    precision: 12,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  startNorthing: number | null;
+
+  @Column({
+    name: 'start_elevation',
+    type: 'decimal',
+    precision: 9,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  startElevation: number | null;
 
   @CreatedAt()
   createdAt: Date;

@@ -6,6 +6,10 @@ import type { ProjectMember } from './project-member.entity.js';
 export const PLANE_NOTATIONS = ['dip-direction/dip', 'dip/dip-direction', 'strike/dip-rhr'] as const;
 export type PlaneNotationSetting = (typeof PLANE_NOTATIONS)[number];
 
+/** Q parameter tables the project follows; one edition is encoded so far. */
+export const Q_TABLE_EDITIONS = ['2015'] as const;
+export type QTableEdition = (typeof Q_TABLE_EDITIONS)[number];
+
 @Entity('projects')
 export class Project {
   @PrimaryGeneratedColumn('uuid')
@@ -25,10 +29,18 @@ export class Project {
   timeZone: string;
 
   @Column({ name: 'q_table_edition', type: 'varchar', length: 40, default: '2015' })
-  qTableEdition: string;
+  qTableEdition: QTableEdition;
 
   @Column({ name: 'default_notation', type: 'varchar', length: 24, default: 'dip-direction/dip' })
   defaultNotation: PlaneNotationSetting;
+
+  /** E-mail addresses that receive every handover of the project. */
+  @Column({ name: 'distribution_list', type: 'json' })
+  distributionList: string[];
+
+  /** Name of the project's coordinate grid, for heading start coordinates. */
+  @Column({ name: 'coordinate_grid', type: 'varchar', length: 120, default: '' })
+  coordinateGrid: string;
 
   @OneToMany('Heading', (h: Heading) => h.project)
   headings: Heading[];

@@ -34,6 +34,8 @@ export function toProjectSummary(p: Project, role: ProjectRole): ProjectSummaryD
     timeZone: p.timeZone,
     qTableEdition: p.qTableEdition,
     defaultNotation: p.defaultNotation,
+    distributionList: p.distributionList ?? [],
+    coordinateGrid: p.coordinateGrid,
     role,
     version: p.version,
     headings: [...(p.headings ?? [])].sort((a, b) => a.code.localeCompare(b.code)).map(toHeadingSummary),

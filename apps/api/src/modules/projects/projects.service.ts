@@ -52,12 +52,20 @@ export class ProjectsService {
           { currentVersion: project.version },
         );
       }
-      const fields = ['name', 'client', 'timeZone', 'defaultNotation'] as const;
+      const fields = [
+        'name',
+        'client',
+        'timeZone',
+        'defaultNotation',
+        'qTableEdition',
+        'distributionList',
+        'coordinateGrid',
+      ] as const;
       const before: Record<string, unknown> = {};
       const after: Record<string, unknown> = {};
       for (const f of fields) {
         const next = dto[f];
-        if (next !== undefined && next !== project[f]) {
+        if (next !== undefined && JSON.stringify(next) !== JSON.stringify(project[f])) {
           before[f] = project[f];
           after[f] = next;
           Object.assign(project, { [f]: next });

@@ -21,6 +21,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/audit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's audit trail, newest first (any member) */
+        get: operations["AuditController_list"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/auth/login": {
         parameters: {
             query?: never;
@@ -90,6 +107,251 @@ export interface paths {
         patch: operations["ProjectsController_update"];
         trace?: never;
     };
+    "/api/projects/{projectId}/headings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's headings (any member) */
+        get: operations["HeadingsController_list"];
+        put?: never;
+        /** Adds a heading (project admins) */
+        post: operations["HeadingsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One heading with its alignment and profile (any member) */
+        get: operations["HeadingsController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /** Changes a heading (project admins); optimistic locking by version */
+        patch: operations["HeadingsController_update"];
+        trace?: never;
+    };
+    "/api/projects/{projectId}/support-classes": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's support classes, best ground first, with range warnings (any member) */
+        get: operations["SupportClassesController_list"];
+        put?: never;
+        /** Adds a class at the end of the list (project admins) */
+        post: operations["SupportClassesController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/support-classes/order": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /** Sets the order of the whole library, best ground first (project admins) */
+        put: operations["SupportClassesController_reorder"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/support-classes/{classId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Deletes a class no record uses (project admins); a class in use can only be retired */
+        delete: operations["SupportClassesController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes or retires a class (project admins) */
+        patch: operations["SupportClassesController_update"];
+        trace?: never;
+    };
+    "/api/projects/{projectId}/trigger-rules": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's trigger rules, red first (any member) */
+        get: operations["TriggerRulesController_list"];
+        put?: never;
+        /** Adds a rule (admins and engineers) */
+        post: operations["TriggerRulesController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/trigger-rules/{ruleId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Deletes a rule (admins and engineers) */
+        delete: operations["TriggerRulesController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes a rule (admins and engineers) */
+        patch: operations["TriggerRulesController_update"];
+        trace?: never;
+    };
+    "/api/projects/{projectId}/team": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Members and open invitations (any member) */
+        get: operations["TeamController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/invitations": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Invites someone by e-mail with a role (project admins). The link expires after 7 days. */
+        post: operations["TeamController_invite"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/invitations/{invitationId}/resend": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Sends a fresh link for an open invitation (project admins) */
+        post: operations["TeamController_resend"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/invitations/{invitationId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Withdraws an open invitation (project admins) */
+        delete: operations["TeamController_revoke"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/members/{memberId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Removes a member (project admins); their records stay, attributed to them */
+        delete: operations["TeamController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes a member's role (project admins); the last admin cannot be demoted */
+        patch: operations["TeamController_changeRole"];
+        trace?: never;
+    };
+    "/api/invitations/{token}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** What an invitation link is for (public; the token is the secret) */
+        get: operations["InvitationsController_info"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/invitations/{token}/accept": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Accepts an invitation: sets the password (or checks the existing one), joins, signs in */
+        post: operations["InvitationsController_accept"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -145,7 +407,27 @@ export interface paths {
 export type webhooks = Record<string, never>;
 export interface components {
     schemas: {
-        AppInfoDto: Record<string, never>;
+        AppInfoDto: {
+            /** @description Local mode: the SMTP fake's inbox is available to admins */
+            localMode: boolean;
+            version: string;
+        };
+        AuditEventDto: {
+            before: {
+                [key: string]: unknown;
+            } | null;
+            after: {
+                [key: string]: unknown;
+            } | null;
+            actorId: string | null;
+            id: string;
+            entityType: string;
+            entityId: string;
+            action: string;
+            /** @description The person's name, kept even after they left the project */
+            actorName: string;
+            at: string;
+        };
         LoginDto: {
             /**
              * Format: email
@@ -190,6 +472,8 @@ export interface components {
             memberships: components["schemas"]["MembershipDto"][];
         };
         /** @enum {string} */
+        QTableEdition: "2015";
+        /** @enum {string} */
         PlaneNotation: "dip-direction/dip" | "dip/dip-direction" | "strike/dip-rhr";
         /** @enum {string} */
         Stage: "full-face" | "top-heading" | "bench" | "invert";
@@ -225,6 +509,7 @@ export interface components {
             roundsToConfirm: number;
         };
         ProjectSummaryDto: {
+            qTableEdition: components["schemas"]["QTableEdition"];
             defaultNotation: components["schemas"]["PlaneNotation"];
             /** @description The caller's role in this project */
             role: components["schemas"]["ProjectRole"];
@@ -234,18 +519,260 @@ export interface components {
             client: string;
             /** @description IANA time zone; shift dates follow it */
             timeZone: string;
-            qTableEdition: string;
+            /** @description Addresses that receive every handover */
+            distributionList: string[];
+            /** @description Name of the project's coordinate grid */
+            coordinateGrid: string;
             /** @description Optimistic-locking version; send it back when changing the project */
             version: number;
             headings: components["schemas"]["HeadingSummaryDto"][];
         };
         UpdateProjectDto: {
             defaultNotation?: components["schemas"]["PlaneNotation"];
+            qTableEdition?: components["schemas"]["QTableEdition"];
             name?: string;
             client?: string;
             timeZone?: string;
+            /** @description Addresses that receive every handover */
+            distributionList?: string[];
+            coordinateGrid?: string;
             /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
             version: number;
+        };
+        /** @enum {string} */
+        ChainageStyle: "km+m" | "metres";
+        HeadingDto: {
+            chainageStyle: components["schemas"]["ChainageStyle"];
+            profileShape: components["schemas"]["ProfileShape"];
+            stages: components["schemas"]["Stage"][];
+            startEasting: number | null;
+            startNorthing: number | null;
+            startElevation: number | null;
+            id: string;
+            projectId: string;
+            code: string;
+            name: string;
+            /** @description Start chainage, metres */
+            startChainage: number;
+            chainageDecimals: number;
+            /** @description Drive direction, degrees clockwise from north */
+            driveTrend: number;
+            /** @description Gradient in per cent, positive rising in the direction of advance */
+            gradientPercent: number;
+            profileWidth: number;
+            profileHeight: number;
+            /** @description Height of the tunnel axis above the invert, metres */
+            axisHeight: number;
+            plannedRoundLength: number;
+            version: number;
+        };
+        CreateHeadingDto: {
+            chainageStyle?: components["schemas"]["ChainageStyle"];
+            profileShape: components["schemas"]["ProfileShape"];
+            stages: components["schemas"]["Stage"][];
+            code: string;
+            name: string;
+            startChainage: number;
+            chainageDecimals?: number;
+            driveTrend: number;
+            /** @description Per cent; −30 to 30 */
+            gradientPercent: number;
+            profileWidth: number;
+            profileHeight: number;
+            axisHeight: number;
+            plannedRoundLength: number;
+            startEasting?: number | null;
+            startNorthing?: number | null;
+            startElevation?: number | null;
+        };
+        UpdateHeadingDto: {
+            chainageStyle?: components["schemas"]["ChainageStyle"];
+            profileShape?: components["schemas"]["ProfileShape"];
+            stages?: components["schemas"]["Stage"][];
+            code?: string;
+            name?: string;
+            startChainage?: number;
+            chainageDecimals?: number;
+            driveTrend?: number;
+            /** @description Per cent; −30 to 30 */
+            gradientPercent?: number;
+            profileWidth?: number;
+            profileHeight?: number;
+            axisHeight?: number;
+            plannedRoundLength?: number;
+            startEasting?: number | null;
+            startNorthing?: number | null;
+            startElevation?: number | null;
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
+            /** @description Required when the drive or profile changes after rounds exist (they are recomputed) */
+            confirmRecompute?: boolean;
+        };
+        SupportClassDto: {
+            /** @description Q range [qMin, qMax); null = open */
+            qMin: number | null;
+            qMax: number | null;
+            /** @description RMR89 range [rmrMin, rmrMax], whole numbers; null = open */
+            rmrMin: number | null;
+            rmrMax: number | null;
+            boltLength: number | null;
+            id: string;
+            code: string;
+            name: string;
+            /** @description 1 = best ground */
+            sortOrder: number;
+            maxRoundLength: number;
+            boltType: string;
+            boltPattern: string;
+            /** @description Sprayed concrete, mm (0 = none) */
+            shotcreteMm: number;
+            steelSupport: string;
+            probingRequired: boolean;
+            notes: string;
+            retired: boolean;
+            version: number;
+        };
+        /** @enum {string} */
+        RangeWarningKind: "overlap" | "gap" | "order";
+        /** @enum {string} */
+        RatingSystem: "Q" | "RMR89";
+        RangeWarningDto: {
+            kind: components["schemas"]["RangeWarningKind"];
+            system: components["schemas"]["RatingSystem"];
+            classes: string[];
+            message: string;
+        };
+        SupportClassLibraryDto: {
+            classes: components["schemas"]["SupportClassDto"][];
+            /** @description Overlaps, gaps and order problems in the active classes' ranges */
+            warnings: components["schemas"]["RangeWarningDto"][];
+        };
+        CreateSupportClassDto: {
+            code: string;
+            name: string;
+            qMin?: number | null;
+            qMax?: number | null;
+            rmrMin?: number | null;
+            rmrMax?: number | null;
+            maxRoundLength: number;
+            boltType?: string;
+            boltLength?: number | null;
+            boltPattern?: string;
+            shotcreteMm?: number;
+            steelSupport?: string;
+            probingRequired?: boolean;
+            notes?: string;
+        };
+        ReorderSupportClassesDto: {
+            /** @description Every class id of the project, best ground first */
+            ids: string[];
+        };
+        UpdateSupportClassDto: {
+            code?: string;
+            name?: string;
+            qMin?: number | null;
+            qMax?: number | null;
+            rmrMin?: number | null;
+            rmrMax?: number | null;
+            maxRoundLength?: number;
+            boltType?: string;
+            boltLength?: number | null;
+            boltPattern?: string;
+            shotcreteMm?: number;
+            steelSupport?: string;
+            probingRequired?: boolean;
+            notes?: string;
+            retired?: boolean;
+            /** @description The version you last read */
+            version: number;
+        };
+        /** @enum {string} */
+        WatchedQuantity: "q" | "rmr89" | "inflow-per-10m" | "overbreak" | "adverse-orientation" | "crown-crossing-within" | "support-class-change" | "open-red-hazard";
+        /** @enum {string} */
+        Comparison: "<" | "<=" | ">" | ">=" | "=";
+        TriggerRuleDto: {
+            watch: components["schemas"]["WatchedQuantity"];
+            comparison: components["schemas"]["Comparison"] | null;
+            threshold: number | null;
+            level: components["schemas"]["TriggerLevel"];
+            ownerRole: components["schemas"]["ProjectRole"];
+            id: string;
+            action: string;
+            /** @description Time allowed to act, hours */
+            timeAllowedHours: number;
+            enabled: boolean;
+            /** @description The rule in words, e.g. "Q < 0.1 → red" */
+            summary: string;
+            version: number;
+        };
+        CreateTriggerRuleDto: {
+            watch: components["schemas"]["WatchedQuantity"];
+            comparison?: components["schemas"]["Comparison"] | null;
+            level: components["schemas"]["TriggerLevel"];
+            ownerRole: components["schemas"]["ProjectRole"];
+            threshold?: number | null;
+            action: string;
+            timeAllowedHours: number;
+            enabled?: boolean;
+        };
+        UpdateTriggerRuleDto: {
+            watch?: components["schemas"]["WatchedQuantity"];
+            comparison?: components["schemas"]["Comparison"] | null;
+            level?: components["schemas"]["TriggerLevel"];
+            ownerRole?: components["schemas"]["ProjectRole"];
+            threshold?: number | null;
+            action?: string;
+            timeAllowedHours?: number;
+            enabled?: boolean;
+            version: number;
+        };
+        MemberDto: {
+            role: components["schemas"]["ProjectRole"];
+            memberId: string;
+            userId: string;
+            name: string;
+            email: string;
+            /** @description When they joined the project */
+            since: string;
+        };
+        InvitationDto: {
+            role: components["schemas"]["ProjectRole"];
+            id: string;
+            email: string;
+            name: string;
+            expiresAt: string;
+            invitedBy: string;
+            /** @description Whether the e-mail reached the mail server; if not, resend it */
+            emailSent: boolean;
+        };
+        TeamDto: {
+            members: components["schemas"]["MemberDto"][];
+            /** @description Invitations not yet accepted and not expired */
+            invitations: components["schemas"]["InvitationDto"][];
+        };
+        InviteDto: {
+            role: components["schemas"]["ProjectRole"];
+            /** Format: email */
+            email: string;
+            name?: string;
+        };
+        ChangeRoleDto: {
+            role: components["schemas"]["ProjectRole"];
+        };
+        InvitationInfoDto: {
+            role: components["schemas"]["ProjectRole"];
+            projectName: string;
+            email: string;
+            name: string;
+            expiresAt: string;
+            /** @description True when the e-mail already has a Roundbook account: accept with its password */
+            accountExists: boolean;
+        };
+        AcceptInvitationDto: {
+            /** @description Your name as colleagues know it (new accounts) */
+            name?: string;
+            /** @description A new password (new accounts, at least 10 characters) or your existing password */
+            password: string;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -302,6 +829,45 @@ export interface operations {
                 content: {
                     "application/json": components["schemas"]["AppInfoDto"];
                 };
+            };
+        };
+    };
+    AuditController_list: {
+        parameters: {
+            query?: {
+                entityType?: string;
+                entityId?: string;
+                limit?: number;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AuditEventDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
             };
         };
     };
@@ -463,6 +1029,826 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HeadingsController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HeadingsController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateHeadingDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description CONFLICT: the code is taken */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HeadingsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HeadingsController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateHeadingDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description STALE_VERSION or CONFLICT */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    SupportClassesController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateSupportClassDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_reorder: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReorderSupportClassesDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    SupportClassesController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                classId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                classId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateSupportClassDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TriggerRulesController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_invite: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["InviteDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already a member */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TeamController_resend: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                invitationId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_revoke: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                invitationId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                memberId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TeamController_changeRole: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                memberId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ChangeRoleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    InvitationsController_info: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationInfoDto"];
+                };
+            };
+        };
+    };
+    InvitationsController_accept: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcceptInvitationDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TokenResponseDto"];
                 };
             };
         };

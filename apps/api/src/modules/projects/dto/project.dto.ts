@@ -9,9 +9,13 @@ import {
   Validate,
   type ValidatorConstraintInterface,
   ValidatorConstraint,
+  ArrayMaxSize,
+  ArrayUnique,
+  IsArray,
+  IsEmail,
 } from 'class-validator';
 import { ROLE_ENUM } from '../../auth/dto/token-response.dto.js';
-import { PLANE_NOTATIONS } from '../project.entity.js';
+import { PLANE_NOTATIONS, Q_TABLE_EDITIONS } from '../project.entity.js';
 
 export class LastHandoverDto {
   sentAt: string;
@@ -55,9 +59,14 @@ export class ProjectSummaryDto {
   client: string;
   /** IANA time zone; shift dates follow it */
   timeZone: string;
-  qTableEdition: string;
+  @ApiProperty({ enum: Q_TABLE_EDITIONS, enumName: 'QTableEdition' })
+  qTableEdition: (typeof Q_TABLE_EDITIONS)[number];
   @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation' })
   defaultNotation: (typeof PLANE_NOTATIONS)[number];
+  /** Addresses that receive every handover */
+  distributionList: string[];
+  /** Name of the project's coordinate grid */
+  coordinateGrid: string;
   /** The caller's role in this project */
   @ApiProperty({ enum: ROLE_ENUM, enumName: 'ProjectRole' })
   role: 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';
@@ -101,6 +110,24 @@ export class UpdateProjectDto {
   @IsIn(PLANE_NOTATIONS)
   @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation', required: false })
   defaultNotation?: (typeof PLANE_NOTATIONS)[number];
+
+  @IsOptional()
+  @IsIn(Q_TABLE_EDITIONS)
+  @ApiProperty({ enum: Q_TABLE_EDITIONS, enumName: 'QTableEdition', required: false })
+  qTableEdition?: (typeof Q_TABLE_EDITIONS)[number];
+
+  /** Addresses that receive every handover */
+  @IsOptional()
+  @IsArray()
+  @ArrayMaxSize(50)
+  @ArrayUnique()
+  @IsEmail({}, { each: true, message: 'Each entry must be an e-mail address such as name@example.org.' })
+  distributionList?: string[];
+
+  @IsOptional()
+  @IsString()
+  @Length(0, 120)
+  coordinateGrid?: string;
 
   /** The version you last read; a stale version is refused with 409 STALE_VERSION */
   @IsInt()

@@ -1,0 +1,45 @@
+import { escapeHtml } from './escape.js';
+
+export interface InvitationEmail {
+  inviteeName: string;
+  inviterName: string;
+  projectName: string;
+  role: string;
+  link: string;
+  expiresAt: Date;
+}
+
+const ROLE_WORDS: Record<string, string> = {
+  admin: 'project admin (sets up headings, support classes, triggers and the team)',
+  geologist: 'geologist (records the rounds)',
+  engineer: 'engineer (reviews rounds and confirms support)',
+  supervisor: 'shift supervisor (sends and acknowledges handovers)',
+  viewer: 'viewer (reads the records)',
+};
+
+/** The invitation e-mail: plain text and a simple HTML version with the same words. */
+export function invitationEmail(e: InvitationEmail): { subject: string; text: string; html: string } {
+  const role = ROLE_WORDS[e.role] ?? e.role;
+  const until = e.expiresAt.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
+  const greeting = e.inviteeName ? `Hello ${e.inviteeName},` : 'Hello,';
+  const text = [
+    greeting,
+    '',
+    `${e.inviterName} has added you to "${e.projectName}" in Roundbook as ${role}.`,
+    '',
+    `Open this link to set your password and join (valid until ${until}):`,
+    e.link,
+    '',
+    'If you did not expect this, ignore this message; nothing happens unless the link is used.',
+    '',
+    'Roundbook — round-by-round face records and shift handovers',
+  ].join('\n');
+  const html = `<div style="font-family:'Open Sans',Arial,sans-serif;font-size:15px;line-height:1.5;color:#1d2327">
+<p>${escapeHtml(greeting)}</p>
+<p>${escapeHtml(e.inviterName)} has added you to <strong>${escapeHtml(e.projectName)}</strong> in Roundbook as ${escapeHtml(role)}.</p>
+<p><a href="${escapeHtml(e.link)}" style="display:inline-block;padding:12px 20px;background:#1f5f7a;color:#ffffff;text-decoration:none;border-radius:6px">Set my password and join</a></p>
+<p style="font-size:13px;color:#4a555c">The link is valid until ${escapeHtml(until)}. If the button does not work, copy this address into your browser:<br>${escapeHtml(e.link)}</p>
+<p style="font-size:13px;color:#4a555c">If you did not expect this, ignore this message; nothing happens unless the link is used.</p>
+</div>`;
+  return { subject: `You are invited to ${e.projectName} in Roundbook`, text, html };
+}

@@ -1,0 +1,5 @@
+export class AppInfoDto {
+  /** Local mode: the SMTP fake's inbox is available to admins */
+  localMode: boolean;
+  version: string;
+}

@@ -1,0 +1,143 @@
+import { ApiProperty, PartialType } from '@nestjs/swagger';
+import {
+  ArrayMinSize,
+  ArrayUnique,
+  IsArray,
+  IsBoolean,
+  IsIn,
+  IsInt,
+  IsNumber,
+  IsOptional,
+  IsString,
+  Length,
+  Matches,
+  Max,
+  Min,
+} from 'class-validator';
+import { CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '../heading.entity.js';
+
+export class HeadingDto {
+  id: string;
+  projectId: string;
+  code: string;
+  name: string;
+  /** Start chainage, metres */
+  startChainage: number;
+  @ApiProperty({ enum: CHAINAGE_STYLES, enumName: 'ChainageStyle' })
+  chainageStyle: (typeof CHAINAGE_STYLES)[number];
+  chainageDecimals: number;
+  /** Drive direction, degrees clockwise from north */
+  driveTrend: number;
+  /** Gradient in per cent, positive rising in the direction of advance */
+  gradientPercent: number;
+  @ApiProperty({ enum: PROFILE_SHAPES, enumName: 'ProfileShape' })
+  profileShape: (typeof PROFILE_SHAPES)[number];
+  profileWidth: number;
+  profileHeight: number;
+  /** Height of the tunnel axis above the invert, metres */
+  axisHeight: number;
+  @ApiProperty({ enum: STAGES, enumName: 'Stage', isArray: true })
+  stages: Array<(typeof STAGES)[number]>;
+  plannedRoundLength: number;
+  @ApiProperty({ type: Number, nullable: true })
+  startEasting: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  startNorthing: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  startElevation: number | null;
+  version: number;
+}
+
+export class CreateHeadingDto {
+  @IsString()
+  @Matches(/^[A-Za-z0-9][A-Za-z0-9._-]{0,19}$/, {
+    message: 'Use up to 20 letters, digits, dots, dashes or underscores.',
+  })
+  code: string;
+
+  @IsString()
+  @Length(1, 160, { message: 'Give the heading a name (up to 160 characters).' })
+  name: string;
+
+  @IsNumber({ maxDecimalPlaces: 3 }, { message: 'Start chainage is a number of metres, e.g. 1250.0.' })
+  @Min(-99999)
+  @Max(999999)
+  startChainage: number;
+
+  @IsOptional()
+  @IsIn(CHAINAGE_STYLES)
+  @ApiProperty({ enum: CHAINAGE_STYLES, enumName: 'ChainageStyle', required: false })
+  chainageStyle?: (typeof CHAINAGE_STYLES)[number];
+
+  @IsOptional()
+  @IsInt()
+  @Min(0)
+  @Max(3)
+  chainageDecimals?: number;
+
+  @IsNumber({}, { message: 'Drive direction is an azimuth in degrees, 0 to less than 360.' })
+  @Min(0, { message: 'Drive direction is an azimuth in degrees, 0 to less than 360.' })
+  @Max(359.99, { message: 'Drive direction is an azimuth in degrees, 0 to less than 360.' })
+  driveTrend: number;
+
+  /** Per cent; −30 to 30 */
+  @IsNumber()
+  @Min(-30, { message: 'Gradients steeper than 30 % are outside what Roundbook handles.' })
+  @Max(30, { message: 'Gradients steeper than 30 % are outside what Roundbook handles.' })
+  gradientPercent: number;
+
+  @IsIn(PROFILE_SHAPES)
+  @ApiProperty({ enum: PROFILE_SHAPES, enumName: 'ProfileShape' })
+  profileShape: (typeof PROFILE_SHAPES)[number];
+
+  @IsNumber()
+  @Min(1, { message: 'Width is 1 to 40 m.' })
+  @Max(40, { message: 'Width is 1 to 40 m.' })
+  profileWidth: number;
+
+  @IsNumber()
+  @Min(1, { message: 'Height is 1 to 40 m.' })
+  @Max(40, { message: 'Height is 1 to 40 m.' })
+  profileHeight: number;
+
+  @IsNumber()
+  @Min(0, { message: 'The axis lies between the invert and the crown.' })
+  @Max(40)
+  axisHeight: number;
+
+  @IsArray()
+  @ArrayMinSize(1, { message: 'Choose at least one stage.' })
+  @ArrayUnique()
+  @IsIn(STAGES, { each: true })
+  @ApiProperty({ enum: STAGES, enumName: 'Stage', isArray: true })
+  stages: Array<(typeof STAGES)[number]>;
+
+  @IsNumber()
+  @Min(0.3, { message: 'Planned round length is 0.3 to 8 m.' })
+  @Max(8, { message: 'Planned round length is 0.3 to 8 m.' })
+  plannedRoundLength: number;
+
+  @IsOptional()
+  @IsNumber()
+  startEasting?: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  startNorthing?: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  startElevation?: number | null;
+}
+
+export class UpdateHeadingDto extends PartialType(CreateHeadingDto) {
+  /** The version you last read; a stale version is refused with 409 STALE_VERSION */
+  @IsInt()
+  @Min(1)
+  version: number;
+
+  /** Required when the drive or profile changes after rounds exist (they are recomputed) */
+  @IsOptional()
+  @IsBoolean()
+  confirmRecompute?: boolean;
+}

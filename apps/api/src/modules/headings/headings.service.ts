@@ -1,0 +1,135 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
+import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
+import { definedOnly } from '../../common/dto/defined-only.js';
+import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { CreateHeadingDto, HeadingDto, UpdateHeadingDto } from './dto/heading.dto.js';
+import { Heading } from './heading.entity.js';
+import { HEADING_FIELDS, toHeadingDto } from './headings.mapper.js';
+
+/** Checks that involve more than one field; messages land on the field they concern. */
+function crossFieldErrors(
+  h: Pick<Heading, 'profileShape' | 'profileWidth' | 'profileHeight' | 'axisHeight'>,
+): Record<string, string> {
+  const fields: Record<string, string> = {};
+  if (h.axisHeight > h.profileHeight)
+    fields.axisHeight = `The axis (${h.axisHeight} m) must lie within the height (${h.profileHeight} m).`;
+  if (h.profileShape === 'circular' && Math.abs(h.profileWidth - h.profileHeight) > 0.005) {
+    fields.profileHeight = 'A circular profile has equal width and height.';
+  }
+  return fields;
+}
+
+@Injectable()
+export class HeadingsService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(AuditService) private readonly audit: AuditService,
+  ) {}
+
+  async list(access: ProjectAccess): Promise<HeadingDto[]> {
+    const headings = await this.dataSource
+      .getRepository(Heading)
+      .find({ where: { projectId: access.projectId }, order: { code: 'ASC' } });
+    return headings.map(toHeadingDto);
+  }
+
+  async get(access: ProjectAccess, headingId: string): Promise<HeadingDto> {
+    return toHeadingDto(await this.find(this.dataSource.manager, access, headingId));
+  }
+
+  async create(caller: AuthUser, access: ProjectAccess, dto: CreateHeadingDto): Promise<HeadingDto> {
+    const draft = {
+      chainageStyle: 'km+m' as const,
+      chainageDecimals: 1,
+      startEasting: null,
+      startNorthing: null,
+      startElevation: null,
+      ...definedOnly(dto),
+    } as CreateHeadingDto & Required<Pick<Heading, 'chainageStyle' | 'chainageDecimals'>>;
+    const errors = crossFieldErrors(draft);
+    if (Object.keys(errors).length)
+      throw new DomainException(ErrorCode.ValidationFailed, Object.values(errors)[0], errors);
+    return this.dataSource.transaction(async (manager) => {
+      await this.assertCodeFree(manager, access.projectId, dto.code);
+      const heading = await manager.save(manager.create(Heading, { ...draft, projectId: access.projectId }));
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'heading',
+        entityId: heading.id,
+        action: 'create',
+        after: auditSnapshot(heading, HEADING_FIELDS),
+      });
+      return toHeadingDto(heading);
+    });
+  }
+
+  async update(
+    caller: AuthUser,
+    access: ProjectAccess,
+    headingId: string,
+    dto: UpdateHeadingDto,
+  ): Promise<HeadingDto> {
+    return this.dataSource.transaction(async (manager) => {
+      const heading = await this.find(manager, access, headingId, true);
+      if (heading.version !== dto.version) {
+        throw new DomainException(
+          ErrorCode.StaleVersion,
+          'Someone else changed this heading since you opened it. Review their version, then apply your change again.',
+          undefined,
+          { current: toHeadingDto(heading) },
+        );
+      }
+      const before = { ...heading };
+      const { version: _v, confirmRecompute: _c, ...changes } = definedOnly(dto);
+      Object.assign(heading, changes);
+      const errors = crossFieldErrors(heading);
+      if (Object.keys(errors).length)
+        throw new DomainException(ErrorCode.ValidationFailed, Object.values(errors)[0], errors);
+      if (changes.code && changes.code !== before.code)
+        await this.assertCodeFree(manager, access.projectId, changes.code);
+      const diff = auditDiff(before, heading, HEADING_FIELDS);
+      if (!diff) return toHeadingDto(before);
+      const saved = await manager.save(heading);
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'heading',
+        entityId: heading.id,
+        action: 'update',
+        ...diff,
+      });
+      return toHeadingDto(saved);
+    });
+  }
+
+  private async find(
+    manager: EntityManager,
+    access: ProjectAccess,
+    headingId: string,
+    lock = false,
+  ): Promise<Heading> {
+    const heading = await manager.findOne(Heading, {
+      where: { id: headingId, projectId: access.projectId },
+      ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}),
+    });
+    if (!heading) throw DomainException.notFound('The heading');
+    return heading;
+  }
+
+  private async assertCodeFree(manager: EntityManager, projectId: string, code: string): Promise<void> {
+    if (await manager.exists(Heading, { where: { projectId, code } })) {
+      throw new DomainException(
+        ErrorCode.Conflict,
+        `A heading with code ${code} already exists in this project.`,
+        {
+          code: 'This code is already used by another heading.',
+        },
+      );
+    }
+  }
+}

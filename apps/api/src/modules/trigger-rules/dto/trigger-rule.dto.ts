@@ -1,0 +1,69 @@
+import { ApiProperty, PartialType } from '@nestjs/swagger';
+import { IsBoolean, IsIn, IsInt, IsNumber, IsOptional, IsString, Length, Max, Min } from 'class-validator';
+import { PROJECT_ROLES } from '../../../common/auth/auth-user.js';
+import { COMPARISONS, LEVELS, WATCHED } from '../trigger-rule.entity.js';
+
+export class TriggerRuleDto {
+  id: string;
+  @ApiProperty({ enum: WATCHED, enumName: 'WatchedQuantity' })
+  watch: (typeof WATCHED)[number];
+  @ApiProperty({ enum: COMPARISONS, enumName: 'Comparison', nullable: true })
+  comparison: (typeof COMPARISONS)[number] | null;
+  @ApiProperty({ type: Number, nullable: true })
+  threshold: number | null;
+  @ApiProperty({ enum: LEVELS, enumName: 'TriggerLevel' })
+  level: (typeof LEVELS)[number];
+  action: string;
+  @ApiProperty({ enum: PROJECT_ROLES, enumName: 'ProjectRole' })
+  ownerRole: (typeof PROJECT_ROLES)[number];
+  /** Time allowed to act, hours */
+  timeAllowedHours: number;
+  enabled: boolean;
+  /** The rule in words, e.g. "Q < 0.1 → red" */
+  summary: string;
+  version: number;
+}
+
+export class CreateTriggerRuleDto {
+  @IsIn(WATCHED)
+  @ApiProperty({ enum: WATCHED, enumName: 'WatchedQuantity' })
+  watch: (typeof WATCHED)[number];
+
+  @IsOptional()
+  @IsIn(COMPARISONS)
+  @ApiProperty({ enum: COMPARISONS, enumName: 'Comparison', required: false, nullable: true })
+  comparison?: (typeof COMPARISONS)[number] | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(-1e6)
+  @Max(1e6)
+  threshold?: number | null;
+
+  @IsIn(LEVELS)
+  @ApiProperty({ enum: LEVELS, enumName: 'TriggerLevel' })
+  level: (typeof LEVELS)[number];
+
+  @IsString()
+  @Length(3, 2000, { message: 'Say what is to be done when the rule fires.' })
+  action: string;
+
+  @IsIn(PROJECT_ROLES)
+  @ApiProperty({ enum: PROJECT_ROLES, enumName: 'ProjectRole' })
+  ownerRole: (typeof PROJECT_ROLES)[number];
+
+  @IsNumber()
+  @Min(0, { message: 'Time allowed is 0 to 720 hours.' })
+  @Max(720, { message: 'Time allowed is 0 to 720 hours.' })
+  timeAllowedHours: number;
+
+  @IsOptional()
+  @IsBoolean()
+  enabled?: boolean;
+}
+
+export class UpdateTriggerRuleDto extends PartialType(CreateTriggerRuleDto) {
+  @IsInt()
+  @Min(1)
+  version: number;
+}

@@ -1,0 +1,142 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
+import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
+import { definedOnly } from '../../common/dto/defined-only.js';
+import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { CreateTriggerRuleDto, TriggerRuleDto, UpdateTriggerRuleDto } from './dto/trigger-rule.dto.js';
+import { TriggerRule } from './trigger-rule.entity.js';
+import { triggerRuleErrors, triggerRuleSummary } from './trigger-rule.rules.js';
+
+const FIELDS = [
+  'watch',
+  'comparison',
+  'threshold',
+  'level',
+  'action',
+  'ownerRole',
+  'timeAllowedHours',
+  'enabled',
+] as const satisfies ReadonlyArray<keyof TriggerRule>;
+const LEVEL_ORDER = { red: 0, amber: 1, green: 2 } as const;
+
+const toDto = (r: TriggerRule): TriggerRuleDto => ({
+  id: r.id,
+  watch: r.watch,
+  comparison: r.comparison,
+  threshold: r.threshold,
+  level: r.level,
+  action: r.action,
+  ownerRole: r.ownerRole,
+  timeAllowedHours: r.timeAllowedHours,
+  enabled: r.enabled,
+  summary: triggerRuleSummary(r),
+  version: r.version,
+});
+
+@Injectable()
+export class TriggerRulesService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(AuditService) private readonly audit: AuditService,
+  ) {}
+
+  async list(access: ProjectAccess): Promise<TriggerRuleDto[]> {
+    const rules = await this.dataSource
+      .getRepository(TriggerRule)
+      .find({ where: { projectId: access.projectId }, order: { createdAt: 'ASC' } });
+    return rules.sort((a, b) => LEVEL_ORDER[a.level] - LEVEL_ORDER[b.level]).map(toDto);
+  }
+
+  async create(caller: AuthUser, access: ProjectAccess, dto: CreateTriggerRuleDto): Promise<TriggerRuleDto> {
+    return this.dataSource.transaction(async (manager) => {
+      const rule = manager.create(TriggerRule, {
+        comparison: null,
+        threshold: null,
+        enabled: true,
+        ...definedOnly(dto),
+        projectId: access.projectId,
+      });
+      this.assertValid(rule);
+      const saved = await manager.save(rule);
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'trigger-rule',
+        entityId: saved.id,
+        action: 'create',
+        after: auditSnapshot(saved, FIELDS),
+      });
+      return toDto(saved);
+    });
+  }
+
+  async update(
+    caller: AuthUser,
+    access: ProjectAccess,
+    id: string,
+    dto: UpdateTriggerRuleDto,
+  ): Promise<TriggerRuleDto> {
+    return this.dataSource.transaction(async (manager) => {
+      const rule = await this.find(manager, access, id);
+      if (rule.version !== dto.version) {
+        throw new DomainException(
+          ErrorCode.StaleVersion,
+          'Someone else changed this rule since you opened it. Review their version, then apply your change again.',
+          undefined,
+          {
+            current: toDto(rule),
+          },
+        );
+      }
+      const before = { ...rule };
+      const { version: _v, ...changes } = definedOnly(dto);
+      Object.assign(rule, changes);
+      this.assertValid(rule);
+      const diff = auditDiff(before, rule, FIELDS);
+      if (!diff) return toDto(before);
+      const saved = await manager.save(rule);
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'trigger-rule',
+        entityId: id,
+        action: 'update',
+        ...diff,
+      });
+      return toDto(saved);
+    });
+  }
+
+  async remove(caller: AuthUser, access: ProjectAccess, id: string): Promise<void> {
+    await this.dataSource.transaction(async (manager) => {
+      const rule = await this.find(manager, access, id);
+      await manager.delete(TriggerRule, { id });
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'trigger-rule',
+        entityId: id,
+        action: 'delete',
+        before: auditSnapshot(rule, FIELDS),
+      });
+    });
+  }
+
+  private assertValid(rule: TriggerRule): void {
+    const errors = triggerRuleErrors(rule);
+    if (Object.keys(errors).length)
+      throw new DomainException(ErrorCode.ValidationFailed, Object.values(errors)[0], errors);
+  }
+
+  private async find(manager: EntityManager, access: ProjectAccess, id: string): Promise<TriggerRule> {
+    const rule = await manager.findOne(TriggerRule, {
+      where: { id, projectId: access.projectId },
+      lock: { mode: 'pessimistic_write' },
+    });
+    if (!rule) throw DomainException.notFound('The trigger rule');
+    return rule;
+  }
+}

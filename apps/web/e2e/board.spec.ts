@@ -1,0 +1,186 @@
+import { mkdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { expect, test } from '@playwright/test';
+import type { Page } from '@playwright/test';
+
+// Drives the built app served by the API (started by the root `npm test` / `npm start`).
+// Logins are rate-limited per minute, so this file signs in once per role and once with a wrong password.
+
+const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
+const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
+mkdirSync(shots, { recursive: true });
+
+const roles = [
+  { role: 'admin', nav: ['Board', 'Setup', 'Local mail'] },
+  { role: 'geologist', nav: ['Board'] },
+  { role: 'engineer', nav: ['Board', 'To confirm'] },
+  { role: 'supervisor', nav: ['Board', 'Received'] },
+  { role: 'viewer', nav: ['Board'] },
+] as const;
+
+const sampleMail = [
+  {
+    id: 'sample-1',
+    from: 'roundbook@roundbook.test',
+    to: ['night-shift@roundbook.test'],
+    subject: 'Handover HR-D, day shift',
+    date: '2026-12-01T06:00:00Z',
+    text: 'Face at 2+456.0. Support installed to the face.',
+    html: null,
+    attachments: [],
+  },
+  {
+    id: 'sample-2',
+    from: 'roundbook@roundbook.test',
+    to: ['shift-engineer@roundbook.test'],
+    subject: 'Round 7 on HR-U waiting for review',
+    date: '2026-12-01T09:30:00Z',
+    text: 'Round 7 at 2+453.5 was submitted and waits for your review.',
+    html: '<h1 style="font-family:sans-serif">Round 7</h1><p>Waiting for <b>review</b>.</p>',
+    attachments: [{ index: 0, filename: 'rounds.csv', contentType: 'text/csv', size: 2048 }],
+  },
+];
+
+interface ProjectSummary {
+  name: string;
+  headings: { code: string; name: string }[];
+}
+
+/** Collects console errors and failed same-origin requests, so a test can assert there were none. */
+function watchForProblems(page: Page): string[] {
+  const problems: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error') problems.push(`console: ${message.text()}`);
+  });
+  page.on('pageerror', (error) => problems.push(`page: ${error.message}`));
+  page.on('response', (response) => {
+    if (response.status() >= 500) problems.push(`${response.status()} ${response.url()}`);
+  });
+  return problems;
+}
+
+async function signIn(page: Page, email: string, secret: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(secret);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** What the API says this person should see on the Board, asked with the token the page holds. */
+async function projectsFromApi(page: Page): Promise<ProjectSummary[]> {
+  return page.evaluate(async () => {
+    const session = JSON.parse(window.localStorage.getItem('roundbook.session') ?? '{}') as {
+      accessToken?: string;
+    };
+    const response = await fetch('/api/projects', {
+      headers: { Authorization: `Bearer ${session.accessToken}` },
+    });
+    return (await response.json()) as ProjectSummary[];
+  });
+}
+
+test('a wrong password is refused with a clear message', async ({ page }) => {
+  await signIn(page, 'geologist@roundbook.test', `${password}-not-it`);
+  await expect(page.getByRole('alert')).toContainText('E-mail or password not recognised');
+  await expect(page).toHaveURL(/\/sign-in$/);
+  await page.screenshot({ path: `${shots}sign-in-wrong-password.png` });
+});
+
+test('an invalid token sends the person to sign-in, keeping the page to return to', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.evaluate(() => {
+    window.localStorage.setItem(
+      'roundbook.session',
+      JSON.stringify({
+        accessToken: 'not-a-valid-token',
+        expiresAt: '2099-01-01T00:00:00.000Z',
+        user: { id: 'x', email: 'x@roundbook.test', name: 'Nobody' },
+      }),
+    );
+  });
+  await page.goto('/mail');
+  await expect(page).toHaveURL(/\/sign-in\?next=%2Fmail&reason=expired$/);
+  await expect(page.getByText('Signed out for safety')).toBeVisible();
+});
+
+for (const { role, nav } of roles) {
+  test(`${role}: signs in and sees the Board`, async ({ page }) => {
+    const problems = watchForProblems(page);
+    await signIn(page, `${role}@roundbook.test`, password);
+    await expect(page).toHaveURL(/\/$/);
+
+    const projects = await projectsFromApi(page);
+    expect(projects.length).toBeGreaterThanOrEqual(1);
+    const headingCount = projects.reduce((sum, p) => sum + p.headings.length, 0);
+    expect(headingCount).toBeGreaterThanOrEqual(2);
+
+    for (const project of projects) {
+      const board = page.getByRole('region', { name: project.name });
+      await expect(board.getByRole('heading', { level: 1, name: project.name })).toBeVisible();
+      for (const heading of project.headings) {
+        const card = board.getByRole('article', { name: heading.name });
+        await expect(card).toBeVisible();
+        await expect(card).toContainText(heading.code);
+        await expect(card).toContainText('Face chainage');
+      }
+    }
+    await expect(page.getByTestId('heading-card')).toHaveCount(headingCount);
+    await expect(page.getByTestId('caution-note')).toContainText('Nobody goes under unsupported ground');
+
+    const links = page.getByRole('navigation', { name: 'Main' }).getByRole('link');
+    await expect(links).toHaveText([...nav]);
+
+    // Gloved hands: every control in the header and navigation is at least 44 px high.
+    for (const control of await page.locator('header button, nav[aria-label="Main"] a').all()) {
+      const box = await control.boundingBox();
+      expect(box?.height ?? 0).toBeGreaterThanOrEqual(44);
+    }
+    expect(await page.evaluate(() => document.fonts.check('16px "Open Sans"'))).toBe(true);
+
+    await page.screenshot({ path: `${shots}board-${role}.png` });
+
+    if (role === 'admin') {
+      await links.filter({ hasText: 'Local mail' }).click();
+      await expect(page).toHaveURL(/\/mail$/);
+      await expect(page.getByRole('heading', { level: 1, name: 'Local mail' })).toBeVisible();
+      await page.screenshot({ path: `${shots}mail-admin.png` });
+
+      // The demo inbox may be empty, so also check how messages render, with invented ones
+      // answered by the browser in place of the API (nothing is sent to the SMTP fake).
+      await page.route('**/api/local/mail', (route) => route.fulfill({ json: sampleMail }));
+      await page.route('**/api/local/mail/sample-2/attachments/0', (route) =>
+        route.fulfill({ body: 'chainage,class\n2+453.5,B2\n', contentType: 'text/csv' }),
+      );
+      await page.getByRole('button', { name: 'Check for new' }).click();
+      const received = page.getByRole('navigation', { name: 'Received e-mails' }).getByRole('button');
+      await expect(received).toHaveCount(2);
+      await expect(received.first()).toContainText('Round 7 on HR-U waiting for review');
+      const detail = page.getByTestId('mail-detail');
+      await expect(detail).toContainText('shift-engineer@roundbook.test');
+      await expect(detail.locator('iframe[sandbox=""]')).toHaveCount(1);
+      const downloading = page.waitForEvent('download');
+      await detail.getByRole('button', { name: /rounds\.csv/ }).click();
+      expect((await downloading).suggestedFilename()).toBe('rounds.csv');
+      await page.screenshot({ path: `${shots}mail-admin-sample.png` });
+      await page.unrouteAll();
+    }
+
+    if (role === 'geologist') {
+      await page.getByRole('switch', { name: 'High contrast' }).click();
+      await expect(page.locator('[data-theme-mode="high-contrast"]')).toBeVisible();
+      await page.screenshot({ path: `${shots}board-geologist-high-contrast.png` });
+      await page.reload();
+      await expect(page.getByRole('switch', { name: 'High contrast' })).toBeChecked();
+    }
+
+    if (role === 'viewer') {
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await expect(page).toHaveURL(/\/sign-in$/);
+      await page.goto('/');
+      await expect(page).toHaveURL(/\/sign-in$/);
+      await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible();
+    }
+
+    expect(problems).toEqual([]);
+  });
+}

@@ -1,0 +1,222 @@
+import { Button, makeStyles, mergeClasses, Select, Text, tokens } from '@fluentui/react-components';
+import {
+  BoardRegular,
+  ClipboardTaskListLtrRegular,
+  MailInboxRegular,
+  PeopleSwapRegular,
+  SettingsRegular,
+  SignOutRegular,
+} from '@fluentui/react-icons';
+import { RoleBadge, TOUCH_TARGET_PX } from '@roundbook/ui';
+import type { QueryClient } from '@tanstack/react-query';
+import { useQueryClient } from '@tanstack/react-query';
+import { Suspense, useState } from 'react';
+import type { ReactElement } from 'react';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { CautionNote } from '@/app/caution-note';
+import { HighContrastSwitch } from '@/app/high-contrast-switch';
+import type { NavItem } from '@/app/navigation';
+import { navigationFor, pickCurrentProject, rememberCurrentProject } from '@/app/navigation';
+import { PageLoading } from '@/app/routes/page-loading';
+import { guarded } from '@/app/routes/session-guard';
+import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
+import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
+import { clearSession } from '@/lib/session';
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  ({ request }: LoaderFunctionArgs) =>
+    guarded(request, async () => {
+      await Promise.all([
+        queryClient.ensureQueryData(currentUserQueryOptions()),
+        queryClient.ensureQueryData(configQueryOptions()),
+      ]);
+      return null;
+    });
+
+const navIcons: Record<NavItem['icon'], ReactElement> = {
+  board: <BoardRegular />,
+  confirm: <ClipboardTaskListLtrRegular />,
+  received: <PeopleSwapRegular />,
+  setup: <SettingsRegular />,
+  mail: <MailInboxRegular />,
+};
+
+const useStyles = makeStyles({
+  shell: { display: 'flex', flexDirection: 'column', minHeight: '100dvh' },
+  header: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    columnGap: tokens.spacingHorizontalXL,
+    rowGap: tokens.spacingVerticalS,
+    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalXL}`,
+    backgroundColor: tokens.colorNeutralBackground1,
+    borderBottom: `${tokens.strokeWidthThickest} solid ${tokens.colorBrandStroke1}`,
+  },
+  wordmark: {
+    fontSize: tokens.fontSizeBase600,
+    fontWeight: tokens.fontWeightBold,
+    color: tokens.colorBrandForeground1,
+    letterSpacing: '-0.01em',
+    textDecoration: 'none',
+    display: 'inline-flex',
+    alignItems: 'center',
+    minHeight: `${TOUCH_TARGET_PX}px`,
+  },
+  project: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM, minWidth: 0 },
+  projectName: { fontWeight: tokens.fontWeightSemibold },
+  select: { minWidth: '16rem', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
+  spacer: { flexGrow: 1 },
+  user: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM },
+  touch: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
+  nav: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    gap: tokens.spacingHorizontalS,
+    padding: `${tokens.spacingVerticalS} ${tokens.spacingHorizontalXL}`,
+    backgroundColor: tokens.colorNeutralBackground2,
+    borderBottom: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
+  },
+  navLink: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+    minHeight: `${TOUCH_TARGET_PX}px`,
+    paddingInline: tokens.spacingHorizontalL,
+    borderRadius: tokens.borderRadiusXLarge,
+    color: tokens.colorNeutralForeground1,
+    fontSize: tokens.fontSizeBase400,
+    fontWeight: tokens.fontWeightSemibold,
+    textDecoration: 'none',
+    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke1}`,
+    backgroundColor: tokens.colorNeutralBackground1,
+    ':hover': { backgroundColor: tokens.colorNeutralBackground1Hover },
+    ':focus-visible': { outline: `${tokens.strokeWidthThick} solid ${tokens.colorStrokeFocus2}` },
+    '& svg': { fontSize: '24px' },
+  },
+  navLinkActive: {
+    backgroundColor: tokens.colorBrandBackground,
+    color: tokens.colorNeutralForegroundOnBrand,
+    border: `${tokens.strokeWidthThin} solid ${tokens.colorBrandStroke1}`,
+    ':hover': { backgroundColor: tokens.colorBrandBackgroundHover },
+  },
+  main: {
+    flexGrow: 1,
+    width: '100%',
+    maxWidth: '1600px',
+    boxSizing: 'border-box',
+    marginInline: 'auto',
+    padding: `${tokens.spacingVerticalXL} ${tokens.spacingHorizontalXL}`,
+  },
+  footer: {
+    padding: `${tokens.spacingVerticalM} ${tokens.spacingHorizontalXL}`,
+    borderTop: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
+    backgroundColor: tokens.colorNeutralBackground2,
+    display: 'flex',
+    flexWrap: 'wrap',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalL,
+  },
+  version: { color: tokens.colorNeutralForeground3 },
+});
+
+/** The signed-in frame: who you are, which project, what your role lets you open, the caution. */
+export function AppShellRoute() {
+  const styles = useStyles();
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  const { data: me } = useCurrentUser();
+  const { data: config } = useConfig();
+  const [current, setCurrent] = useState(() => pickCurrentProject(me.memberships));
+  const navItems = navigationFor({
+    role: current?.role ?? null,
+    localMode: config.localMode,
+    memberships: me.memberships,
+  });
+
+  const signOut = async () => {
+    clearSession();
+    await navigate('/sign-in', { replace: true });
+    // Cancel anything in flight; the cache itself is emptied at the next sign-in.
+    await queryClient.cancelQueries();
+  };
+
+  const chooseProject = (projectId: string) => {
+    const next = me.memberships.find((m) => m.projectId === projectId) ?? null;
+    if (next === null) return;
+    rememberCurrentProject(projectId);
+    setCurrent(next);
+  };
+
+  return (
+    <div className={styles.shell}>
+      <header className={styles.header}>
+        <NavLink to="/" className={styles.wordmark} aria-label="Roundbook, go to the Board">
+          Roundbook
+        </NavLink>
+        <div className={styles.project}>
+          {me.memberships.length > 1 ? (
+            <Select
+              className={styles.select}
+              size="large"
+              aria-label="Project"
+              value={current?.projectId ?? ''}
+              onChange={(_event, data) => chooseProject(data.value)}
+            >
+              {me.memberships.map((m) => (
+                <option key={m.projectId} value={m.projectId}>
+                  {m.projectName}
+                </option>
+              ))}
+            </Select>
+          ) : (
+            <Text className={styles.projectName}>{current?.projectName ?? 'No project yet'}</Text>
+          )}
+          {current !== null && <RoleBadge role={current.role} />}
+        </div>
+        <div className={styles.spacer} />
+        <HighContrastSwitch />
+        <div className={styles.user}>
+          <Text aria-label="Signed in as">{me.name}</Text>
+          <Button
+            className={styles.touch}
+            size="large"
+            icon={<SignOutRegular />}
+            onClick={() => {
+              void signOut();
+            }}
+          >
+            Sign out
+          </Button>
+        </div>
+      </header>
+
+      <nav className={styles.nav} aria-label="Main">
+        {navItems.map((item) => (
+          <NavLink
+            key={item.to}
+            to={item.to}
+            end={item.to === '/'}
+            className={({ isActive }) => mergeClasses(styles.navLink, isActive && styles.navLinkActive)}
+          >
+            {navIcons[item.icon]}
+            {item.label}
+          </NavLink>
+        ))}
+      </nav>
+
+      <main className={styles.main}>
+        <Suspense fallback={<PageLoading />}>
+          <Outlet />
+        </Suspense>
+      </main>
+
+      <footer className={styles.footer}>
+        <CautionNote />
+        <Text size={200} className={styles.version}>{`Roundbook ${config.version}`}</Text>
+      </footer>
+    </div>
+  );
+}

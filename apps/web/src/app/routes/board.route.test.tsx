@@ -1,0 +1,100 @@
+import { screen, within } from '@testing-library/react';
+import { saveSession } from '@/lib/session';
+import { adminSession, adminUser, harrowdale, localConfig, viewerUser } from '@/testing/fixtures';
+import { mockApi, restoreFetch } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+
+afterEach(restoreFetch);
+
+describe('Board', () => {
+  beforeEach(() => saveSession(adminSession));
+
+  it('shows each project with one card per heading, as the API describes them', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects': [harrowdale],
+    });
+    renderApp('/');
+
+    const board = await screen.findByRole('region', { name: 'Harrowdale Headrace' });
+    expect(within(board).getByRole('heading', { level: 1, name: 'Harrowdale Headrace' })).toBeInTheDocument();
+    expect(board).toHaveTextContent('HHR · for Lowmere Water Board · times in UTC');
+
+    const cards = within(board).getAllByRole('article');
+    expect(cards).toHaveLength(2);
+
+    const upstream = within(board).getByRole('article', { name: 'Upstream drive from Adit 2' });
+    expect(upstream).toHaveTextContent('HR-U');
+    expect(upstream).toHaveTextContent('1+250.0');
+    expect(upstream).toHaveTextContent('Trigger: Amber');
+    expect(upstream).toHaveTextContent('047°, rising +0.40 %');
+    expect(upstream).toHaveTextContent('Top heading');
+    expect(upstream).toHaveTextContent('Bench');
+    expect(upstream).toHaveTextContent('30 Nov 2026, 21:40');
+    expect(upstream).toHaveTextContent('2 rounds');
+    expect(upstream).toHaveTextContent('sent 30 Nov 2026, 18:05');
+    expect(upstream).toHaveTextContent('not acknowledged yet');
+
+    const downstream = within(board).getByRole('article', { name: 'Downstream drive from Adit 2' });
+    expect(downstream).toHaveTextContent('no rounds yet (starts at 1+000.0)');
+    expect(downstream).toHaveTextContent('No trigger level yet');
+    expect(downstream).toHaveTextContent('227°, falling −0.40 %');
+    expect(within(downstream).getAllByText('none yet')).toHaveLength(2);
+  });
+
+  it('puts the caution on the page and builds the navigation from the role', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects': [harrowdale],
+    });
+    renderApp('/');
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((l) => l.textContent),
+    ).toEqual(['Board', 'Setup', 'Local mail']);
+    expect(screen.getByTestId('caution-note')).toHaveTextContent('Nobody goes under unsupported ground.');
+    expect(screen.getAllByText('Project admin')).toHaveLength(2);
+  });
+
+  it('offers a viewer only the Board', async () => {
+    mockApi({
+      'GET /api/auth/me': viewerUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects': [{ ...harrowdale, role: 'viewer' }],
+    });
+    renderApp('/');
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((l) => l.textContent),
+    ).toEqual(['Board']);
+    expect(await screen.findAllByText('Read only')).not.toHaveLength(0);
+  });
+
+  it('says so when the person has no project yet', async () => {
+    mockApi({
+      'GET /api/auth/me': { ...adminUser, memberships: [] },
+      'GET /api/config': localConfig,
+      'GET /api/projects': [],
+    });
+    renderApp('/');
+    expect(await screen.findByRole('region', { name: 'You are not on a project yet' })).toBeInTheDocument();
+  });
+
+  it('shows a readable error inside the shell when the projects cannot be loaded', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects': () => Promise.reject(new TypeError('Failed to fetch')),
+    });
+    jest.spyOn(console, 'error').mockImplementation(() => undefined);
+    renderApp('/');
+    expect(await screen.findByRole('alert')).toHaveTextContent('Roundbook server not reachable');
+    expect(screen.getByRole('navigation', { name: 'Main' })).toBeInTheDocument();
+  });
+});

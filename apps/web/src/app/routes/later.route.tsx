@@ -1,0 +1,43 @@
+import { EmptyState, PageHeader } from '@roundbook/ui';
+
+export interface LaterPageProps {
+  title: string;
+  purpose: string;
+}
+
+/** A page the navigation already offers to its role, whose content arrives in a later release. */
+export function LaterPage({ title, purpose }: LaterPageProps) {
+  return (
+    <>
+      <PageHeader title={title} />
+      <EmptyState title={`${title} is being built`} message={purpose} />
+    </>
+  );
+}
+
+export function ToConfirmRoute() {
+  return (
+    <LaterPage
+      title="To confirm"
+      purpose="Submitted rounds will queue here for the engineer to confirm or return with comments."
+    />
+  );
+}
+
+export function ReceivedRoute() {
+  return (
+    <LaterPage
+      title="Received"
+      purpose="Handovers sent to your shift will wait here until you acknowledge them."
+    />
+  );
+}
+
+export function SetupRoute() {
+  return (
+    <LaterPage
+      title="Setup"
+      purpose="Headings, support classes, trigger rules and the project team will be set up here."
+    />
+  );
+}

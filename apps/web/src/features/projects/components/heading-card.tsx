@@ -1,0 +1,172 @@
+import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
+import type { BadgeProps } from '@fluentui/react-components';
+import type { ReactNode } from 'react';
+import type { HeadingSummary, TriggerLevel } from '@/api/contract';
+import {
+  formatAzimuth,
+  formatChainage,
+  formatGradient,
+  formatProjectTime,
+  handoverState,
+  stageLabels,
+  triggerLabels,
+} from '@/features/projects/utils/format';
+
+export interface HeadingCardProps {
+  heading: HeadingSummary;
+  /** The project's time zone; every time on the card is shown in it. */
+  timeZone: string;
+}
+
+const triggerColours: Record<TriggerLevel, BadgeProps['color']> = {
+  green: 'success',
+  amber: 'warning',
+  red: 'danger',
+};
+
+const useStyles = makeStyles({
+  card: {
+    rowGap: tokens.spacingVerticalM,
+    padding: tokens.spacingHorizontalL,
+    borderTop: `${tokens.strokeWidthThickest} solid ${tokens.colorBrandStroke1}`,
+  },
+  top: {
+    display: 'flex',
+    alignItems: 'flex-start',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalM,
+  },
+  titles: { display: 'flex', flexDirection: 'column', minWidth: 0 },
+  name: { margin: 0 },
+  code: {
+    fontFamily: tokens.fontFamilyMonospace,
+    fontWeight: tokens.fontWeightSemibold,
+    color: tokens.colorBrandForeground1,
+    letterSpacing: '0.04em',
+  },
+  face: { display: 'flex', flexDirection: 'column' },
+  faceLabel: { color: tokens.colorNeutralForeground2, fontSize: tokens.fontSizeBase400 },
+  faceValue: {
+    fontSize: tokens.fontSizeHero800,
+    lineHeight: tokens.lineHeightHero800,
+    fontWeight: tokens.fontWeightBold,
+    fontVariantNumeric: 'tabular-nums',
+  },
+  faceEmpty: {
+    fontSize: tokens.fontSizeBase500,
+    lineHeight: tokens.lineHeightBase500,
+    fontWeight: tokens.fontWeightSemibold,
+    color: tokens.colorNeutralForeground2,
+  },
+  facts: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(9rem, max-content) 1fr',
+    columnGap: tokens.spacingHorizontalL,
+    rowGap: tokens.spacingVerticalS,
+    margin: 0,
+  },
+  term: { color: tokens.colorNeutralForeground2, fontSize: tokens.fontSizeBase400 },
+  detail: { margin: 0, fontSize: tokens.fontSizeBase400, fontWeight: tokens.fontWeightSemibold },
+  stages: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXS },
+  attention: { color: tokens.colorPaletteDarkOrangeForeground1 },
+});
+
+function Fact({ term, children }: { term: string; children: ReactNode }) {
+  const styles = useStyles();
+  return (
+    <>
+      <dt className={styles.term}>{term}</dt>
+      <dd className={styles.detail}>{children}</dd>
+    </>
+  );
+}
+
+/** One heading on the Board: where the face is and what is waiting on it. */
+export function HeadingCard({ heading, timeZone }: HeadingCardProps) {
+  const styles = useStyles();
+  const handover = heading.lastHandover;
+  const handoverStatus = handoverState(handover);
+  const titleId = `heading-${heading.id}-title`;
+
+  return (
+    <Card className={styles.card} role="article" aria-labelledby={titleId} data-testid="heading-card">
+      <div className={styles.top}>
+        <div className={styles.titles}>
+          <Text className={styles.code}>{heading.code}</Text>
+          <Subtitle2 as="h3" id={titleId} className={styles.name}>
+            {heading.name}
+          </Subtitle2>
+        </div>
+        {heading.triggerLevel === null ? (
+          <Badge appearance="outline" color="informative" size="extra-large" shape="rounded">
+            No trigger level yet
+          </Badge>
+        ) : (
+          <Badge
+            appearance="filled"
+            color={triggerColours[heading.triggerLevel]}
+            size="extra-large"
+            shape="rounded"
+          >
+            {`Trigger: ${triggerLabels[heading.triggerLevel]}`}
+          </Badge>
+        )}
+      </div>
+
+      <div className={styles.face}>
+        <Text className={styles.faceLabel}>Face chainage</Text>
+        {heading.faceChainage === null ? (
+          <Text
+            className={styles.faceEmpty}
+          >{`no rounds yet (starts at ${formatChainage(heading.startChainage)})`}</Text>
+        ) : (
+          <Text className={styles.faceValue}>{formatChainage(heading.faceChainage)}</Text>
+        )}
+      </div>
+
+      <dl className={styles.facts}>
+        <Fact term="Drive direction">
+          {`${formatAzimuth(heading.driveTrend)}, ${formatGradient(heading.gradientPercent)}`}
+        </Fact>
+        <Fact term="Stages">
+          {heading.stages.length === 0 ? (
+            '—'
+          ) : (
+            <span className={styles.stages}>
+              {heading.stages.map((stage) => (
+                <Badge key={stage} appearance="tint" color="brand" shape="rounded" size="large">
+                  {stageLabels[stage]}
+                </Badge>
+              ))}
+            </span>
+          )}
+        </Fact>
+        <Fact term="Last round">
+          {heading.lastRoundAt === null ? 'none yet' : formatProjectTime(heading.lastRoundAt, timeZone)}
+        </Fact>
+        <Fact term="Waiting for review">
+          <span className={heading.roundsToConfirm > 0 ? styles.attention : undefined}>
+            {heading.roundsToConfirm === 0
+              ? 'none'
+              : `${heading.roundsToConfirm} ${heading.roundsToConfirm === 1 ? 'round' : 'rounds'}`}
+          </span>
+        </Fact>
+        <Fact term="Last handover">
+          {handover === null || handoverStatus === 'none' ? (
+            'none yet'
+          ) : (
+            <>
+              {`sent ${formatProjectTime(handover.sentAt, timeZone)}`}
+              <br />
+              {handover.acknowledgedAt === null ? (
+                <span className={styles.attention}>not acknowledged yet</span>
+              ) : (
+                `acknowledged ${formatProjectTime(handover.acknowledgedAt, timeZone)}`
+              )}
+            </>
+          )}
+        </Fact>
+      </dl>
+    </Card>
+  );
+}

@@ -1,0 +1,123 @@
+import createClient from 'openapi-fetch';
+import type { Middleware } from 'openapi-fetch';
+import type { ApiErrorBody, paths } from '@/api/contract';
+import { expireSession, getAccessToken } from '@/lib/session';
+
+/** Codes the web app produces itself (the API's own codes come from its error body). */
+export const NETWORK_ERROR_CODE = 'SERVER_UNREACHABLE';
+
+/** Every failed API call ends up as one of these. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly fields: Record<string, string> | undefined;
+
+  constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.fields = fields;
+  }
+}
+
+export function isApiError(error: unknown): error is ApiError {
+  return error instanceof ApiError;
+}
+
+let sessionExpiredHandler: (() => void) | null = null;
+
+/** Called when the API answers 401 to a request that carried a token (expired or revoked). */
+export function setSessionExpiredHandler(handler: (() => void) | null): void {
+  sessionExpiredHandler = handler;
+}
+
+const PUBLIC_PATHS = new Set(['/api/auth/login', '/api/config']);
+
+const authMiddleware: Middleware = {
+  onRequest({ request, schemaPath }) {
+    const token = getAccessToken();
+    if (token !== null && !PUBLIC_PATHS.has(schemaPath)) {
+      request.headers.set('Authorization', `Bearer ${token}`);
+    }
+    return undefined;
+  },
+  onResponse({ request, response }) {
+    if (response.status === 401 && request.headers.has('Authorization')) {
+      expireSession();
+      sessionExpiredHandler?.();
+    }
+    return undefined;
+  },
+};
+
+function origin(): string {
+  return typeof window === 'undefined' ? '' : window.location.origin;
+}
+
+/** The typed client for Roundbook's API (same origin, everything under /api). */
+export const apiClient = createClient<paths>({
+  baseUrl: origin(),
+  // Resolve fetch on each call, so tests (and polyfills) can replace it.
+  fetch: (request: Request) => globalThis.fetch(request),
+});
+apiClient.use(authMiddleware);
+
+function isErrorBody(value: unknown): value is ApiErrorBody {
+  return typeof value === 'object' && value !== null && typeof (value as ApiErrorBody).code === 'string';
+}
+
+function unreachable(): ApiError {
+  return new ApiError(0, NETWORK_ERROR_CODE, 'The Roundbook server could not be reached.');
+}
+
+export function toApiError(response: Response, body: unknown): ApiError {
+  // A proxy in front of a stopped API answers 502/503/504 without our error body.
+  if (!isErrorBody(body) && [502, 503, 504].includes(response.status)) return unreachable();
+  if (isErrorBody(body)) {
+    return new ApiError(response.status, body.code, body.message ?? body.code, body.fields);
+  }
+  return new ApiError(response.status, `HTTP_${response.status}`, response.statusText || 'Request failed');
+}
+
+interface ClientResult<T> {
+  data?: T;
+  error?: unknown;
+  response: Response;
+}
+
+/** Awaits an `apiClient` call and returns its data, or throws an `ApiError`. */
+export async function unwrap<T>(call: Promise<ClientResult<T>>): Promise<T> {
+  let result: ClientResult<T>;
+  try {
+    result = await call;
+  } catch (error) {
+    if (isApiError(error)) throw error;
+    throw unreachable();
+  }
+  const { data, error, response } = result;
+  if (!response.ok || error !== undefined) throw toApiError(response, error);
+  return data as T;
+}
+
+/** GET a file (attachment, PDF) with the bearer token; for paths outside the JSON contract. */
+export async function fetchBlob(path: string): Promise<Blob> {
+  const token = getAccessToken();
+  const headers = new Headers();
+  if (token !== null) headers.set('Authorization', `Bearer ${token}`);
+  let response: Response;
+  try {
+    response = await globalThis.fetch(new Request(`${origin()}${path}`, { headers }));
+  } catch {
+    throw unreachable();
+  }
+  if (response.status === 401 && token !== null) {
+    expireSession();
+    sessionExpiredHandler?.();
+  }
+  if (!response.ok) {
+    const body: unknown = await response.json().catch(() => null);
+    throw toApiError(response, body);
+  }
+  return response.blob();
+}

@@ -1,0 +1,5 @@
+import '@testing-library/jest-dom';
+
+afterEach(() => {
+  window.localStorage.clear();
+});

@@ -1,0 +1,17 @@
+export { roundbookBrand } from './theme/brand';
+export {
+  getRoundbookTheme,
+  roundbookFontFamily,
+  roundbookHighContrastTheme,
+  roundbookLightTheme,
+} from './theme/theme';
+export type { RoundbookThemeMode } from './theme/theme';
+export { TOUCH_TARGET_PX, useTouchTargetStyles } from './theme/touch';
+export { PageHeader } from './components/page-header/page-header';
+export type { PageHeaderProps } from './components/page-header/page-header';
+export { EmptyState } from './components/empty-state/empty-state';
+export type { EmptyStateProps } from './components/empty-state/empty-state';
+export { RoleBadge, roleLabels } from './components/role-badge/role-badge';
+export type { ProjectRole, RoleBadgeProps } from './components/role-badge/role-badge';
+export { FormikInputField } from './forms/formik-input-field';
+export type { FormikInputFieldProps } from './forms/formik-input-field';
