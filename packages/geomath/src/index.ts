@@ -39,4 +39,11 @@ export {
   parseChainage,
   type ChainageStyle,
 } from './alignment.js';
+export {
+  STRENGTH_GRADES,
+  WEATHERING_GRADES,
+  isGrade,
+  type GradeRow,
+  type GroundScale,
+} from './ground-scales.js';
 export * from './rock-mass.js';
