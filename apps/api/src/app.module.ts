@@ -17,6 +17,7 @@ import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
+import { RoundsModule } from './modules/rounds/rounds.module.js';
 import { SupportClassesModule } from './modules/support-classes/support-classes.module.js';
 import { TeamModule } from './modules/team/team.module.js';
 import { TriggerRulesModule } from './modules/trigger-rules/trigger-rules.module.js';
@@ -42,6 +43,7 @@ export class AppModule {
         SupportClassesModule,
         TriggerRulesModule,
         TeamModule,
+        RoundsModule,
         HealthModule,
         LocalMailModule,
         // The API serves the built web app, so Roundbook is one address.

@@ -4,6 +4,8 @@ import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
+import { Joint } from '../modules/rounds/joint.entity.js';
+import { Round } from '../modules/rounds/round.entity.js';
 import { SupportClass } from '../modules/support-classes/support-class.entity.js';
 import { Invitation } from '../modules/team/invitation.entity.js';
 import { TriggerRule } from '../modules/trigger-rules/trigger-rule.entity.js';
@@ -19,6 +21,8 @@ export const entities = [
   SupportClass,
   TriggerRule,
   Invitation,
+  Round,
+  Joint,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -34,6 +34,10 @@ export class Project {
   @Column({ name: 'default_notation', type: 'varchar', length: 24, default: 'dip-direction/dip' })
   defaultNotation: PlaneNotationSetting;
 
+  /** The scale for weathering and strength grades: ISRM or ISO 14689 (one per project, no mixing). */
+  @Column({ name: 'ground_scale', type: 'varchar', length: 12, default: 'isrm' })
+  groundScale: 'isrm' | 'iso-14689';
+
   /** E-mail addresses that receive every handover of the project. */
   @Column({ name: 'distribution_list', type: 'json' })
   distributionList: string[];

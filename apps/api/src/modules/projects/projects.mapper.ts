@@ -34,6 +34,7 @@ export function toProjectSummary(p: Project, role: ProjectRole): ProjectSummaryD
     timeZone: p.timeZone,
     qTableEdition: p.qTableEdition,
     defaultNotation: p.defaultNotation,
+    groundScale: p.groundScale,
     distributionList: p.distributionList ?? [],
     coordinateGrid: p.coordinateGrid,
     role,

@@ -58,6 +58,7 @@ export class ProjectsService {
         'timeZone',
         'defaultNotation',
         'qTableEdition',
+        'groundScale',
         'distributionList',
         'coordinateGrid',
       ] as const;

@@ -6,6 +6,7 @@ import { definedOnly } from '../../common/dto/defined-only.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
+import { Round } from '../rounds/round.entity.js';
 import { supportClassWarnings } from './coverage.js';
 import type {
   CreateSupportClassDto,
@@ -188,13 +189,17 @@ export class SupportClassesService {
     return this.library(access);
   }
 
-  /**
-   * Deletes a class. When round records arrive they reference classes by foreign key (ON DELETE RESTRICT),
-   * and a class in use is refused here with the advice to retire it.
-   */
+  /** Deletes a class no round uses (rounds hold it by foreign key, ON DELETE RESTRICT); one in use can only be retired. */
   async remove(caller: AuthUser, access: ProjectAccess, id: string): Promise<SupportClassLibraryDto> {
     await this.dataSource.transaction(async (manager) => {
       const found = await this.find(manager, access, id);
+      const uses = await manager.count(Round, { where: { recommendedClassId: id } });
+      if (uses > 0) {
+        throw new DomainException(
+          ErrorCode.Conflict,
+          `${found.code} is recommended on ${uses} round record(s), so it cannot be deleted. Retire it instead: it stays on those records and is no longer offered.`,
+        );
+      }
       await manager.delete(SupportClass, { id });
       await this.audit.record(manager, {
         projectId: access.projectId,

@@ -352,6 +352,93 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/headings/{headingId}/rounds": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** A page of the heading's rounds, sorted and filtered in the database (any member) */
+        get: operations["RoundsController_list"];
+        put?: never;
+        /** Opens a new round (draft) on the heading (geologists) */
+        post: operations["RoundsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}/rounds/next": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The number and previous chainage a new round of this stage would get (geologists) */
+        get: operations["RoundsController_next"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}/joints": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Readable joints of the heading over a chainage window, for finding sets (any member) */
+        get: operations["RoundsController_joints"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One round with joints, computed ratings, suggested classes and warnings (any member) */
+        get: operations["RoundsController_get"];
+        /** Saves the round as a whole (geologists; drafts and returned rounds). 409 STALE_VERSION carries the current version. */
+        put: operations["RoundsController_save"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/submit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Submits the round for review (geologists): draft → submitted */
+        post: operations["RoundsController_submit"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -475,6 +562,11 @@ export interface components {
         QTableEdition: "2015";
         /** @enum {string} */
         PlaneNotation: "dip-direction/dip" | "dip/dip-direction" | "strike/dip-rhr";
+        /**
+         * @description Scale of weathering and strength grades (one per project)
+         * @enum {string}
+         */
+        GroundScale: "isrm" | "iso-14689";
         /** @enum {string} */
         Stage: "full-face" | "top-heading" | "bench" | "invert";
         /** @enum {string} */
@@ -511,6 +603,8 @@ export interface components {
         ProjectSummaryDto: {
             qTableEdition: components["schemas"]["QTableEdition"];
             defaultNotation: components["schemas"]["PlaneNotation"];
+            /** @description Scale of weathering and strength grades (one per project) */
+            groundScale: components["schemas"]["GroundScale"];
             /** @description The caller's role in this project */
             role: components["schemas"]["ProjectRole"];
             id: string;
@@ -530,6 +624,7 @@ export interface components {
         UpdateProjectDto: {
             defaultNotation?: components["schemas"]["PlaneNotation"];
             qTableEdition?: components["schemas"]["QTableEdition"];
+            groundScale?: components["schemas"]["GroundScale"];
             name?: string;
             client?: string;
             timeZone?: string;
@@ -773,6 +868,213 @@ export interface components {
             name?: string;
             /** @description A new password (new accounts, at least 10 characters) or your existing password */
             password: string;
+        };
+        /** @enum {string} */
+        RoundSort: "faceChainage" | "-faceChainage" | "shiftDate" | "-shiftDate" | "q" | "-q" | "rmr" | "-rmr" | "roundNumber" | "-roundNumber";
+        /** @enum {string} */
+        RoundStatus: "draft" | "submitted" | "confirmed" | "returned";
+        /** @enum {string} */
+        Shift: "day" | "night";
+        RoundSummaryDto: {
+            stage: components["schemas"]["Stage"];
+            shift: components["schemas"]["Shift"];
+            q: number | null;
+            rmr: number | null;
+            recommendedClassCode: string | null;
+            status: components["schemas"]["RoundStatus"];
+            id: string;
+            roundNumber: number;
+            faceChainage: number;
+            shiftDate: string;
+            mapperName: string;
+        };
+        RoundPageDto: {
+            items: components["schemas"]["RoundSummaryDto"][];
+            total: number;
+            page: number;
+            pageSize: number;
+        };
+        NextRoundDto: {
+            stage: components["schemas"]["Stage"];
+            roundNumber: number;
+            /** @description Face chainage of the last round of this heading and stage, or the heading's start */
+            previousChainage: number;
+            plannedRoundLength: number;
+            /** @description previousChainage + planned round length, as a starting value */
+            suggestedFaceChainage: number;
+        };
+        CreateRoundDto: {
+            stage: components["schemas"]["Stage"];
+            faceChainage: number;
+        };
+        /** @enum {string} */
+        JointKind: "joint" | "bedding" | "foliation" | "fault" | "shear-zone" | "vein" | "contact";
+        /** @enum {string} */
+        JrcMethod: "profile-comb" | "tilt-test" | "visual";
+        /** @enum {string} */
+        JointWater: "dry" | "damp" | "wet" | "dripping" | "flowing";
+        JointDto: {
+            kind: components["schemas"]["JointKind"];
+            notation: components["schemas"]["PlaneNotation"];
+            setLabel: string | null;
+            spacingM: number | null;
+            persistenceM: number | null;
+            apertureMm: number | null;
+            jr: number | null;
+            jrc: number | null;
+            jrcMethod: components["schemas"]["JrcMethod"] | null;
+            ja: number | null;
+            water: components["schemas"]["JointWater"] | null;
+            /** @description Thickness of a fault or shear zone, m */
+            thicknessM: number | null;
+            /** @description Canonical dip direction, null while the typed text cannot be read */
+            dipDirection: number | null;
+            dip: number | null;
+            /** @description Why the typed orientation could not be read */
+            orientationError: string | null;
+            id: string;
+            seq: number;
+            /** @description The orientation exactly as typed (kept even when it cannot be read) */
+            orientationText: string;
+            setOverride?: boolean;
+            infill: string;
+            notes: string;
+        };
+        RatingOutcomeDto: {
+            value: number | null;
+            /** @description Class or band in words */
+            label: string | null;
+            /** @description Why it could not be computed from the inputs, if so */
+            error: string | null;
+            /** @description Intermediate values and ratings, for showing the inputs beside the result */
+            parts: {
+                [key: string]: number;
+            };
+        };
+        RoundRatingsDto: {
+            q: components["schemas"]["RatingOutcomeDto"];
+            rmr: components["schemas"]["RatingOutcomeDto"];
+            gsi: components["schemas"]["RatingOutcomeDto"];
+        };
+        RockUnitDto: {
+            weatheringGrade: string | null;
+            strengthGrade: string | null;
+            name: string;
+            sharePercent: number;
+        };
+        GroundDto: {
+            /** @description Point-load index Is50, MPa */
+            pointLoadIs50: number | null;
+            /** @description Factor used to estimate UCS from Is50 (UCS ≈ factor × Is50) */
+            pointLoadFactor: number | null;
+            /** @description Water inflow at the face, l/min */
+            inflowLpm: number | null;
+            /** @description Tunnel length the inflow comes from, m (for inflow per 10 m) */
+            inflowLengthM: number | null;
+            overbreakM3: number | null;
+            units: components["schemas"]["RockUnitDto"][];
+            waterDescription: string;
+            notes: string;
+        };
+        RoundDto: {
+            previousChainage: number | null;
+            roundLength: number | null;
+            shift: components["schemas"]["Shift"];
+            /** @description Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
+            qInput: {
+                [key: string]: unknown;
+            } | null;
+            /** @description RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
+            rmrInput: {
+                [key: string]: unknown;
+            } | null;
+            gsiObserved: number | null;
+            /** Format: uuid */
+            recommendedClassId: string | null;
+            nextRoundLength: number | null;
+            stage: components["schemas"]["Stage"];
+            status: components["schemas"]["RoundStatus"];
+            submittedAt: string | null;
+            /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
+            inflowPer10m: number | null;
+            id: string;
+            headingId: string;
+            roundNumber: number;
+            mappedBy: string;
+            mappedByName: string;
+            mappedAt: string;
+            revision: number;
+            joints: components["schemas"]["JointDto"][];
+            ratings: components["schemas"]["RoundRatingsDto"];
+            /** @description Support classes whose ranges fit the ratings, best ground first */
+            suggestedClassIds: string[];
+            /** @description Things worth a second look that do not stop saving (e.g. round length over the planned maximum) */
+            warnings: string[];
+            /** @description The planned round length of the heading, m */
+            plannedRoundLength: number;
+            version: number;
+            faceChainage: number;
+            shiftDate: string;
+            distantParts: string;
+            ground: components["schemas"]["GroundDto"];
+            recommendationReason: string;
+        };
+        NearbyJointDto: {
+            kind: components["schemas"]["JointKind"];
+            setLabel: string | null;
+            roundId: string;
+            roundNumber: number;
+            faceChainage: number;
+            dipDirection: number;
+            dip: number;
+        };
+        JointInputDto: {
+            kind: components["schemas"]["JointKind"];
+            notation: components["schemas"]["PlaneNotation"];
+            setLabel: string | null;
+            spacingM: number | null;
+            persistenceM: number | null;
+            apertureMm: number | null;
+            jr: number | null;
+            jrc: number | null;
+            jrcMethod: components["schemas"]["JrcMethod"] | null;
+            ja: number | null;
+            water: components["schemas"]["JointWater"] | null;
+            /** @description Thickness of a fault or shear zone, m */
+            thicknessM: number | null;
+            /** @description The orientation exactly as typed (kept even when it cannot be read) */
+            orientationText: string;
+            setOverride?: boolean;
+            infill: string;
+            notes: string;
+        };
+        SaveRoundDto: {
+            previousChainage: number | null;
+            roundLength: number | null;
+            shift: components["schemas"]["Shift"];
+            /** @description Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
+            qInput: {
+                [key: string]: unknown;
+            } | null;
+            /** @description RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
+            rmrInput: {
+                [key: string]: unknown;
+            } | null;
+            gsiObserved: number | null;
+            /** Format: uuid */
+            recommendedClassId: string | null;
+            nextRoundLength: number | null;
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
+            faceChainage: number;
+            shiftDate: string;
+            distantParts: string;
+            ground: components["schemas"]["GroundDto"];
+            joints: components["schemas"]["JointInputDto"][];
+            recommendationReason: string;
+        };
+        SubmitRoundDto: {
+            version: number;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -1849,6 +2151,301 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["TokenResponseDto"];
+                };
+            };
+        };
+    };
+    RoundsController_list: {
+        parameters: {
+            query?: {
+                sort?: components["schemas"]["RoundSort"];
+                status?: components["schemas"]["RoundStatus"];
+                stage?: components["schemas"]["Stage"];
+                page?: number;
+                pageSize?: number;
+                fromChainage?: number;
+                toChainage?: number;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundPageDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateRoundDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_next: {
+        parameters: {
+            query: {
+                stage: components["schemas"]["Stage"];
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NextRoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_joints: {
+        parameters: {
+            query: {
+                fromChainage: number;
+                toChainage: number;
+                excludeRoundId?: string;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NearbyJointDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_save: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SaveRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description STALE_VERSION (details.current) or not editable */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundsController_submit: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SubmitRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };

@@ -63,6 +63,9 @@ export class ProjectSummaryDto {
   qTableEdition: (typeof Q_TABLE_EDITIONS)[number];
   @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation' })
   defaultNotation: (typeof PLANE_NOTATIONS)[number];
+  /** Scale of weathering and strength grades (one per project) */
+  @ApiProperty({ enum: ['isrm', 'iso-14689'], enumName: 'GroundScale' })
+  groundScale: 'isrm' | 'iso-14689';
   /** Addresses that receive every handover */
   distributionList: string[];
   /** Name of the project's coordinate grid */
@@ -115,6 +118,11 @@ export class UpdateProjectDto {
   @IsIn(Q_TABLE_EDITIONS)
   @ApiProperty({ enum: Q_TABLE_EDITIONS, enumName: 'QTableEdition', required: false })
   qTableEdition?: (typeof Q_TABLE_EDITIONS)[number];
+
+  @IsOptional()
+  @IsIn(['isrm', 'iso-14689'])
+  @ApiProperty({ enum: ['isrm', 'iso-14689'], enumName: 'GroundScale', required: false })
+  groundScale?: 'isrm' | 'iso-14689';
 
   /** Addresses that receive every handover */
   @IsOptional()

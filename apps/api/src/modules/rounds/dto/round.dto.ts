@@ -1,0 +1,471 @@
+import { ApiProperty } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import {
+  ArrayMaxSize,
+  IsArray,
+  IsBoolean,
+  IsIn,
+  IsInt,
+  IsNumber,
+  IsObject,
+  IsOptional,
+  IsString,
+  IsUUID,
+  Length,
+  Matches,
+  Max,
+  MaxLength,
+  Min,
+  ValidateNested,
+} from 'class-validator';
+import { STAGES } from '../../headings/heading.entity.js';
+import { PLANE_NOTATIONS } from '../../projects/project.entity.js';
+import { JOINT_KINDS, JOINT_WATER, JRC_METHODS } from '../joint.entity.js';
+import { ROUND_STATUSES, SHIFTS } from '../round.entity.js';
+
+export class RockUnitDto {
+  @IsString()
+  @Length(0, 120)
+  name: string;
+
+  @IsNumber()
+  @Min(0, { message: 'A share of the face is 0–100 %.' })
+  @Max(100, { message: 'A share of the face is 0–100 %.' })
+  sharePercent: number;
+
+  @IsOptional()
+  @IsString()
+  @ApiProperty({ type: String, nullable: true })
+  weatheringGrade: string | null;
+
+  @IsOptional()
+  @IsString()
+  @ApiProperty({ type: String, nullable: true })
+  strengthGrade: string | null;
+}
+
+export class GroundDto {
+  @IsArray()
+  @ArrayMaxSize(12)
+  @ValidateNested({ each: true })
+  @Type(() => RockUnitDto)
+  units: RockUnitDto[];
+
+  /** Point-load index Is50, MPa */
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(30, { message: 'Is50 above 30 MPa is beyond what point-load tests give; check the value.' })
+  @ApiProperty({ type: Number, nullable: true })
+  pointLoadIs50: number | null;
+
+  /** Factor used to estimate UCS from Is50 (UCS ≈ factor × Is50) */
+  @IsOptional()
+  @IsNumber()
+  @Min(5)
+  @Max(50)
+  @ApiProperty({ type: Number, nullable: true })
+  pointLoadFactor: number | null;
+
+  /** Water inflow at the face, l/min */
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(100000)
+  @ApiProperty({ type: Number, nullable: true })
+  inflowLpm: number | null;
+
+  /** Tunnel length the inflow comes from, m (for inflow per 10 m) */
+  @IsOptional()
+  @IsNumber()
+  @Min(0.1)
+  @Max(1000)
+  @ApiProperty({ type: Number, nullable: true })
+  inflowLengthM: number | null;
+
+  @IsString()
+  @MaxLength(2000)
+  waterDescription: string;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(10000)
+  @ApiProperty({ type: Number, nullable: true })
+  overbreakM3: number | null;
+
+  @IsString()
+  @MaxLength(8000)
+  notes: string;
+}
+
+export class JointInputDto {
+  @IsIn(JOINT_KINDS)
+  @ApiProperty({ enum: JOINT_KINDS, enumName: 'JointKind' })
+  kind: (typeof JOINT_KINDS)[number];
+
+  /** The orientation exactly as typed (kept even when it cannot be read) */
+  @IsString()
+  @MaxLength(60)
+  orientationText: string;
+
+  @IsIn(PLANE_NOTATIONS)
+  @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation' })
+  notation: (typeof PLANE_NOTATIONS)[number];
+
+  @IsOptional()
+  @IsString()
+  @MaxLength(20)
+  @ApiProperty({ type: String, nullable: true })
+  setLabel: string | null;
+
+  @IsOptional()
+  @IsBoolean()
+  setOverride?: boolean;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(100)
+  @ApiProperty({ type: Number, nullable: true })
+  spacingM: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(1000)
+  @ApiProperty({ type: Number, nullable: true })
+  persistenceM: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(5000)
+  @ApiProperty({ type: Number, nullable: true })
+  apertureMm: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0.5, { message: 'Jr is 0.5–5 (table value, +1 allowed for spacing over 3 m).' })
+  @Max(5, { message: 'Jr is 0.5–5 (table value, +1 allowed for spacing over 3 m).' })
+  @ApiProperty({ type: Number, nullable: true })
+  jr: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0, { message: 'JRC is 0–20.' })
+  @Max(20, { message: 'JRC is 0–20.' })
+  @ApiProperty({ type: Number, nullable: true })
+  jrc: number | null;
+
+  @IsOptional()
+  @IsIn(JRC_METHODS)
+  @ApiProperty({ enum: JRC_METHODS, enumName: 'JrcMethod', nullable: true })
+  jrcMethod: (typeof JRC_METHODS)[number] | null;
+
+  @IsString()
+  @MaxLength(120)
+  infill: string;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0.75, { message: 'Ja is 0.75–20.' })
+  @Max(20, { message: 'Ja is 0.75–20.' })
+  @ApiProperty({ type: Number, nullable: true })
+  ja: number | null;
+
+  @IsOptional()
+  @IsIn(JOINT_WATER)
+  @ApiProperty({ enum: JOINT_WATER, enumName: 'JointWater', nullable: true })
+  water: (typeof JOINT_WATER)[number] | null;
+
+  /** Thickness of a fault or shear zone, m */
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(500)
+  @ApiProperty({ type: Number, nullable: true })
+  thicknessM: number | null;
+
+  @IsString()
+  @MaxLength(500)
+  notes: string;
+}
+
+export class JointDto extends JointInputDto {
+  id: string;
+  seq: number;
+  /** Canonical dip direction, null while the typed text cannot be read */
+  @ApiProperty({ type: Number, nullable: true })
+  dipDirection: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  dip: number | null;
+  /** Why the typed orientation could not be read */
+  @ApiProperty({ type: String, nullable: true })
+  orientationError: string | null;
+}
+
+/** Everything the geologist edits on a round; sent whole on every save (PUT) with the version read. */
+export class RoundInputDto {
+  @IsNumber({}, { message: 'Face chainage is a number of metres.' })
+  @Min(-99999)
+  @Max(999999)
+  faceChainage: number;
+
+  @IsOptional()
+  @IsNumber()
+  @ApiProperty({ type: Number, nullable: true })
+  previousChainage: number | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(-100)
+  @Max(100)
+  @ApiProperty({ type: Number, nullable: true })
+  roundLength: number | null;
+
+  @Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'Shift date is a date such as 2026-11-30.' })
+  shiftDate: string;
+
+  @IsIn(SHIFTS)
+  @ApiProperty({ enum: SHIFTS, enumName: 'Shift' })
+  shift: (typeof SHIFTS)[number];
+
+  @IsString()
+  @MaxLength(2000)
+  distantParts: string;
+
+  @ValidateNested()
+  @Type(() => GroundDto)
+  ground: GroundDto;
+
+  @IsArray()
+  @ArrayMaxSize(500)
+  @ValidateNested({ each: true })
+  @Type(() => JointInputDto)
+  joints: JointInputDto[];
+
+  /** Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
+  @IsOptional()
+  @IsObject()
+  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true })
+  qInput: Record<string, unknown> | null;
+
+  /** RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
+  @IsOptional()
+  @IsObject()
+  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true })
+  rmrInput: Record<string, unknown> | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0)
+  @Max(100)
+  @ApiProperty({ type: Number, nullable: true })
+  gsiObserved: number | null;
+
+  @IsOptional()
+  @IsUUID()
+  @ApiProperty({ type: String, nullable: true })
+  recommendedClassId: string | null;
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0.3, { message: 'Next round length is 0.3–8 m.' })
+  @Max(8, { message: 'Next round length is 0.3–8 m.' })
+  @ApiProperty({ type: Number, nullable: true })
+  nextRoundLength: number | null;
+
+  @IsString()
+  @MaxLength(4000)
+  recommendationReason: string;
+}
+
+export class SaveRoundDto extends RoundInputDto {
+  /** The version you last read; a stale version is refused with 409 STALE_VERSION */
+  @IsInt()
+  @Min(1)
+  version: number;
+}
+
+export class CreateRoundDto {
+  @IsIn(STAGES)
+  @ApiProperty({ enum: STAGES, enumName: 'Stage' })
+  stage: (typeof STAGES)[number];
+
+  @IsNumber({}, { message: 'Face chainage is a number of metres.' })
+  @Min(-99999)
+  @Max(999999)
+  faceChainage: number;
+}
+
+export class SubmitRoundDto {
+  @IsInt()
+  @Min(1)
+  version: number;
+}
+
+export class RatingOutcomeDto {
+  @ApiProperty({ type: Number, nullable: true })
+  value: number | null;
+  /** Class or band in words */
+  @ApiProperty({ type: String, nullable: true })
+  label: string | null;
+  /** Why it could not be computed from the inputs, if so */
+  @ApiProperty({ type: String, nullable: true })
+  error: string | null;
+  /** Intermediate values and ratings, for showing the inputs beside the result */
+  @ApiProperty({ type: 'object', additionalProperties: { type: 'number' } })
+  parts: Record<string, number>;
+}
+
+export class RoundRatingsDto {
+  q: RatingOutcomeDto;
+  rmr: RatingOutcomeDto;
+  gsi: RatingOutcomeDto;
+}
+
+export class RoundDto extends RoundInputDto {
+  id: string;
+  headingId: string;
+  @ApiProperty({ enum: STAGES, enumName: 'Stage' })
+  stage: (typeof STAGES)[number];
+  roundNumber: number;
+  mappedBy: string;
+  mappedByName: string;
+  mappedAt: string;
+  @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
+  status: (typeof ROUND_STATUSES)[number];
+  revision: number;
+  @ApiProperty({ type: String, nullable: true })
+  submittedAt: string | null;
+  declare joints: JointDto[];
+  ratings: RoundRatingsDto;
+  /** Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
+  @ApiProperty({ type: Number, nullable: true })
+  inflowPer10m: number | null;
+  /** Support classes whose ranges fit the ratings, best ground first */
+  suggestedClassIds: string[];
+  /** Things worth a second look that do not stop saving (e.g. round length over the planned maximum) */
+  warnings: string[];
+  /** The planned round length of the heading, m */
+  plannedRoundLength: number;
+  version: number;
+}
+
+export class RoundSummaryDto {
+  id: string;
+  roundNumber: number;
+  @ApiProperty({ enum: STAGES, enumName: 'Stage' })
+  stage: (typeof STAGES)[number];
+  faceChainage: number;
+  shiftDate: string;
+  @ApiProperty({ enum: SHIFTS, enumName: 'Shift' })
+  shift: (typeof SHIFTS)[number];
+  mapperName: string;
+  @ApiProperty({ type: Number, nullable: true })
+  q: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  rmr: number | null;
+  @ApiProperty({ type: String, nullable: true })
+  recommendedClassCode: string | null;
+  @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
+  status: (typeof ROUND_STATUSES)[number];
+}
+
+export class RoundPageDto {
+  items: RoundSummaryDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export const ROUND_SORTS = [
+  'faceChainage',
+  '-faceChainage',
+  'shiftDate',
+  '-shiftDate',
+  'q',
+  '-q',
+  'rmr',
+  '-rmr',
+  'roundNumber',
+  '-roundNumber',
+] as const;
+
+export class RoundQueryDto {
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt()
+  @Min(1)
+  page?: number;
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt()
+  @Min(1)
+  @Max(200)
+  pageSize?: number;
+
+  @IsOptional()
+  @IsIn(ROUND_SORTS)
+  @ApiProperty({ enum: ROUND_SORTS, enumName: 'RoundSort', required: false })
+  sort?: (typeof ROUND_SORTS)[number];
+
+  @IsOptional()
+  @IsIn(ROUND_STATUSES)
+  @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus', required: false })
+  status?: (typeof ROUND_STATUSES)[number];
+
+  @IsOptional()
+  @IsIn(STAGES)
+  @ApiProperty({ enum: STAGES, enumName: 'Stage', required: false })
+  stage?: (typeof STAGES)[number];
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsNumber()
+  fromChainage?: number;
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsNumber()
+  toChainage?: number;
+}
+
+export class NextRoundDto {
+  @ApiProperty({ enum: STAGES, enumName: 'Stage' })
+  stage: (typeof STAGES)[number];
+  roundNumber: number;
+  /** Face chainage of the last round of this heading and stage, or the heading's start */
+  previousChainage: number;
+  plannedRoundLength: number;
+  /** previousChainage + planned round length, as a starting value */
+  suggestedFaceChainage: number;
+}
+
+export class NearbyJointDto {
+  roundId: string;
+  roundNumber: number;
+  faceChainage: number;
+  @ApiProperty({ enum: JOINT_KINDS, enumName: 'JointKind' })
+  kind: (typeof JOINT_KINDS)[number];
+  dipDirection: number;
+  dip: number;
+  @ApiProperty({ type: String, nullable: true })
+  setLabel: string | null;
+}
+
+export class NearbyJointsQueryDto {
+  @Type(() => Number)
+  @IsNumber()
+  fromChainage: number;
+
+  @Type(() => Number)
+  @IsNumber()
+  toChainage: number;
+
+  @IsOptional()
+  @IsUUID()
+  excludeRoundId?: string;
+}

@@ -1,0 +1,183 @@
+import type { QInput, Rmr89Input } from '@roundbook/geomath';
+import { Column, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn } from 'typeorm';
+import { decimal } from '../../common/dto/numeric.transformer.js';
+import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
+import { Heading, STAGES, type Stage } from '../headings/heading.entity.js';
+import { SupportClass } from '../support-classes/support-class.entity.js';
+import type { Joint } from './joint.entity.js';
+
+export const ROUND_STATUSES = ['draft', 'submitted', 'confirmed', 'returned'] as const;
+export type RoundStatus = (typeof ROUND_STATUSES)[number];
+export const SHIFTS = ['day', 'night'] as const;
+export type Shift = (typeof SHIFTS)[number];
+
+/** One rock unit seen at the face, with its share of the face and its field grades. */
+export interface RockUnit {
+  name: string;
+  sharePercent: number;
+  weatheringGrade: string | null;
+  strengthGrade: string | null;
+}
+
+/** What the geologist records about the ground of the face (besides the joints). */
+export interface GroundRecord {
+  units: RockUnit[];
+  /** Point-load index Is50, MPa, and the factor used to estimate UCS from it */
+  pointLoadIs50: number | null;
+  pointLoadFactor: number | null;
+  /** Water inflow at the face, l/min, and the tunnel length it comes from, m */
+  inflowLpm: number | null;
+  inflowLengthM: number | null;
+  waterDescription: string;
+  overbreakM3: number | null;
+  notes: string;
+}
+
+/** Ratings as entered; null until the geologist starts them. */
+export type QRecord = QInput;
+export type RmrRecord = Omit<Rmr89Input, 'orientation'> & {
+  orientation:
+    | {
+        kind: 'assessment';
+        assessment: 'very favourable' | 'favourable' | 'fair' | 'unfavourable' | 'very unfavourable';
+      }
+    | { kind: 'not assessed' };
+};
+
+/** One mapped face: position, ground, joints, ratings, recommendation and status. */
+@Entity('rounds')
+@Index('UQ_rounds_heading_stage_number', ['headingId', 'stage', 'roundNumber'], { unique: true })
+@Index('IDX_rounds_heading_chainage', ['headingId', 'faceChainage'])
+@Index('IDX_rounds_heading_status', ['headingId', 'status'])
+@Index('IDX_rounds_heading_date', ['headingId', 'shiftDate'])
+export class Round {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ name: 'project_id', type: 'uuid' })
+  projectId: string;
+
+  @Column({ name: 'heading_id', type: 'uuid' })
+  headingId: string;
+
+  @ManyToOne(() => Heading, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'heading_id' })
+  heading?: Heading;
+
+  @Column({ type: 'enum', enum: STAGES })
+  stage: Stage;
+
+  @Column({ name: 'round_number', type: 'int' })
+  roundNumber: number;
+
+  @Column({ name: 'face_chainage', type: 'decimal', precision: 12, scale: 3, transformer: decimal })
+  faceChainage: number;
+
+  @Column({
+    name: 'previous_chainage',
+    type: 'decimal',
+    precision: 12,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  previousChainage: number | null;
+
+  @Column({
+    name: 'round_length',
+    type: 'decimal',
+    precision: 7,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  roundLength: number | null;
+
+  /** The date the shift started, in the project's time zone (a night shift spans midnight). */
+  @Column({ name: 'shift_date', type: 'date' })
+  shiftDate: string;
+
+  @Column({ type: 'enum', enum: SHIFTS })
+  shift: Shift;
+
+  @Column({ name: 'mapped_by', type: 'uuid' })
+  mappedBy: string;
+
+  @Column({ name: 'mapped_at', type: 'datetime', precision: 3 })
+  mappedAt: Date;
+
+  /** Parts of the face seen only from a distance (not mapped at arm's length). */
+  @Column({ name: 'distant_parts', type: 'text' })
+  distantParts: string;
+
+  @Column({ type: 'json' })
+  ground: GroundRecord;
+
+  @Column({ name: 'q_input', type: 'json', nullable: true })
+  qInput: QRecord | null;
+
+  @Column({ name: 'rmr_input', type: 'json', nullable: true })
+  rmrInput: RmrRecord | null;
+
+  /** GSI read from the chart by the geologist, if any; otherwise GSI comes from RMR89. */
+  @Column({
+    name: 'gsi_observed',
+    type: 'decimal',
+    precision: 5,
+    scale: 1,
+    nullable: true,
+    transformer: decimal,
+  })
+  gsiObserved: number | null;
+
+  // Computed by packages/geomath on every save (kept for listing and sorting).
+  @Column({ type: 'double', nullable: true })
+  q: number | null;
+
+  @Column({ type: 'int', nullable: true })
+  rmr: number | null;
+
+  @Column({ type: 'decimal', precision: 5, scale: 1, nullable: true, transformer: decimal })
+  gsi: number | null;
+
+  @Column({ name: 'recommended_class_id', type: 'uuid', nullable: true })
+  recommendedClassId: string | null;
+
+  @ManyToOne(() => SupportClass, { onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'recommended_class_id' })
+  recommendedClass?: SupportClass | null;
+
+  @Column({
+    name: 'next_round_length',
+    type: 'decimal',
+    precision: 5,
+    scale: 2,
+    nullable: true,
+    transformer: decimal,
+  })
+  nextRoundLength: number | null;
+
+  @Column({ name: 'recommendation_reason', type: 'text' })
+  recommendationReason: string;
+
+  @Column({ type: 'enum', enum: ROUND_STATUSES, default: 'draft' })
+  status: RoundStatus;
+
+  @Column({ type: 'int', default: 1 })
+  revision: number;
+
+  @Column({ name: 'submitted_at', type: 'datetime', precision: 3, nullable: true })
+  submittedAt: Date | null;
+
+  @OneToMany('Joint', (j: Joint) => j.round)
+  joints?: Joint[];
+
+  @CreatedAt()
+  createdAt: Date;
+
+  @UpdatedAt()
+  updatedAt: Date;
+
+  @Version()
+  version: number;
+}
