@@ -1,12 +1,4 @@
-import {
-  gsiFromRmr89,
-  parsePlane,
-  qValue,
-  rmr89,
-  type PlaneNotation,
-  type QInput,
-  type Rmr89Input,
-} from '@roundbook/geomath';
+import { gsiFromRmr89, parsePlane, qValue, rmr89, type PlaneNotation } from '@roundbook/geomath';
 import type { SupportClass } from '../support-classes/support-class.entity.js';
 import type { RatingOutcomeDto, RoundRatingsDto } from './dto/round.dto.js';
 import type { QRecord, RmrRecord } from './round.entity.js';
