@@ -10,11 +10,11 @@ const swc = {
   sourceMaps: 'inline',
 };
 module.exports = {
-  moduleFileExtensions: ['js', 'json', 'ts'],
+  moduleFileExtensions: ['js', 'mjs', 'json', 'ts'],
   rootDir: '.',
   testEnvironment: 'node',
   testRegex: 'src/.*\\.spec\\.ts$',
-  transform: { '^.+\\.(t|j)s$': ['@swc/jest', swc] },
+  transform: { '^.+\\.(t|j|mj)s$': ['@swc/jest', swc] },
   transformIgnorePatterns: [
     '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit|d3-.*|internmap)/)',
   ],
