@@ -391,6 +391,13 @@ describe('Rounds (e2e, real MariaDB)', () => {
     expect(del.body.message).toMatch(/Retire it instead/);
   });
 
+  it("shows the heading's face chainage, last round and rounds waiting for review on the Board", async () => {
+    const res = await request(http).get('/api/projects').set(as('engineer')).expect(200);
+    const card = ((res.body as Body[])[0].headings as Body[]).find((h) => h.id === heading.id)!;
+    expect(card).toMatchObject({ faceChainage: 1003.5, roundsToConfirm: 1 });
+    expect(new Date(card.lastRoundAt as string).getTime()).toBeGreaterThan(Date.now() - 5 * 60_000);
+  });
+
   it('finds readable joints of the heading over a chainage window', async () => {
     const res = await request(http)
       .get(`${base}/headings/${heading.id}/joints?fromChainage=990&toChainage=1010`)

@@ -3,7 +3,16 @@ import type { Heading } from '../headings/heading.entity.js';
 import type { HeadingSummaryDto, ProjectSummaryDto } from './dto/project.dto.js';
 import type { Project } from './project.entity.js';
 
-export function toHeadingSummary(h: Heading): HeadingSummaryDto {
+/** What the rounds of one heading say on the Board. */
+export interface HeadingProgress {
+  faceChainage: number | null;
+  lastRoundAt: string | null;
+  roundsToConfirm: number;
+}
+
+const NO_PROGRESS: HeadingProgress = { faceChainage: null, lastRoundAt: null, roundsToConfirm: 0 };
+
+export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROGRESS): HeadingSummaryDto {
   return {
     id: h.id,
     code: h.code,
@@ -16,16 +25,18 @@ export function toHeadingSummary(h: Heading): HeadingSummaryDto {
     profileWidth: h.profileWidth,
     profileHeight: h.profileHeight,
     plannedRoundLength: h.plannedRoundLength,
-    // Rounds, reviews, triggers and handovers arrive with their own features; until then nothing to show.
-    faceChainage: null,
-    lastRoundAt: null,
-    roundsToConfirm: 0,
+    ...progress,
+    // Trigger levels and handovers arrive with their own features; until then nothing to show.
     triggerLevel: null,
     lastHandover: null,
   };
 }
 
-export function toProjectSummary(p: Project, role: ProjectRole): ProjectSummaryDto {
+export function toProjectSummary(
+  p: Project,
+  role: ProjectRole,
+  progress: ReadonlyMap<string, HeadingProgress> = new Map(),
+): ProjectSummaryDto {
   return {
     id: p.id,
     code: p.code,
@@ -39,6 +50,8 @@ export function toProjectSummary(p: Project, role: ProjectRole): ProjectSummaryD
     coordinateGrid: p.coordinateGrid,
     role,
     version: p.version,
-    headings: [...(p.headings ?? [])].sort((a, b) => a.code.localeCompare(b.code)).map(toHeadingSummary),
+    headings: [...(p.headings ?? [])]
+      .sort((a, b) => a.code.localeCompare(b.code))
+      .map((h) => toHeadingSummary(h, progress.get(h.id))),
   };
 }

@@ -4,10 +4,11 @@ import { DataSource, type Repository } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { AuditService } from '../audit/audit.service.js';
+import { Round } from '../rounds/round.entity.js';
 import type { ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
 import { ProjectMember } from './project-member.entity.js';
 import { Project } from './project.entity.js';
-import { toProjectSummary } from './projects.mapper.js';
+import { toProjectSummary, type HeadingProgress } from './projects.mapper.js';
 
 @Injectable()
 export class ProjectsService {
@@ -24,7 +25,8 @@ export class ProjectsService {
       relations: { project: { headings: true } },
       order: { project: { name: 'ASC' } },
     });
-    return memberships.map((m) => toProjectSummary(m.project, m.role));
+    const progress = await this.progress(memberships.flatMap((m) => m.project.headings.map((h) => h.id)));
+    return memberships.map((m) => toProjectSummary(m.project, m.role, progress));
   }
 
   async get(access: ProjectAccess): Promise<ProjectSummaryDto> {
@@ -33,7 +35,37 @@ export class ProjectsService {
       relations: { headings: true },
     });
     if (!project) throw DomainException.notFound('The project');
-    return toProjectSummary(project, access.role);
+    return toProjectSummary(project, access.role, await this.progress(project.headings.map((h) => h.id)));
+  }
+
+  /** Face chainage (furthest round), last round time and rounds waiting for review, per heading, in one query. */
+  private async progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
+    if (headingIds.length === 0) return new Map();
+    const rows = await this.dataSource
+      .createQueryBuilder()
+      .from(Round, 'r')
+      .select('r.heading_id', 'headingId')
+      .addSelect('MAX(r.face_chainage)', 'faceChainage')
+      .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
+      .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
+      .where('r.heading_id IN (:...headingIds)', { headingIds })
+      .groupBy('r.heading_id')
+      .getRawMany<{
+        headingId: string;
+        faceChainage: string;
+        lastRoundAt: Date | string;
+        toConfirm: string;
+      }>();
+    return new Map(
+      rows.map((r) => [
+        r.headingId,
+        {
+          faceChainage: Number(r.faceChainage),
+          lastRoundAt: new Date(r.lastRoundAt).toISOString(),
+          roundsToConfirm: Number(r.toConfirm),
+        },
+      ]),
+    );
   }
 
   /** Changes the project's settings with optimistic locking; the change goes to the audit trail. */
