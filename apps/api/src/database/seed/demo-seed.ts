@@ -9,6 +9,7 @@ import { SupportClass } from '../../modules/support-classes/support-class.entity
 import { TriggerRule } from '../../modules/trigger-rules/trigger-rule.entity.js';
 import { hashPassword } from '../../modules/users/password.js';
 import { User } from '../../modules/users/user.entity.js';
+import { seedDemoRounds, type DemoRoundsPlan } from './demo-rounds.js';
 
 interface Scenario {
   project: Pick<
@@ -30,6 +31,7 @@ interface Scenario {
     Omit<TriggerRule, 'id' | 'projectId' | 'enabled' | 'createdAt' | 'updatedAt' | 'version'>
   >;
   users: Array<{ email: string; name: string; role: ProjectRole }>;
+  rounds: DemoRoundsPlan[];
 }
 
 export const scenarioFile = (): string =>
@@ -67,6 +69,17 @@ export async function seedDemo(
       await manager.save(
         manager.create(ProjectMember, { projectId: project.id, userId: user.id, role: u.role }),
       );
+    }
+    const classes = await manager.find(SupportClass, {
+      where: { projectId: project.id },
+      order: { sortOrder: 'ASC' },
+    });
+    const geologist = await manager.findOneByOrFail(User, {
+      email: scenario.users.find((u) => u.role === 'geologist')!.email,
+    });
+    for (const plan of scenario.rounds) {
+      const heading = await manager.findOneByOrFail(Heading, { projectId: project.id, code: plan.heading });
+      await seedDemoRounds(manager, plan, heading, classes, geologist.id);
     }
     return true;
   });
