@@ -329,7 +329,7 @@ export class RoundsService {
         'r.status AS status',
       ])
       .orderBy(column, sort.startsWith('-') ? 'DESC' : 'ASC')
-      .addOrderBy('r.id', 'ASC')
+      .addOrderBy('r.id', sort.startsWith('-') ? 'DESC' : 'ASC') // same direction, so the index order serves both keys
       .offset((page - 1) * pageSize)
       .limit(pageSize)
       .getRawMany<Record<string, string | number | null>>();
