@@ -145,6 +145,39 @@ describe('Setup: headings, support classes, trigger rules, team (e2e, real Maria
     });
   });
 
+  describe('heading geometry after rounds exist', () => {
+    it('asks for confirmation before changing the drive of a heading with rounds, then applies it', async () => {
+      const hu = (
+        (await request(http).get(`${base}/headings`).set(as('admin')).expect(200)).body as Body[]
+      ).find((h) => h.code === 'HR-U')!;
+      const ask = await request(http)
+        .patch(`${base}/headings/${hu.id}`)
+        .set(as('admin'))
+        .send({ driveTrend: 315, version: hu.version })
+        .expect(409);
+      expect(ask.body).toMatchObject({ code: 'NEEDS_CONFIRMATION', details: { fields: ['driveTrend'] } });
+      expect(ask.body.details.rounds).toBeGreaterThan(0);
+      expect(ask.body.message).toMatch(/drive direction/);
+      const done = await request(http)
+        .patch(`${base}/headings/${hu.id}`)
+        .set(as('admin'))
+        .send({ driveTrend: 315, version: hu.version, confirmRecompute: true })
+        .expect(200);
+      expect(done.body.driveTrend).toBe(315);
+      // A name change needs no confirmation; then the drive goes back.
+      const renamed = await request(http)
+        .patch(`${base}/headings/${hu.id}`)
+        .set(as('admin'))
+        .send({ name: hu.name, version: done.body.version })
+        .expect(200);
+      await request(http)
+        .patch(`${base}/headings/${hu.id}`)
+        .set(as('admin'))
+        .send({ driveTrend: hu.driveTrend, version: renamed.body.version, confirmRecompute: true })
+        .expect(200);
+    });
+  });
+
   describe('support classes', () => {
     it('shows the seeded library best ground first, with no range warnings', async () => {
       const res = await request(http).get(`${base}/support-classes`).set(as('supervisor')).expect(200);
@@ -278,6 +311,63 @@ describe('Setup: headings, support classes, trigger rules, team (e2e, real Maria
       );
       expect(rules[0].level).toBe('red');
       expect(rules.map((r) => r.summary)).toContain('Q < 0.1 → red');
+    });
+
+    it('previews a rule against the demo rounds without saving it', async () => {
+      const q = await request(http)
+        .post(`${base}/trigger-rules/preview`)
+        .set(as('engineer'))
+        .send({
+          watch: 'q',
+          comparison: '<',
+          threshold: 1,
+          level: 'amber',
+          action: 'Review.',
+          ownerRole: 'engineer',
+          timeAllowedHours: 4,
+        })
+        .expect(200);
+      expect(q.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
+      expect(q.body.matches.length).toBeGreaterThan(0);
+      const demo = (q.body.matches as Body[]).filter((m) =>
+        ['HR-U', 'HR-D'].includes(m.headingCode as string),
+      );
+      expect((q.body.matches as Body[]).every((m) => m.value < 1)).toBe(true);
+      expect(demo.map((m) => m.roundNumber).sort((a, b) => a - b)).toEqual([13, 14, 15, 16, 17, 18]); // the fault zone on HR-U
+      const change = await request(http)
+        .post(`${base}/trigger-rules/preview`)
+        .set(as('admin'))
+        .send({
+          watch: 'support-class-change',
+          level: 'amber',
+          action: 'Confirm.',
+          ownerRole: 'engineer',
+          timeAllowedHours: 4,
+        })
+        .expect(200);
+      expect((change.body.matches as Body[]).map((m) => `${m.headingCode}#${m.roundNumber}`)).toEqual(
+        expect.arrayContaining(['HR-U#11', 'HR-U#13', 'HR-D#8']),
+      );
+      const hazard = await request(http)
+        .post(`${base}/trigger-rules/preview`)
+        .set(as('admin'))
+        .send({
+          watch: 'open-red-hazard',
+          level: 'red',
+          action: 'Stop.',
+          ownerRole: 'supervisor',
+          timeAllowedHours: 1,
+        })
+        .expect(200);
+      expect(hazard.body).toMatchObject({
+        evaluatedRounds: 0,
+        matches: [],
+        notEvaluated: expect.stringMatching(/Hazards/),
+      });
+      await request(http).post(`${base}/trigger-rules/preview`).set(as('geologist')).send({}).expect(403);
+      const rules = (await request(http).get(`${base}/trigger-rules`).set(as('admin')).expect(200))
+        .body as Body[];
+      expect(rules.some((r) => r.action === 'Review.')).toBe(false); // nothing saved
     });
 
     it('lets engineers and admins edit rules, checks threshold against what is watched, and audits', async () => {

@@ -6,9 +6,28 @@ import { definedOnly } from '../../common/dto/defined-only.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
+import { Round } from '../rounds/round.entity.js';
 import type { CreateHeadingDto, HeadingDto, UpdateHeadingDto } from './dto/heading.dto.js';
 import { Heading } from './heading.entity.js';
 import { HEADING_FIELDS, toHeadingDto } from './headings.mapper.js';
+
+/** Fields that change how a heading's rounds are judged against the drive and the profile. */
+const GEOMETRY_FIELDS = [
+  'driveTrend',
+  'gradientPercent',
+  'profileShape',
+  'profileWidth',
+  'profileHeight',
+  'axisHeight',
+] as const;
+const GEOMETRY_WORDS: Record<(typeof GEOMETRY_FIELDS)[number], string> = {
+  driveTrend: 'drive direction',
+  gradientPercent: 'gradient',
+  profileShape: 'profile shape',
+  profileWidth: 'width',
+  profileHeight: 'height',
+  axisHeight: 'axis height',
+};
 
 /** Checks that involve more than one field; messages land on the field they concern. */
 function crossFieldErrors(
@@ -94,6 +113,20 @@ export class HeadingsService {
         await this.assertCodeFree(manager, access.projectId, changes.code);
       const diff = auditDiff(before, heading, HEADING_FIELDS);
       if (!diff) return toHeadingDto(before);
+      const geometry = GEOMETRY_FIELDS.filter((f) => f in diff.after);
+      if (geometry.length && !dto.confirmRecompute) {
+        const rounds = await manager.count(Round, { where: { headingId } });
+        if (rounds > 0) {
+          throw new DomainException(
+            ErrorCode.NeedsConfirmation,
+            `${rounds} round(s) are recorded on ${before.code}. Changing its ${geometry.map((f) => GEOMETRY_WORDS[f]).join(', ')} changes how ` +
+              'their joints are judged against the drive (orientation assessment, kinematic screens, look-ahead crossings), which are ' +
+              'worked out again from the new values. Ratings already entered are not changed. Confirm to apply.',
+            undefined,
+            { rounds, fields: geometry },
+          );
+        }
+      }
       const saved = await manager.save(heading);
       await this.audit.record(manager, {
         projectId: access.projectId,

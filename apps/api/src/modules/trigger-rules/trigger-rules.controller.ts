@@ -20,7 +20,12 @@ import {
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
-import { CreateTriggerRuleDto, TriggerRuleDto, UpdateTriggerRuleDto } from './dto/trigger-rule.dto.js';
+import {
+  CreateTriggerRuleDto,
+  TriggerPreviewDto,
+  TriggerRuleDto,
+  UpdateTriggerRuleDto,
+} from './dto/trigger-rule.dto.js';
 import { TriggerRulesService } from './trigger-rules.service.js';
 
 @ApiTags('trigger-rules')
@@ -48,6 +53,19 @@ export class TriggerRulesController {
     @Body() body: CreateTriggerRuleDto,
   ): Promise<TriggerRuleDto> {
     return this.rules.create(user, access, body);
+  }
+
+  /** How a rule (saved or not) would fire on the project's latest rounds (admins and engineers) */
+  @Post('preview')
+  @HttpCode(200)
+  @ProjectRoles('admin', 'engineer')
+  @ApiOkResponse({ type: TriggerPreviewDto })
+  preview(
+    @Param('projectId') _p: string,
+    @CurrentAccess() access: ProjectAccess,
+    @Body() body: CreateTriggerRuleDto,
+  ): Promise<TriggerPreviewDto> {
+    return this.rules.preview(access, body);
   }
 
   /** Changes a rule (admins and engineers) */

@@ -1,12 +1,22 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, type EntityManager } from 'typeorm';
+import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
-import type { CreateTriggerRuleDto, TriggerRuleDto, UpdateTriggerRuleDto } from './dto/trigger-rule.dto.js';
+import { Heading } from '../headings/heading.entity.js';
+import { Joint } from '../rounds/joint.entity.js';
+import { inflowPer10m } from '../rounds/round-computations.js';
+import { Round } from '../rounds/round.entity.js';
+import type {
+  CreateTriggerRuleDto,
+  TriggerPreviewDto,
+  TriggerRuleDto,
+  UpdateTriggerRuleDto,
+} from './dto/trigger-rule.dto.js';
+import { evaluateRule } from './trigger-evaluation.js';
 import { TriggerRule } from './trigger-rule.entity.js';
 import { triggerRuleErrors, triggerRuleSummary } from './trigger-rule.rules.js';
 
@@ -123,6 +133,96 @@ export class TriggerRulesService {
         before: auditSnapshot(rule, FIELDS),
       });
     });
+  }
+
+  /** How the rule would have fired on each heading's latest rounds, without saving it. */
+  async preview(
+    access: ProjectAccess,
+    dto: CreateTriggerRuleDto,
+    perHeading = 50,
+  ): Promise<TriggerPreviewDto> {
+    const rule = this.dataSource.manager.create(TriggerRule, {
+      comparison: null,
+      threshold: null,
+      ...definedOnly(dto),
+    });
+    this.assertValid(rule);
+    if (rule.watch === 'open-red-hazard') {
+      return {
+        evaluatedRounds: 0,
+        matches: [],
+        notEvaluated: 'Hazards are not recorded in Roundbook yet, so this rule has nothing to check.',
+      };
+    }
+    const headings = await this.dataSource
+      .getRepository(Heading)
+      .find({ where: { projectId: access.projectId }, order: { code: 'ASC' } });
+    const rounds: Round[] = [];
+    for (const heading of headings) {
+      const latest = await this.dataSource
+        .getRepository(Round)
+        .find({ where: { headingId: heading.id }, order: { roundNumber: 'DESC' }, take: perHeading });
+      rounds.push(...latest.map((r) => Object.assign(r, { heading })));
+    }
+    const ids = rounds.map((r) => r.id);
+    const joints = ids.length
+      ? await this.dataSource.getRepository(Joint).find({ where: { roundId: In(ids) } })
+      : [];
+    const byRound = new Map<string, Joint[]>();
+    for (const j of joints) byRound.set(j.roundId, [...(byRound.get(j.roundId) ?? []), j]);
+    const previous = await this.previousClasses(rounds);
+    const matches: TriggerPreviewDto['matches'] = [];
+    for (const r of rounds) {
+      const fired = evaluateRule(
+        rule,
+        {
+          q: r.q,
+          rmr: r.rmr,
+          inflowPer10m: inflowPer10m(r.ground.inflowLpm, r.ground.inflowLengthM ?? r.roundLength),
+          overbreakM3: r.ground.overbreakM3,
+          faceChainage: r.faceChainage,
+          recommendedClassId: r.recommendedClassId,
+          previousClassId: previous.get(r.id),
+          joints: byRound.get(r.id) ?? [],
+        },
+        r.heading!,
+      );
+      if (fired) {
+        matches.push({
+          roundId: r.id,
+          headingCode: r.heading!.code,
+          roundNumber: r.roundNumber,
+          stage: r.stage,
+          faceChainage: r.faceChainage,
+          shiftDate: r.shiftDate,
+          ...fired,
+        });
+      }
+    }
+    return { evaluatedRounds: rounds.length, matches, notEvaluated: null };
+  }
+
+  /** The recommended class of the round before each one (same heading and stage); undefined for a first round. */
+  private async previousClasses(rounds: Round[]): Promise<Map<string, string | null | undefined>> {
+    const key = (headingId: string, stage: string, n: number): string => `${headingId}|${stage}|${n}`;
+    const loaded = new Map(
+      rounds.map((r) => [key(r.headingId, r.stage, r.roundNumber), r.recommendedClassId]),
+    );
+    const out = new Map<string, string | null | undefined>();
+    for (const r of rounds) {
+      const k = key(r.headingId, r.stage, r.roundNumber - 1);
+      if (r.roundNumber === 1) out.set(r.id, undefined);
+      else if (loaded.has(k)) out.set(r.id, loaded.get(k));
+      else {
+        // Only the oldest rounds of the window need their predecessor from the database.
+        const prev = await this.dataSource.getRepository(Round).findOne({
+          where: { headingId: r.headingId, stage: r.stage, roundNumber: r.roundNumber - 1 },
+          select: { id: true, recommendedClassId: true },
+        });
+        out.set(r.id, prev ? prev.recommendedClassId : undefined);
+      }
+    }
+    return out;
   }
 
   private assertValid(rule: TriggerRule): void {

@@ -214,6 +214,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/trigger-rules/preview": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** How a rule (saved or not) would fire on the project's latest rounds (admins and engineers) */
+        post: operations["TriggerRulesController_preview"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/trigger-rules/{ruleId}": {
         parameters: {
             query?: never;
@@ -809,6 +826,24 @@ export interface components {
             action: string;
             timeAllowedHours: number;
             enabled?: boolean;
+        };
+        TriggerPreviewMatchDto: {
+            value: number | null;
+            roundId: string;
+            headingCode: string;
+            roundNumber: number;
+            stage: string;
+            faceChainage: number;
+            shiftDate: string;
+            /** @description Why the rule fires on this round, in words */
+            detail: string;
+        };
+        TriggerPreviewDto: {
+            /** @description Set when the rule cannot be checked against records yet, with the reason */
+            notEvaluated: string | null;
+            /** @description How many of the project's latest rounds were checked */
+            evaluatedRounds: number;
+            matches: components["schemas"]["TriggerPreviewMatchDto"][];
         };
         UpdateTriggerRuleDto: {
             watch?: components["schemas"]["WatchedQuantity"];
@@ -1772,6 +1807,45 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["TriggerRuleDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_preview: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerPreviewDto"];
                 };
             };
             /** @description Member without one of the roles: admin, engineer */

@@ -67,3 +67,25 @@ export class UpdateTriggerRuleDto extends PartialType(CreateTriggerRuleDto) {
   @Min(1)
   version: number;
 }
+
+export class TriggerPreviewMatchDto {
+  roundId: string;
+  headingCode: string;
+  roundNumber: number;
+  stage: string;
+  faceChainage: number;
+  shiftDate: string;
+  @ApiProperty({ type: Number, nullable: true })
+  value: number | null;
+  /** Why the rule fires on this round, in words */
+  detail: string;
+}
+
+export class TriggerPreviewDto {
+  /** How many of the project's latest rounds were checked */
+  evaluatedRounds: number;
+  matches: TriggerPreviewMatchDto[];
+  /** Set when the rule cannot be checked against records yet, with the reason */
+  @ApiProperty({ type: String, nullable: true })
+  notEvaluated: string | null;
+}
