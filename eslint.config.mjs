@@ -55,7 +55,17 @@ export default tseslint.config(
   },
   // Web features are self-contained: composed only in src/app, never importing one another, and
   // dependencies flow one way (app → features → lib). Matched on the `@/` import text.
-  ...['auth', 'projects', 'mail', 'system'].map((feature) => ({
+  ...[
+    'auth',
+    'projects',
+    'mail',
+    'system',
+    'headings',
+    'support-classes',
+    'trigger-rules',
+    'team',
+    'rounds',
+  ].map((feature) => ({
     files: [`apps/web/src/features/${feature}/**/*.{ts,tsx}`],
     rules: {
       'no-restricted-imports': [

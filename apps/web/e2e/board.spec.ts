@@ -12,10 +12,10 @@ mkdirSync(shots, { recursive: true });
 
 const roles = [
   { role: 'admin', nav: ['Board', 'Setup', 'Local mail'] },
-  { role: 'geologist', nav: ['Board'] },
-  { role: 'engineer', nav: ['Board', 'To confirm'] },
-  { role: 'supervisor', nav: ['Board', 'Received'] },
-  { role: 'viewer', nav: ['Board'] },
+  { role: 'geologist', nav: ['Board', 'Setup'] },
+  { role: 'engineer', nav: ['Board', 'To confirm', 'Setup'] },
+  { role: 'supervisor', nav: ['Board', 'Received', 'Setup'] },
+  { role: 'viewer', nav: ['Board', 'Setup'] },
 ] as const;
 
 const sampleMail = [

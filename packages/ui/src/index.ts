@@ -15,3 +15,12 @@ export { RoleBadge, roleLabels } from './components/role-badge/role-badge';
 export type { ProjectRole, RoleBadgeProps } from './components/role-badge/role-badge';
 export { FormikInputField } from './forms/formik-input-field';
 export type { FormikInputFieldProps } from './forms/formik-input-field';
+export { FormikSelectField } from './forms/formik-select-field';
+export type { FormikSelectFieldProps, SelectOption } from './forms/formik-select-field';
+export { ConfirmDialog } from './components/confirm-dialog/confirm-dialog';
+export type { ConfirmDialogProps } from './components/confirm-dialog/confirm-dialog';
+export { StaleVersionNotice } from './components/stale-version-notice/stale-version-notice';
+export type {
+  StaleVersionNoticeProps,
+  VersionDifference,
+} from './components/stale-version-notice/stale-version-notice';

@@ -32,3 +32,29 @@ export interface AppConfig {
   localMode: boolean;
   version: string;
 }
+
+export type PlaneNotation = Schemas['PlaneNotation'];
+export type QTableEdition = Schemas['QTableEdition'];
+export type GroundScale = Schemas['GroundScale'];
+export type UpdateProjectRequest = Schemas['UpdateProjectDto'];
+export type ChainageStyle = Schemas['ChainageStyle'];
+export type ProfileShape = Schemas['ProfileShape'];
+export type Heading = Schemas['HeadingDto'];
+export type CreateHeadingRequest = Schemas['CreateHeadingDto'];
+export type UpdateHeadingRequest = Schemas['UpdateHeadingDto'];
+export type SupportClass = Schemas['SupportClassDto'];
+export type SupportClassLibrary = Schemas['SupportClassLibraryDto'];
+export type RangeWarning = Schemas['RangeWarningDto'];
+export type CreateSupportClassRequest = Schemas['CreateSupportClassDto'];
+export type UpdateSupportClassRequest = Schemas['UpdateSupportClassDto'];
+export type WatchedQuantity = Schemas['WatchedQuantity'];
+export type Comparison = Schemas['Comparison'];
+export type TriggerRule = Schemas['TriggerRuleDto'];
+export type CreateTriggerRuleRequest = Schemas['CreateTriggerRuleDto'];
+export type UpdateTriggerRuleRequest = Schemas['UpdateTriggerRuleDto'];
+export type TeamMember = Schemas['MemberDto'];
+export type Invitation = Schemas['InvitationDto'];
+export type Team = Schemas['TeamDto'];
+export type InviteRequest = Schemas['InviteDto'];
+export type InvitationInfo = Schemas['InvitationInfoDto'];
+export type AcceptInvitationRequest = Schemas['AcceptInvitationDto'];

@@ -10,20 +10,23 @@ const member = (projectId: string, role: Membership['role']): Membership => ({
 const labels = (ctx: Parameters<typeof navigationFor>[0]) => navigationFor(ctx).map((i) => i.label);
 
 describe('navigationFor', () => {
-  it('gives every role the Board and each role its own page', () => {
+  it('gives every role the Board, its own page and Setup (read-only for all but admins)', () => {
     expect(labels({ role: 'viewer', localMode: true, memberships: [member('a', 'viewer')] })).toEqual([
       'Board',
+      'Setup',
     ]);
     expect(labels({ role: 'geologist', localMode: false, memberships: [member('a', 'geologist')] })).toEqual([
       'Board',
+      'Setup',
     ]);
     expect(labels({ role: 'engineer', localMode: false, memberships: [member('a', 'engineer')] })).toEqual([
       'Board',
       'To confirm',
+      'Setup',
     ]);
     expect(
       labels({ role: 'supervisor', localMode: false, memberships: [member('a', 'supervisor')] }),
-    ).toEqual(['Board', 'Received']);
+    ).toEqual(['Board', 'Received', 'Setup']);
     expect(labels({ role: 'admin', localMode: false, memberships: [member('a', 'admin')] })).toEqual([
       'Board',
       'Setup',
@@ -34,9 +37,14 @@ describe('navigationFor', () => {
     const adminElsewhere = [member('a', 'viewer'), member('b', 'admin')];
     expect(labels({ role: 'viewer', localMode: true, memberships: adminElsewhere })).toEqual([
       'Board',
+      'Setup',
       'Local mail',
     ]);
-    expect(labels({ role: 'viewer', localMode: false, memberships: adminElsewhere })).toEqual(['Board']);
+    expect(labels({ role: 'viewer', localMode: false, memberships: adminElsewhere })).toEqual([
+      'Board',
+      'Setup',
+    ]);
+    expect(labels({ role: null, localMode: false, memberships: [] })).toEqual(['Board']);
   });
 });
 

@@ -19,7 +19,8 @@ export function navigationFor({ role, localMode, memberships }: NavContext): Nav
   const items: NavItem[] = [{ to: '/', label: 'Board', icon: 'board' }];
   if (role === 'engineer') items.push({ to: '/to-confirm', label: 'To confirm', icon: 'confirm' });
   if (role === 'supervisor') items.push({ to: '/received', label: 'Received', icon: 'received' });
-  if (role === 'admin') items.push({ to: '/setup', label: 'Setup', icon: 'setup' });
+  // Everyone in a project may read its setup; only admins (and engineers, for triggers) change it.
+  if (role !== null) items.push({ to: '/setup', label: 'Setup', icon: 'setup' });
   if (localMode && memberships.some((m) => m.role === 'admin')) {
     items.push({ to: '/mail', label: 'Local mail', icon: 'mail' });
   }

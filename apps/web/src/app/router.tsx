@@ -26,6 +26,12 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           },
         },
         {
+          path: 'invitation/:token',
+          lazy: async () => ({
+            Component: (await import('@/app/routes/invitation.route')).InvitationRoute,
+          }),
+        },
+        {
           id: 'signed-in',
           lazy: async () => {
             const { clientLoader, AppShellRoute } = await import('@/app/routes/app-shell.route');
@@ -61,8 +67,25 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   lazy: async () => ({ Component: (await import('@/app/routes/later.route')).ReceivedRoute }),
                 },
                 {
-                  path: 'setup',
-                  lazy: async () => ({ Component: (await import('@/app/routes/later.route')).SetupRoute }),
+                  path: 'setup/:section?',
+                  lazy: async () => {
+                    const { clientLoader, SetupRoute } = await import('@/app/routes/setup.route');
+                    return { loader: clientLoader(queryClient), Component: SetupRoute };
+                  },
+                },
+                {
+                  path: 'projects/:projectId/headings/:headingId',
+                  lazy: async () => {
+                    const { clientLoader, HeadingRoute } = await import('@/app/routes/heading.route');
+                    return { loader: clientLoader(queryClient), Component: HeadingRoute };
+                  },
+                },
+                {
+                  path: 'projects/:projectId/rounds/:roundId',
+                  lazy: async () => {
+                    const { clientLoader, RoundRoute } = await import('@/app/routes/round.route');
+                    return { loader: clientLoader(queryClient), Component: RoundRoute };
+                  },
                 },
                 { path: '*', Component: NotFound },
               ],

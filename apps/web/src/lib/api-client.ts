@@ -11,13 +11,22 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string> | undefined;
+  /** Extra facts some errors carry, e.g. `current` (the saved version) with 409 STALE_VERSION. */
+  readonly details: Record<string, unknown> | undefined;
 
-  constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
+  constructor(
+    status: number,
+    code: string,
+    message: string,
+    fields?: Record<string, string>,
+    details?: Record<string, unknown>,
+  ) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.details = details;
   }
 }
 
@@ -32,7 +41,12 @@ export function setSessionExpiredHandler(handler: (() => void) | null): void {
   sessionExpiredHandler = handler;
 }
 
-const PUBLIC_PATHS = new Set(['/api/auth/login', '/api/config']);
+const PUBLIC_PATHS = new Set([
+  '/api/auth/login',
+  '/api/config',
+  '/api/invitations/{token}',
+  '/api/invitations/{token}/accept',
+]);
 
 const authMiddleware: Middleware = {
   onRequest({ request, schemaPath }) {
@@ -75,7 +89,14 @@ export function toApiError(response: Response, body: unknown): ApiError {
   // A proxy in front of a stopped API answers 502/503/504 without our error body.
   if (!isErrorBody(body) && [502, 503, 504].includes(response.status)) return unreachable();
   if (isErrorBody(body)) {
-    return new ApiError(response.status, body.code, body.message ?? body.code, body.fields);
+    const details = (body as { details?: unknown }).details;
+    return new ApiError(
+      response.status,
+      body.code,
+      body.message ?? body.code,
+      body.fields,
+      typeof details === 'object' && details !== null ? (details as Record<string, unknown>) : undefined,
+    );
   }
   return new ApiError(response.status, `HTTP_${response.status}`, response.statusText || 'Request failed');
 }

@@ -40,6 +40,7 @@ export const harrowdale: ProjectSummary = {
   role: 'admin',
   defaultNotation: 'dip-direction/dip',
   qTableEdition: '2015',
+  groundScale: 'isrm',
   distributionList: ['site-office@roundbook.test'],
   coordinateGrid: 'Harrowdale site grid',
   version: 3,

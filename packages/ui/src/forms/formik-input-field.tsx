@@ -1,6 +1,7 @@
 import { Field, Input, makeStyles } from '@fluentui/react-components';
 import type { InputProps } from '@fluentui/react-components';
 import { useField } from 'formik';
+import type { ReactElement } from 'react';
 import { TOUCH_TARGET_PX } from '../theme/touch';
 
 export interface FormikInputFieldProps {
@@ -8,12 +9,14 @@ export interface FormikInputFieldProps {
   name: string;
   label: string;
   type?: InputProps['type'];
-  hint?: string;
+  hint?: string | ReactElement;
   required?: boolean;
   autoComplete?: string;
   inputMode?: InputProps['inputMode'];
   placeholder?: string;
   disabled?: boolean;
+  /** A unit or short note shown inside the input, after the value (m, °, %). */
+  contentAfter?: string | ReactElement;
 }
 
 const useStyles = makeStyles({
@@ -34,6 +37,7 @@ export function FormikInputField({
   inputMode,
   placeholder,
   disabled,
+  contentAfter,
 }: FormikInputFieldProps) {
   const styles = useStyles();
   const [field, meta] = useField<string>(name);
@@ -58,6 +62,7 @@ export function FormikInputField({
         inputMode={inputMode}
         placeholder={placeholder}
         disabled={disabled}
+        contentAfter={contentAfter}
         size="large"
       />
     </Field>

@@ -20,6 +20,7 @@ import type { NavItem } from '@/app/navigation';
 import { navigationFor, pickCurrentProject, rememberCurrentProject } from '@/app/navigation';
 import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
+import type { ShellContext } from '@/app/shell-context';
 import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
 import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
 import { clearSession } from '@/lib/session';
@@ -209,7 +210,7 @@ export function AppShellRoute() {
 
       <main className={styles.main}>
         <Suspense fallback={<PageLoading />}>
-          <Outlet />
+          <Outlet context={{ membership: current } satisfies ShellContext} />
         </Suspense>
       </main>
 

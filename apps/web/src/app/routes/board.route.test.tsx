@@ -60,7 +60,7 @@ describe('Board', () => {
     expect(screen.getAllByText('Project admin')).toHaveLength(2);
   });
 
-  it('offers a viewer only the Board', async () => {
+  it('offers a viewer the Board and a read-only Setup', async () => {
     mockApi({
       'GET /api/auth/me': viewerUser,
       'GET /api/config': localConfig,
@@ -72,7 +72,7 @@ describe('Board', () => {
       within(nav)
         .getAllByRole('link')
         .map((l) => l.textContent),
-    ).toEqual(['Board']);
+    ).toEqual(['Board', 'Setup']);
     expect(await screen.findAllByText('Read only')).not.toHaveLength(0);
   });
 

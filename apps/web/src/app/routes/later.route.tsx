@@ -32,12 +32,3 @@ export function ReceivedRoute() {
     />
   );
 }
-
-export function SetupRoute() {
-  return (
-    <LaterPage
-      title="Setup"
-      purpose="Headings, support classes, trigger rules and the project team will be set up here."
-    />
-  );
-}

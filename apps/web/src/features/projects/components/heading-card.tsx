@@ -1,6 +1,7 @@
 import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import type { HeadingSummary, TriggerLevel } from '@/api/contract';
 import {
   formatAzimuth,
@@ -16,6 +17,8 @@ export interface HeadingCardProps {
   heading: HeadingSummary;
   /** The project's time zone; every time on the card is shown in it. */
   timeZone: string;
+  /** Where the card's title leads (the heading's screen). */
+  to?: string;
 }
 
 const triggerColours: Record<TriggerLevel, BadgeProps['color']> = {
@@ -38,6 +41,13 @@ const useStyles = makeStyles({
   },
   titles: { display: 'flex', flexDirection: 'column', minWidth: 0 },
   name: { margin: 0 },
+  link: {
+    color: tokens.colorBrandForeground1,
+    display: 'inline-flex',
+    alignItems: 'center',
+    minHeight: '48px',
+    textDecorationThickness: '2px',
+  },
   code: {
     fontFamily: tokens.fontFamilyMonospace,
     fontWeight: tokens.fontWeightSemibold,
@@ -82,7 +92,7 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 }
 
 /** One heading on the Board: where the face is and what is waiting on it. */
-export function HeadingCard({ heading, timeZone }: HeadingCardProps) {
+export function HeadingCard({ heading, timeZone, to }: HeadingCardProps) {
   const styles = useStyles();
   const handover = heading.lastHandover;
   const handoverStatus = handoverState(handover);
@@ -94,7 +104,13 @@ export function HeadingCard({ heading, timeZone }: HeadingCardProps) {
         <div className={styles.titles}>
           <Text className={styles.code}>{heading.code}</Text>
           <Subtitle2 as="h3" id={titleId} className={styles.name}>
-            {heading.name}
+            {to === undefined ? (
+              heading.name
+            ) : (
+              <Link className={styles.link} to={to}>
+                {heading.name}
+              </Link>
+            )}
           </Subtitle2>
         </div>
         {heading.triggerLevel === null ? (

@@ -34,7 +34,12 @@ export function ProjectBoard({ project }: ProjectBoardProps) {
       ) : (
         <div className={styles.grid}>
           {project.headings.map((heading) => (
-            <HeadingCard key={heading.id} heading={heading} timeZone={project.timeZone} />
+            <HeadingCard
+              key={heading.id}
+              heading={heading}
+              timeZone={project.timeZone}
+              to={`/projects/${project.id}/headings/${heading.id}`}
+            />
           ))}
         </div>
       )}

@@ -1,0 +1,86 @@
+import { Button, makeStyles, Tab, TabList, tokens } from '@fluentui/react-components';
+import { ArrowLeftRegular } from '@fluentui/react-icons';
+import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
+import type { QueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { guarded } from '@/app/routes/session-guard';
+import {
+  headingQueryOptions,
+  projectDetailQueryOptions,
+  useHeading,
+  useProjectDetail,
+} from '@/features/rounds/api/get-round-context';
+import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
+import { RoundsTable } from '@/features/rounds/components/rounds-table';
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  ({ request, params }: LoaderFunctionArgs) =>
+    guarded(request, async () => {
+      const projectId = params.projectId ?? '';
+      const headingId = params.headingId ?? '';
+      await Promise.all([
+        queryClient.ensureQueryData(projectDetailQueryOptions(projectId)),
+        queryClient.ensureQueryData(headingQueryOptions(projectId, headingId)),
+      ]);
+      return null;
+    });
+
+const useStyles = makeStyles({
+  tabs: { marginBottom: tokens.spacingVerticalL },
+  tab: { minHeight: '56px', fontSize: tokens.fontSizeBase500 },
+  back: { minHeight: `${TOUCH_TARGET_PX}px` },
+});
+
+/** Heading: its rounds (the other tabs come with later work). */
+export function HeadingRoute() {
+  const styles = useStyles();
+  const navigate = useNavigate();
+  const { projectId = '', headingId = '' } = useParams();
+  const { data: project } = useProjectDetail(projectId);
+  const { data: heading } = useHeading(projectId, headingId);
+  const drive = `${String(Math.round(heading.driveTrend)).padStart(3, '0')}°`;
+  return (
+    <>
+      <PageHeader
+        title={`${heading.code} · ${heading.name}`}
+        subtitle={`${project.name} · drive ${drive} · planned round ${heading.plannedRoundLength} m`}
+        actions={
+          <>
+            <Link to="/">
+              <Button className={styles.back} size="large" appearance="subtle" icon={<ArrowLeftRegular />}>
+                Board
+              </Button>
+            </Link>
+            {project.role === 'geologist' && (
+              <NewRoundPanel
+                projectId={projectId}
+                heading={heading}
+                onCreated={(round) => void navigate(`/projects/${projectId}/rounds/${round.id}`)}
+              />
+            )}
+          </>
+        }
+      />
+      <TabList className={styles.tabs} size="large" selectedValue="rounds" aria-label="Heading views">
+        <Tab className={styles.tab} value="rounds">
+          Rounds
+        </Tab>
+        <Tab className={styles.tab} value="long-section" disabled>
+          Long section (coming)
+        </Tab>
+        <Tab className={styles.tab} value="orientation" disabled>
+          Orientation (coming)
+        </Tab>
+        <Tab className={styles.tab} value="hazards" disabled>
+          Hazards (coming)
+        </Tab>
+        <Tab className={styles.tab} value="handovers" disabled>
+          Handovers (coming)
+        </Tab>
+      </TabList>
+      <RoundsTable projectId={projectId} heading={heading} />
+    </>
+  );
+}

@@ -1,0 +1,62 @@
+import { Button, makeStyles } from '@fluentui/react-components';
+import { ArrowLeftRegular } from '@fluentui/react-icons';
+import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { useSuspenseQuery } from '@tanstack/react-query';
+import type { QueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
+import { guarded } from '@/app/routes/session-guard';
+import { roundQueryOptions, useRound } from '@/features/rounds/api/get-round';
+import {
+  headingQueryOptions,
+  projectDetailQueryOptions,
+  supportClassesQueryOptions,
+  useProjectDetail,
+  useSupportClasses,
+} from '@/features/rounds/api/get-round-context';
+import { RoundEditor } from '@/features/rounds/components/round-editor';
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  ({ request, params }: LoaderFunctionArgs) =>
+    guarded(request, async () => {
+      const projectId = params.projectId ?? '';
+      const roundId = params.roundId ?? '';
+      const [round] = await Promise.all([
+        queryClient.ensureQueryData(roundQueryOptions(projectId, roundId)),
+        queryClient.ensureQueryData(projectDetailQueryOptions(projectId)),
+        queryClient.ensureQueryData(supportClassesQueryOptions(projectId)),
+      ]);
+      await queryClient.ensureQueryData(headingQueryOptions(projectId, round.headingId));
+      return null;
+    });
+
+const useStyles = makeStyles({ back: { minHeight: `${TOUCH_TARGET_PX}px`, marginBottom: '8px' } });
+
+/** Round: one mapped face, edited by the geologist while it is a draft; read only otherwise. */
+export function RoundRoute() {
+  const styles = useStyles();
+  const { projectId = '', roundId = '' } = useParams();
+  const { data: round } = useRound(projectId, roundId);
+  const { data: project } = useProjectDetail(projectId);
+  const { data: heading } = useSuspenseQuery(headingQueryOptions(projectId, round.headingId));
+  const { data: library } = useSupportClasses(projectId);
+  return (
+    <>
+      <Link to={`/projects/${projectId}/headings/${heading.id}`}>
+        <Button className={styles.back} size="large" appearance="subtle" icon={<ArrowLeftRegular />}>
+          {`Rounds of ${heading.code}`}
+        </Button>
+      </Link>
+      <RoundEditor
+        key={round.id}
+        projectId={projectId}
+        round={round}
+        project={project}
+        heading={heading}
+        supportClasses={library.classes}
+        canEdit={project.role === 'geologist'}
+      />
+    </>
+  );
+}

@@ -1,0 +1,11 @@
+import { useOutletContext } from 'react-router-dom';
+import type { Membership } from '@/api/contract';
+
+/** What the signed-in shell passes to its pages: the project the person is looking at. */
+export interface ShellContext {
+  membership: Membership | null;
+}
+
+export function useShellContext(): ShellContext {
+  return useOutletContext<ShellContext | undefined>() ?? { membership: null };
+}

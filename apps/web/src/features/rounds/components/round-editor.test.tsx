@@ -1,0 +1,272 @@
+import { qValue, Q_EDITION, RMR_ORIENTATION_RULE } from '@roundbook/geomath';
+import { act, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
+import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { formValuesOf } from '@/features/rounds/schemas/round-form';
+import {
+  draftRound,
+  heading,
+  project,
+  renderWithProviders,
+  supportClasses,
+} from '@/features/rounds/testing/round-fixtures';
+import { localDraftKey, readLocalDraft, writeLocalDraft } from '@/features/rounds/utils/local-draft';
+import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
+
+afterEach(restoreFetch);
+
+const PUT = 'PUT /api/projects/p-1/rounds/r-1';
+const JOINTS = 'GET /api/projects/p-1/headings/h-1/joints';
+const SUBMIT = 'POST /api/projects/p-1/rounds/r-1/submit';
+
+/** The API's answer to a save: the record as sent, one version on. */
+function savedFrom(body: SaveRoundRequest, base: Round = draftRound): Round {
+  return {
+    ...base,
+    ...body,
+    joints: body.joints.map((j, i) => ({
+      ...j,
+      id: `j-${i}`,
+      seq: i + 1,
+      dipDirection: null,
+      dip: null,
+      orientationError: null,
+    })),
+    version: body.version + 1,
+  };
+}
+
+function renderEditor(round: Round = draftRound, canEdit = true) {
+  return renderWithProviders(
+    <RoundEditor
+      projectId="p-1"
+      round={round}
+      project={project}
+      heading={heading}
+      supportClasses={supportClasses}
+      canEdit={canEdit}
+    />,
+  );
+}
+
+const saves: SaveRoundRequest[] = [];
+function saveHandler(answer?: (body: SaveRoundRequest) => Response) {
+  saves.length = 0;
+  return async (request: Request) => {
+    const body = (await request.json()) as SaveRoundRequest;
+    saves.push(body);
+    return answer ? answer(body) : jsonResponse(savedFrom(body));
+  };
+}
+
+const distantField = () => screen.getByLabelText('Parts of the face seen only from a distance');
+
+describe('Round editor: nothing lost', () => {
+  it('keeps the typing in the browser at once and saves it 1.5 s after the last change', async () => {
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+    await userEvent.setup().type(distantField(), 'Crown behind the jumbo');
+
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Not saved yet');
+    expect(readLocalDraft('r-1')?.values.distantParts).toBe('Crown behind the jumbo');
+    expect(readLocalDraft('r-1')?.baseVersion).toBe(3);
+    expect(saves).toHaveLength(0);
+
+    await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'), {
+      timeout: 4000,
+    });
+    expect(saves).toHaveLength(1);
+    expect(saves[0]).toMatchObject({
+      version: 3,
+      distantParts: 'Crown behind the jumbo',
+      faceChainage: 1253.5,
+    });
+    expect(window.localStorage.getItem(localDraftKey('r-1'))).toBeNull();
+  });
+
+  it('restores unsaved typing after a reload, says so, and sends it', async () => {
+    writeLocalDraft({
+      roundId: 'r-1',
+      baseVersion: 3,
+      savedAt: Date.parse('2026-12-01T09:00:00Z'),
+      values: { ...formValuesOf(draftRound), distantParts: 'Left wall seen from the muck pile' },
+    });
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(await screen.findByTestId('restored-note')).toHaveTextContent('restored from this device');
+    expect(distantField()).toHaveValue('Left wall seen from the muck pile');
+    await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
+    expect(saves[0]).toMatchObject({ version: 3, distantParts: 'Left wall seen from the muck pile' });
+    await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'));
+    expect(readLocalDraft('r-1')).toBeNull();
+  });
+
+  it('shows "not saved yet — will retry" when the server cannot be reached, and keeps the typing', async () => {
+    mockApi({ [JOINTS]: [], [PUT]: () => Promise.reject(new TypeError('Failed to fetch')) });
+    renderEditor();
+    await userEvent.setup().type(distantField(), 'Invert under water');
+    expect(await screen.findByTestId('offline-note', {}, { timeout: 4000 })).toHaveTextContent(
+      'Not saved yet — will retry',
+    );
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Not saved yet — will retry');
+    expect(readLocalDraft('r-1')?.values.distantParts).toBe('Invert under water');
+  });
+});
+
+describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
+  const theirs: Round = {
+    ...draftRound,
+    version: 4,
+    distantParts: 'Whole face seen close up',
+    faceChainage: 1254,
+  };
+  const stale = () =>
+    jsonResponse(
+      { code: 'STALE_VERSION', message: 'Someone saved this round first.', details: { current: theirs } },
+      409,
+    );
+
+  it('shows both versions side by side and, on "keep my changes", saves the typing on top of their version', async () => {
+    let calls = 0;
+    mockApi({
+      [JOINTS]: [],
+      [PUT]: saveHandler((body) => {
+        calls += 1;
+        return calls === 1 ? stale() : jsonResponse(savedFrom(body, theirs));
+      }),
+    });
+    renderEditor();
+    const user = userEvent.setup();
+    await user.type(distantField(), 'Crown only');
+    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
+    expect(notice).toHaveTextContent('Someone saved this round first.');
+    const rows = within(notice).getAllByRole('row');
+    expect(rows.map((r) => r.textContent)).toEqual(
+      expect.arrayContaining([
+        'Parts seen only from a distanceCrown onlyWhole face seen close up',
+        'Face chainage1253.51254',
+      ]),
+    );
+    expect(screen.getByTestId('save-state')).toHaveTextContent('changed by someone else');
+    expect(saves).toHaveLength(1);
+
+    await user.click(within(notice).getByRole('button', { name: 'Keep my changes' }));
+    await waitFor(() => expect(saves).toHaveLength(2));
+    expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only' });
+    await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'));
+    expect(distantField()).toHaveValue('Crown only');
+  });
+
+  it('puts their version in the form on "load their version", without saving over it', async () => {
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler(stale) });
+    renderEditor();
+    const user = userEvent.setup();
+    await user.type(distantField(), 'Crown only');
+    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
+    await user.click(within(notice).getByRole('button', { name: 'Load their version' }));
+    expect(distantField()).toHaveValue('Whole face seen close up');
+    expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+    expect(readLocalDraft('r-1')).toBeNull();
+    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    expect(saves).toHaveLength(1);
+  });
+});
+
+describe('Round editor: rating and submit', () => {
+  it('shows Q from geomath with its inputs, the edition and the orientation rule', async () => {
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('tab', { name: 'Rating' }));
+    expect(screen.getByText(`Tables: ${Q_EDITION.name}.`)).toBeInTheDocument();
+    await user.selectOptions(screen.getByLabelText('RQD from the table'), 'rqd-fair');
+    await user.selectOptions(screen.getByLabelText('Jn from the table'), 'jn-two-random');
+    await user.selectOptions(screen.getByLabelText('Jr from the table'), 'jr-smooth-undulating');
+    await user.selectOptions(screen.getByLabelText('Ja from the table'), 'ja-stained');
+    await user.selectOptions(screen.getByLabelText('Jw from the table'), 'jw-dry');
+    await user.selectOptions(screen.getByLabelText('SRF from the table'), 'srf-medium-stress');
+    const q = qValue({ rqd: 62.5, jn: 6, jr: 2, ja: 1, jw: 1, srf: 1 });
+    const card = screen.getByTestId('rating-q');
+    // Q of 10 and over is shown with one decimal.
+    expect(card).toHaveTextContent(`Q${q.q.toFixed(1)}`);
+    expect(card).toHaveTextContent(q.rockClass);
+    expect(card).toHaveTextContent(`RQD used${q.rqdUsed}`);
+    expect(card).toHaveTextContent(`Jn used${q.jnUsed}`);
+    expect(card).toHaveTextContent(`Jr used${q.jrUsed}`);
+    expect(card).toHaveTextContent('Not on the server yet.');
+    expect(screen.getByTestId('orientation-suggestion')).toHaveTextContent(RMR_ORIENTATION_RULE);
+    expect(screen.getByTestId('rating-cautions')).toHaveTextContent('RQD from Jv is a correlation');
+    await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
+    expect(saves[0].qInput).toMatchObject({ rqd: 62.5, jn: 6, jr: 2, ja: 1, jw: 1, srf: 1 });
+  });
+
+  it('puts the reasons a submit is refused on the sections and fields they belong to', async () => {
+    mockApi({
+      [JOINTS]: [],
+      [PUT]: saveHandler(),
+      [SUBMIT]: () =>
+        jsonResponse(
+          {
+            code: 'VALIDATION_FAILED',
+            message: 'The round is not ready to submit: Fix the orientation of joint 2 before submitting.',
+            fields: {
+              joints: 'Fix the orientation of joint 2 before submitting.',
+              ratings: 'Rate the rock mass (Q or RMR89) before submitting.',
+              nextRoundLength: 'Give the length of the next round.',
+            },
+          },
+          400,
+        ),
+    });
+    renderEditor({ ...draftRound, suggestedClassIds: ['c-B'] });
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('tab', { name: 'Support' }));
+    expect(screen.getByTestId('support-caution')).toHaveTextContent('Nobody enters unsupported ground.');
+    const classes = screen.getAllByTestId('support-class');
+    expect(classes.map((c) => c.textContent?.slice(0, 1))).toEqual(['B', 'A', 'C']);
+    expect(classes[0]).toHaveTextContent('Fits the ratings');
+
+    await user.click(screen.getByRole('button', { name: 'Submit for review' }));
+    // The first section named is opened, with its message.
+    expect(await screen.findByTestId('joints-error')).toHaveTextContent('Fix the orientation of joint 2');
+    const tabs = screen.getByRole('tablist', { name: 'Sections of the round' });
+    for (const name of ['Joints', 'Rating', 'Support']) {
+      expect(within(tabs).getByRole('tab', { name: new RegExp(name) })).toHaveTextContent('!');
+    }
+    expect(within(tabs).getByRole('tab', { name: /Position/ })).not.toHaveTextContent('!');
+    await user.click(within(tabs).getByRole('tab', { name: /Rating/ }));
+    expect(screen.getByTestId('ratings-error')).toHaveTextContent('Rate the rock mass');
+    await user.click(within(tabs).getByRole('tab', { name: /Support/ }));
+    expect(screen.getByText('Give the length of the next round.')).toBeInTheDocument();
+    expect(screen.getByTestId('submit-error')).toHaveTextContent('The marked sections say what is missing.');
+  });
+
+  it('is read only for people who do not map rounds', () => {
+    mockApi({ [JOINTS]: [] });
+    renderEditor(draftRound, false);
+    expect(screen.getByText('Read only')).toBeInTheDocument();
+    expect(distantField()).toHaveAttribute('readonly');
+  });
+});
+
+describe('Round editor: a draft from this device that the server has moved past', () => {
+  it('does not send it; it shows both versions for a choice', async () => {
+    writeLocalDraft({
+      roundId: 'r-1',
+      baseVersion: 2,
+      savedAt: Date.parse('2026-12-01T09:00:00Z'),
+      values: { ...formValuesOf(draftRound), distantParts: 'Typed offline yesterday' },
+    });
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(await screen.findByTestId('restored-note')).toHaveTextContent('saved again since then');
+    const notice = screen.getByTestId('stale-version-notice');
+    expect(notice).toHaveTextContent('Typed offline yesterday');
+    expect(distantField()).toHaveValue('Typed offline yesterday');
+    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    expect(saves).toHaveLength(0);
+  });
+});

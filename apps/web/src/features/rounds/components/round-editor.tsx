@@ -1,0 +1,322 @@
+import {
+  Badge,
+  Button,
+  makeStyles,
+  MessageBar,
+  MessageBarActions,
+  MessageBarBody,
+  MessageBarTitle,
+  Tab,
+  TabList,
+  tokens,
+} from '@fluentui/react-components';
+import { driveOf, formatChainage } from '@roundbook/geomath';
+import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
+import { Formik, useFormikContext } from 'formik';
+import { useCallback, useMemo, useState } from 'react';
+import { useNearbyJoints } from '@/features/rounds/api/get-nearby-joints';
+import { submitRound } from '@/features/rounds/api/save-round';
+import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
+import { GroundSection } from '@/features/rounds/components/ground-section';
+import { JointsSection } from '@/features/rounds/components/joints-section';
+import { PositionSection } from '@/features/rounds/components/position-section';
+import { RatingSection } from '@/features/rounds/components/rating-section';
+import { RoundEditContext } from '@/features/rounds/components/round-fields';
+import { SaveStateBadge } from '@/features/rounds/components/save-state';
+import { SupportSection } from '@/features/rounds/components/support-section';
+import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
+import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
+import { chainageOf, formValuesOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
+import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
+import { liveRatings } from '@/features/rounds/utils/live-ratings';
+import { computeSets } from '@/features/rounds/utils/sets';
+import { isApiError } from '@/lib/api-client';
+
+export const ROUND_SECTIONS = ['position', 'ground', 'joints', 'rating', 'support'] as const;
+export type RoundSection = (typeof ROUND_SECTIONS)[number];
+
+const sectionLabels: Record<RoundSection, string> = {
+  position: 'Position',
+  ground: 'Ground',
+  joints: 'Joints',
+  rating: 'Rating',
+  support: 'Support',
+};
+
+/** Which section an API field name belongs to (save and submit answers). */
+export function sectionOfField(field: string): RoundSection {
+  const head = field.split('.')[0];
+  if (head === 'ground') return 'ground';
+  if (head === 'joints') return 'joints';
+  if (['ratings', 'qInput', 'rmrInput', 'gsiObserved'].includes(head)) return 'rating';
+  if (['recommendedClassId', 'nextRoundLength', 'recommendationReason'].includes(head)) return 'support';
+  return 'position';
+}
+
+export interface RoundEditorProps {
+  projectId: string;
+  round: Round;
+  project: ProjectDetail;
+  heading: HeadingDetail;
+  supportClasses: SupportClass[];
+  /** The person may edit rounds (geologist); the round's status decides the rest. */
+  canEdit: boolean;
+  initialSection?: RoundSection;
+}
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
+  nav: {
+    position: 'sticky',
+    top: 0,
+    zIndex: 2,
+    backgroundColor: tokens.colorNeutralBackground2,
+    borderRadius: tokens.borderRadiusLarge,
+    padding: tokens.spacingHorizontalXS,
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: tokens.spacingHorizontalM,
+  },
+  tab: {
+    minHeight: '56px',
+    minWidth: '8.5rem',
+    fontSize: tokens.fontSizeBase500,
+    justifyContent: 'center',
+  },
+  dot: { marginInlineStart: tokens.spacingHorizontalXS },
+});
+
+/** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
+export function RoundEditor(props: RoundEditorProps) {
+  const initialValues = useMemo(() => formValuesOf(props.round), [props.round]);
+  return (
+    <Formik<RoundFormValues>
+      initialValues={initialValues}
+      validationSchema={roundFormSchema}
+      validateOnBlur
+      validateOnChange
+      onSubmit={() => undefined}
+    >
+      <RoundEditorBody {...props} />
+    </Formik>
+  );
+}
+
+function RoundEditorBody({
+  projectId,
+  round,
+  project,
+  heading,
+  supportClasses,
+  canEdit,
+  initialSection,
+}: RoundEditorProps) {
+  const styles = useStyles();
+  const { values, resetForm } = useFormikContext<RoundFormValues>();
+  const [section, setSection] = useState<RoundSection>(initialSection ?? 'position');
+  const [distance, setDistance] = useState(25);
+  const [setCount, setSetCount] = useState<number | null>(null);
+  const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
+  const [submitMessage, setSubmitMessage] = useState<string | null>(null);
+  const [submitting, setSubmitting] = useState(false);
+
+  const editableStatus = round.status === 'draft' || round.status === 'returned';
+  const reset = useCallback((v: RoundFormValues) => resetForm({ values: v }), [resetForm]);
+  const classCode = useCallback(
+    (id: string) => supportClasses.find((c) => c.id === id)?.code ?? id,
+    [supportClasses],
+  );
+  const autosave = useRoundAutosave({
+    projectId,
+    initial: round,
+    values,
+    editable: canEdit && editableStatus,
+    reset,
+    classCode,
+  });
+  const server = autosave.server;
+  const readOnly = !canEdit || !(server.status === 'draft' || server.status === 'returned');
+
+  const face = chainageOf(values.faceChainage) ?? server.faceChainage;
+  const nearby = useNearbyJoints(
+    projectId,
+    heading.id,
+    face - distance,
+    face + distance,
+    round.id,
+    distance > 0,
+  );
+  const drive = useMemo(() => driveOf(heading), [heading]);
+  const nearbyJoints = useMemo(() => (distance > 0 ? (nearby.data ?? []) : []), [distance, nearby.data]);
+  const sets = useMemo(
+    () => computeSets(values.joints, nearbyJoints, drive, setCount),
+    [values.joints, nearbyJoints, drive, setCount],
+  );
+  const live = useMemo(() => liveRatings(values), [values]);
+
+  const serverErrors = { ...autosave.fieldErrors, ...submitErrors };
+  const errorSections = new Set(Object.keys(serverErrors).map(sectionOfField));
+  const chainageStyle = { style: heading.chainageStyle, decimals: heading.chainageDecimals };
+
+  const go = (next: RoundSection) => {
+    setSection(next);
+    void autosave.flush();
+  };
+
+  const submit = async () => {
+    setSubmitting(true);
+    setSubmitMessage(null);
+    setSubmitErrors({});
+    try {
+      await autosave.flush();
+      const submitted = await submitRound(projectId, round.id, autosave.version());
+      autosave.accept(submitted);
+    } catch (error) {
+      if (isApiError(error) && error.fields !== undefined && Object.keys(error.fields).length > 0) {
+        setSubmitErrors(error.fields);
+        setSubmitMessage(`${error.message} The marked sections say what is missing.`);
+        const first = Object.keys(error.fields).map(sectionOfField)[0];
+        if (first !== undefined && first !== 'support') setSection(first);
+      } else {
+        setSubmitMessage(isApiError(error) ? error.message : 'The round could not be submitted. Try again.');
+      }
+    } finally {
+      setSubmitting(false);
+    }
+  };
+
+  return (
+    <RoundEditContext.Provider value={{ readOnly, serverErrors }}>
+      <div className={styles.root}>
+        <PageHeader
+          title={`Round ${server.roundNumber} · ${heading.code} · ${formatChainage(server.faceChainage, chainageStyle)}`}
+          subtitle={`${heading.name} · ${stageLabels[server.stage]} · ${project.name}`}
+          actions={
+            <>
+              <Badge
+                size="extra-large"
+                appearance="tint"
+                shape="rounded"
+                color={server.status === 'draft' ? 'informative' : 'brand'}
+              >
+                {statusLabels[server.status]}
+              </Badge>
+              <SaveStateBadge state={autosave.state} readOnly={readOnly} />
+            </>
+          }
+        />
+
+        {autosave.state === 'offline' && (
+          <MessageBar intent="warning" data-testid="offline-note">
+            <MessageBarBody>
+              <MessageBarTitle>Not saved yet — will retry</MessageBarTitle>
+              The server cannot be reached. Your typing is kept on this device and is sent as soon as the
+              connection is back.
+            </MessageBarBody>
+            <MessageBarActions>
+              <Button size="large" onClick={() => void autosave.flush()}>
+                Try now
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
+        )}
+        {(autosave.state === 'invalid' || autosave.state === 'refused') && autosave.message !== null && (
+          <MessageBar intent="error" data-testid="save-error">
+            <MessageBarBody>
+              <MessageBarTitle>Not saved</MessageBarTitle>
+              {autosave.message} Your typing is kept on this device.
+            </MessageBarBody>
+          </MessageBar>
+        )}
+        {autosave.restored !== null && (
+          <MessageBar intent="info" data-testid="restored-note">
+            <MessageBarBody>{autosave.restored}</MessageBarBody>
+            <MessageBarActions>
+              <Button size="large" onClick={autosave.dismissRestored}>
+                OK
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
+        )}
+        {autosave.stale !== null && (
+          <StaleVersionNotice
+            message={autosave.stale.message}
+            differences={autosave.stale.differences}
+            state={autosave.stale.state}
+            onLoadTheirs={autosave.takeTheirs}
+            onKeepMine={autosave.keepMine}
+            onDismiss={autosave.dismissStale}
+          />
+        )}
+        {server.status === 'submitted' && (
+          <MessageBar intent="success" data-testid="submitted-note">
+            <MessageBarBody>
+              Submitted for review. The engineers of the project confirm it or return it; until then it cannot
+              be edited.
+            </MessageBarBody>
+          </MessageBar>
+        )}
+
+        <div className={styles.nav}>
+          <TabList
+            size="large"
+            selectedValue={section}
+            onTabSelect={(_e, data) => go(data.value as RoundSection)}
+            aria-label="Sections of the round"
+          >
+            {ROUND_SECTIONS.map((s) => (
+              <Tab key={s} value={s} className={styles.tab}>
+                {sectionLabels[s]}
+                {errorSections.has(s) && (
+                  <Badge className={styles.dot} color="danger" size="small" aria-label="needs attention">
+                    !
+                  </Badge>
+                )}
+              </Tab>
+            ))}
+          </TabList>
+        </div>
+
+        {section === 'position' && (
+          <PositionSection round={server} chainage={chainageStyle} timeZone={project.timeZone} />
+        )}
+        {section === 'ground' && (
+          <GroundSection groundScale={project.groundScale} inflowPer10m={server.inflowPer10m} />
+        )}
+        {section === 'joints' && (
+          <JointsSection
+            defaultNotation={project.defaultNotation}
+            sets={sets}
+            distance={distance}
+            onDistanceChange={setDistance}
+            setCount={setCount}
+            onSetCountChange={setSetCount}
+            nearbyCount={nearbyJoints.length}
+            nearbyLoading={distance > 0 && nearby.isLoading}
+          />
+        )}
+        {section === 'rating' && (
+          <RatingSection
+            live={live}
+            saved={server.ratings}
+            sets={sets.sets}
+            inflowPer10m={server.inflowPer10m}
+            driveTrend={heading.driveTrend}
+          />
+        )}
+        {section === 'support' && (
+          <SupportSection
+            classes={supportClasses}
+            suggestedClassIds={server.suggestedClassIds}
+            canSubmit={!readOnly}
+            submitting={submitting}
+            submitMessage={submitMessage}
+            onSubmit={() => void submit()}
+          />
+        )}
+      </div>
+    </RoundEditContext.Provider>
+  );
+}

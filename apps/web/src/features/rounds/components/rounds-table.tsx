@@ -1,0 +1,230 @@
+import {
+  Badge,
+  Button,
+  Caption1,
+  Field,
+  Input,
+  makeStyles,
+  Select,
+  Spinner,
+  Table,
+  TableBody,
+  TableCell,
+  TableHeader,
+  TableHeaderCell,
+  TableRow,
+  Text,
+  tokens,
+} from '@fluentui/react-components';
+import type { BadgeProps } from '@fluentui/react-components';
+import { formatChainage } from '@roundbook/geomath';
+import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { useRounds } from '@/features/rounds/api/get-rounds';
+import type { RoundListFilters } from '@/features/rounds/api/keys';
+import type { ChainageStyle, HeadingDetail, RoundStatus, Stage } from '@/features/rounds/api/types';
+import { chainageOf } from '@/features/rounds/schemas/round-form';
+import { shiftLabels, stageLabels, statusLabels } from '@/features/rounds/utils/labels';
+
+export interface RoundsTableProps {
+  projectId: string;
+  heading: HeadingDetail;
+  pageSize?: number;
+}
+
+const statusColours: Record<RoundStatus, BadgeProps['color']> = {
+  draft: 'informative',
+  submitted: 'warning',
+  confirmed: 'success',
+  returned: 'danger',
+};
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalM },
+  filters: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalL, alignItems: 'flex-end' },
+  select: { minWidth: '10rem', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
+  input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '9rem' },
+  row: { height: '56px' },
+  sortButton: { minHeight: `${TOUCH_TARGET_PX}px`, paddingInline: 0, fontWeight: tokens.fontWeightSemibold },
+  link: {
+    fontWeight: tokens.fontWeightSemibold,
+    fontSize: tokens.fontSizeBase400,
+    display: 'inline-flex',
+    minHeight: `${TOUCH_TARGET_PX}px`,
+    alignItems: 'center',
+  },
+  number: { fontVariantNumeric: 'tabular-nums' },
+  pager: { display: 'flex', alignItems: 'center', gap: tokens.spacingHorizontalM },
+  button: { minHeight: `${TOUCH_TARGET_PX}px` },
+  muted: { color: tokens.colorNeutralForeground2 },
+});
+
+type SortKey = 'faceChainage' | 'shiftDate' | 'q' | 'rmr' | 'roundNumber';
+
+const formatQ = (q: number) => (q >= 10 ? q.toFixed(1) : q >= 1 ? q.toFixed(2) : q.toPrecision(2));
+
+/** The Rounds tab: every round of the heading, paged, sorted and filtered by the server. */
+export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTableProps) {
+  const styles = useStyles();
+  const [filters, setFilters] = useState<RoundListFilters>({ page: 1, pageSize, sort: '-faceChainage' });
+  const [from, setFrom] = useState('');
+  const [to, setTo] = useState('');
+  const rounds = useRounds(projectId, heading.id, filters);
+  const style: { style: ChainageStyle; decimals: number } = {
+    style: heading.chainageStyle,
+    decimals: heading.chainageDecimals,
+  };
+
+  const update = (change: Partial<RoundListFilters>) => setFilters((f) => ({ ...f, page: 1, ...change }));
+  const sortBy = (key: SortKey) =>
+    update({
+      sort: filters.sort === key ? `-${key}` : filters.sort === `-${key}` ? key : `-${key}`,
+    });
+  const sortMark = (key: SortKey) => (filters.sort === key ? ' ▲' : filters.sort === `-${key}` ? ' ▼' : '');
+  const ariaSort = (key: SortKey) =>
+    filters.sort === key
+      ? ('ascending' as const)
+      : filters.sort === `-${key}`
+        ? ('descending' as const)
+        : undefined;
+  const header = (key: SortKey, label: string) => (
+    <TableHeaderCell aria-sort={ariaSort(key)}>
+      <Button className={styles.sortButton} appearance="transparent" size="large" onClick={() => sortBy(key)}>
+        {`${label}${sortMark(key)}`}
+      </Button>
+    </TableHeaderCell>
+  );
+
+  const applyRange = () => {
+    update({ fromChainage: chainageOf(from) ?? undefined, toChainage: chainageOf(to) ?? undefined });
+  };
+
+  const data = rounds.data;
+  const pages = data === undefined ? 1 : Math.max(1, Math.ceil(data.total / data.pageSize));
+
+  return (
+    <div className={styles.root}>
+      <div className={styles.filters}>
+        <Field label="Status" size="large">
+          <Select
+            className={styles.select}
+            value={filters.status ?? ''}
+            onChange={(_e, d) => update({ status: d.value === '' ? undefined : (d.value as RoundStatus) })}
+          >
+            <option value="">Any status</option>
+            {(Object.keys(statusLabels) as RoundStatus[]).map((s) => (
+              <option key={s} value={s}>
+                {statusLabels[s]}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field label="Stage" size="large">
+          <Select
+            className={styles.select}
+            value={filters.stage ?? ''}
+            onChange={(_e, d) => update({ stage: d.value === '' ? undefined : (d.value as Stage) })}
+          >
+            <option value="">Any stage</option>
+            {heading.stages.map((s) => (
+              <option key={s} value={s}>
+                {stageLabels[s]}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field label="From chainage" size="large">
+          <Input
+            className={styles.input}
+            value={from}
+            inputMode="decimal"
+            size="large"
+            onChange={(_e, d) => setFrom(d.value)}
+            onBlur={applyRange}
+            onKeyDown={(e) => e.key === 'Enter' && applyRange()}
+          />
+        </Field>
+        <Field label="To chainage" size="large">
+          <Input
+            className={styles.input}
+            value={to}
+            inputMode="decimal"
+            size="large"
+            onChange={(_e, d) => setTo(d.value)}
+            onBlur={applyRange}
+            onKeyDown={(e) => e.key === 'Enter' && applyRange()}
+          />
+        </Field>
+        {rounds.isFetching && <Spinner size="small" label="Loading" />}
+      </div>
+
+      <Table aria-label={`Rounds of ${heading.code}`} size="medium">
+        <TableHeader>
+          <TableRow>
+            {header('faceChainage', 'Chainage')}
+            {header('roundNumber', 'Round')}
+            <TableHeaderCell>Stage</TableHeaderCell>
+            {header('shiftDate', 'Date / shift')}
+            <TableHeaderCell>Mapper</TableHeaderCell>
+            {header('q', 'Q')}
+            {header('rmr', 'RMR')}
+            <TableHeaderCell>Class recommended</TableHeaderCell>
+            <TableHeaderCell>Status</TableHeaderCell>
+          </TableRow>
+        </TableHeader>
+        <TableBody>
+          {data?.items.map((r) => (
+            <TableRow key={r.id} className={styles.row} data-testid="round-row">
+              <TableCell>
+                <Link className={styles.link} to={`/projects/${projectId}/rounds/${r.id}`}>
+                  {formatChainage(r.faceChainage, style)}
+                </Link>
+              </TableCell>
+              <TableCell className={styles.number}>{r.roundNumber}</TableCell>
+              <TableCell>{stageLabels[r.stage]}</TableCell>
+              <TableCell>{`${r.shiftDate} · ${shiftLabels[r.shift]}`}</TableCell>
+              <TableCell>{r.mapperName}</TableCell>
+              <TableCell className={styles.number}>{r.q === null ? '—' : formatQ(r.q)}</TableCell>
+              <TableCell className={styles.number}>{r.rmr === null ? '—' : r.rmr}</TableCell>
+              <TableCell>{r.recommendedClassCode ?? '—'}</TableCell>
+              <TableCell>
+                <Badge appearance="tint" size="large" shape="rounded" color={statusColours[r.status]}>
+                  {statusLabels[r.status]}
+                </Badge>
+              </TableCell>
+            </TableRow>
+          ))}
+        </TableBody>
+      </Table>
+      {data !== undefined && data.items.length === 0 && (
+        <Text className={styles.muted}>No rounds match these filters.</Text>
+      )}
+      {rounds.isError && <Text role="alert">{rounds.error.message}</Text>}
+
+      <div className={styles.pager}>
+        <Button
+          className={styles.button}
+          size="large"
+          disabled={filters.page <= 1}
+          onClick={() => setFilters((f) => ({ ...f, page: f.page - 1 }))}
+        >
+          Previous page
+        </Button>
+        <Caption1>
+          {data === undefined
+            ? ''
+            : `Page ${data.page} of ${pages} · ${data.total} ${data.total === 1 ? 'round' : 'rounds'}`}
+        </Caption1>
+        <Button
+          className={styles.button}
+          size="large"
+          disabled={filters.page >= pages}
+          onClick={() => setFilters((f) => ({ ...f, page: f.page + 1 }))}
+        >
+          Next page
+        </Button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,230 @@
+import {
+  Badge,
+  Button,
+  Caption1,
+  makeStyles,
+  mergeClasses,
+  MessageBar,
+  MessageBarBody,
+  MessageBarTitle,
+  Text,
+  tokens,
+} from '@fluentui/react-components';
+import { SendRegular } from '@fluentui/react-icons';
+import { ratingCaution } from '@roundbook/geomath';
+import { useFormikContext } from 'formik';
+import type { SupportClass } from '@/features/rounds/api/types';
+import { NumberField, TextField, useRoundEdit } from '@/features/rounds/components/round-fields';
+import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
+import { valueOf } from '@/features/rounds/schemas/round-form';
+
+export interface SupportSectionProps {
+  classes: SupportClass[];
+  suggestedClassIds: string[];
+  canSubmit: boolean;
+  submitting: boolean;
+  submitMessage: string | null;
+  onSubmit: () => void;
+}
+
+const useStyles = makeStyles({
+  root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
+  list: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fill, minmax(17rem, 1fr))',
+    gap: tokens.spacingHorizontalM,
+  },
+  card: {
+    display: 'flex',
+    flexDirection: 'column',
+    alignItems: 'stretch',
+    rowGap: tokens.spacingVerticalXS,
+    textAlign: 'left',
+    minHeight: '7rem',
+    padding: tokens.spacingHorizontalL,
+    border: `${tokens.strokeWidthThick} solid ${tokens.colorNeutralStroke1}`,
+    borderRadius: tokens.borderRadiusXLarge,
+    backgroundColor: tokens.colorNeutralBackground1,
+    color: tokens.colorNeutralForeground1,
+    cursor: 'pointer',
+    font: 'inherit',
+    ':disabled': { cursor: 'default' },
+  },
+  suggested: {
+    borderTopColor: tokens.colorPaletteGreenBorder2,
+    borderRightColor: tokens.colorPaletteGreenBorder2,
+    borderBottomColor: tokens.colorPaletteGreenBorder2,
+    borderLeftColor: tokens.colorPaletteGreenBorder2,
+  },
+  chosen: {
+    backgroundColor: tokens.colorBrandBackground2,
+    outline: `${tokens.strokeWidthThickest} solid ${tokens.colorBrandStroke1}`,
+  },
+  top: {
+    display: 'flex',
+    justifyContent: 'space-between',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalS,
+  },
+  code: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightBold },
+  muted: { color: tokens.colorNeutralForeground2 },
+  fields: {
+    display: 'grid',
+    gridTemplateColumns: 'minmax(14rem, 1fr) 2fr',
+    gap: tokens.spacingHorizontalL,
+    alignItems: 'start',
+  },
+  submit: {
+    minHeight: '56px',
+    fontSize: tokens.fontSizeBase500,
+    alignSelf: 'flex-start',
+    paddingInline: tokens.spacingHorizontalXXL,
+  },
+  error: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
+});
+
+function range(min: number | null, max: number | null, system: string): string | null {
+  if (min === null && max === null) return null;
+  if (min === null) return `${system} under ${max}`;
+  if (max === null) return `${system} ${min} or more`;
+  return `${system} ${min}–${max}`;
+}
+
+/** The recommendation: a support class (suggested ones first), the next round length, a reason, submit. */
+export function SupportSection({
+  classes,
+  suggestedClassIds,
+  canSubmit,
+  submitting,
+  submitMessage,
+  onSubmit,
+}: SupportSectionProps) {
+  const styles = useStyles();
+  const { values, setFieldValue } = useFormikContext<RoundFormValues>();
+  const { readOnly, serverErrors } = useRoundEdit();
+  const active = classes.filter((c) => !c.retired);
+  const suggested = suggestedClassIds
+    .map((id) => active.find((c) => c.id === id))
+    .filter((c): c is SupportClass => c !== undefined);
+  const others = active
+    .filter((c) => !suggestedClassIds.includes(c.id))
+    .sort((a, b) => a.sortOrder - b.sortOrder);
+  const chosen = active.find((c) => c.id === values.recommendedClassId) ?? null;
+  const outside = chosen !== null && !suggestedClassIds.includes(chosen.id);
+  const next = valueOf(values.nextRoundLength);
+  const overMax = chosen !== null && next !== null && next > chosen.maxRoundLength;
+  const caution = ratingCaution('who-decides');
+
+  const card = (c: SupportClass, isSuggested: boolean) => (
+    <button
+      key={c.id}
+      type="button"
+      role="radio"
+      aria-checked={values.recommendedClassId === c.id}
+      className={mergeClasses(
+        styles.card,
+        isSuggested && styles.suggested,
+        values.recommendedClassId === c.id && styles.chosen,
+      )}
+      disabled={readOnly}
+      data-testid="support-class"
+      onClick={() => {
+        void setFieldValue('recommendedClassId', c.id);
+        if (values.nextRoundLength === '') void setFieldValue('nextRoundLength', String(c.maxRoundLength));
+      }}
+    >
+      <span className={styles.top}>
+        <span className={styles.code}>{c.code}</span>
+        {isSuggested && (
+          <Badge appearance="filled" color="success" size="large" shape="rounded">
+            Fits the ratings
+          </Badge>
+        )}
+      </span>
+      <Text weight="semibold">{c.name}</Text>
+      <Caption1 className={styles.muted}>
+        {[range(c.qMin, c.qMax, 'Q'), range(c.rmrMin, c.rmrMax, 'RMR'), `rounds up to ${c.maxRoundLength} m`]
+          .filter((s) => s !== null)
+          .join(' · ')}
+      </Caption1>
+      <Caption1 className={styles.muted}>
+        {[
+          c.boltType && `${c.boltType}${c.boltLength ? ` ${c.boltLength} m` : ''} ${c.boltPattern}`.trim(),
+          c.shotcreteMm > 0 ? `${c.shotcreteMm} mm sprayed concrete` : null,
+          c.steelSupport || null,
+          c.probingRequired ? 'probe ahead' : null,
+        ]
+          .filter((s) => s)
+          .join(' · ')}
+      </Caption1>
+    </button>
+  );
+
+  return (
+    <section className={styles.root} aria-label="Support">
+      <MessageBar intent="warning" layout="multiline" data-testid="support-caution">
+        <MessageBarBody>
+          <MessageBarTitle>{caution.title}</MessageBarTitle>
+          {caution.text}
+        </MessageBarBody>
+      </MessageBar>
+
+      <div role="radiogroup" aria-label="Support class recommended">
+        <Text as="h3" weight="semibold" size={500}>
+          {suggested.length > 0 ? 'Classes that fit the ratings' : 'No class fits the ratings as saved'}
+        </Text>
+        {suggested.length > 0 && <div className={styles.list}>{suggested.map((c) => card(c, true))}</div>}
+        <Text as="h3" weight="semibold" size={500}>
+          Other active classes
+        </Text>
+        <div className={styles.list}>{others.map((c) => card(c, false))}</div>
+        {serverErrors.recommendedClassId !== undefined && (
+          <Text className={styles.error} role="alert" data-testid="class-error">
+            {serverErrors.recommendedClassId}
+          </Text>
+        )}
+      </div>
+
+      <div className={styles.fields}>
+        <NumberField
+          name="nextRoundLength"
+          label="Next round length"
+          unit="m"
+          hint={chosen === null ? undefined : `${chosen.code} allows up to ${chosen.maxRoundLength} m`}
+          warning={
+            overMax && chosen !== null ? `Over the ${chosen.maxRoundLength} m ${chosen.code} allows.` : null
+          }
+        />
+        <TextField
+          name="recommendationReason"
+          label={outside ? 'Why this class (it is outside the suggestion)' : 'Reason or remarks'}
+          hint={outside ? 'needed when the class is not one the ratings suggest' : undefined}
+          multiline
+        />
+      </div>
+
+      {canSubmit && (
+        <>
+          {submitMessage !== null && (
+            <MessageBar intent="error" data-testid="submit-error">
+              <MessageBarBody>{submitMessage}</MessageBarBody>
+            </MessageBar>
+          )}
+          <Button
+            className={styles.submit}
+            appearance="primary"
+            size="large"
+            icon={<SendRegular />}
+            disabled={submitting}
+            onClick={onSubmit}
+          >
+            {submitting ? 'Submitting…' : 'Submit for review'}
+          </Button>
+          <Caption1 className={styles.muted}>
+            Submitting sends the round to the project's engineers; it can no longer be edited here.
+          </Caption1>
+        </>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,472 @@
+import { parseChainage } from '@roundbook/geomath';
+import type {
+  QLocation,
+  Rmr89Roughness,
+  Rmr89SimpleCondition,
+  Rmr89WaterCondition,
+  Rmr89Weathering,
+  RmrOrientationAssessment,
+} from '@roundbook/geomath';
+import { object, string } from 'yup';
+import type {
+  JointInput,
+  JointKind,
+  JointWater,
+  JrcMethod,
+  PlaneNotation,
+  Round,
+  SaveRoundRequest,
+  Shift,
+} from '@/features/rounds/api/types';
+
+/**
+ * The Round editor's form. Numbers are kept as the text typed (so "2," or "1." survive while typing)
+ * and turned into numbers only when the record is sent; every field maps onto SaveRoundDto.
+ */
+
+export interface JointRow {
+  /** Browser-side key of the row (the server renumbers joints on every save). */
+  key: string;
+  kind: JointKind;
+  orientationText: string;
+  notation: PlaneNotation;
+  setLabel: string;
+  setOverride: boolean;
+  spacingM: string;
+  persistenceM: string;
+  apertureMm: string;
+  jr: string;
+  jrc: string;
+  jrcMethod: JrcMethod | '';
+  infill: string;
+  ja: string;
+  water: JointWater | '';
+  thicknessM: string;
+  notes: string;
+  /** Why an imported row needs a look (kept on screen until the person clears it). */
+  importNote: string;
+}
+
+export interface UnitRow {
+  key: string;
+  name: string;
+  sharePercent: string;
+  weatheringGrade: string;
+  strengthGrade: string;
+}
+
+export type QParameterKey = 'rqd' | 'jn' | 'jr' | 'ja' | 'jw' | 'srf';
+
+export interface QForm {
+  rqd: string;
+  jn: string;
+  jr: string;
+  ja: string;
+  jw: string;
+  srf: string;
+  /** The table row chosen for each parameter (several rows can share a value). */
+  rows: Partial<Record<QParameterKey, string>>;
+  location: QLocation;
+  jrSpacingOver3m: boolean;
+  /** True when the RQD came from Jv (a correlation) rather than a measurement. */
+  rqdFromJv: boolean;
+}
+
+export interface RmrForm {
+  strengthKind: 'point-load' | 'ucs';
+  is50: string;
+  ucs: string;
+  rqd: string;
+  spacingM: string;
+  conditionKind: 'simple' | 'detailed';
+  simple: Rmr89SimpleCondition | '';
+  persistenceM: string;
+  separationMm: string;
+  roughness: Rmr89Roughness | '';
+  infillKind: 'none' | 'hard' | 'soft';
+  infillMm: string;
+  weathering: Rmr89Weathering | '';
+  waterKind: 'inflow' | 'condition' | 'pressure-ratio';
+  inflowPer10m: string;
+  waterCondition: Rmr89WaterCondition | '';
+  pressureRatio: string;
+  /** '' = not assessed. */
+  orientation: RmrOrientationAssessment | '';
+}
+
+export interface RoundFormValues {
+  faceChainage: string;
+  previousChainage: string;
+  roundLength: string;
+  shiftDate: string;
+  shift: Shift;
+  distantParts: string;
+  units: UnitRow[];
+  pointLoadIs50: string;
+  pointLoadFactor: string;
+  inflowLpm: string;
+  inflowLengthM: string;
+  waterDescription: string;
+  overbreakM3: string;
+  groundNotes: string;
+  joints: JointRow[];
+  q: QForm;
+  rmr: RmrForm;
+  gsiObserved: string;
+  recommendedClassId: string;
+  nextRoundLength: string;
+  recommendationReason: string;
+}
+
+let keySeq = 0;
+/** A key for a new row, unique in this browser tab. */
+export function newKey(prefix: string): string {
+  keySeq += 1;
+  return `${prefix}-${Date.now().toString(36)}-${keySeq}`;
+}
+
+const text = (value: number | null | undefined): string =>
+  value === null || value === undefined ? '' : String(value);
+
+/** Typed text as a number: '' → null, "2,5" → 2.5, anything unreadable → NaN. */
+export function numberOf(value: string): number | null {
+  const t = value.trim().replace(',', '.');
+  if (t === '') return null;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : Number.NaN;
+}
+
+/** For the API: unreadable numbers are sent as empty (the field shows why). */
+const num = (value: string): number | null => {
+  const n = numberOf(value);
+  return n === null || Number.isNaN(n) ? null : n;
+};
+
+/** A chainage typed as 1+250.0 or 1250.0, in metres; null when empty or unreadable. */
+export function chainageOf(value: string): number | null {
+  if (value.trim() === '') return null;
+  try {
+    return parseChainage(value);
+  } catch {
+    return null;
+  }
+}
+
+export function emptyJoint(notation: PlaneNotation): JointRow {
+  return {
+    key: newKey('joint'),
+    kind: 'joint',
+    orientationText: '',
+    notation,
+    setLabel: '',
+    setOverride: false,
+    spacingM: '',
+    persistenceM: '',
+    apertureMm: '',
+    jr: '',
+    jrc: '',
+    jrcMethod: '',
+    infill: '',
+    ja: '',
+    water: '',
+    thicknessM: '',
+    notes: '',
+    importNote: '',
+  };
+}
+
+const emptyQ = (): QForm => ({
+  rqd: '',
+  jn: '',
+  jr: '',
+  ja: '',
+  jw: '',
+  srf: '',
+  rows: {},
+  location: 'tunnel',
+  jrSpacingOver3m: false,
+  rqdFromJv: false,
+});
+
+const emptyRmr = (): RmrForm => ({
+  strengthKind: 'point-load',
+  is50: '',
+  ucs: '',
+  rqd: '',
+  spacingM: '',
+  conditionKind: 'simple',
+  simple: '',
+  persistenceM: '',
+  separationMm: '',
+  roughness: '',
+  infillKind: 'none',
+  infillMm: '',
+  weathering: '',
+  waterKind: 'inflow',
+  inflowPer10m: '',
+  waterCondition: '',
+  pressureRatio: '',
+  orientation: '',
+});
+
+type Loose = Record<string, unknown>;
+const isObj = (v: unknown): v is Loose => typeof v === 'object' && v !== null;
+const str = (v: unknown): string => (typeof v === 'number' ? String(v) : typeof v === 'string' ? v : '');
+
+function qFormOf(input: Loose | null): QForm {
+  const q = emptyQ();
+  if (input === null) return q;
+  for (const key of ['rqd', 'jn', 'jr', 'ja', 'jw', 'srf'] as const) q[key] = str(input[key]);
+  if (isObj(input.rows)) {
+    for (const [k, v] of Object.entries(input.rows))
+      if (typeof v === 'string') q.rows[k as QParameterKey] = v;
+  }
+  if (input.location === 'intersection' || input.location === 'portal') q.location = input.location;
+  q.jrSpacingOver3m = input.jrSpacingOver3m === true;
+  q.rqdFromJv = input.rqdFromJv === true;
+  return q;
+}
+
+function rmrFormOf(input: Loose | null): RmrForm {
+  const r = emptyRmr();
+  if (input === null) return r;
+  const strength = isObj(input.strength) ? input.strength : {};
+  if (strength.kind === 'ucs') {
+    r.strengthKind = 'ucs';
+    r.ucs = str(strength.ucs);
+  } else r.is50 = str(strength.is50);
+  r.rqd = str(input.rqd);
+  r.spacingM = str(input.spacingM);
+  const c = isObj(input.condition) ? input.condition : {};
+  if (c.kind === 'detailed') {
+    r.conditionKind = 'detailed';
+    r.persistenceM = str(c.persistenceM);
+    r.separationMm = str(c.separationMm);
+    r.roughness = (str(c.roughness) as Rmr89Roughness) || '';
+    r.weathering = (str(c.weathering) as Rmr89Weathering) || '';
+    const inf = isObj(c.infilling) ? c.infilling : {};
+    if (inf.kind === 'hard' || inf.kind === 'soft') {
+      r.infillKind = inf.kind;
+      r.infillMm = str(inf.thicknessMm);
+    }
+  } else r.simple = (str(c.condition) as Rmr89SimpleCondition) || '';
+  const w = isObj(input.groundwater) ? input.groundwater : {};
+  if (w.kind === 'condition') {
+    r.waterKind = 'condition';
+    r.waterCondition = (str(w.condition) as Rmr89WaterCondition) || '';
+  } else if (w.kind === 'pressure-ratio') {
+    r.waterKind = 'pressure-ratio';
+    r.pressureRatio = str(w.ratio);
+  } else r.inflowPer10m = str(w.litresPerMinutePer10m);
+  const o = isObj(input.orientation) ? input.orientation : {};
+  if (o.kind === 'assessment') r.orientation = (str(o.assessment) as RmrOrientationAssessment) || '';
+  return r;
+}
+
+/** The form for a saved round. */
+export function formValuesOf(round: Round): RoundFormValues {
+  return {
+    faceChainage: text(round.faceChainage),
+    previousChainage: text(round.previousChainage),
+    roundLength: text(round.roundLength),
+    shiftDate: round.shiftDate,
+    shift: round.shift,
+    distantParts: round.distantParts,
+    units: round.ground.units.map((u) => ({
+      key: newKey('unit'),
+      name: u.name,
+      sharePercent: text(u.sharePercent),
+      weatheringGrade: u.weatheringGrade ?? '',
+      strengthGrade: u.strengthGrade ?? '',
+    })),
+    pointLoadIs50: text(round.ground.pointLoadIs50),
+    pointLoadFactor: text(round.ground.pointLoadFactor),
+    inflowLpm: text(round.ground.inflowLpm),
+    inflowLengthM: text(round.ground.inflowLengthM),
+    waterDescription: round.ground.waterDescription,
+    overbreakM3: text(round.ground.overbreakM3),
+    groundNotes: round.ground.notes,
+    joints: round.joints.map((j) => ({
+      key: newKey('joint'),
+      kind: j.kind,
+      orientationText: j.orientationText,
+      notation: j.notation,
+      setLabel: j.setLabel ?? '',
+      setOverride: j.setOverride ?? false,
+      spacingM: text(j.spacingM),
+      persistenceM: text(j.persistenceM),
+      apertureMm: text(j.apertureMm),
+      jr: text(j.jr),
+      jrc: text(j.jrc),
+      jrcMethod: j.jrcMethod ?? '',
+      infill: j.infill,
+      ja: text(j.ja),
+      water: j.water ?? '',
+      thicknessM: text(j.thicknessM),
+      notes: j.notes,
+      importNote: '',
+    })),
+    q: qFormOf(round.qInput),
+    rmr: rmrFormOf(round.rmrInput),
+    gsiObserved: text(round.gsiObserved),
+    recommendedClassId: round.recommendedClassId ?? '',
+    nextRoundLength: text(round.nextRoundLength),
+    recommendationReason: round.recommendationReason,
+  };
+}
+
+const anyFilled = (values: string[]) => values.some((v) => v.trim() !== '');
+
+/** Q inputs as stored: the six numbers (empty ones as null, so the server says what is missing) and the choices. */
+export function qInputOf(q: QForm): Record<string, unknown> | null {
+  if (!anyFilled([q.rqd, q.jn, q.jr, q.ja, q.jw, q.srf])) return null;
+  return {
+    rqd: num(q.rqd),
+    jn: num(q.jn),
+    jr: num(q.jr),
+    ja: num(q.ja),
+    jw: num(q.jw),
+    srf: num(q.srf),
+    location: q.location,
+    jrSpacingOver3m: q.jrSpacingOver3m,
+    rows: q.rows,
+    rqdFromJv: q.rqdFromJv,
+  };
+}
+
+/** RMR89 inputs in geomath's Rmr89Input shape (orientation as an assessment or not assessed). */
+export function rmrInputOf(r: RmrForm): Record<string, unknown> | null {
+  const filled = anyFilled([
+    r.is50,
+    r.ucs,
+    r.rqd,
+    r.spacingM,
+    r.simple,
+    r.persistenceM,
+    r.separationMm,
+    r.roughness,
+    r.weathering,
+    r.inflowPer10m,
+    r.waterCondition,
+    r.pressureRatio,
+  ]);
+  if (!filled) return null;
+  return {
+    strength:
+      r.strengthKind === 'ucs' ? { kind: 'ucs', ucs: num(r.ucs) } : { kind: 'point-load', is50: num(r.is50) },
+    rqd: num(r.rqd),
+    spacingM: num(r.spacingM),
+    condition:
+      r.conditionKind === 'simple'
+        ? { kind: 'simple', condition: r.simple || null }
+        : {
+            kind: 'detailed',
+            persistenceM: num(r.persistenceM),
+            separationMm: num(r.separationMm),
+            roughness: r.roughness || null,
+            infilling:
+              r.infillKind === 'none'
+                ? { kind: 'none' }
+                : { kind: r.infillKind, thicknessMm: num(r.infillMm) },
+            weathering: r.weathering || null,
+          },
+    groundwater:
+      r.waterKind === 'inflow'
+        ? { kind: 'inflow', litresPerMinutePer10m: num(r.inflowPer10m) }
+        : r.waterKind === 'pressure-ratio'
+          ? { kind: 'pressure-ratio', ratio: num(r.pressureRatio) }
+          : { kind: 'condition', condition: r.waterCondition || null },
+    orientation:
+      r.orientation === '' ? { kind: 'not assessed' } : { kind: 'assessment', assessment: r.orientation },
+  };
+}
+
+export function jointInputOf(j: JointRow): JointInput {
+  return {
+    kind: j.kind,
+    notation: j.notation,
+    orientationText: j.orientationText,
+    setLabel: j.setLabel.trim() === '' ? null : j.setLabel.trim(),
+    setOverride: j.setOverride,
+    spacingM: num(j.spacingM),
+    persistenceM: num(j.persistenceM),
+    apertureMm: num(j.apertureMm),
+    jr: num(j.jr),
+    jrc: num(j.jrc),
+    jrcMethod: j.jrcMethod === '' ? null : j.jrcMethod,
+    infill: j.infill,
+    ja: num(j.ja),
+    water: j.water === '' ? null : j.water,
+    thicknessM: j.kind === 'fault' || j.kind === 'shear-zone' ? num(j.thicknessM) : null,
+    notes: j.notes,
+  };
+}
+
+/** The whole record for PUT …/rounds/{roundId}. */
+export function saveRequestOf(
+  values: RoundFormValues,
+  version: number,
+  fallbackChainage: number,
+): SaveRoundRequest {
+  return {
+    version,
+    faceChainage: chainageOf(values.faceChainage) ?? fallbackChainage,
+    previousChainage: chainageOf(values.previousChainage),
+    roundLength: num(values.roundLength),
+    shiftDate: values.shiftDate,
+    shift: values.shift,
+    distantParts: values.distantParts,
+    ground: {
+      units: values.units.map((u) => ({
+        name: u.name,
+        sharePercent: num(u.sharePercent) ?? 0,
+        weatheringGrade: u.weatheringGrade === '' ? null : u.weatheringGrade,
+        strengthGrade: u.strengthGrade === '' ? null : u.strengthGrade,
+      })),
+      pointLoadIs50: num(values.pointLoadIs50),
+      pointLoadFactor: num(values.pointLoadFactor),
+      inflowLpm: num(values.inflowLpm),
+      inflowLengthM: num(values.inflowLengthM),
+      waterDescription: values.waterDescription,
+      overbreakM3: num(values.overbreakM3),
+      notes: values.groundNotes,
+    },
+    joints: values.joints.map(jointInputOf),
+    qInput: qInputOf(values.q),
+    rmrInput: rmrInputOf(values.rmr),
+    gsiObserved: num(values.gsiObserved),
+    recommendedClassId: values.recommendedClassId === '' ? null : values.recommendedClassId,
+    nextRoundLength: num(values.nextRoundLength),
+    recommendationReason: values.recommendationReason,
+  };
+}
+
+const numberText = (label: string) =>
+  string().test('number', `${label} is a number.`, (v) => v === undefined || !Number.isNaN(numberOf(v) ?? 0));
+
+/** Checks made while typing (the server checks the rest on save and on submit). */
+export const roundFormSchema = object({
+  faceChainage: string()
+    .required('Give the face chainage.')
+    .test('chainage', 'Write the chainage as 1+250.0 or 1250.0.', (v) => chainageOf(v) !== null),
+  previousChainage: string().test(
+    'chainage',
+    'Write the chainage as 1+250.0 or 1250.0.',
+    (v) => v === undefined || v.trim() === '' || chainageOf(v) !== null,
+  ),
+  roundLength: numberText('The round length'),
+  pointLoadIs50: numberText('Is50'),
+  pointLoadFactor: numberText('The factor'),
+  inflowLpm: numberText('The inflow'),
+  inflowLengthM: numberText('The length'),
+  overbreakM3: numberText('Overbreak'),
+  gsiObserved: numberText('GSI').test(
+    'range',
+    'GSI is 0–100.',
+    (v) => v === undefined || ((num(v) ?? 0) >= 0 && (num(v) ?? 0) <= 100),
+  ),
+  nextRoundLength: numberText('The next round length'),
+});
+
+export const nextRoundLengthOf = (values: RoundFormValues): number | null => num(values.nextRoundLength);
+export const valueOf = num;

@@ -1,0 +1,91 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { Suspense } from 'react';
+import type { SupportClass, SupportClassLibrary as Library } from '@/api/contract';
+import { SupportClassLibrary } from '@/features/support-classes/components/support-class-library';
+import { saveSession } from '@/lib/session';
+import { adminSession } from '@/testing/fixtures';
+import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
+import { renderWithProviders } from '@/testing/render-with-providers';
+
+afterEach(restoreFetch);
+beforeEach(() => saveSession(adminSession));
+
+// Invented classes of an invented project.
+const base: SupportClass = {
+  id: 'c-1',
+  code: 'KA',
+  name: 'Sound rock, spot bolts',
+  sortOrder: 1,
+  qMin: 10,
+  qMax: null,
+  rmrMin: 65,
+  rmrMax: 100,
+  maxRoundLength: 4,
+  boltType: 'Grouted rebar',
+  boltLength: 3,
+  boltPattern: 'spot',
+  shotcreteMm: 0,
+  steelSupport: '',
+  probingRequired: false,
+  notes: '',
+  retired: false,
+  version: 2,
+};
+const library: Library = {
+  classes: [base, { ...base, id: 'c-2', code: 'KB', name: 'Blocky rock', sortOrder: 2, qMin: 1, qMax: 10 }],
+  warnings: [],
+};
+
+function renderLibrary() {
+  renderWithProviders(
+    <Suspense fallback={<p>Loading</p>}>
+      <SupportClassLibrary projectId="p-1" canEdit />
+    </Suspense>,
+  );
+}
+
+describe('SupportClassLibrary', () => {
+  it('keeps move, change and "more" on each row and retires a class from the "more" menu', async () => {
+    const patches: unknown[] = [];
+    mockApi({
+      'GET /api/projects/p-1/support-classes': library,
+      'PATCH /api/projects/p-1/support-classes/c-2': async (request) => {
+        patches.push(await request.json());
+        return jsonResponse({
+          ...library,
+          classes: [library.classes[0], { ...library.classes[1], retired: true, version: 3 }],
+        });
+      },
+    });
+    const user = userEvent.setup();
+    renderLibrary();
+    const row = await screen.findByRole('row', { name: 'KB Blocky rock' });
+    const buttons = within(row).getAllByRole('button');
+    expect(buttons.map((b) => b.getAttribute('aria-label'))).toEqual([
+      'Move KB up',
+      'Move KB down',
+      'Change KB',
+      'More for KB',
+    ]);
+    expect(within(row).queryByRole('button', { name: /Retire/ })).not.toBeInTheDocument();
+
+    await user.click(within(row).getByRole('button', { name: 'More for KB' }));
+    await user.click(await screen.findByRole('menuitem', { name: 'Retire' }));
+    await waitFor(() => expect(patches).toEqual([{ retired: true, version: 2 }]));
+    expect(await screen.findByRole('row', { name: 'KB Blocky rock' })).toHaveTextContent('Retired');
+  });
+
+  it('asks before deleting, from the "more" menu', async () => {
+    mockApi({ 'GET /api/projects/p-1/support-classes': library });
+    const user = userEvent.setup();
+    renderLibrary();
+    const row = await screen.findByRole('row', { name: 'KA Sound rock, spot bolts' });
+    await user.click(within(row).getByRole('button', { name: 'More for KA' }));
+    await user.click(await screen.findByRole('menuitem', { name: 'Delete…' }));
+    // hidden: true — in jsdom Fluent's focus manager marks an open dialog aria-hidden after a moment.
+    expect(
+      await screen.findByRole('alertdialog', { name: 'Delete support class KA?', hidden: true }),
+    ).toHaveTextContent('leaves the library for good');
+  });
+});
