@@ -1,5 +1,6 @@
 // Web unit tests: jsdom with Node's fetch globals (test/jsdom-env.cjs), TS/TSX through @swc/jest.
 export default {
+  testTimeout: 20000,
   testEnvironment: '<rootDir>/test/jsdom-env.cjs',
   roots: ['<rootDir>/src'],
   transform: {

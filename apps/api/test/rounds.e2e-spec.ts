@@ -9,6 +9,8 @@ import { Project } from '../src/modules/projects/project.entity';
 import { createTestApp, DEMO_PASSWORD } from './test-app';
 
 type Body = Record<string, any>;
+/** Codes and names of this run's own headings, unique so that screens listing them stay unambiguous. */
+const stamp = String(Date.now() % 1e7);
 
 const emptyGround = {
   units: [{ name: 'Invented grey gneiss', sharePercent: 100, weatheringGrade: 'WII', strengthGrade: 'R4' }],
@@ -65,8 +67,8 @@ describe('Rounds (e2e, real MariaDB)', () => {
     // A heading of this run's own, so the tests can run again on the same database.
     heading = await ds.getRepository(Heading).save({
       projectId,
-      code: `T${Date.now() % 1e7}`,
-      name: 'Invented test heading',
+      code: `T${stamp}`,
+      name: `Invented test heading T${stamp}`,
       startChainage: 1000,
       chainageStyle: 'km+m',
       chainageDecimals: 1,
@@ -198,6 +200,21 @@ describe('Rounds (e2e, real MariaDB)', () => {
     expect(r.inflowPer10m).toBeCloseTo(20, 9); // 12 l/min over 6 m → 20 l/min per 10 m
     const all = await classes();
     expect(r.suggestedClassIds).toEqual([all.find((c) => c.code === 'SC-D')!.id]); // SC-D covers Q 0.01–0.1
+    // The demo's trigger rules: Q < 0.1 is red, Q < 1 amber, inflow over 25 l/min per 10 m amber.
+    expect(r.triggerLevel).toBe('red');
+    expect((r.triggerFirings as Body[])[0]).toMatchObject({
+      level: 'red',
+      summary: 'Q < 0.1 → red',
+      detail: 'Q 0.0833 < 0.1',
+    });
+    expect((r.triggerFirings as Body[]).map((f) => f.summary)).toEqual(
+      expect.arrayContaining(['Q < 1 → amber']),
+    );
+    const listed = await request(http)
+      .get(`${base}/headings/${heading.id}/rounds?stage=full-face`)
+      .set(as('viewer'))
+      .expect(200);
+    expect((listed.body.items as Body[])[0]).toMatchObject({ roundNumber: 1, triggerLevel: 'red' });
   });
 
   it('reports a rating input outside its table without losing the rest of the record', async () => {
@@ -394,7 +411,7 @@ describe('Rounds (e2e, real MariaDB)', () => {
   it("shows the heading's face chainage, last round and rounds waiting for review on the Board", async () => {
     const res = await request(http).get('/api/projects').set(as('engineer')).expect(200);
     const card = ((res.body as Body[])[0].headings as Body[]).find((h) => h.id === heading.id)!;
-    expect(card).toMatchObject({ faceChainage: 1003.5, roundsToConfirm: 1 });
+    expect(card).toMatchObject({ faceChainage: 1003.5, roundsToConfirm: 1, triggerLevel: 'red' });
     expect(new Date(card.lastRoundAt as string).getTime()).toBeGreaterThan(Date.now() - 5 * 60_000);
   });
 
@@ -410,7 +427,9 @@ describe('Rounds (e2e, real MariaDB)', () => {
   it('pages, sorts and filters a heading of 30,000 rounds in the database, on its index', async () => {
     const ds = app.get(DataSource);
     const { id: _id, version: _version, createdAt: _c, updatedAt: _u, ...shape } = heading;
-    const big = await ds.getRepository(Heading).save({ ...shape, code: `B${Date.now() % 1e7}` });
+    const big = await ds
+      .getRepository(Heading)
+      .save({ ...shape, code: `B${stamp}`, name: `Invented 30,000-round heading B${stamp}` });
     const geologist = await ds.query<Array<{ id: string }>>('SELECT id FROM users WHERE email = ?', [
       'geologist@roundbook.test',
     ]);
@@ -449,5 +468,8 @@ describe('Rounds (e2e, real MariaDB)', () => {
       [big.id],
     );
     expect(plan[0].key).toBe('IDX_rounds_heading_chainage');
+    // Leave the demo project as the browser tests expect it: the 30,000 invented rounds go again.
+    await ds.query('DELETE FROM rounds WHERE heading_id = ?', [big.id]);
+    await ds.getRepository(Heading).delete({ id: big.id });
   });
 });

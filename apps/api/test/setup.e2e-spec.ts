@@ -7,6 +7,8 @@ import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
 import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { Project } from '../src/modules/projects/project.entity';
+import { hashPassword } from '../src/modules/users/password';
+import { User } from '../src/modules/users/user.entity';
 import { createTestApp, DEMO_PASSWORD } from './test-app';
 
 type Body = Record<string, any>;
@@ -53,7 +55,7 @@ describe('Setup: headings, support classes, trigger rules, team (e2e, real Maria
   describe('headings', () => {
     const horseshoe = {
       code: `AD-${run}`,
-      name: 'Adit 2 access',
+      name: `Adit 2 access ${run}`,
       startChainage: 0,
       driveTrend: 45,
       gradientPercent: -8,
@@ -558,6 +560,78 @@ describe('Setup: headings, support classes, trigger rules, team (e2e, real Maria
       expect(resent.body.emailSent).toBe(true);
       expect(mailFor(email)).toHaveLength(1);
       await request(http).delete(`${base}/invitations/${invitationId}`).set(as('admin')).expect(204);
+    });
+  });
+
+  describe('a new project from scratch', () => {
+    it('lets a signed-in person create a project and become its admin; a taken code lands on the field', async () => {
+      const ds = app.get(DataSource);
+      const lead = await ds.getRepository(User).save({
+        email: `lead.${run}@roundbook.test`,
+        name: 'Invented Project Lead',
+        passwordHash: await hashPassword('a-long-enough-pw'),
+      });
+      const token = (
+        (
+          await request(http)
+            .post('/api/auth/login')
+            .send({ email: lead.email, password: 'a-long-enough-pw' })
+            .expect(200)
+        ).body as Body
+      ).accessToken as string;
+      const bad = await request(http)
+        .post('/api/projects')
+        .set('Authorization', `Bearer ${token}`)
+        .send({ code: 'BRH', name: 'Clash', timeZone: 'Atlantis/Deep' })
+        .expect(400);
+      expect(bad.body.fields).toEqual({ timeZone: expect.stringMatching(/time zone/) });
+      const taken = await request(http)
+        .post('/api/projects')
+        .set('Authorization', `Bearer ${token}`)
+        .send({ code: 'BRH', name: 'Clash', timeZone: 'Europe/Oslo' })
+        .expect(409);
+      expect(taken.body.fields).toEqual({ code: 'This code is already used.' });
+      const created = await request(http)
+        .post('/api/projects')
+        .set('Authorization', `Bearer ${token}`)
+        .send({
+          code: `NP${run}`,
+          name: 'Invented pressure shaft',
+          client: 'Invented client',
+          timeZone: 'America/Lima',
+          groundScale: 'iso-14689',
+        })
+        .expect(201);
+      expect(created.body).toMatchObject({
+        role: 'admin',
+        headings: [],
+        distributionList: [],
+        groundScale: 'iso-14689',
+        qTableEdition: '2015',
+      });
+      const mine = await request(http)
+        .get('/api/projects')
+        .set('Authorization', `Bearer ${token}`)
+        .expect(200);
+      expect((mine.body as Body[]).map((p) => [p.code, p.role])).toEqual([[`NP${run}`, 'admin']]);
+      // The new admin can set it up straight away.
+      await request(http)
+        .post(`/api/projects/${created.body.id}/headings`)
+        .set('Authorization', `Bearer ${token}`)
+        .send({
+          code: 'MAIN',
+          name: 'Main drive',
+          startChainage: 0,
+          driveTrend: 10,
+          gradientPercent: 12,
+          profileShape: 'd-shaped',
+          profileWidth: 4,
+          profileHeight: 4.5,
+          axisHeight: 2,
+          stages: ['full-face'],
+          plannedRoundLength: 2.5,
+        })
+        .expect(201);
     });
   });
 

@@ -1,6 +1,12 @@
 import { Init1764633600000 } from './1764633600000-Init.js';
 import { SetupLibrary1764720000000 } from './1764720000000-SetupLibrary.js';
 import { Rounds1764806400000 } from './1764806400000-Rounds.js';
+import { RoundTriggers1764892800000 } from './1764892800000-RoundTriggers.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
-export const migrations = [Init1764633600000, SetupLibrary1764720000000, Rounds1764806400000];
+export const migrations = [
+  Init1764633600000,
+  SetupLibrary1764720000000,
+  Rounds1764806400000,
+  RoundTriggers1764892800000,
+];

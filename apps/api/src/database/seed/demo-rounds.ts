@@ -10,6 +10,7 @@ import type { EntityManager } from 'typeorm';
 import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
 import { computeRatings, readOrientation, suggestClasses } from '../../modules/rounds/round-computations.js';
+import { assessRoundTriggers } from '../../modules/rounds/round-triggers.js';
 import { Round, type QRecord, type RmrRecord } from '../../modules/rounds/round.entity.js';
 import type { SupportClass } from '../../modules/support-classes/support-class.entity.js';
 
@@ -191,37 +192,41 @@ export async function seedDemoRounds(
         submittedAt: status === 'draft' ? null : new Date(mappedAt.getTime() + 3600_000),
       }),
     );
-    await manager.insert(
-      Joint,
-      entries.map((e, seq) => {
-        const text = formatPlane(e.plane, e.notation);
-        const reading = readOrientation(text, 'dip-direction/dip');
-        return manager.create(Joint, {
-          roundId: saved.id,
-          headingId: heading.id,
-          faceChainage: face,
-          seq: seq + 1,
-          kind: e.kind,
-          orientationText: text,
-          notation: 'dip-direction/dip',
-          dipDirection: 'error' in reading ? null : reading.dipDirection,
-          dip: 'error' in reading ? null : reading.dip,
-          orientationError: 'error' in reading ? reading.error : null,
-          setLabel: e.label,
-          setOverride: false,
-          spacingM: e.fault ? null : Math.round((0.7 - 0.45 * t) * 100) / 100,
-          persistenceM: e.fault ? 20 : 3,
-          apertureMm: e.fault ? 40 : 0.5,
-          jr: e.fault ? 1 : qInput.jr,
-          jrc: null,
-          jrcMethod: null,
-          infill: e.fault ? (plan.fault?.infill ?? '') : '',
-          ja: e.fault ? 4 : qInput.ja,
-          water: e.fault ? 'dripping' : 'damp',
-          thicknessM: e.fault ? (plan.fault?.thicknessM ?? null) : null,
-          notes: '',
-        });
-      }),
+    const jointRows = entries.map((e, seq) => {
+      const text = formatPlane(e.plane, e.notation);
+      const reading = readOrientation(text, 'dip-direction/dip');
+      return manager.create(Joint, {
+        roundId: saved.id,
+        headingId: heading.id,
+        faceChainage: face,
+        seq: seq + 1,
+        kind: e.kind,
+        orientationText: text,
+        notation: 'dip-direction/dip',
+        dipDirection: 'error' in reading ? null : reading.dipDirection,
+        dip: 'error' in reading ? null : reading.dip,
+        orientationError: 'error' in reading ? reading.error : null,
+        setLabel: e.label,
+        setOverride: false,
+        spacingM: e.fault ? null : Math.round((0.7 - 0.45 * t) * 100) / 100,
+        persistenceM: e.fault ? 20 : 3,
+        apertureMm: e.fault ? 40 : 0.5,
+        jr: e.fault ? 1 : qInput.jr,
+        jrc: null,
+        jrcMethod: null,
+        infill: e.fault ? (plan.fault?.infill ?? '') : '',
+        ja: e.fault ? 4 : qInput.ja,
+        water: e.fault ? 'dripping' : 'damp',
+        thicknessM: e.fault ? (plan.fault?.thicknessM ?? null) : null,
+        notes: '',
+      });
+    });
+    await manager.insert(Joint, jointRows);
+    const triggers = await assessRoundTriggers(manager, saved, jointRows);
+    await manager.update(
+      Round,
+      { id: saved.id },
+      { triggerLevel: triggers.level, triggerFirings: triggers.firings },
     );
   }
 }

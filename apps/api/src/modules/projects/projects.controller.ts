@@ -1,10 +1,16 @@
-import { Body, Controller, Get, Inject, Param, ParseUUIDPipe, Patch } from '@nestjs/common';
-import { ApiBearerAuth, ApiConflictResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Inject, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import {
+  ApiBearerAuth,
+  ApiConflictResponse,
+  ApiCreatedResponse,
+  ApiOkResponse,
+  ApiTags,
+} from '@nestjs/swagger';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
-import { ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
+import { CreateProjectDto, ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
 import { ProjectsService } from './projects.service.js';
 
 @ApiTags('projects')
@@ -18,6 +24,14 @@ export class ProjectsController {
   @ApiOkResponse({ type: [ProjectSummaryDto] })
   list(@CurrentUser() user: AuthUser): Promise<ProjectSummaryDto[]> {
     return this.projects.listForUser(user);
+  }
+
+  /** Creates a project; the caller becomes its admin */
+  @Post()
+  @ApiCreatedResponse({ type: ProjectSummaryDto })
+  @ApiConflictResponse({ type: ErrorResponseDto, description: 'CONFLICT: the code is taken' })
+  create(@CurrentUser() user: AuthUser, @Body() body: CreateProjectDto): Promise<ProjectSummaryDto> {
+    return this.projects.create(user, body);
   }
 
   /** One project (members only) */

@@ -8,9 +8,16 @@ export interface HeadingProgress {
   faceChainage: number | null;
   lastRoundAt: string | null;
   roundsToConfirm: number;
+  /** Worst trigger level among the latest round of each stage of the heading */
+  triggerLevel: 'green' | 'amber' | 'red' | null;
 }
 
-const NO_PROGRESS: HeadingProgress = { faceChainage: null, lastRoundAt: null, roundsToConfirm: 0 };
+const NO_PROGRESS: HeadingProgress = {
+  faceChainage: null,
+  lastRoundAt: null,
+  roundsToConfirm: 0,
+  triggerLevel: null,
+};
 
 export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROGRESS): HeadingSummaryDto {
   return {
@@ -26,8 +33,7 @@ export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROG
     profileHeight: h.profileHeight,
     plannedRoundLength: h.plannedRoundLength,
     ...progress,
-    // Trigger levels and handovers arrive with their own features; until then nothing to show.
-    triggerLevel: null,
+    // Handovers arrive with their own feature; until then nothing to show.
     lastHandover: null,
   };
 }

@@ -5,7 +5,7 @@ import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { AuditService } from '../audit/audit.service.js';
 import { Round } from '../rounds/round.entity.js';
-import type { ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
+import type { CreateProjectDto, ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
 import { ProjectMember } from './project-member.entity.js';
 import { Project } from './project.entity.js';
 import { toProjectSummary, type HeadingProgress } from './projects.mapper.js';
@@ -27,6 +27,43 @@ export class ProjectsService {
     });
     const progress = await this.progress(memberships.flatMap((m) => m.project.headings.map((h) => h.id)));
     return memberships.map((m) => toProjectSummary(m.project, m.role, progress));
+  }
+
+  /** Creates a project; the caller becomes its admin (and may invite the team). */
+  async create(caller: AuthUser, dto: CreateProjectDto): Promise<ProjectSummaryDto> {
+    const id = await this.dataSource.transaction(async (manager) => {
+      if (await manager.exists(Project, { where: { code: dto.code } })) {
+        throw new DomainException(ErrorCode.Conflict, `A project with code ${dto.code} already exists.`, {
+          code: 'This code is already used.',
+        });
+      }
+      const project = await manager.save(
+        manager.create(Project, {
+          code: dto.code,
+          name: dto.name,
+          client: dto.client ?? '',
+          timeZone: dto.timeZone,
+          qTableEdition: '2015',
+          defaultNotation: dto.defaultNotation ?? 'dip-direction/dip',
+          groundScale: dto.groundScale ?? 'isrm',
+          distributionList: [],
+          coordinateGrid: '',
+        }),
+      );
+      await manager.save(
+        manager.create(ProjectMember, { projectId: project.id, userId: caller.id, role: 'admin' }),
+      );
+      await this.audit.record(manager, {
+        projectId: project.id,
+        actorId: caller.id,
+        entityType: 'project',
+        entityId: project.id,
+        action: 'create',
+        after: { code: project.code, name: project.name, timeZone: project.timeZone },
+      });
+      return project.id;
+    });
+    return this.get({ projectId: id, role: 'admin' });
   }
 
   async get(access: ProjectAccess): Promise<ProjectSummaryDto> {
@@ -56,6 +93,25 @@ export class ProjectsService {
         lastRoundAt: Date | string;
         toConfirm: string;
       }>();
+    // The heading's level is the worst among the latest round of each stage (top heading and bench advance apart).
+    const levels = await this.dataSource
+      .createQueryBuilder()
+      .from(Round, 'r')
+      .select('r.heading_id', 'headingId')
+      .addSelect('r.trigger_level', 'triggerLevel')
+      .where('r.heading_id IN (:...headingIds)', { headingIds })
+      .andWhere(
+        '(r.heading_id, r.stage, r.round_number) IN (SELECT x.heading_id, x.stage, MAX(x.round_number) FROM rounds x WHERE x.heading_id IN (:...headingIds) GROUP BY x.heading_id, x.stage)',
+      )
+      .getRawMany<{ headingId: string; triggerLevel: HeadingProgress['triggerLevel'] }>();
+    const rank = { green: 0, amber: 1, red: 2 } as const;
+    const levelOf = new Map<string, HeadingProgress['triggerLevel']>();
+    for (const l of levels) {
+      const current = levelOf.get(l.headingId) ?? null;
+      if (l.triggerLevel && (current === null || rank[l.triggerLevel] > rank[current]))
+        levelOf.set(l.headingId, l.triggerLevel);
+      else if (!levelOf.has(l.headingId)) levelOf.set(l.headingId, current);
+    }
     return new Map(
       rows.map((r) => [
         r.headingId,
@@ -63,6 +119,7 @@ export class ProjectsService {
           faceChainage: Number(r.faceChainage),
           lastRoundAt: new Date(r.lastRoundAt).toISOString(),
           roundsToConfirm: Number(r.toConfirm),
+          triggerLevel: levelOf.get(r.headingId) ?? null,
         },
       ]),
     );

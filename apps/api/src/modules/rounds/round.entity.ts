@@ -4,6 +4,7 @@ import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Heading, STAGES, type Stage } from '../headings/heading.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
+import type { TriggerFiring } from '../trigger-rules/trigger-evaluation.js';
 import type { Joint } from './joint.entity.js';
 
 export const ROUND_STATUSES = ['draft', 'submitted', 'confirmed', 'returned'] as const;
@@ -159,6 +160,14 @@ export class Round {
 
   @Column({ name: 'recommendation_reason', type: 'text' })
   recommendationReason: string;
+
+  /** Highest level among the project's trigger rules that fire on this round (null: no rules). */
+  @Column({ name: 'trigger_level', type: 'enum', enum: ['green', 'amber', 'red'], nullable: true })
+  triggerLevel: 'green' | 'amber' | 'red' | null;
+
+  /** The rules that fire, with the reason in words, as worked out at the last save. */
+  @Column({ name: 'trigger_firings', type: 'json', nullable: true })
+  triggerFirings: TriggerFiring[] | null;
 
   @Column({ type: 'enum', enum: ROUND_STATUSES, default: 'draft' })
   status: RoundStatus;

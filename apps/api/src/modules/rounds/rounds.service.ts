@@ -29,6 +29,7 @@ import {
   shiftOf,
   suggestClasses,
 } from './round-computations.js';
+import { assessRoundTriggers } from './round-triggers.js';
 import { Round, type GroundRecord, type QRecord, type RmrRecord } from './round.entity.js';
 
 const EDITABLE: ReadonlyArray<Round['status']> = ['draft', 'returned'];
@@ -174,8 +175,6 @@ export class RoundsService {
       round.q = ratings.q.value;
       round.rmr = ratings.rmr.value;
       round.gsi = ratings.gsi.value;
-      await manager.save(round);
-      await manager.delete(Joint, { roundId });
       const joints = dto.joints.map((j, i) => {
         const reading = readOrientation(j.orientationText, j.notation ?? project.defaultNotation);
         return manager.create(Joint, {
@@ -204,6 +203,12 @@ export class RoundsService {
           notes: j.notes,
         });
       });
+      // The trigger level is worked out before saving, so one save is one version.
+      const triggers = await assessRoundTriggers(manager, round, joints);
+      round.triggerLevel = triggers.level;
+      round.triggerFirings = triggers.firings;
+      await manager.save(round);
+      await manager.delete(Joint, { roundId });
       if (joints.length) await manager.insert(Joint, joints);
       const after = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
       const changed = AUDITED.filter((f) => JSON.stringify(before[f]) !== JSON.stringify(after[f]));
@@ -327,6 +332,7 @@ export class RoundsService {
         'r.rmr AS rmr',
         'c.code AS recommendedClassCode',
         'r.status AS status',
+        'r.trigger_level AS triggerLevel',
       ])
       .orderBy(column, sort.startsWith('-') ? 'DESC' : 'ASC')
       .addOrderBy('r.id', sort.startsWith('-') ? 'DESC' : 'ASC') // same direction, so the index order serves both keys
@@ -346,6 +352,7 @@ export class RoundsService {
         rmr: r.rmr === null ? null : Number(r.rmr),
         recommendedClassCode: r.recommendedClassCode === null ? null : String(r.recommendedClassCode),
         status: r.status as Round['status'],
+        triggerLevel: (r.triggerLevel ?? null) as Round['triggerLevel'],
       })),
       total: Number(total?.n ?? 0),
       page,
@@ -457,6 +464,8 @@ export class RoundsService {
       nextRoundLength: round.nextRoundLength,
       recommendationReason: round.recommendationReason,
       status: round.status,
+      triggerLevel: round.triggerLevel,
+      triggerFirings: round.triggerFirings ?? [],
       revision: round.revision,
       submittedAt: round.submittedAt?.toISOString() ?? null,
       warnings: roundWarnings(round, heading.plannedRoundLength, previousClass?.maxRoundLength ?? null),

@@ -137,3 +137,59 @@ export function evaluateRule(
       return null; // hazards are recorded by a later feature; until then this rule cannot fire
   }
 }
+
+export interface TriggerFiring {
+  ruleId: string;
+  level: 'green' | 'amber' | 'red';
+  summary: string;
+  detail: string;
+  action: string;
+  ownerRole: string;
+  timeAllowedHours: number;
+}
+
+const RANK = { green: 0, amber: 1, red: 2 } as const;
+
+/**
+ * The trigger level of a round: the highest level among the enabled rules that fire; green when rules exist
+ * and none fires; null when the project has no enabled rule. Firings are listed red first.
+ */
+export function assessTriggers(
+  rules: Array<
+    Pick<
+      TriggerRule,
+      | 'id'
+      | 'watch'
+      | 'comparison'
+      | 'threshold'
+      | 'level'
+      | 'action'
+      | 'ownerRole'
+      | 'timeAllowedHours'
+      | 'enabled'
+    >
+  >,
+  round: RoundFacts,
+  heading: HeadingGeometry,
+  summaryOf: (rule: Pick<TriggerRule, 'watch' | 'comparison' | 'threshold' | 'level'>) => string,
+): { level: 'green' | 'amber' | 'red' | null; firings: TriggerFiring[] } {
+  const active = rules.filter((r) => r.enabled);
+  if (active.length === 0) return { level: null, firings: [] };
+  const firings: TriggerFiring[] = [];
+  for (const rule of active) {
+    const fired = evaluateRule(rule, round, heading);
+    if (fired) {
+      firings.push({
+        ruleId: rule.id,
+        level: rule.level,
+        summary: summaryOf(rule),
+        detail: fired.detail,
+        action: rule.action,
+        ownerRole: rule.ownerRole,
+        timeAllowedHours: rule.timeAllowedHours,
+      });
+    }
+  }
+  firings.sort((a, b) => RANK[b.level] - RANK[a.level]);
+  return { level: firings[0]?.level ?? 'green', firings };
+}

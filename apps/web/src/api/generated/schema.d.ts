@@ -82,7 +82,8 @@ export interface paths {
         /** The caller's projects with their headings and the caller's role in each */
         get: operations["ProjectsController_list"];
         put?: never;
-        post?: never;
+        /** Creates a project; the caller becomes its admin */
+        post: operations["ProjectsController_create"];
         delete?: never;
         options?: never;
         head?: never;
@@ -638,6 +639,14 @@ export interface components {
             version: number;
             headings: components["schemas"]["HeadingSummaryDto"][];
         };
+        CreateProjectDto: {
+            defaultNotation?: components["schemas"]["PlaneNotation"];
+            groundScale?: components["schemas"]["GroundScale"];
+            code: string;
+            name: string;
+            client?: string;
+            timeZone: string;
+        };
         UpdateProjectDto: {
             defaultNotation?: components["schemas"]["PlaneNotation"];
             qTableEdition?: components["schemas"]["QTableEdition"];
@@ -917,6 +926,7 @@ export interface components {
             rmr: number | null;
             recommendedClassCode: string | null;
             status: components["schemas"]["RoundStatus"];
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
             id: string;
             roundNumber: number;
             faceChainage: number;
@@ -941,6 +951,18 @@ export interface components {
         CreateRoundDto: {
             stage: components["schemas"]["Stage"];
             faceChainage: number;
+        };
+        TriggerFiringDto: {
+            level: components["schemas"]["TriggerLevel"];
+            ruleId: string;
+            /** @description The rule in words, e.g. "Q < 0.1 → red" */
+            summary: string;
+            /** @description Why it fires on this round */
+            detail: string;
+            /** @description What the project's rule says to do */
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
         };
         /** @enum {string} */
         JointKind: "joint" | "bedding" | "foliation" | "fault" | "shear-zone" | "vein" | "contact";
@@ -1029,6 +1051,8 @@ export interface components {
             nextRoundLength: number | null;
             stage: components["schemas"]["Stage"];
             status: components["schemas"]["RoundStatus"];
+            /** @description Highest level among the project's trigger rules that fire on this round; null when it has no rules */
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
             submittedAt: string | null;
             /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
             inflowPer10m: number | null;
@@ -1039,6 +1063,8 @@ export interface components {
             mappedByName: string;
             mappedAt: string;
             revision: number;
+            /** @description The rules that fire, red first (as worked out at the last save) */
+            triggerFirings: components["schemas"]["TriggerFiringDto"][];
             joints: components["schemas"]["JointDto"][];
             ratings: components["schemas"]["RoundRatingsDto"];
             /** @description Support classes whose ranges fit the ratings, best ground first */
@@ -1283,6 +1309,38 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ProjectSummaryDto"][];
+                };
+            };
+        };
+    };
+    ProjectsController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateProjectDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProjectSummaryDto"];
+                };
+            };
+            /** @description CONFLICT: the code is taken */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };

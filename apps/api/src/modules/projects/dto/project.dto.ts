@@ -13,6 +13,7 @@ import {
   ArrayUnique,
   IsArray,
   IsEmail,
+  Matches,
 } from 'class-validator';
 import { ROLE_ENUM } from '../../auth/dto/token-response.dto.js';
 import { PLANE_NOTATIONS, Q_TABLE_EDITIONS } from '../project.entity.js';
@@ -141,4 +142,34 @@ export class UpdateProjectDto {
   @IsInt()
   @Min(1)
   version: number;
+}
+
+export class CreateProjectDto {
+  @IsString()
+  @Matches(/^[A-Za-z0-9][A-Za-z0-9._-]{0,19}$/, {
+    message: 'Use up to 20 letters, digits, dots, dashes or underscores.',
+  })
+  code: string;
+
+  @IsString()
+  @Length(1, 160, { message: 'Give the project a name (up to 160 characters).' })
+  name: string;
+
+  @IsOptional()
+  @IsString()
+  @Length(0, 160)
+  client?: string;
+
+  @Validate(IsTimeZone)
+  timeZone: string;
+
+  @IsOptional()
+  @IsIn(PLANE_NOTATIONS)
+  @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation', required: false })
+  defaultNotation?: (typeof PLANE_NOTATIONS)[number];
+
+  @IsOptional()
+  @IsIn(['isrm', 'iso-14689'])
+  @ApiProperty({ enum: ['isrm', 'iso-14689'], enumName: 'GroundScale', required: false })
+  groundScale?: 'isrm' | 'iso-14689';
 }

@@ -325,6 +325,20 @@ export class RoundRatingsDto {
   gsi: RatingOutcomeDto;
 }
 
+export class TriggerFiringDto {
+  ruleId: string;
+  @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel' })
+  level: 'green' | 'amber' | 'red';
+  /** The rule in words, e.g. "Q < 0.1 → red" */
+  summary: string;
+  /** Why it fires on this round */
+  detail: string;
+  /** What the project's rule says to do */
+  action: string;
+  ownerRole: string;
+  timeAllowedHours: number;
+}
+
 export class RoundDto extends RoundInputDto {
   id: string;
   headingId: string;
@@ -337,6 +351,11 @@ export class RoundDto extends RoundInputDto {
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
   status: (typeof ROUND_STATUSES)[number];
   revision: number;
+  /** Highest level among the project's trigger rules that fire on this round; null when it has no rules */
+  @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })
+  triggerLevel: 'green' | 'amber' | 'red' | null;
+  /** The rules that fire, red first (as worked out at the last save) */
+  triggerFirings: TriggerFiringDto[];
   @ApiProperty({ type: String, nullable: true })
   submittedAt: string | null;
   declare joints: JointDto[];
@@ -371,6 +390,8 @@ export class RoundSummaryDto {
   recommendedClassCode: string | null;
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
   status: (typeof ROUND_STATUSES)[number];
+  @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })
+  triggerLevel: 'green' | 'amber' | 'red' | null;
 }
 
 export class RoundPageDto {

@@ -118,6 +118,8 @@ export const draftRound: Round = {
   nextRoundLength: null,
   recommendationReason: '',
   status: 'draft',
+  triggerLevel: null,
+  triggerFirings: [],
   submittedAt: null,
   inflowPer10m: null,
   revision: 1,
