@@ -13,7 +13,7 @@ import {
 import { profileEnv, root } from './lib/env.mjs';
 import { InfraError, fail, step } from './lib/log.mjs';
 import { startChild, stopAll, waitForLine } from './lib/proc.mjs';
-import { startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
+import { assertPortFree, startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
 
 const { dataDir, env } = profileEnv('local');
 const dev = process.argv.includes('--dev');
@@ -36,6 +36,10 @@ try {
   ensureNodeModules();
   buildAll({ web: !dev });
   checkEnvironment(env);
+  // Every port is checked before anything starts, so a clash never leaves half the services running.
+  await assertPortFree(Number(new URL(env.S3_ENDPOINT).port), 'the S3 fake', 'S3_ENDPOINT');
+  await assertPortFree(Number(env.SMTP_PORT), 'the SMTP fake', 'SMTP_PORT');
+  await assertPortFree(Number(env.PORT), 'Roundbook', 'PORT');
   await startMariadb({ dataDir, env });
   await startS3({ dataDir, env });
   await startSmtp({ dataDir, env });
