@@ -1,7 +1,7 @@
 // Installs what is missing, and only that: Debian packages with apt-get, npm packages with `npm ci`,
 // then builds the workspaces. Node built-ins only (this runs before node_modules exists).
 import { spawnSync } from 'node:child_process';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { root } from './env.mjs';
 import { InfraError, info, step } from './log.mjs';
@@ -47,30 +47,83 @@ export function ensureNodeModules() {
   });
 }
 
-export function buildAll({ web = true } = {}) {
-  step(web ? 'Building geomath, the API and the web app' : 'Building geomath and the API');
+/** Newest modification time of the files under `inputs` (node_modules and outputs skipped). */
+function newest(inputs) {
+  let latest = 0;
+  const walk = (p) => {
+    if (!existsSync(p)) return;
+    const st = statSync(p);
+    if (!st.isDirectory()) {
+      latest = Math.max(latest, st.mtimeMs);
+      return;
+    }
+    for (const name of readdirSync(p)) {
+      if (!['node_modules', 'dist', 'test-results', 'e2e'].includes(name)) walk(path.join(p, name));
+    }
+  };
+  for (const input of inputs) walk(path.join(root, input));
+  return latest;
+}
+
+/** Builds a workspace unless its output is newer than every input it is built from. */
+function build(name, workspace, inputs, output) {
+  const out = path.join(root, output);
+  if (existsSync(out) && statSync(out).mtimeMs > newest(inputs)) {
+    info(`${name} is up to date`);
+    return;
+  }
   const env = { ...process.env, NODE_ENV: 'production' };
-  run('npm', ['run', '--silent', 'build', '-w', '@roundbook/geomath'], {
+  run('npm', ['run', '--silent', 'build', '-w', workspace], {
     cwd: root,
     env,
     quiet: true,
-    hint: 'The geomath build failed.',
+    hint: `The ${name} build failed.`,
   });
-  info('geomath built');
-  run('npm', ['run', '--silent', 'build', '-w', '@roundbook/api'], {
-    cwd: root,
-    env,
-    quiet: true,
-    hint: 'The API build failed.',
-  });
-  info('API built');
-  run('npm', ['run', '--silent', 'build', '-w', '@roundbook/web'], {
-    cwd: root,
-    env,
-    quiet: true,
-    hint: 'The web build failed.',
-  });
-  info('web app built');
+  info(`${name} built`);
+}
+
+export function buildAll({ web = true } = {}) {
+  step(
+    web
+      ? 'Building geomath, the API and the web app (when changed)'
+      : 'Building geomath and the API (when changed)',
+  );
+  const lock = 'package-lock.json';
+  const geomath = [
+    'packages/geomath/src',
+    'packages/geomath/package.json',
+    'packages/geomath/tsconfig.build.json',
+  ];
+  build('geomath', '@roundbook/geomath', [...geomath, lock], 'packages/geomath/dist/index.js');
+  build(
+    'the API',
+    '@roundbook/api',
+    [
+      'apps/api/src',
+      'apps/api/package.json',
+      'apps/api/tsconfig.json',
+      'apps/api/tsconfig.build.json',
+      'apps/api/nest-cli.json',
+      ...geomath,
+      lock,
+    ],
+    'apps/api/dist/main.js',
+  );
+  if (!web) return;
+  build(
+    'the web app',
+    '@roundbook/web',
+    [
+      'apps/web/src',
+      'apps/web/index.html',
+      'apps/web/vite.config.ts',
+      'apps/web/package.json',
+      'packages/ui/src',
+      ...geomath,
+      lock,
+    ],
+    'apps/web/dist/index.html',
+  );
 }
 
 /** Checks the environment through the API's own validation before any service starts. */
