@@ -118,8 +118,9 @@ for (const { role, nav } of roles) {
     expect(headingCount).toBeGreaterThanOrEqual(2);
 
     for (const project of projects) {
-      const board = page.getByRole('region', { name: project.name });
-      await expect(board.getByRole('heading', { level: 1, name: project.name })).toBeVisible();
+      // Exact names: the admin may also have projects made by new-project.spec.ts.
+      const board = page.getByRole('region', { name: project.name, exact: true });
+      await expect(board.getByRole('heading', { level: 1, name: project.name, exact: true })).toBeVisible();
       for (const heading of project.headings) {
         // Heading codes are unique in a project; names need not be.
         const card = board

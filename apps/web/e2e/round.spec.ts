@@ -76,6 +76,8 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await expect(page.getByRole('heading', { level: 1 })).toContainText('HR-U');
   await expect(page.getByRole('tab', { name: 'Rounds' })).toHaveAttribute('aria-selected', 'true');
   await expect(page.getByTestId('round-row').first()).toBeVisible();
+  await expect(page.getByRole('columnheader', { name: 'Trigger' })).toBeVisible();
+  await expect(page.getByTestId('round-trigger').first()).toHaveText(/^(Green|Amber|Red|no rules)$/);
   await page.screenshot({ path: `${shots}round-heading-rounds.png` });
 
   // New round: the face chainage comes prefilled from /next.
@@ -123,7 +125,8 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await page.getByLabel('Water inflow').fill('12');
   await page.getByLabel('Tunnel length it comes from').fill('20');
   await page.getByLabel('Water at the face, in words').fill('Drips from two joints in the left shoulder');
-  await page.getByLabel('Overbreak').fill('1.5');
+  // Over the demo's overbreak trigger (> 6 m³, amber), so a rule fires on every run.
+  await page.getByLabel('Overbreak').fill('7.5');
   await waitSaved(page);
   await expect(page.getByTestId('inflow-per-10m')).toContainText('6 l/min');
   await shot(page, 'round-ground');
@@ -220,6 +223,20 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await expect(page.getByLabel('Next round length')).toHaveValue('3.5');
   await waitSaved(page);
   await shot(page, 'round-support');
+
+  // The trigger level, worked out by the server at the last save, is in sight from every section.
+  const triggers = page.getByRole('region', { name: 'Trigger level' });
+  await expect(triggers).toContainText('As of the last save.');
+  await expect(triggers.locator('[data-level]').first()).toHaveText(/^(Amber|Red)$/);
+  await expect(triggers.getByTestId('trigger-firing').first()).toBeVisible();
+  await expect(triggers).toContainText(/overbreak/i);
+  await expect(triggers.getByTestId('trigger-firing').first()).toContainText('Why it fires');
+  await expect(triggers.getByTestId('trigger-firing').first()).toContainText('What to do');
+  await tabs.getByRole('tab', { name: 'Position' }).click();
+  await expect(triggers).toBeVisible();
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: `${shots}round-triggers.png` });
+  await tabs.getByRole('tab', { name: 'Support' }).click();
 
   await page.getByRole('button', { name: 'Submit for review' }).click();
   await expect(page.getByTestId('submitted-note')).toBeVisible();

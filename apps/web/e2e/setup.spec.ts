@@ -11,6 +11,7 @@ import type { Browser, BrowserContext, Page } from '@playwright/test';
 const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
 mkdirSync(shots, { recursive: true });
+const DEMO_PROJECT = 'Brannoch Hydro — Headrace Tunnel';
 const run = Date.now().toString(36).slice(-5).toUpperCase();
 
 let context: BrowserContext;
@@ -31,6 +32,9 @@ test.beforeAll(async ({ browser }: { browser: Browser }) => {
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/$/);
+  // The admin may also have projects made by new-project.spec.ts: work on the demo project.
+  const chooser = page.getByRole('combobox', { name: 'Project' });
+  if ((await chooser.count()) > 0) await chooser.selectOption({ label: DEMO_PROJECT });
 });
 
 test.afterAll(async () => {

@@ -24,3 +24,8 @@ export type {
   StaleVersionNoticeProps,
   VersionDifference,
 } from './components/stale-version-notice/stale-version-notice';
+export { TriggerLevelBadge, triggerLevelLabels } from './components/trigger-level-badge/trigger-level-badge';
+export type {
+  TriggerLevel,
+  TriggerLevelBadgeProps,
+} from './components/trigger-level-badge/trigger-level-badge';

@@ -58,3 +58,4 @@ export type Team = Schemas['TeamDto'];
 export type InviteRequest = Schemas['InviteDto'];
 export type InvitationInfo = Schemas['InvitationInfoDto'];
 export type AcceptInvitationRequest = Schemas['AcceptInvitationDto'];
+export type CreateProjectRequest = Schemas['CreateProjectDto'];

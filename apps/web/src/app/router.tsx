@@ -74,6 +74,12 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   },
                 },
                 {
+                  path: 'projects/new',
+                  lazy: async () => ({
+                    Component: (await import('@/app/routes/new-project.route')).NewProjectRoute,
+                  }),
+                },
+                {
                   path: 'projects/:projectId/headings/:headingId',
                   lazy: async () => {
                     const { clientLoader, HeadingRoute } = await import('@/app/routes/heading.route');

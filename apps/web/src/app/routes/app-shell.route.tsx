@@ -10,7 +10,7 @@ import {
 import { RoleBadge, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import { useQueryClient } from '@tanstack/react-query';
-import { Suspense, useState } from 'react';
+import { Suspense, useCallback, useState } from 'react';
 import type { ReactElement } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
@@ -130,7 +130,9 @@ export function AppShellRoute() {
   const queryClient = useQueryClient();
   const { data: me } = useCurrentUser();
   const { data: config } = useConfig();
-  const [current, setCurrent] = useState(() => pickCurrentProject(me.memberships));
+  const [chosenId, setChosenId] = useState(() => pickCurrentProject(me.memberships)?.projectId ?? null);
+  // Derived on every render, so a project that joins the memberships later (a new one) can be current.
+  const current = me.memberships.find((m) => m.projectId === chosenId) ?? pickCurrentProject(me.memberships);
   const navItems = navigationFor({
     role: current?.role ?? null,
     localMode: config.localMode,
@@ -144,12 +146,10 @@ export function AppShellRoute() {
     await queryClient.cancelQueries();
   };
 
-  const chooseProject = (projectId: string) => {
-    const next = me.memberships.find((m) => m.projectId === projectId) ?? null;
-    if (next === null) return;
+  const chooseProject = useCallback((projectId: string) => {
     rememberCurrentProject(projectId);
-    setCurrent(next);
-  };
+    setChosenId(projectId);
+  }, []);
 
   return (
     <div className={styles.shell}>
@@ -210,7 +210,7 @@ export function AppShellRoute() {
 
       <main className={styles.main}>
         <Suspense fallback={<PageLoading />}>
-          <Outlet context={{ membership: current } satisfies ShellContext} />
+          <Outlet context={{ membership: current, chooseProject } satisfies ShellContext} />
         </Suspense>
       </main>
 

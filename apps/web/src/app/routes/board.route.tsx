@@ -1,6 +1,9 @@
-import { EmptyState } from '@roundbook/ui';
+import { Button, makeStyles, tokens } from '@fluentui/react-components';
+import { AddRegular } from '@fluentui/react-icons';
+import { EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { useNavigate } from 'react-router-dom';
 import { guarded } from '@/app/routes/session-guard';
 import { projectsQueryOptions, useProjects } from '@/features/projects/api/get-projects';
 import { ProjectBoard } from '@/features/projects/components/project-board';
@@ -13,19 +16,45 @@ export const clientLoader =
       return null;
     });
 
-/** Board: every project the person belongs to, one card per heading. */
+const useStyles = makeStyles({
+  toolbar: { display: 'flex', justifyContent: 'flex-end', marginBottom: tokens.spacingVerticalM },
+  button: { minHeight: `${TOUCH_TARGET_PX}px` },
+});
+
+function NewProjectButton() {
+  const styles = useStyles();
+  const navigate = useNavigate();
+  return (
+    <Button
+      className={styles.button}
+      size="large"
+      appearance="secondary"
+      icon={<AddRegular />}
+      onClick={() => void navigate('/projects/new')}
+    >
+      New project
+    </Button>
+  );
+}
+
+/** Board: every project the person belongs to, one card per heading; anyone may start a project. */
 export function BoardRoute() {
+  const styles = useStyles();
   const { data: projects } = useProjects();
   if (projects.length === 0) {
     return (
       <EmptyState
         title="You are not on a project yet"
-        message="A project admin adds people to a project with a role. Once you are added, the project's headings show here."
+        message="A project admin adds people to a project with a role. Once you are added, the project's headings show here. Or start a project of your own and set it up."
+        action={<NewProjectButton />}
       />
     );
   }
   return (
     <>
+      <div className={styles.toolbar}>
+        <NewProjectButton />
+      </div>
       {projects.map((project) => (
         <ProjectBoard key={project.id} project={project} />
       ))}

@@ -15,9 +15,10 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { Suspense, useMemo, useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { useNavigate, useParams } from 'react-router-dom';
+import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import type { ExcavationStage, Heading, ProjectRole } from '@/api/contract';
 import { pickCurrentProject } from '@/app/navigation';
+import type { CreatedProjectState } from '@/app/routes/new-project.route';
 import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import { useShellContext } from '@/app/shell-context';
@@ -204,6 +205,7 @@ function SetupPage({ projectId, role }: { projectId: string; role: ProjectRole }
   const { data: me } = useCurrentUser();
   const rights = setupRights(role);
   const canEditSection = section === 'triggers' ? rights.triggers : rights.setup;
+  const created = (useLocation().state as Partial<CreatedProjectState> | null)?.createdProject;
 
   return (
     <>
@@ -225,6 +227,17 @@ function SetupPage({ projectId, role }: { projectId: string; role: ProjectRole }
           </Tab>
         ))}
       </TabList>
+      {created !== undefined && (
+        <div className={styles.note} role="status" data-testid="project-created">
+          <MessageBar intent="success" layout="multiline">
+            <MessageBarBody>
+              <MessageBarTitle>{`${created} is ready`}</MessageBarTitle>
+              You are its project admin. Next: add the headings it drives, then its support classes, trigger
+              rules and team — each has its tab above.
+            </MessageBarBody>
+          </MessageBar>
+        </div>
+      )}
       {!canEditSection && (
         <ReadOnlyNote who={section === 'triggers' ? 'Project admins and engineers' : 'Project admins'} />
       )}

@@ -1,8 +1,8 @@
 import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
-import type { BadgeProps } from '@fluentui/react-components';
+import { TriggerLevelBadge } from '@roundbook/ui';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import type { HeadingSummary, TriggerLevel } from '@/api/contract';
+import type { HeadingSummary } from '@/api/contract';
 import {
   formatAzimuth,
   formatChainage,
@@ -10,7 +10,6 @@ import {
   formatProjectTime,
   handoverState,
   stageLabels,
-  triggerLabels,
 } from '@/features/projects/utils/format';
 
 export interface HeadingCardProps {
@@ -20,12 +19,6 @@ export interface HeadingCardProps {
   /** Where the card's title leads (the heading's screen). */
   to?: string;
 }
-
-const triggerColours: Record<TriggerLevel, BadgeProps['color']> = {
-  green: 'success',
-  amber: 'warning',
-  red: 'danger',
-};
 
 const useStyles = makeStyles({
   card: {
@@ -113,20 +106,12 @@ export function HeadingCard({ heading, timeZone, to }: HeadingCardProps) {
             )}
           </Subtitle2>
         </div>
-        {heading.triggerLevel === null ? (
-          <Badge appearance="outline" color="informative" size="extra-large" shape="rounded">
-            No trigger level yet
-          </Badge>
-        ) : (
-          <Badge
-            appearance="filled"
-            color={triggerColours[heading.triggerLevel]}
-            size="extra-large"
-            shape="rounded"
-          >
-            {`Trigger: ${triggerLabels[heading.triggerLevel]}`}
-          </Badge>
-        )}
+        <TriggerLevelBadge
+          level={heading.triggerLevel}
+          prefix="Trigger: "
+          noneLabel="No trigger level yet"
+          size="extra-large"
+        />
       </div>
 
       <div className={styles.face}>

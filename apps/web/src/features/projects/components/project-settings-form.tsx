@@ -28,6 +28,7 @@ import {
   projectToSettingsValues,
   Q_EDITIONS,
 } from '@/features/projects/schemas/project-settings.schema';
+import { timeZoneChoices } from '@/features/projects/utils/time-zones';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useStaleVersion } from '@/lib/use-stale-version';
 
@@ -60,13 +61,6 @@ const useStyles = makeStyles({
   button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   actions: { display: 'flex', gap: tokens.spacingHorizontalM },
 });
-
-function timeZones(current: string): string[] {
-  const supported =
-    (Intl as { supportedValuesOf?: (key: string) => string[] }).supportedValuesOf?.('timeZone') ?? [];
-  const zones = supported.includes('UTC') ? supported : ['UTC', ...supported];
-  return zones.includes(current) ? zones : [current, ...zones];
-}
 
 function DistributionList({ disabled }: { disabled: boolean }) {
   const styles = useStyles();
@@ -186,7 +180,7 @@ export function ProjectSettingsForm({ project, canEdit }: ProjectSettingsFormPro
               hint="Shift dates and times follow it"
               required
               disabled={!canEdit}
-              options={timeZones(project.timeZone).map((z) => ({ value: z, label: z }))}
+              options={timeZoneChoices(project.timeZone).map((z) => ({ value: z, label: z }))}
             />
             <FormikSelectField
               name="defaultNotation"

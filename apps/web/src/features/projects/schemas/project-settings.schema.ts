@@ -23,7 +23,7 @@ export const groundScaleLabels: Record<GroundScale, string> = {
   'iso-14689': 'ISO 14689',
 };
 
-function knownTimeZone(zone: string): boolean {
+export function knownTimeZone(zone: string): boolean {
   try {
     new Intl.DateTimeFormat('en-GB', { timeZone: zone });
     return true;

@@ -1,5 +1,5 @@
 import { formatChainage as formatKmChainage, normalizeAzimuth } from '@roundbook/geomath';
-import type { ExcavationStage, HandoverSummary, TriggerLevel } from '@/api/contract';
+import type { ExcavationStage, HandoverSummary } from '@/api/contract';
 
 /** Chainage in the trade's kilometre+metre form with one decimal: 1250 → "1+250.0" (from geomath). */
 export function formatChainage(metres: number): string {
@@ -24,12 +24,6 @@ export const stageLabels: Record<ExcavationStage, string> = {
   'top-heading': 'Top heading',
   bench: 'Bench',
   invert: 'Invert',
-};
-
-export const triggerLabels: Record<TriggerLevel, string> = {
-  green: 'Green',
-  amber: 'Amber',
-  red: 'Red',
 };
 
 /** Date and time in the project's own time zone, e.g. "1 Dec 2026, 14:05". */

@@ -33,3 +33,5 @@ export type HeadingDetail = Schemas['HeadingDto'];
 export type ProjectDetail = Schemas['ProjectSummaryDto'];
 export type SupportClass = Schemas['SupportClassDto'];
 export type SupportClassLibrary = Schemas['SupportClassLibraryDto'];
+export type TriggerFiring = Schemas['TriggerFiringDto'];
+export type TriggerLevel = Schemas['TriggerLevel'];

@@ -24,6 +24,7 @@ import { RatingSection } from '@/features/rounds/components/rating-section';
 import { RoundEditContext } from '@/features/rounds/components/round-fields';
 import { SaveStateBadge } from '@/features/rounds/components/save-state';
 import { SupportSection } from '@/features/rounds/components/support-section';
+import { TriggerPanel } from '@/features/rounds/components/trigger-panel';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { chainageOf, formValuesOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
@@ -207,6 +208,8 @@ function RoundEditorBody({
             </>
           }
         />
+
+        <TriggerPanel level={server.triggerLevel} firings={server.triggerFirings} />
 
         {autosave.state === 'offline' && (
           <MessageBar intent="warning" data-testid="offline-note">

@@ -18,7 +18,7 @@ import {
 } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
 import { formatChainage } from '@roundbook/geomath';
-import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { TOUCH_TARGET_PX, TriggerLevelBadge } from '@roundbook/ui';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useRounds } from '@/features/rounds/api/get-rounds';
@@ -171,6 +171,7 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
             {header('rmr', 'RMR')}
             <TableHeaderCell>Class recommended</TableHeaderCell>
             <TableHeaderCell>Status</TableHeaderCell>
+            <TableHeaderCell>Trigger</TableHeaderCell>
           </TableRow>
         </TableHeader>
         <TableBody>
@@ -192,6 +193,9 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
                 <Badge appearance="tint" size="large" shape="rounded" color={statusColours[r.status]}>
                   {statusLabels[r.status]}
                 </Badge>
+              </TableCell>
+              <TableCell data-testid="round-trigger">
+                <TriggerLevelBadge level={r.triggerLevel} noneLabel="no rules" />
               </TableCell>
             </TableRow>
           ))}
