@@ -17,6 +17,8 @@ export { FormikInputField } from './forms/formik-input-field';
 export type { FormikInputFieldProps } from './forms/formik-input-field';
 export { FormikSelectField } from './forms/formik-select-field';
 export type { FormikSelectFieldProps, SelectOption } from './forms/formik-select-field';
+export { FormFooter } from './forms/form-footer';
+export type { FormFooterProps } from './forms/form-footer';
 export { ConfirmDialog } from './components/confirm-dialog/confirm-dialog';
 export type { ConfirmDialogProps } from './components/confirm-dialog/confirm-dialog';
 export { StaleVersionNotice } from './components/stale-version-notice/stale-version-notice';

@@ -1,5 +1,4 @@
 import {
-  Button,
   Checkbox,
   Field,
   makeStyles,
@@ -8,7 +7,6 @@ import {
   MessageBarTitle,
   Radio,
   RadioGroup,
-  Spinner,
   Subtitle2,
   tokens,
 } from '@fluentui/react-components';
@@ -19,6 +17,7 @@ import {
   FormikSelectField,
   StaleVersionNotice,
   TOUCH_TARGET_PX,
+  FormFooter,
 } from '@roundbook/ui';
 import { Form, Formik, useField, useFormikContext } from 'formik';
 import type { FormikHelpers } from 'formik';
@@ -94,8 +93,6 @@ const useStyles = makeStyles({
   plainLegend: { padding: 0, marginBottom: tokens.spacingVerticalXS, fontWeight: tokens.fontWeightSemibold },
   error: { color: tokens.colorPaletteRedForeground1, marginTop: tokens.spacingVerticalXS },
   check: { minHeight: `${TOUCH_TARGET_PX}px`, display: 'inline-flex', alignItems: 'center' },
-  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
-  button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '9rem' },
   facts: {
     display: 'grid',
     gridTemplateColumns: 'max-content 1fr',
@@ -446,31 +443,12 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   </MessageBar>
                 </div>
               )}
-              {problem !== null && (
-                <div role="alert">
-                  <MessageBar intent="error" layout="multiline">
-                    <MessageBarBody>
-                      <MessageBarTitle>Not saved</MessageBarTitle>
-                      {problem}
-                    </MessageBarBody>
-                  </MessageBar>
-                </div>
-              )}
-              <div className={styles.actions}>
-                <Button
-                  type="submit"
-                  appearance="primary"
-                  size="large"
-                  className={styles.button}
-                  disabled={isSubmitting}
-                  icon={isSubmitting ? <Spinner size="tiny" /> : undefined}
-                >
-                  {heading === undefined ? 'Add heading' : 'Save heading'}
-                </Button>
-                <Button size="large" className={styles.button} onClick={onCancel} disabled={isSubmitting}>
-                  Cancel
-                </Button>
-              </div>
+              <FormFooter
+                problem={problem}
+                submitting={isSubmitting}
+                submitLabel={heading === undefined ? 'Add heading' : 'Save heading'}
+                onCancel={onCancel}
+              />
             </div>
             <aside className={styles.aside} aria-label="Profile to scale">
               <Subtitle2>Profile to scale</Subtitle2>

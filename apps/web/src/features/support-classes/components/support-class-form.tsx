@@ -1,17 +1,5 @@
-import {
-  Button,
-  Checkbox,
-  Field,
-  makeStyles,
-  MessageBar,
-  MessageBarBody,
-  MessageBarTitle,
-  Spinner,
-  Subtitle2,
-  Textarea,
-  tokens,
-} from '@fluentui/react-components';
-import { FormikInputField, StaleVersionNotice, TOUCH_TARGET_PX } from '@roundbook/ui';
+import { Checkbox, Field, makeStyles, Subtitle2, Textarea, tokens } from '@fluentui/react-components';
+import { FormikInputField, StaleVersionNotice, TOUCH_TARGET_PX, FormFooter } from '@roundbook/ui';
 import { Form, Formik, useField } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
@@ -53,8 +41,6 @@ const useStyles = makeStyles({
   legend: { paddingInline: tokens.spacingHorizontalS },
   wide: { gridColumn: '1 / -1' },
   check: { minHeight: `${TOUCH_TARGET_PX}px`, display: 'inline-flex', alignItems: 'center' },
-  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
-  button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '9rem' },
 });
 
 function ProbingField() {
@@ -215,31 +201,12 @@ export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }:
               <NotesField />
             </div>
           </fieldset>
-          {problem !== null && (
-            <div role="alert">
-              <MessageBar intent="error" layout="multiline">
-                <MessageBarBody>
-                  <MessageBarTitle>Not saved</MessageBarTitle>
-                  {problem}
-                </MessageBarBody>
-              </MessageBar>
-            </div>
-          )}
-          <div className={styles.actions}>
-            <Button
-              type="submit"
-              appearance="primary"
-              size="large"
-              className={styles.button}
-              disabled={isSubmitting}
-              icon={isSubmitting ? <Spinner size="tiny" /> : undefined}
-            >
-              {supportClass === undefined ? 'Add class' : 'Save class'}
-            </Button>
-            <Button size="large" className={styles.button} onClick={onCancel} disabled={isSubmitting}>
-              Cancel
-            </Button>
-          </div>
+          <FormFooter
+            problem={problem}
+            submitting={isSubmitting}
+            submitLabel={supportClass === undefined ? 'Add class' : 'Save class'}
+            onCancel={onCancel}
+          />
         </Form>
       )}
     </Formik>

@@ -7,7 +7,6 @@ import {
   MessageBarTitle,
   Radio,
   RadioGroup,
-  Spinner,
   Switch,
   Textarea,
   tokens,
@@ -19,6 +18,7 @@ import {
   roleLabels,
   StaleVersionNotice,
   TOUCH_TARGET_PX,
+  FormFooter,
 } from '@roundbook/ui';
 import { Form, Formik, useField, useFormikContext } from 'formik';
 import type { FormikHelpers, FormikProps } from 'formik';
@@ -80,9 +80,7 @@ const useStyles = makeStyles({
   wide: { gridColumn: '1 / -1' },
   radio: { minHeight: `${TOUCH_TARGET_PX}px`, display: 'inline-flex', alignItems: 'center' },
   note: { gridColumn: '1 / -1', color: tokens.colorNeutralForeground2, margin: 0 },
-  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
   button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '9rem' },
-  spacer: { flexGrow: 1 },
 });
 
 /** What decides where a rule fires; a try is out of date once one of these changes. */
@@ -310,41 +308,23 @@ export function TriggerRuleForm({ projectId, rule, onSaved, onCancel, placeForma
               <EnabledField />
             </div>
           </div>
-          {problem !== null && (
-            <div role="alert">
-              <MessageBar intent="error" layout="multiline">
-                <MessageBarBody>
-                  <MessageBarTitle>Not saved</MessageBarTitle>
-                  {problem}
-                </MessageBarBody>
-              </MessageBar>
-            </div>
-          )}
-          <div className={styles.actions}>
-            <Button
-              type="submit"
-              appearance="primary"
-              size="large"
-              className={styles.button}
-              disabled={formik.isSubmitting}
-              icon={formik.isSubmitting ? <Spinner size="tiny" /> : undefined}
-            >
-              {rule === undefined ? 'Add rule' : 'Save rule'}
-            </Button>
-            <Button size="large" className={styles.button} onClick={onCancel} disabled={formik.isSubmitting}>
-              Cancel
-            </Button>
-            <span className={styles.spacer} />
-            <Button
-              size="large"
-              className={styles.button}
-              icon={<BeakerRegular />}
-              disabled={preview.isPending}
-              onClick={() => void tryRule(formik)}
-            >
-              Try on recent rounds
-            </Button>
-          </div>
+          <FormFooter
+            problem={problem}
+            submitting={formik.isSubmitting}
+            submitLabel={rule === undefined ? 'Add rule' : 'Save rule'}
+            onCancel={onCancel}
+            extra={
+              <Button
+                size="large"
+                className={styles.button}
+                icon={<BeakerRegular />}
+                disabled={preview.isPending}
+                onClick={() => void tryRule(formik)}
+              >
+                Try on recent rounds
+              </Button>
+            }
+          />
           {previewProblem !== null && (
             <div role="alert">
               <MessageBar intent="error" layout="multiline">
