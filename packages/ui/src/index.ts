@@ -19,6 +19,8 @@ export { FormikSelectField } from './forms/formik-select-field';
 export type { FormikSelectFieldProps, SelectOption } from './forms/formik-select-field';
 export { FormFooter } from './forms/form-footer';
 export type { FormFooterProps } from './forms/form-footer';
+export { FormSection } from './forms/form-section';
+export type { FormSectionProps } from './forms/form-section';
 export { ConfirmDialog } from './components/confirm-dialog/confirm-dialog';
 export type { ConfirmDialogProps } from './components/confirm-dialog/confirm-dialog';
 export { StaleVersionNotice } from './components/stale-version-notice/stale-version-notice';

@@ -18,6 +18,7 @@ import {
   StaleVersionNotice,
   TOUCH_TARGET_PX,
   FormFooter,
+  FormSection,
 } from '@roundbook/ui';
 import { Form, Formik, useField, useFormikContext } from 'formik';
 import type { FormikHelpers } from 'formik';
@@ -68,18 +69,6 @@ const useStyles = makeStyles({
     '@media (max-width: 900px)': { gridTemplateColumns: 'minmax(0, 1fr)' },
   },
   fields: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
-  group: {
-    display: 'grid',
-    gridTemplateColumns: 'repeat(auto-fill, minmax(12rem, 1fr))',
-    gap: tokens.spacingHorizontalL,
-    rowGap: tokens.spacingVerticalM,
-    margin: 0,
-    padding: tokens.spacingHorizontalL,
-    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
-    borderRadius: tokens.borderRadiusLarge,
-    backgroundColor: tokens.colorNeutralBackground1,
-  },
-  legend: { paddingInline: tokens.spacingHorizontalS },
   wide: { gridColumn: '1 / -1' },
   aside: {
     position: 'sticky',
@@ -317,10 +306,7 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   onDismiss={stale.dismiss}
                 />
               )}
-              <fieldset className={styles.group}>
-                <legend className={styles.legend}>
-                  <Subtitle2>Name and start</Subtitle2>
-                </legend>
+              <FormSection title="Name and start">
                 <FormikInputField name="code" label="Code" hint="Short, e.g. HR-U" required />
                 <div className={styles.wide}>
                   <FormikInputField name="name" label="Name" required />
@@ -346,12 +332,9 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   label="Decimals shown"
                   options={['0', '1', '2', '3'].map((d) => ({ value: d, label: d }))}
                 />
-              </fieldset>
+              </FormSection>
 
-              <fieldset className={styles.group}>
-                <legend className={styles.legend}>
-                  <Subtitle2>Direction</Subtitle2>
-                </legend>
+              <FormSection title="Direction">
                 <FormikInputField
                   name="driveTrend"
                   label="Drive direction (trend)"
@@ -361,12 +344,9 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   required
                 />
                 <GradientField />
-              </fieldset>
+              </FormSection>
 
-              <fieldset className={styles.group}>
-                <legend className={styles.legend}>
-                  <Subtitle2>Excavation profile</Subtitle2>
-                </legend>
+              <FormSection title="Excavation profile">
                 <FormikSelectField
                   name="profileShape"
                   label="Shape"
@@ -395,12 +375,9 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   contentAfter="m"
                   required
                 />
-              </fieldset>
+              </FormSection>
 
-              <fieldset className={styles.group}>
-                <legend className={styles.legend}>
-                  <Subtitle2>Stages and rounds</Subtitle2>
-                </legend>
+              <FormSection title="Stages and rounds">
                 <div className={styles.wide}>
                   <StagesField />
                 </div>
@@ -411,12 +388,9 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   contentAfter="m"
                   required
                 />
-              </fieldset>
+              </FormSection>
 
-              <fieldset className={styles.group}>
-                <legend className={styles.legend}>
-                  <Subtitle2>{`Start point (optional, ${coordinateGrid || 'project grid'})`}</Subtitle2>
-                </legend>
+              <FormSection title={`Start point (optional, ${coordinateGrid || 'project grid'})`}>
                 <FormikInputField name="startEasting" label="Easting" inputMode="decimal" contentAfter="m" />
                 <FormikInputField
                   name="startNorthing"
@@ -430,7 +404,7 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   inputMode="decimal"
                   contentAfter="m"
                 />
-              </fieldset>
+              </FormSection>
 
               {declined && (
                 <div role="status" data-testid="recompute-declined">

@@ -1,5 +1,11 @@
-import { Checkbox, Field, makeStyles, Subtitle2, Textarea, tokens } from '@fluentui/react-components';
-import { FormikInputField, StaleVersionNotice, TOUCH_TARGET_PX, FormFooter } from '@roundbook/ui';
+import { Checkbox, Field, makeStyles, Textarea, tokens } from '@fluentui/react-components';
+import {
+  FormikInputField,
+  StaleVersionNotice,
+  TOUCH_TARGET_PX,
+  FormFooter,
+  FormSection,
+} from '@roundbook/ui';
 import { Form, Formik, useField } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
@@ -27,18 +33,6 @@ export interface SupportClassFormProps {
 
 const useStyles = makeStyles({
   form: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL, maxWidth: '72rem' },
-  group: {
-    display: 'grid',
-    gridTemplateColumns: 'repeat(auto-fill, minmax(12rem, 1fr))',
-    gap: tokens.spacingHorizontalL,
-    rowGap: tokens.spacingVerticalM,
-    margin: 0,
-    padding: tokens.spacingHorizontalL,
-    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
-    borderRadius: tokens.borderRadiusLarge,
-    backgroundColor: tokens.colorNeutralBackground1,
-  },
-  legend: { paddingInline: tokens.spacingHorizontalS },
   wide: { gridColumn: '1 / -1' },
   check: { minHeight: `${TOUCH_TARGET_PX}px`, display: 'inline-flex', alignItems: 'center' },
 });
@@ -145,19 +139,13 @@ export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }:
               onDismiss={stale.dismiss}
             />
           )}
-          <fieldset className={styles.group}>
-            <legend className={styles.legend}>
-              <Subtitle2>Class</Subtitle2>
-            </legend>
+          <FormSection title="Class">
             <FormikInputField name="code" label="Code" hint="e.g. SC2" required />
             <div className={styles.wide}>
               <FormikInputField name="name" label="Name" required />
             </div>
-          </fieldset>
-          <fieldset className={styles.group}>
-            <legend className={styles.legend}>
-              <Subtitle2>Where it applies (Q, RMR89 or both)</Subtitle2>
-            </legend>
+          </FormSection>
+          <FormSection title="Where it applies (Q, RMR89 or both)">
             <FormikInputField name="qMin" label="Q from" inputMode="decimal" hint="Empty: no lower bound" />
             <FormikInputField name="qMax" label="Q below" inputMode="decimal" hint="Empty: no upper bound" />
             <FormikInputField
@@ -172,11 +160,8 @@ export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }:
               inputMode="numeric"
               hint="Included in the class"
             />
-          </fieldset>
-          <fieldset className={styles.group}>
-            <legend className={styles.legend}>
-              <Subtitle2>Rounds and support</Subtitle2>
-            </legend>
+          </FormSection>
+          <FormSection title="Rounds and support">
             <FormikInputField
               name="maxRoundLength"
               label="Maximum round length"
@@ -200,7 +185,7 @@ export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }:
             <div className={styles.wide}>
               <NotesField />
             </div>
-          </fieldset>
+          </FormSection>
           <FormFooter
             problem={problem}
             submitting={isSubmitting}
