@@ -47,7 +47,17 @@ function localSecret(dataDir, name) {
 }
 
 export function profileEnv(profileName) {
-  const p = profiles[profileName];
+  const base = profiles[profileName];
+  // RB_TEST_PORT_OFFSET moves every test port by N, so that several checkouts on one machine can run their
+  // test tiers at once (each with its own RB_DATA_DIR). The local profile's ports come from .env instead.
+  const offset = profileName === 'test' ? Number(process.env.RB_TEST_PORT_OFFSET ?? 0) || 0 : 0;
+  const p = {
+    ...base,
+    dbPort: base.dbPort + offset,
+    s3Port: base.s3Port + offset,
+    smtpPort: base.smtpPort + offset,
+    apiPort: base.apiPort + offset,
+  };
   const fromFile = profileName === 'test' ? {} : readDotEnv(path.join(root, '.env'));
   const given = { ...fromFile, ...process.env };
   const dataDir = path.resolve(root, given.RB_DATA_DIR ?? p.dataDir);
