@@ -98,6 +98,7 @@ try {
   }
   if (want('unit')) {
     await jest('unit', 'packages/geomath', 'packages/geomath', ['--config', 'jest.config.cjs']);
+    await jest('unit', 'packages/domain', 'packages/domain', ['--config', 'jest.config.cjs']);
     await jest('unit', 'packages/ui', 'packages/ui');
     await jest('unit', 'apps/api', 'apps/api', ['--config', 'jest.config.cjs']);
     await jest('unit', 'apps/web', 'apps/web');
@@ -119,6 +120,8 @@ try {
         '--config',
         'jest-e2e.config.cjs',
         '--runInBand',
+        // RB_E2E_FILES=round-record runs only the matching e2e files (while working on one module).
+        ...(process.env.RB_E2E_FILES ? [process.env.RB_E2E_FILES] : []),
       ]);
     if (want('browser')) {
       await startApi({ dataDir, env });

@@ -20,6 +20,7 @@ module.exports = {
   ],
   moduleNameMapper: {
     '^@roundbook/geomath$': '<rootDir>/../../packages/geomath/src/index.ts',
+    '^@roundbook/domain$': '<rootDir>/../../packages/domain/src/index.ts',
     '^(\\.{1,2}/.*)\\.js$': '$1',
   },
 };

@@ -22,6 +22,7 @@ export default {
     '^@/(.*)$': '<rootDir>/src/$1',
     // Workspace packages are tested from their TypeScript source, like Vite bundles them.
     '^@roundbook/geomath$': '<rootDir>/../../packages/geomath/src/index.ts',
+    '^@roundbook/domain$': '<rootDir>/../../packages/domain/src/index.ts',
     // geomath uses NodeNext-style relative imports ending in .js for its .ts files.
     '^(\\.{1,2}/.*)\\.js$': '$1',
     '\\.css$': '<rootDir>/test/style-mock.cjs',

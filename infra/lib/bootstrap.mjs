@@ -85,8 +85,8 @@ function build(name, workspace, inputs, output) {
 export function buildAll({ web = true } = {}) {
   step(
     web
-      ? 'Building geomath, the API and the web app (when changed)'
-      : 'Building geomath and the API (when changed)',
+      ? 'Building geomath, domain, the API and the web app (when changed)'
+      : 'Building geomath, domain and the API (when changed)',
   );
   const lock = 'package-lock.json';
   const geomath = [
@@ -95,6 +95,13 @@ export function buildAll({ web = true } = {}) {
     'packages/geomath/tsconfig.build.json',
   ];
   build('geomath', '@roundbook/geomath', [...geomath, lock], 'packages/geomath/dist/index.js');
+  const domain = [
+    'packages/domain/src',
+    'packages/domain/package.json',
+    'packages/domain/tsconfig.build.json',
+    ...geomath,
+  ];
+  build('domain', '@roundbook/domain', [...domain, lock], 'packages/domain/dist/index.js');
   build(
     'the API',
     '@roundbook/api',
@@ -104,7 +111,7 @@ export function buildAll({ web = true } = {}) {
       'apps/api/tsconfig.json',
       'apps/api/tsconfig.build.json',
       'apps/api/nest-cli.json',
-      ...geomath,
+      ...domain,
       lock,
     ],
     'apps/api/dist/main.js',
@@ -119,7 +126,7 @@ export function buildAll({ web = true } = {}) {
       'apps/web/vite.config.ts',
       'apps/web/package.json',
       'packages/ui/src',
-      ...geomath,
+      ...domain,
       lock,
     ],
     'apps/web/dist/index.html',

@@ -13,6 +13,7 @@ import { AppInfoController } from './modules/app-info/app-info.controller.js';
 import { AuditModule } from './modules/audit/audit.module.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { JwtAuthGuard } from './modules/auth/jwt-auth.guard.js';
+import { BoardModule } from './modules/board/board.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
@@ -44,6 +45,7 @@ export class AppModule {
         TriggerRulesModule,
         TeamModule,
         RoundsModule,
+        BoardModule,
         HealthModule,
         LocalMailModule,
         // The API serves the built web app, so Roundbook is one address.

@@ -3,14 +3,15 @@ import { performance } from 'node:perf_hooks';
 import { DataSource } from 'typeorm';
 import { loadAppConfig } from '../config/app-config.js';
 import { databaseOptions } from '../database/options.js';
-import type { AuditService } from '../modules/audit/audit.service.js';
 import { Heading } from '../modules/headings/heading.entity.js';
+import type { HeadingsService } from '../modules/headings/headings.service.js';
 import { Project } from '../modules/projects/project.entity.js';
-import { RoundsService } from '../modules/rounds/rounds.service.js';
+import type { RoundAssessor } from '../modules/rounds/round-assessor.service.js';
+import { RoundsQueries } from '../modules/rounds/rounds.queries.js';
 import { User } from '../modules/users/user.entity.js';
 
 /**
- * Benchmark: the Rounds tab of a heading with 30,000 rounds. Times RoundsService.list (the query behind
+ * Benchmark: the Rounds tab of a heading with 30,000 rounds. Times RoundsQueries.list (the query behind
  * GET …/rounds) for the first page, a deep page and a filtered sort, against the same queries forced to
  * scan the table without its index (IGNORE INDEX), measured in the same run. Run by `npm run bench`
  * (infra/bench.mjs starts the test database first).
@@ -74,8 +75,12 @@ async function main(): Promise<void> {
     console.log(
       `rounds list: ${N.toLocaleString('en')} rounds on the benchmark heading and ${(N * OTHER_HEADINGS).toLocaleString('en')} on ${OTHER_HEADINGS} others, inserted in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
     );
-    const audit: Pick<AuditService, 'record'> = { record: () => Promise.resolve() };
-    const sut = new RoundsService(ds, audit);
+    // The list reads the heading through HeadingsService and never assesses: only what it calls is given.
+    const headings = {
+      findForProject: (projectId: string, id: string) =>
+        ds.getRepository(Heading).findOneBy({ id, projectId }),
+    } as unknown as HeadingsService;
+    const sut = new RoundsQueries(ds, headings, {} as RoundAssessor);
     const access = { projectId: project.id, role: 'viewer' as const };
     // The reference does the same work (a page and the total count) with the table's indexes ignored.
     const noIndex =

@@ -1,10 +1,12 @@
 import type { DataSourceOptions } from 'typeorm';
+import { IdempotencyKey } from '../common/idempotency/idempotency-key.entity.js';
 import type { AppConfig } from '../config/app-config.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
 import { Joint } from '../modules/rounds/joint.entity.js';
+import { RoundRevision } from '../modules/rounds/round-revision.entity.js';
 import { Round } from '../modules/rounds/round.entity.js';
 import { SupportClass } from '../modules/support-classes/support-class.entity.js';
 import { Invitation } from '../modules/team/invitation.entity.js';
@@ -23,6 +25,8 @@ export const entities = [
   Invitation,
   Round,
   Joint,
+  RoundRevision,
+  IdempotencyKey,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+import { assessRound, computeRatings, DEFAULT_SET_PARAMETERS, suggestClasses } from '@roundbook/domain';
 import {
   driveOf,
   formatPlane,
@@ -7,12 +9,15 @@ import {
   type RmrOrientationAssessment,
 } from '@roundbook/geomath';
 import type { EntityManager } from 'typeorm';
+import { headingGeometry } from '../../modules/headings/heading-geometry.js';
 import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
-import { computeRatings, readOrientation, suggestClasses } from '../../modules/rounds/round-computations.js';
-import { assessRoundTriggers } from '../../modules/rounds/round-triggers.js';
+import { readOrientation } from '../../modules/rounds/orientation-reading.js';
+import { RoundRevision } from '../../modules/rounds/round-revision.entity.js';
 import { Round, type QRecord, type RmrRecord } from '../../modules/rounds/round.entity.js';
+import { recordOf } from '../../modules/rounds/rounds.mapper.js';
 import type { SupportClass } from '../../modules/support-classes/support-class.entity.js';
+import { TriggerRule } from '../../modules/trigger-rules/trigger-rule.entity.js';
 
 /** The invented rounds of the demo: a few weeks of a heading's advance, a fault zone approaching. */
 export interface DemoRoundsPlan {
@@ -65,6 +70,15 @@ export async function seedDemoRounds(
 ): Promise<void> {
   const random = rng(plan.heading.split('').reduce((s, c) => s * 31 + c.charCodeAt(0), 7));
   const drive = driveOf(heading);
+  const rules = await manager.find(TriggerRule, { where: { projectId: heading.projectId } });
+  const earlier: Array<{
+    id: string;
+    roundId: string;
+    faceChainage: number;
+    dipDirection: number;
+    dip: number;
+  }> = [];
+  let previousClassId: string | null | undefined = undefined;
   for (let i = 1; i <= plan.count; i++) {
     const t = (i - 1) / Math.max(1, plan.count - 1);
     const faultHere = plan.fault !== null && i >= plan.fault.fromRound;
@@ -140,62 +154,63 @@ export async function seedDemoRounds(
       classes.find((c) => !c.retired && c.qMin !== null && (ratings.q.value ?? 0) >= c.qMin);
     const status =
       i === plan.count && plan.lastDraft ? 'draft' : i >= plan.count - 1 ? 'submitted' : 'confirmed';
-    const saved = await manager.save(
-      manager.create(Round, {
-        projectId: heading.projectId,
-        headingId: heading.id,
-        stage: plan.stage,
-        roundNumber: i,
-        faceChainage: face,
-        previousChainage: face - plan.roundLength,
-        roundLength: plan.roundLength,
-        shiftDate: shiftDate.toISOString().slice(0, 10),
-        shift,
-        mappedBy,
-        mappedAt,
-        distantParts: i % 5 === 0 ? 'Upper left shoulder seen from the platform only' : '',
-        ground: {
-          units: [
-            {
-              name: plan.rockUnit,
-              sharePercent: 100,
-              weatheringGrade: t < 0.6 ? 'WII' : 'WIII',
-              strengthGrade: t < 0.6 ? 'R4' : 'R3',
-            },
-          ],
-          pointLoadIs50: rmrInput.strength.kind === 'point-load' ? rmrInput.strength.is50 : null,
-          pointLoadFactor: 22,
-          inflowLpm: Math.round((4 + 40 * t) * plan.roundLength) / 10,
-          inflowLengthM: plan.roundLength,
-          waterDescription:
-            t < 0.4
-              ? 'Damp patches'
-              : t < 0.7
-                ? 'Drips from the crown joints'
-                : 'Steady drips, running along the fault trace',
-          overbreakM3: Math.round((0.5 + 4 * t * random()) * 10) / 10,
-          notes: faultHere ? 'Fault zone with clay gouge crossing the face; see the look-ahead.' : '',
-        },
-        qInput,
-        rmrInput,
-        gsiObserved: null,
-        q: ratings.q.value,
-        rmr: ratings.rmr.value,
-        gsi: ratings.gsi.value,
-        recommendedClassId: recommended?.id ?? null,
-        nextRoundLength: recommended ? Math.min(recommended.maxRoundLength, plan.roundLength) : null,
-        recommendationReason: suggested.length
-          ? ''
-          : 'No class fits both ratings; the Q recommendation is followed.',
-        status,
-        revision: 1,
-        submittedAt: status === 'draft' ? null : new Date(mappedAt.getTime() + 3600_000),
-      }),
-    );
+    const saved = manager.create(Round, {
+      id: randomUUID(),
+      projectId: heading.projectId,
+      headingId: heading.id,
+      stage: plan.stage,
+      roundNumber: i,
+      faceChainage: face,
+      previousChainage: face - plan.roundLength,
+      roundLength: plan.roundLength,
+      shiftDate: shiftDate.toISOString().slice(0, 10),
+      shift,
+      mappedBy,
+      mappedAt,
+      distantParts: i % 5 === 0 ? 'Upper left shoulder seen from the platform only' : '',
+      ground: {
+        units: [
+          {
+            name: plan.rockUnit,
+            sharePercent: 100,
+            weatheringGrade: t < 0.6 ? 'WII' : 'WIII',
+            strengthGrade: t < 0.6 ? 'R4' : 'R3',
+          },
+        ],
+        pointLoadIs50: rmrInput.strength.kind === 'point-load' ? rmrInput.strength.is50 : null,
+        pointLoadFactor: 22,
+        inflowLpm: Math.round((4 + 40 * t) * plan.roundLength) / 10,
+        inflowLengthM: plan.roundLength,
+        waterDescription:
+          t < 0.4
+            ? 'Damp patches'
+            : t < 0.7
+              ? 'Drips from the crown joints'
+              : 'Steady drips, running along the fault trace',
+        overbreakM3: Math.round((0.5 + 4 * t * random()) * 10) / 10,
+        notes: faultHere ? 'Fault zone with clay gouge crossing the face; see the look-ahead.' : '',
+      },
+      qInput,
+      rmrInput,
+      gsiObserved: null,
+      q: ratings.q.value,
+      rmr: ratings.rmr.value,
+      gsi: ratings.gsi.value,
+      recommendedClassId: recommended?.id ?? null,
+      nextRoundLength: recommended ? Math.min(recommended.maxRoundLength, plan.roundLength) : null,
+      recommendationReason: suggested.length
+        ? ''
+        : 'No class fits both ratings; the Q recommendation is followed.',
+      setParameters: DEFAULT_SET_PARAMETERS,
+      status,
+      revision: 1,
+      submittedAt: status === 'draft' ? null : new Date(mappedAt.getTime() + 3600_000),
+    });
     const jointRows = entries.map((e, seq) => {
       const text = formatPlane(e.plane, e.notation);
       const reading = readOrientation(text, 'dip-direction/dip');
       return manager.create(Joint, {
+        id: randomUUID(),
         roundId: saved.id,
         headingId: heading.id,
         faceChainage: face,
@@ -221,12 +236,72 @@ export async function seedDemoRounds(
         notes: '',
       });
     });
-    await manager.insert(Joint, jointRows);
-    const triggers = await assessRoundTriggers(manager, saved, jointRows);
-    await manager.update(
-      Round,
-      { id: saved.id },
-      { triggerLevel: triggers.level, triggerFirings: triggers.firings },
+    // The same assessment the API makes on save (packages/domain), frozen for rounds past draft.
+    const assessment = assessRound(
+      {
+        faceChainage: face,
+        roundLength: plan.roundLength,
+        ground: saved.ground,
+        joints: jointRows.map((j) => ({
+          id: j.id,
+          kind: j.kind,
+          dipDirection: j.dipDirection,
+          dip: j.dip,
+          setLabel: j.setLabel,
+          setOverride: false,
+          spacingM: j.spacingM,
+        })),
+        qInput,
+        rmrInput,
+        gsiObserved: null,
+        recommendedClassId: saved.recommendedClassId,
+        setParameters: DEFAULT_SET_PARAMETERS,
+      },
+      {
+        heading: headingGeometry(heading, plan.stage),
+        supportClasses: classes,
+        nearbyJoints: earlier.filter(
+          (e) => Math.abs(e.faceChainage - face) <= DEFAULT_SET_PARAMETERS.windowM,
+        ),
+        previousRound: previousClassId === undefined ? null : { classId: previousClassId },
+        rules,
+      },
     );
+    for (const j of jointRows)
+      j.setLabel = assessment.sets.membership[j.id] || (j.kind === 'fault' ? j.setLabel : null);
+    Object.assign(saved, {
+      assessment,
+      assessmentVersion: assessment.version,
+      triggerLevel: assessment.triggers.level,
+      triggerFirings: assessment.triggers.firings,
+      triggersNotEvaluated: assessment.triggers.notEvaluated.length,
+    });
+    await manager.save(saved);
+    await manager.insert(Joint, jointRows);
+    if (status !== 'draft') {
+      await manager.save(
+        manager.create(RoundRevision, {
+          id: randomUUID(),
+          roundId: saved.id,
+          revision: 1,
+          event: 'submit',
+          status: 'submitted',
+          record: recordOf(saved, jointRows),
+          assessment,
+          assessmentVersion: assessment.version,
+          createdBy: mappedBy,
+        }),
+      );
+    }
+    previousClassId = saved.recommendedClassId;
+    for (const j of jointRows)
+      if (j.dipDirection !== null && j.dip !== null && j.kind !== 'fault')
+        earlier.push({
+          id: j.id,
+          roundId: saved.id,
+          faceChainage: face,
+          dipDirection: j.dipDirection,
+          dip: j.dip,
+        });
   }
 }

@@ -1,13 +1,14 @@
+import { CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '@roundbook/domain';
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Project } from '../projects/project.entity.js';
 
-export const PROFILE_SHAPES = ['circular', 'horseshoe', 'd-shaped', 'rectangular'] as const;
+export { CHAINAGE_STYLES, PROFILE_SHAPES };
 export type ProfileShape = (typeof PROFILE_SHAPES)[number];
-export const CHAINAGE_STYLES = ['km+m', 'metres'] as const;
 export type ChainageStyle = (typeof CHAINAGE_STYLES)[number];
-export const STAGES = ['full-face', 'top-heading', 'bench', 'invert'] as const;
+
+export { STAGES };
 export type Stage = (typeof STAGES)[number];
 
 /** One heading (a face advancing along an alignment) with its drive and excavation profile. */

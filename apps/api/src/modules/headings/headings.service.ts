@@ -4,9 +4,9 @@ import { DataSource, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { ROUNDS_READ, type RoundsReadPort } from '../../common/ports/rounds-read.port.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
-import { Round } from '../rounds/round.entity.js';
 import type { CreateHeadingDto, HeadingDto, UpdateHeadingDto } from './dto/heading.dto.js';
 import { Heading } from './heading.entity.js';
 import { HEADING_FIELDS, toHeadingDto } from './headings.mapper.js';
@@ -47,6 +47,7 @@ export class HeadingsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(ROUNDS_READ) private readonly rounds: RoundsReadPort,
   ) {}
 
   async list(access: ProjectAccess): Promise<HeadingDto[]> {
@@ -54,6 +55,19 @@ export class HeadingsService {
       .getRepository(Heading)
       .find({ where: { projectId: access.projectId }, order: { code: 'ASC' } });
     return headings.map(toHeadingDto);
+  }
+
+  /** The heading entity for another module (rounds), optionally locked in the caller's transaction. */
+  async findForProject(
+    projectId: string,
+    headingId: string,
+    manager: EntityManager = this.dataSource.manager,
+    lock = false,
+  ): Promise<Heading | null> {
+    return manager.findOne(Heading, {
+      where: { id: headingId, projectId },
+      ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}),
+    });
   }
 
   async get(access: ProjectAccess, headingId: string): Promise<HeadingDto> {
@@ -115,7 +129,7 @@ export class HeadingsService {
       if (!diff) return toHeadingDto(before);
       const geometry = GEOMETRY_FIELDS.filter((f) => f in diff.after);
       if (geometry.length && !dto.confirmRecompute) {
-        const rounds = await manager.count(Round, { where: { headingId } });
+        const rounds = await this.rounds.countForHeading(headingId);
         if (rounds > 0) {
           throw new DomainException(
             ErrorCode.NeedsConfirmation,

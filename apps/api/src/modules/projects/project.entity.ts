@@ -1,9 +1,10 @@
+import { PLANE_NOTATIONS } from '@roundbook/domain';
 import { Column, Entity, OneToMany, PrimaryGeneratedColumn } from 'typeorm';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import type { Heading } from '../headings/heading.entity.js';
 import type { ProjectMember } from './project-member.entity.js';
 
-export const PLANE_NOTATIONS = ['dip-direction/dip', 'dip/dip-direction', 'strike/dip-rhr'] as const;
+export { PLANE_NOTATIONS };
 export type PlaneNotationSetting = (typeof PLANE_NOTATIONS)[number];
 
 /** Q parameter tables the project follows; one edition is encoded so far. */

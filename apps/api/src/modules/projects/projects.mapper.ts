@@ -1,16 +1,10 @@
 import type { ProjectRole } from '../../common/auth/auth-user.js';
+import type { HeadingProgress } from '../../common/ports/heading-progress.port.js';
 import type { Heading } from '../headings/heading.entity.js';
 import type { HeadingSummaryDto, ProjectSummaryDto } from './dto/project.dto.js';
 import type { Project } from './project.entity.js';
 
-/** What the rounds of one heading say on the Board. */
-export interface HeadingProgress {
-  faceChainage: number | null;
-  lastRoundAt: string | null;
-  roundsToConfirm: number;
-  /** Worst trigger level among the latest round of each stage of the heading */
-  triggerLevel: 'green' | 'amber' | 'red' | null;
-}
+export type { HeadingProgress };
 
 const NO_PROGRESS: HeadingProgress = {
   faceChainage: null,

@@ -12,6 +12,6 @@ import { ProjectsService } from './projects.service.js';
   imports: [TypeOrmModule.forFeature([Project, ProjectMember, Heading]), AuditModule],
   controllers: [ProjectsController],
   providers: [ProjectsService, ProjectAccessGuard],
-  exports: [ProjectAccessGuard, TypeOrmModule],
+  exports: [ProjectAccessGuard, ProjectsService, TypeOrmModule],
 })
 export class ProjectsModule {}

@@ -3,8 +3,8 @@ import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { DataSource, type Repository } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { HEADING_PROGRESS, type HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
 import { AuditService } from '../audit/audit.service.js';
-import { Round } from '../rounds/round.entity.js';
 import type { CreateProjectDto, ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
 import { ProjectMember } from './project-member.entity.js';
 import { Project } from './project.entity.js';
@@ -16,6 +16,7 @@ export class ProjectsService {
     @InjectRepository(ProjectMember) private readonly members: Repository<ProjectMember>,
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(HEADING_PROGRESS) private readonly headingProgress: HeadingProgressPort,
   ) {}
 
   /** Only the caller's projects, each with the caller's role there. */
@@ -66,6 +67,13 @@ export class ProjectsService {
     return this.get({ projectId: id, role: 'admin' });
   }
 
+  /** The project's settings, for another module (rounds read its time zone, notation and Q edition). */
+  async findProject(projectId: string): Promise<Project> {
+    const project = await this.dataSource.getRepository(Project).findOneBy({ id: projectId });
+    if (!project) throw DomainException.notFound('The project');
+    return project;
+  }
+
   async get(access: ProjectAccess): Promise<ProjectSummaryDto> {
     const project = await this.dataSource.getRepository(Project).findOne({
       where: { id: access.projectId },
@@ -75,54 +83,8 @@ export class ProjectsService {
     return toProjectSummary(project, access.role, await this.progress(project.headings.map((h) => h.id)));
   }
 
-  /** Face chainage (furthest round), last round time and rounds waiting for review, per heading, in one query. */
-  private async progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
-    if (headingIds.length === 0) return new Map();
-    const rows = await this.dataSource
-      .createQueryBuilder()
-      .from(Round, 'r')
-      .select('r.heading_id', 'headingId')
-      .addSelect('MAX(r.face_chainage)', 'faceChainage')
-      .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
-      .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
-      .where('r.heading_id IN (:...headingIds)', { headingIds })
-      .groupBy('r.heading_id')
-      .getRawMany<{
-        headingId: string;
-        faceChainage: string;
-        lastRoundAt: Date | string;
-        toConfirm: string;
-      }>();
-    // The heading's level is the worst among the latest round of each stage (top heading and bench advance apart).
-    const levels = await this.dataSource
-      .createQueryBuilder()
-      .from(Round, 'r')
-      .select('r.heading_id', 'headingId')
-      .addSelect('r.trigger_level', 'triggerLevel')
-      .where('r.heading_id IN (:...headingIds)', { headingIds })
-      .andWhere(
-        '(r.heading_id, r.stage, r.round_number) IN (SELECT x.heading_id, x.stage, MAX(x.round_number) FROM rounds x WHERE x.heading_id IN (:...headingIds) GROUP BY x.heading_id, x.stage)',
-      )
-      .getRawMany<{ headingId: string; triggerLevel: HeadingProgress['triggerLevel'] }>();
-    const rank = { green: 0, amber: 1, red: 2 } as const;
-    const levelOf = new Map<string, HeadingProgress['triggerLevel']>();
-    for (const l of levels) {
-      const current = levelOf.get(l.headingId) ?? null;
-      if (l.triggerLevel && (current === null || rank[l.triggerLevel] > rank[current]))
-        levelOf.set(l.headingId, l.triggerLevel);
-      else if (!levelOf.has(l.headingId)) levelOf.set(l.headingId, current);
-    }
-    return new Map(
-      rows.map((r) => [
-        r.headingId,
-        {
-          faceChainage: Number(r.faceChainage),
-          lastRoundAt: new Date(r.lastRoundAt).toISOString(),
-          roundsToConfirm: Number(r.toConfirm),
-          triggerLevel: levelOf.get(r.headingId) ?? null,
-        },
-      ]),
-    );
+  private progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
+    return this.headingProgress.progress(headingIds);
   }
 
   /** Changes the project's settings with optimistic locking; the change goes to the audit trail. */

@@ -1,27 +1,23 @@
-import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  JOINT_KINDS,
+  JOINT_WATER,
+  JRC_METHODS,
+  type JointKind,
+  type JointWater,
+  type JrcMethod,
+} from '@roundbook/domain';
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { Round } from './round.entity.js';
 
-export const JOINT_KINDS = [
-  'joint',
-  'bedding',
-  'foliation',
-  'fault',
-  'shear-zone',
-  'vein',
-  'contact',
-] as const;
-export type JointKind = (typeof JOINT_KINDS)[number];
-export const JRC_METHODS = ['profile-comb', 'tilt-test', 'visual'] as const;
-export type JrcMethod = (typeof JRC_METHODS)[number];
-export const JOINT_WATER = ['dry', 'damp', 'wet', 'dripping', 'flowing'] as const;
-export type JointWater = (typeof JOINT_WATER)[number];
+export { JOINT_KINDS, JOINT_WATER, JRC_METHODS, type JointKind, type JointWater, type JrcMethod };
 
 /** One discontinuity recorded on a round (a set member or a significant single feature). */
 @Entity('joints')
 @Index('IDX_joints_heading_chainage', ['headingId', 'faceChainage'])
 export class Joint {
-  @PrimaryGeneratedColumn('uuid')
+  /** Stable id (client-generated UUID or made by the API); joints are upserted by it, never re-inserted. */
+  @PrimaryColumn('uuid')
   id: string;
 
   @Column({ name: 'round_id', type: 'uuid' })

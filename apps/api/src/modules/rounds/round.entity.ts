@@ -1,16 +1,16 @@
-import type { QInput, Rmr89Input } from '@roundbook/geomath';
-import { Column, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn } from 'typeorm';
+import { ROUND_STATUSES, SHIFTS, type RoundStatus, type Shift } from '@roundbook/domain';
+import type { RoundAssessment, SetParameters } from '@roundbook/domain';
+import type { QRecord, RmrRecord } from '@roundbook/domain';
+import type { TriggerFiring } from '@roundbook/domain';
+import { Column, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Heading, STAGES, type Stage } from '../headings/heading.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
-import type { TriggerFiring } from '../trigger-rules/trigger-evaluation.js';
 import type { Joint } from './joint.entity.js';
 
-export const ROUND_STATUSES = ['draft', 'submitted', 'confirmed', 'returned'] as const;
-export type RoundStatus = (typeof ROUND_STATUSES)[number];
-export const SHIFTS = ['day', 'night'] as const;
-export type Shift = (typeof SHIFTS)[number];
+export { ROUND_STATUSES, SHIFTS, type RoundStatus, type Shift };
+export type { QRecord, RmrRecord };
 
 /** One rock unit seen at the face, with its share of the face and its field grades. */
 export interface RockUnit {
@@ -34,17 +34,6 @@ export interface GroundRecord {
   notes: string;
 }
 
-/** Ratings as entered; null until the geologist starts them. */
-export type QRecord = QInput;
-export type RmrRecord = Omit<Rmr89Input, 'orientation'> & {
-  orientation:
-    | {
-        kind: 'assessment';
-        assessment: 'very favourable' | 'favourable' | 'fair' | 'unfavourable' | 'very unfavourable';
-      }
-    | { kind: 'not assessed' };
-};
-
 /** One mapped face: position, ground, joints, ratings, recommendation and status. */
 @Entity('rounds')
 @Index('UQ_rounds_heading_stage_number', ['headingId', 'stage', 'roundNumber'], { unique: true })
@@ -52,7 +41,8 @@ export type RmrRecord = Omit<Rmr89Input, 'orientation'> & {
 @Index('IDX_rounds_heading_status', ['headingId', 'status'])
 @Index('IDX_rounds_heading_date', ['headingId', 'shiftDate'])
 export class Round {
-  @PrimaryGeneratedColumn('uuid')
+  /** Client-generated UUID (accepted on create) or made by the API. */
+  @PrimaryColumn('uuid')
   id: string;
 
   @Column({ name: 'project_id', type: 'uuid' })
@@ -174,6 +164,22 @@ export class Round {
 
   @Column({ type: 'int', default: 1 })
   revision: number;
+
+  /** The round's assessment (packages/domain): saved on every save of a draft, frozen at submit. */
+  @Column({ type: 'json', nullable: true })
+  assessment: RoundAssessment | null;
+
+  /** The domain rules version that produced the assessment. */
+  @Column({ name: 'assessment_version', type: 'varchar', length: 40, nullable: true })
+  assessmentVersion: string | null;
+
+  /** How the sets were found (window along the heading, count or automatic). */
+  @Column({ name: 'set_parameters', type: 'json', nullable: true })
+  setParameters: SetParameters | null;
+
+  /** Enabled trigger rules that could not be evaluated on this round for want of data. */
+  @Column({ name: 'triggers_not_evaluated', type: 'int', default: 0 })
+  triggersNotEvaluated: number;
 
   @Column({ name: 'submitted_at', type: 'datetime', precision: 3, nullable: true })
   submittedAt: Date | null;

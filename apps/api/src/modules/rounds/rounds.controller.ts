@@ -2,6 +2,7 @@ import {
   Body,
   Controller,
   Get,
+  Headers,
   HttpCode,
   Inject,
   Param,
@@ -14,6 +15,7 @@ import {
   ApiBearerAuth,
   ApiConflictResponse,
   ApiCreatedResponse,
+  ApiHeader,
   ApiOkResponse,
   ApiQuery,
   ApiTags,
@@ -23,6 +25,7 @@ import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decor
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { IDEMPOTENCY_HEADER, readIdempotencyKey } from '../../common/idempotency/idempotency.js';
 import { STAGES, type Stage } from '../headings/heading.entity.js';
 import {
   CreateRoundDto,
@@ -32,16 +35,21 @@ import {
   RoundDto,
   RoundPageDto,
   RoundQueryDto,
+  RoundRevisionDto,
   SaveRoundDto,
   SubmitRoundDto,
 } from './dto/round.dto.js';
-import { RoundsService } from './rounds.service.js';
+import { RoundsCommands } from './rounds.commands.js';
+import { RoundsQueries } from './rounds.queries.js';
 
 @ApiTags('rounds')
 @ApiBearerAuth()
 @Controller('projects/:projectId')
 export class RoundsController {
-  constructor(@Inject(RoundsService) private readonly rounds: RoundsService) {}
+  constructor(
+    @Inject(RoundsCommands) private readonly commands: RoundsCommands,
+    @Inject(RoundsQueries) private readonly queries: RoundsQueries,
+  ) {}
 
   /** A page of the heading's rounds, sorted and filtered in the database (any member) */
   @Get('headings/:headingId/rounds')
@@ -53,7 +61,7 @@ export class RoundsController {
     @CurrentAccess() access: ProjectAccess,
     @Query() query: RoundQueryDto,
   ): Promise<RoundPageDto> {
-    return this.rounds.list(access, headingId, query);
+    return this.queries.list(access, headingId, query);
   }
 
   /** The number and previous chainage a new round of this stage would get (geologists) */
@@ -72,12 +80,18 @@ export class RoundsController {
         stage: `One of: ${STAGES.join(', ')}.`,
       });
     }
-    return this.rounds.next(access, headingId, stage as Stage);
+    return this.commands.next(access, headingId, stage as Stage);
   }
 
-  /** Opens a new round (draft) on the heading (geologists) */
+  /** Opens a new round (draft) on the heading (geologists). A retry with the same Idempotency-Key (or round id) returns the first result. */
   @Post('headings/:headingId/rounds')
   @ProjectRoles('geologist')
+  @ApiHeader({
+    name: 'Idempotency-Key',
+    required: false,
+    description:
+      'A key (e.g. a UUID) the client keeps for this create; a retried request returns the round the first one made',
+  })
   @ApiCreatedResponse({ type: RoundDto })
   create(
     @Param('projectId') _p: string,
@@ -85,8 +99,21 @@ export class RoundsController {
     @CurrentUser() user: AuthUser,
     @CurrentAccess() access: ProjectAccess,
     @Body() body: CreateRoundDto,
+    @Headers(IDEMPOTENCY_HEADER) key: string | undefined,
   ): Promise<RoundDto> {
-    return this.rounds.create(user, access, headingId, body);
+    return this.commands.create(user, access, headingId, body, readIdempotencyKey(key));
+  }
+
+  /** Every frozen revision of the round (at each submit, and later confirm or return), oldest first (any member) */
+  @Get('rounds/:roundId/revisions')
+  @ProjectRoles()
+  @ApiOkResponse({ type: [RoundRevisionDto] })
+  revisions(
+    @Param('projectId') _p: string,
+    @Param('roundId', ParseUUIDPipe) roundId: string,
+    @CurrentAccess() access: ProjectAccess,
+  ): Promise<RoundRevisionDto[]> {
+    return this.queries.revisions(access, roundId);
   }
 
   /** Readable joints of the heading over a chainage window, for finding sets (any member) */
@@ -99,7 +126,7 @@ export class RoundsController {
     @CurrentAccess() access: ProjectAccess,
     @Query() query: NearbyJointsQueryDto,
   ): Promise<NearbyJointDto[]> {
-    return this.rounds.nearbyJoints(access, headingId, query);
+    return this.queries.nearbyJoints(access, headingId, query);
   }
 
   /** One round with joints, computed ratings, suggested classes and warnings (any member) */
@@ -111,7 +138,7 @@ export class RoundsController {
     @Param('roundId', ParseUUIDPipe) roundId: string,
     @CurrentAccess() access: ProjectAccess,
   ): Promise<RoundDto> {
-    return this.rounds.get(access, roundId);
+    return this.queries.get(access, roundId);
   }
 
   /** Saves the round as a whole (geologists; drafts and returned rounds). 409 STALE_VERSION carries the current version. */
@@ -129,7 +156,7 @@ export class RoundsController {
     @CurrentAccess() access: ProjectAccess,
     @Body() body: SaveRoundDto,
   ): Promise<RoundDto> {
-    return this.rounds.save(user, access, roundId, body);
+    return this.commands.save(user, access, roundId, body);
   }
 
   /** Submits the round for review (geologists): draft → submitted */
@@ -145,6 +172,6 @@ export class RoundsController {
     @CurrentAccess() access: ProjectAccess,
     @Body() body: SubmitRoundDto,
   ): Promise<RoundDto> {
-    return this.rounds.submit(user, access, roundId, body);
+    return this.commands.submit(user, access, roundId, body);
   }
 }

@@ -1,15 +1,44 @@
-import { Module } from '@nestjs/common';
+import { Global, Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { IdempotencyKey } from '../../common/idempotency/idempotency-key.entity.js';
+import { ROUNDS_READ } from '../../common/ports/rounds-read.port.js';
 import { AuditModule } from '../audit/audit.module.js';
+import { HeadingsModule } from '../headings/headings.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
+import { ProjectsModule } from '../projects/projects.module.js';
+import { SupportClassesModule } from '../support-classes/support-classes.module.js';
+import { TriggerRulesModule } from '../trigger-rules/trigger-rules.module.js';
 import { Joint } from './joint.entity.js';
+import { RoundAssessor } from './round-assessor.service.js';
+import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
+import { RoundsReadAdapter } from './rounds-read.adapter.js';
+import { RoundsCommands } from './rounds.commands.js';
 import { RoundsController } from './rounds.controller.js';
-import { RoundsService } from './rounds.service.js';
+import { RoundsQueries } from './rounds.queries.js';
 
+/**
+ * Rounds, their joints, sets (in the assessment) and revisions. Depends on the setup modules through their
+ * exported services; provides the ROUNDS_READ port that setup asks (global, so setup never imports rounds).
+ */
+@Global()
 @Module({
-  imports: [TypeOrmModule.forFeature([Round, Joint, ProjectMember]), AuditModule],
+  imports: [
+    TypeOrmModule.forFeature([Round, Joint, RoundRevision, IdempotencyKey, ProjectMember]),
+    AuditModule,
+    ProjectsModule,
+    HeadingsModule,
+    SupportClassesModule,
+    TriggerRulesModule,
+  ],
   controllers: [RoundsController],
-  providers: [RoundsService],
+  providers: [
+    RoundAssessor,
+    RoundsQueries,
+    RoundsCommands,
+    RoundsReadAdapter,
+    { provide: ROUNDS_READ, useExisting: RoundsReadAdapter },
+  ],
+  exports: [ROUNDS_READ, RoundsQueries, RoundAssessor],
 })
 export class RoundsModule {}

@@ -10,5 +10,6 @@ import { SupportClassesService } from './support-classes.service.js';
   imports: [TypeOrmModule.forFeature([SupportClass, ProjectMember]), AuditModule],
   controllers: [SupportClassesController],
   providers: [SupportClassesService],
+  exports: [SupportClassesService],
 })
 export class SupportClassesModule {}

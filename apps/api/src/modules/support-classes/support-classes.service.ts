@@ -3,10 +3,10 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
+import { isRowReferenced } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
-import { Round } from '../rounds/round.entity.js';
 import { supportClassWarnings } from './coverage.js';
 import type {
   CreateSupportClassDto,
@@ -57,6 +57,13 @@ export class SupportClassesService {
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
   ) {}
+
+  /** The project's classes in library order, for another module (rounds' suggestions). */
+  classesOf(projectId: string): Promise<SupportClass[]> {
+    return this.dataSource
+      .getRepository(SupportClass)
+      .find({ where: { projectId }, order: { sortOrder: 'ASC' } });
+  }
 
   async library(access: ProjectAccess): Promise<SupportClassLibraryDto> {
     const classes = await this.dataSource
@@ -193,14 +200,18 @@ export class SupportClassesService {
   async remove(caller: AuthUser, access: ProjectAccess, id: string): Promise<SupportClassLibraryDto> {
     await this.dataSource.transaction(async (manager) => {
       const found = await this.find(manager, access, id);
-      const uses = await manager.count(Round, { where: { recommendedClassId: id } });
-      if (uses > 0) {
-        throw new DomainException(
-          ErrorCode.Conflict,
-          `${found.code} is recommended on ${uses} round record(s), so it cannot be deleted. Retire it instead: it stays on those records and is no longer offered.`,
-        );
+      try {
+        await manager.delete(SupportClass, { id });
+      } catch (error) {
+        // Rounds hold their class by foreign key (ON DELETE RESTRICT): the database is the one check.
+        if (isRowReferenced(error)) {
+          throw new DomainException(
+            ErrorCode.Conflict,
+            `${found.code} is recommended on round records, so it cannot be deleted. Retire it instead: it stays on those records and is no longer offered.`,
+          );
+        }
+        throw error;
       }
-      await manager.delete(SupportClass, { id });
       await this.audit.record(manager, {
         projectId: access.projectId,
         actorId: caller.id,

@@ -1,25 +1,19 @@
+import {
+  COMPARISONS,
+  TRIGGER_LEVELS as LEVELS,
+  WATCHED,
+  type Comparison,
+  type TriggerLevel as Level,
+  type Watched,
+} from '@roundbook/domain';
 import { Column, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { PROJECT_ROLES, type ProjectRole } from '../../common/auth/auth-user.js';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Project } from '../projects/project.entity.js';
 
-/** What a trigger rule watches (product.md "Trigger rule"). */
-export const WATCHED = [
-  'q',
-  'rmr89',
-  'inflow-per-10m',
-  'overbreak',
-  'adverse-orientation',
-  'crown-crossing-within',
-  'support-class-change',
-  'open-red-hazard',
-] as const;
-export type Watched = (typeof WATCHED)[number];
-export const COMPARISONS = ['<', '<=', '>', '>=', '='] as const;
-export type Comparison = (typeof COMPARISONS)[number];
-export const LEVELS = ['green', 'amber', 'red'] as const;
-export type Level = (typeof LEVELS)[number];
+/** What a trigger rule watches, how it compares and its levels come from packages/domain (product.md "Trigger rule"). */
+export { COMPARISONS, LEVELS, WATCHED, type Comparison, type Level, type Watched };
 
 @Entity('trigger_rules')
 export class TriggerRule {

@@ -10,5 +10,6 @@ import { TriggerRulesService } from './trigger-rules.service.js';
   imports: [TypeOrmModule.forFeature([TriggerRule, ProjectMember]), AuditModule],
   controllers: [TriggerRulesController],
   providers: [TriggerRulesService],
+  exports: [TriggerRulesService],
 })
 export class TriggerRulesModule {}

@@ -1,24 +1,22 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, In, type EntityManager } from 'typeorm';
+import { evaluateRuleOutcome, triggerRuleErrors, triggerRuleSummary, WAITING_RULES } from '@roundbook/domain';
+import { DataSource, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { ROUNDS_READ, type RoundsReadPort } from '../../common/ports/rounds-read.port.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
+import { headingGeometry } from '../headings/heading-geometry.js';
 import { Heading } from '../headings/heading.entity.js';
-import { Joint } from '../rounds/joint.entity.js';
-import { inflowPer10m } from '../rounds/round-computations.js';
-import { Round } from '../rounds/round.entity.js';
 import type {
   CreateTriggerRuleDto,
   TriggerPreviewDto,
   TriggerRuleDto,
   UpdateTriggerRuleDto,
 } from './dto/trigger-rule.dto.js';
-import { evaluateRule } from './trigger-evaluation.js';
 import { TriggerRule } from './trigger-rule.entity.js';
-import { triggerRuleErrors, triggerRuleSummary } from './trigger-rule.rules.js';
 
 const FIELDS = [
   'watch',
@@ -51,7 +49,13 @@ export class TriggerRulesService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(ROUNDS_READ) private readonly rounds: RoundsReadPort,
   ) {}
+
+  /** The project's rules, for another module (rounds evaluate them on every save). */
+  rulesOf(projectId: string): Promise<TriggerRule[]> {
+    return this.dataSource.getRepository(TriggerRule).find({ where: { projectId } });
+  }
 
   async list(access: ProjectAccess): Promise<TriggerRuleDto[]> {
     const rules = await this.dataSource
@@ -147,82 +151,49 @@ export class TriggerRulesService {
       ...definedOnly(dto),
     });
     this.assertValid(rule);
-    if (rule.watch === 'open-red-hazard') {
-      return {
-        evaluatedRounds: 0,
-        matches: [],
-        notEvaluated: 'Hazards are not recorded in Roundbook yet, so this rule has nothing to check.',
-      };
+    const waiting = WAITING_RULES[rule.watch];
+    if (waiting !== undefined) {
+      return { evaluatedRounds: 0, matches: [], notEvaluated: waiting };
     }
     const headings = await this.dataSource
       .getRepository(Heading)
       .find({ where: { projectId: access.projectId }, order: { code: 'ASC' } });
-    const rounds: Round[] = [];
-    for (const heading of headings) {
-      const latest = await this.dataSource
-        .getRepository(Round)
-        .find({ where: { headingId: heading.id }, order: { roundNumber: 'DESC' }, take: perHeading });
-      rounds.push(...latest.map((r) => Object.assign(r, { heading })));
-    }
-    const ids = rounds.map((r) => r.id);
-    const joints = ids.length
-      ? await this.dataSource.getRepository(Joint).find({ where: { roundId: In(ids) } })
-      : [];
-    const byRound = new Map<string, Joint[]>();
-    for (const j of joints) byRound.set(j.roundId, [...(byRound.get(j.roundId) ?? []), j]);
-    const previous = await this.previousClasses(rounds);
+    const byId = new Map(headings.map((h) => [h.id, h]));
+    // The facts each round's assessment stored at its last save: the same ones its own level came from.
+    const rows = await this.rounds.latestFacts(
+      headings.map((h) => h.id),
+      perHeading,
+    );
     const matches: TriggerPreviewDto['matches'] = [];
-    for (const r of rounds) {
-      const fired = evaluateRule(
-        rule,
-        {
-          q: r.q,
-          rmr: r.rmr,
-          inflowPer10m: inflowPer10m(r.ground.inflowLpm, r.ground.inflowLengthM ?? r.roundLength),
-          overbreakM3: r.ground.overbreakM3,
-          faceChainage: r.faceChainage,
-          recommendedClassId: r.recommendedClassId,
-          previousClassId: previous.get(r.id),
-          joints: byRound.get(r.id) ?? [],
-        },
-        r.heading!,
-      );
-      if (fired) {
+    let evaluated = 0;
+    for (const r of rows) {
+      const heading = byId.get(r.headingId)!;
+      const outcome = evaluateRuleOutcome(rule, r.facts, headingGeometry(heading, r.stage));
+      if (outcome.state === 'fired' || outcome.state === 'clear') evaluated++;
+      if (outcome.state === 'fired') {
         matches.push({
-          roundId: r.id,
-          headingCode: r.heading!.code,
+          roundId: r.roundId,
+          headingCode: heading.code,
           roundNumber: r.roundNumber,
           stage: r.stage,
           faceChainage: r.faceChainage,
           shiftDate: r.shiftDate,
-          ...fired,
+          value: outcome.value,
+          detail: outcome.detail,
         });
       }
     }
-    return { evaluatedRounds: rounds.length, matches, notEvaluated: null };
-  }
-
-  /** The recommended class of the round before each one (same heading and stage); undefined for a first round. */
-  private async previousClasses(rounds: Round[]): Promise<Map<string, string | null | undefined>> {
-    const key = (headingId: string, stage: string, n: number): string => `${headingId}|${stage}|${n}`;
-    const loaded = new Map(
-      rounds.map((r) => [key(r.headingId, r.stage, r.roundNumber), r.recommendedClassId]),
-    );
-    const out = new Map<string, string | null | undefined>();
-    for (const r of rounds) {
-      const k = key(r.headingId, r.stage, r.roundNumber - 1);
-      if (r.roundNumber === 1) out.set(r.id, undefined);
-      else if (loaded.has(k)) out.set(r.id, loaded.get(k));
-      else {
-        // Only the oldest rounds of the window need their predecessor from the database.
-        const prev = await this.dataSource.getRepository(Round).findOne({
-          where: { headingId: r.headingId, stage: r.stage, roundNumber: r.roundNumber - 1 },
-          select: { id: true, recommendedClassId: true },
-        });
-        out.set(r.id, prev ? prev.recommendedClassId : undefined);
-      }
-    }
-    return out;
+    // Matches in the order the rounds came (heading by code, newest first).
+    const order = new Map(headings.map((h, i) => [h.code, i]));
+    matches.sort((a, b) => (order.get(a.headingCode) ?? 0) - (order.get(b.headingCode) ?? 0));
+    return {
+      evaluatedRounds: evaluated,
+      matches,
+      notEvaluated:
+        evaluated < rows.length
+          ? `${rows.length - evaluated} of the ${rows.length} latest rounds lack what this rule reads, so it was not evaluated on them.`
+          : null,
+    };
   }
 
   private assertValid(rule: TriggerRule): void {

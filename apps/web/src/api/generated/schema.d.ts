@@ -380,7 +380,7 @@ export interface paths {
         /** A page of the heading's rounds, sorted and filtered in the database (any member) */
         get: operations["RoundsController_list"];
         put?: never;
-        /** Opens a new round (draft) on the heading (geologists) */
+        /** Opens a new round (draft) on the heading (geologists). A retry with the same Idempotency-Key (or round id) returns the first result. */
         post: operations["RoundsController_create"];
         delete?: never;
         options?: never;
@@ -397,6 +397,23 @@ export interface paths {
         };
         /** The number and previous chainage a new round of this stage would get (geologists) */
         get: operations["RoundsController_next"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/revisions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Every frozen revision of the round (at each submit, and later confirm or return), oldest first (any member) */
+        get: operations["RoundsController_revisions"];
         put?: never;
         post?: never;
         delete?: never;
@@ -932,6 +949,8 @@ export interface components {
             faceChainage: number;
             shiftDate: string;
             mapperName: string;
+            /** @description How many of the project's rules this round lacks the data for */
+            triggersNotEvaluated: number;
         };
         RoundPageDto: {
             items: components["schemas"]["RoundSummaryDto"][];
@@ -949,8 +968,28 @@ export interface components {
             suggestedFaceChainage: number;
         };
         CreateRoundDto: {
+            /**
+             * Format: uuid
+             * @description The round's id, a UUID made by the client (so a retried create finds the same round); made here when absent
+             */
+            id?: string;
             stage: components["schemas"]["Stage"];
             faceChainage: number;
+        };
+        SetParametersDto: {
+            /**
+             * @description Metres either side of the face (0, 10, 25, 50 or 100)
+             * @enum {number}
+             */
+            windowM: 0 | 10 | 25 | 50 | 100;
+            /** @description Number of sets to look for; null lets Roundbook decide from the density */
+            count: number | null;
+        };
+        RuleNotEvaluatedDto: {
+            ruleId: string;
+            summary: string;
+            /** @description Why it could not be evaluated, or why it waits */
+            detail: string;
         };
         TriggerFiringDto: {
             level: components["schemas"]["TriggerLevel"];
@@ -971,6 +1010,11 @@ export interface components {
         /** @enum {string} */
         JointWater: "dry" | "damp" | "wet" | "dripping" | "flowing";
         JointDto: {
+            /**
+             * Format: uuid
+             * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
+             */
+            id: string;
             kind: components["schemas"]["JointKind"];
             notation: components["schemas"]["PlaneNotation"];
             setLabel: string | null;
@@ -989,7 +1033,6 @@ export interface components {
             dip: number | null;
             /** @description Why the typed orientation could not be read */
             orientationError: string | null;
-            id: string;
             seq: number;
             /** @description The orientation exactly as typed (kept even when it cannot be read) */
             orientationText: string;
@@ -1049,14 +1092,26 @@ export interface components {
             /** Format: uuid */
             recommendedClassId: string | null;
             nextRoundLength: number | null;
+            /** @description The whole assessment (packages/domain RoundAssessment): saved with a draft, frozen at submit */
+            assessment: {
+                [key: string]: unknown;
+            };
             stage: components["schemas"]["Stage"];
             status: components["schemas"]["RoundStatus"];
-            /** @description Highest level among the project's trigger rules that fire on this round; null when it has no rules */
+            /** @description Highest level among the project's trigger rules that fire on this round; green only when every rule could be evaluated; null when it has no rules or some lack their data */
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             submittedAt: string | null;
             /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
             inflowPer10m: number | null;
             id: string;
+            /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
+            setParameters: components["schemas"]["SetParametersDto"];
+            /** @description Rules whose input this round lacks (its level is not green until they are in) */
+            triggersNotEvaluated: components["schemas"]["RuleNotEvaluatedDto"][];
+            /** @description Rules that cannot fire yet (what they watch is not recorded by Roundbook yet) */
+            triggersWaiting: components["schemas"]["RuleNotEvaluatedDto"][];
+            /** @description The rules version that produced the assessment */
+            assessmentVersion: string;
             headingId: string;
             roundNumber: number;
             mappedBy: string;
@@ -1080,9 +1135,33 @@ export interface components {
             ground: components["schemas"]["GroundDto"];
             recommendationReason: string;
         };
+        /**
+         * @description What froze it: submit (later also confirm, return, correct)
+         * @enum {string}
+         */
+        RoundEvent: "submit" | "confirm" | "return" | "correct";
+        RoundRevisionDto: {
+            /** @description What froze it: submit (later also confirm, return, correct) */
+            event: components["schemas"]["RoundEvent"];
+            status: components["schemas"]["RoundStatus"];
+            /** @description The record as it was */
+            record: {
+                [key: string]: unknown;
+            };
+            /** @description The assessment as it was (packages/domain RoundAssessment) */
+            assessment: {
+                [key: string]: unknown;
+            };
+            id: string;
+            revision: number;
+            createdBy: string;
+            createdAt: string;
+            assessmentVersion: string;
+        };
         NearbyJointDto: {
             kind: components["schemas"]["JointKind"];
             setLabel: string | null;
+            id: string;
             roundId: string;
             roundNumber: number;
             faceChainage: number;
@@ -1090,6 +1169,11 @@ export interface components {
             dip: number;
         };
         JointInputDto: {
+            /**
+             * Format: uuid
+             * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
+             */
+            id?: string;
             kind: components["schemas"]["JointKind"];
             notation: components["schemas"]["PlaneNotation"];
             setLabel: string | null;
@@ -1133,6 +1217,8 @@ export interface components {
             ground: components["schemas"]["GroundDto"];
             joints: components["schemas"]["JointInputDto"][];
             recommendationReason: string;
+            /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
+            setParameters?: components["schemas"]["SetParametersDto"];
         };
         SubmitRoundDto: {
             version: number;
@@ -2334,7 +2420,10 @@ export interface operations {
     RoundsController_create: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /** @description A key (e.g. a UUID) the client keeps for this create; a retried request returns the round the first one made */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 projectId: string;
                 headingId: string;
@@ -2394,6 +2483,42 @@ export interface operations {
                 };
             };
             /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_revisions: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundRevisionDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
             403: {
                 headers: {
                     [name: string]: unknown;

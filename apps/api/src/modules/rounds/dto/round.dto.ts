@@ -1,4 +1,14 @@
 import { ApiProperty } from '@nestjs/swagger';
+import {
+  JOINT_KINDS,
+  JOINT_WATER,
+  JRC_METHODS,
+  PLANE_NOTATIONS,
+  ROUND_STATUSES,
+  SET_WINDOWS,
+  SHIFTS,
+  STAGES,
+} from '@roundbook/domain';
 import { Type } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -18,10 +28,6 @@ import {
   Min,
   ValidateNested,
 } from 'class-validator';
-import { STAGES } from '../../headings/heading.entity.js';
-import { PLANE_NOTATIONS } from '../../projects/project.entity.js';
-import { JOINT_KINDS, JOINT_WATER, JRC_METHODS } from '../joint.entity.js';
-import { ROUND_STATUSES, SHIFTS } from '../round.entity.js';
 
 export class RockUnitDto {
   @IsString()
@@ -100,6 +106,12 @@ export class GroundDto {
 }
 
 export class JointInputDto {
+  /** The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it. */
+  @IsOptional()
+  @IsUUID()
+  @ApiProperty({ type: String, required: false, format: 'uuid' })
+  id?: string;
+
   @IsIn(JOINT_KINDS)
   @ApiProperty({ enum: JOINT_KINDS, enumName: 'JointKind' })
   kind: (typeof JOINT_KINDS)[number];
@@ -193,7 +205,8 @@ export class JointInputDto {
 }
 
 export class JointDto extends JointInputDto {
-  id: string;
+  @ApiProperty({ type: String, format: 'uuid', required: true })
+  declare id: string;
   seq: number;
   /** Canonical dip direction, null while the typed text cannot be read */
   @ApiProperty({ type: Number, nullable: true })
@@ -203,6 +216,22 @@ export class JointDto extends JointInputDto {
   /** Why the typed orientation could not be read */
   @ApiProperty({ type: String, nullable: true })
   orientationError: string | null;
+}
+
+/** How the round's sets are found: earlier rounds' joints within the window join the analysis. */
+export class SetParametersDto {
+  /** Metres either side of the face (0, 10, 25, 50 or 100) */
+  @IsIn(SET_WINDOWS)
+  @ApiProperty({ enum: SET_WINDOWS })
+  windowM: number;
+
+  /** Number of sets to look for; null lets Roundbook decide from the density */
+  @IsOptional()
+  @IsInt()
+  @Min(1)
+  @Max(8)
+  @ApiProperty({ type: Number, nullable: true })
+  count: number | null;
 }
 
 /** Everything the geologist edits on a round; sent whole on every save (PUT) with the version read. */
@@ -279,6 +308,12 @@ export class RoundInputDto {
   @IsString()
   @MaxLength(4000)
   recommendationReason: string;
+
+  /** How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
+  @IsOptional()
+  @ValidateNested()
+  @Type(() => SetParametersDto)
+  setParameters?: SetParametersDto;
 }
 
 export class SaveRoundDto extends RoundInputDto {
@@ -289,6 +324,12 @@ export class SaveRoundDto extends RoundInputDto {
 }
 
 export class CreateRoundDto {
+  /** The round's id, a UUID made by the client (so a retried create finds the same round); made here when absent */
+  @IsOptional()
+  @IsUUID()
+  @ApiProperty({ type: String, required: false, format: 'uuid' })
+  id?: string;
+
   @IsIn(STAGES)
   @ApiProperty({ enum: STAGES, enumName: 'Stage' })
   stage: (typeof STAGES)[number];
@@ -339,8 +380,25 @@ export class TriggerFiringDto {
   timeAllowedHours: number;
 }
 
+export class RuleNotEvaluatedDto {
+  ruleId: string;
+  summary: string;
+  /** Why it could not be evaluated, or why it waits */
+  detail: string;
+}
+
 export class RoundDto extends RoundInputDto {
   id: string;
+  declare setParameters: SetParametersDto;
+  /** Rules whose input this round lacks (its level is not green until they are in) */
+  triggersNotEvaluated: RuleNotEvaluatedDto[];
+  /** Rules that cannot fire yet (what they watch is not recorded by Roundbook yet) */
+  triggersWaiting: RuleNotEvaluatedDto[];
+  /** The whole assessment (packages/domain RoundAssessment): saved with a draft, frozen at submit */
+  @ApiProperty({ type: 'object', additionalProperties: true })
+  assessment: Record<string, unknown>;
+  /** The rules version that produced the assessment */
+  assessmentVersion: string;
   headingId: string;
   @ApiProperty({ enum: STAGES, enumName: 'Stage' })
   stage: (typeof STAGES)[number];
@@ -351,7 +409,7 @@ export class RoundDto extends RoundInputDto {
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
   status: (typeof ROUND_STATUSES)[number];
   revision: number;
-  /** Highest level among the project's trigger rules that fire on this round; null when it has no rules */
+  /** Highest level among the project's trigger rules that fire on this round; green only when every rule could be evaluated; null when it has no rules or some lack their data */
   @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })
   triggerLevel: 'green' | 'amber' | 'red' | null;
   /** The rules that fire, red first (as worked out at the last save) */
@@ -392,6 +450,8 @@ export class RoundSummaryDto {
   status: (typeof ROUND_STATUSES)[number];
   @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })
   triggerLevel: 'green' | 'amber' | 'red' | null;
+  /** How many of the project's rules this round lacks the data for */
+  triggersNotEvaluated: number;
 }
 
 export class RoundPageDto {
@@ -466,6 +526,7 @@ export class NextRoundDto {
 }
 
 export class NearbyJointDto {
+  id: string;
   roundId: string;
   roundNumber: number;
   faceChainage: number;
@@ -489,4 +550,23 @@ export class NearbyJointsQueryDto {
   @IsOptional()
   @IsUUID()
   excludeRoundId?: string;
+}
+
+export class RoundRevisionDto {
+  id: string;
+  revision: number;
+  /** What froze it: submit (later also confirm, return, correct) */
+  @ApiProperty({ enum: ['submit', 'confirm', 'return', 'correct'], enumName: 'RoundEvent' })
+  event: 'submit' | 'confirm' | 'return' | 'correct';
+  @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
+  status: string;
+  createdBy: string;
+  createdAt: string;
+  /** The record as it was */
+  @ApiProperty({ type: 'object', additionalProperties: true })
+  record: Record<string, unknown>;
+  /** The assessment as it was (packages/domain RoundAssessment) */
+  @ApiProperty({ type: 'object', additionalProperties: true })
+  assessment: Record<string, unknown>;
+  assessmentVersion: string;
 }

@@ -18,6 +18,7 @@ const summary = (n: number, extra: Partial<RoundSummary>): RoundSummary => ({
   q: 2.5,
   rmr: 55,
   recommendedClassCode: 'B',
+  triggersNotEvaluated: 0,
   status: 'submitted',
   triggerLevel: null,
   ...extra,

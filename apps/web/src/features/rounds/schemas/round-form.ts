@@ -25,7 +25,7 @@ import type {
  */
 
 export interface JointRow {
-  /** Browser-side key of the row (the server renumbers joints on every save). */
+  /** The joint's stable id: a UUID made in the browser for a new row, kept by the server across saves. */
   key: string;
   kind: JointKind;
   orientationText: string;
@@ -125,6 +125,21 @@ export function newKey(prefix: string): string {
   return `${prefix}-${Date.now().toString(36)}-${keySeq}`;
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[1-8][0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i;
+
+/** A new joint's id: a random UUID (RFC 4122 version 4), so the joint keeps it from its first save on. */
+export function newJointId(): string {
+  const c = globalThis.crypto as Crypto | undefined;
+  if (c && typeof c.randomUUID === 'function') return c.randomUUID();
+  const bytes = new Uint8Array(16);
+  if (c) c.getRandomValues(bytes);
+  else for (let i = 0; i < 16; i++) bytes[i] = Math.floor(Math.random() * 256);
+  bytes[6] = (bytes[6] & 0x0f) | 0x40;
+  bytes[8] = (bytes[8] & 0x3f) | 0x80;
+  const hex = Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
+
 const text = (value: number | null | undefined): string =>
   value === null || value === undefined ? '' : String(value);
 
@@ -154,7 +169,7 @@ export function chainageOf(value: string): number | null {
 
 export function emptyJoint(notation: PlaneNotation): JointRow {
   return {
-    key: newKey('joint'),
+    key: newJointId(),
     kind: 'joint',
     orientationText: '',
     notation,
@@ -287,7 +302,7 @@ export function formValuesOf(round: Round): RoundFormValues {
     overbreakM3: text(round.ground.overbreakM3),
     groundNotes: round.ground.notes,
     joints: round.joints.map((j) => ({
-      key: newKey('joint'),
+      key: j.id,
       kind: j.kind,
       orientationText: j.orientationText,
       notation: j.notation,
@@ -383,6 +398,7 @@ export function rmrInputOf(r: RmrForm): Record<string, unknown> | null {
 
 export function jointInputOf(j: JointRow): JointInput {
   return {
+    ...(UUID.test(j.key) ? { id: j.key } : {}),
     kind: j.kind,
     notation: j.notation,
     orientationText: j.orientationText,

@@ -127,6 +127,11 @@ export const draftRound: Round = {
   suggestedClassIds: [],
   warnings: ['The round length 3.5 m is over the planned 3 m.'],
   plannedRoundLength: 3,
+  setParameters: { windowM: 25, count: null },
+  triggersNotEvaluated: [],
+  triggersWaiting: [],
+  assessment: {},
+  assessmentVersion: 'domain-1',
   version: 3,
 };
 

@@ -1,4 +1,12 @@
-import { evaluateRule, setMeans, type RoundFacts } from './trigger-evaluation';
+import {
+  assessTriggers,
+  evaluateRule,
+  evaluateRuleOutcome,
+  nearestCrownReach,
+  setMeans,
+  type RoundFacts,
+  type Watched,
+} from '../src/index.js';
 
 const heading = { driveTrend: 60, gradientPercent: 0, profileHeight: 10, profileWidth: 10, axisHeight: 5 };
 const base: RoundFacts = {
@@ -108,5 +116,85 @@ describe('evaluateRule', () => {
     expect(means).toHaveLength(1);
     expect(means[0].plane.dipDirection).toBeCloseTo(130, 9);
     expect(means[0].plane.dip).toBeCloseTo(50, 9);
+  });
+});
+
+describe('rules whose input is missing (issue 10: never green)', () => {
+  const rule = (watch: Watched, extra = {}) => ({
+    id: watch,
+    watch,
+    comparison: null,
+    threshold: null,
+    level: 'amber' as const,
+    action: 'Tell the engineer',
+    ownerRole: 'engineer',
+    timeAllowedHours: 4,
+    enabled: true,
+    ...extra,
+  });
+
+  it('says not evaluated, not clear, for a Q rule on a round without Q [common practice]', () => {
+    expect(
+      evaluateRuleOutcome({ watch: 'q', comparison: '<', threshold: 1 }, { ...base, q: null }, heading).state,
+    ).toBe('not-evaluated');
+  });
+
+  it('gives no level (not green) while some rules lack their data, and green once all are in', () => {
+    const rules = [
+      rule('q', { comparison: '<', threshold: 0.01 }),
+      rule('rmr89', { comparison: '<', threshold: 10 }),
+    ];
+    const partial = assessTriggers(rules, { ...base, rmr: null }, heading);
+    expect(partial.level).toBeNull();
+    expect(partial.notEvaluated.map((n) => n.ruleId)).toEqual(['rmr89']);
+    expect(assessTriggers(rules, base, heading).level).toBe('green');
+  });
+
+  it('keeps a fired level even when other rules lack data', () => {
+    const rules = [
+      rule('q', { comparison: '<', threshold: 0.1, level: 'red' }),
+      rule('rmr89', { comparison: '<', threshold: 10 }),
+    ];
+    expect(assessTriggers(rules, { ...base, rmr: null }, heading).level).toBe('red');
+  });
+
+  it('lists the open-red-hazard rule as waiting, not evaluated and not enabled-and-clear', () => {
+    const r = assessTriggers([rule('open-red-hazard')], base, heading);
+    expect(r.waiting).toHaveLength(1);
+    expect(r.level).toBeNull();
+  });
+
+  it('compares at the figures it prints: Q 0.098 reads "0.098", Q 0.1004 is not "< 0.1" [common practice]', () => {
+    expect(
+      evaluateRule({ watch: 'q', comparison: '<', threshold: 0.1 }, { ...base, q: 0.1004 }, heading),
+    ).toBeNull();
+    expect(
+      evaluateRule({ watch: 'q', comparison: '<', threshold: 0.1 }, { ...base, q: 0.098 }, heading)?.detail,
+    ).toBe('Q 0.098 < 0.1');
+  });
+
+  it('flags a fault dipping out of the face (sliding toward the tunnel) as adverse (planar sliding conditions: Hoek & Bray 1981, Rock Slope Engineering, ch. 7)', () => {
+    // Drive 060; the face faces 240. A fault dipping 50° toward 240 daylights in the vertical face and is
+    // steeper than 30° friction [computed here].
+    const joints = [{ kind: 'fault', setLabel: null, dipDirection: 240, dip: 50 }];
+    const fired = evaluateRule(
+      { watch: 'adverse-orientation', comparison: null, threshold: null },
+      { ...base, joints },
+      heading,
+    );
+    expect(fired?.detail).toMatch(/fault 1 \(240\/50\) .*dips out of the face/);
+  });
+
+  it('gives crown-reach chainages that decrease ahead of a face driven against the chainage [computed here]', () => {
+    const joints = [{ kind: 'fault', setLabel: null, dipDirection: 240, dip: 60 }];
+    // methods.md §6 plane A mapped at the axis: 5/tan 60° = 2.887 m ahead, so 1000 − 2.887 on a heading
+    // whose chainage decreases in the drive direction.
+    const hit = nearestCrownReach({ ...base, joints }, { ...heading, chainageSense: -1 });
+    expect(hit?.distance).toBeCloseTo(5 / Math.tan(Math.PI / 3), 9);
+    expect(hit?.chainage).toBeCloseTo(1000 - 5 / Math.tan(Math.PI / 3), 9);
+    expect(nearestCrownReach({ ...base, joints }, heading)?.chainage).toBeCloseTo(
+      1000 + 5 / Math.tan(Math.PI / 3),
+      9,
+    );
   });
 });

@@ -1,0 +1,61 @@
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { LEVEL_RANK } from '@roundbook/domain';
+import { DataSource } from 'typeorm';
+import type { HeadingProgress, HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
+import { Round } from '../rounds/round.entity.js';
+
+/** The Board's read model: per-heading progress from the rounds, in two queries for any number of headings. */
+@Injectable()
+export class BoardService implements HeadingProgressPort {
+  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+
+  async progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
+    if (headingIds.length === 0) return new Map();
+    const rows = await this.dataSource
+      .createQueryBuilder()
+      .from(Round, 'r')
+      .select('r.heading_id', 'headingId')
+      .addSelect('MAX(r.face_chainage)', 'faceChainage')
+      .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
+      .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
+      .where('r.heading_id IN (:...headingIds)', { headingIds })
+      .groupBy('r.heading_id')
+      .getRawMany<{
+        headingId: string;
+        faceChainage: string;
+        lastRoundAt: Date | string;
+        toConfirm: string;
+      }>();
+    // The heading's level is the worst among the latest evaluated round of each stage (top heading and bench
+    // advance apart); a round whose rules still lack their data has no level and does not count as green.
+    const levels = await this.dataSource
+      .createQueryBuilder()
+      .from(Round, 'r')
+      .select('r.heading_id', 'headingId')
+      .addSelect('r.trigger_level', 'triggerLevel')
+      .where('r.heading_id IN (:...headingIds)', { headingIds })
+      .andWhere(
+        '(r.heading_id, r.stage, r.round_number) IN (SELECT x.heading_id, x.stage, MAX(x.round_number) FROM rounds x WHERE x.heading_id IN (:...headingIds) AND x.trigger_level IS NOT NULL GROUP BY x.heading_id, x.stage)',
+      )
+      .getRawMany<{ headingId: string; triggerLevel: HeadingProgress['triggerLevel'] }>();
+    const levelOf = new Map<string, HeadingProgress['triggerLevel']>();
+    for (const l of levels) {
+      const current = levelOf.get(l.headingId) ?? null;
+      if (l.triggerLevel && (current === null || LEVEL_RANK[l.triggerLevel] > LEVEL_RANK[current]))
+        levelOf.set(l.headingId, l.triggerLevel);
+      else if (!levelOf.has(l.headingId)) levelOf.set(l.headingId, current);
+    }
+    return new Map(
+      rows.map((r) => [
+        r.headingId,
+        {
+          faceChainage: Number(r.faceChainage),
+          lastRoundAt: new Date(r.lastRoundAt).toISOString(),
+          roundsToConfirm: Number(r.toConfirm),
+          triggerLevel: levelOf.get(r.headingId) ?? null,
+        },
+      ]),
+    );
+  }
+}

@@ -1,0 +1,116 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { assessRound, DEFAULT_SET_PARAMETERS, type RoundAssessment } from '@roundbook/domain';
+import { Brackets, DataSource, type EntityManager } from 'typeorm';
+import { headingGeometry } from '../headings/heading-geometry.js';
+import type { Heading } from '../headings/heading.entity.js';
+import { HeadingsService } from '../headings/headings.service.js';
+import { ProjectsService } from '../projects/projects.service.js';
+import { SupportClassesService } from '../support-classes/support-classes.service.js';
+import { TriggerRulesService } from '../trigger-rules/trigger-rules.service.js';
+import { Joint } from './joint.entity.js';
+import { Round } from './round.entity.js';
+
+/** The stored joints of the heading's other rounds within a window of the face: what set finding pools. */
+export async function nearbyPlanes(
+  manager: EntityManager,
+  round: Pick<Round, 'id' | 'headingId' | 'faceChainage'>,
+  windowM: number,
+): Promise<Array<{ id: string; roundId: string; dipDirection: number; dip: number }>> {
+  if (windowM <= 0) return [];
+  const rows = await manager
+    .getRepository(Joint)
+    .createQueryBuilder('j')
+    .select(['j.id AS id', 'j.round_id AS roundId', 'j.dip_direction AS dipDirection', 'j.dip AS dip'])
+    .where('j.heading_id = :headingId', { headingId: round.headingId })
+    .andWhere(
+      new Brackets((b) =>
+        b.where('j.face_chainage BETWEEN :from AND :to', {
+          from: round.faceChainage - windowM,
+          to: round.faceChainage + windowM,
+        }),
+      ),
+    )
+    .andWhere('j.dip IS NOT NULL')
+    .andWhere('j.round_id <> :self', { self: round.id })
+    .andWhere("j.kind NOT IN ('fault', 'shear-zone')")
+    .orderBy('j.face_chainage', 'DESC')
+    .addOrderBy('j.seq', 'ASC')
+    .limit(5000)
+    .getRawMany<{ id: string; roundId: string; dipDirection: string; dip: string }>();
+  return rows.map((r) => ({
+    id: String(r.id),
+    roundId: String(r.roundId),
+    dipDirection: Number(r.dipDirection),
+    dip: Number(r.dip),
+  }));
+}
+
+/**
+ * Works out a round's assessment from its record and today's context (the heading, the project's support
+ * classes and trigger rules, the previous round and the nearby joints), with packages/domain's assessRound.
+ */
+@Injectable()
+export class RoundAssessor {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(HeadingsService) private readonly headings: HeadingsService,
+    @Inject(SupportClassesService) private readonly supportClasses: SupportClassesService,
+    @Inject(TriggerRulesService) private readonly triggerRules: TriggerRulesService,
+    @Inject(ProjectsService) private readonly projects: ProjectsService,
+  ) {}
+
+  async assess(
+    round: Round,
+    joints: Joint[],
+    manager: EntityManager = this.dataSource.manager,
+    heading?: Heading,
+  ): Promise<RoundAssessment> {
+    const parameters = round.setParameters ?? DEFAULT_SET_PARAMETERS;
+    const [h, classes, rules, project, previous, nearby] = await Promise.all([
+      heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
+      this.supportClasses.classesOf(round.projectId),
+      this.triggerRules.rulesOf(round.projectId),
+      this.projects.findProject(round.projectId),
+      round.roundNumber > 1
+        ? manager.findOne(Round, {
+            where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
+            select: { id: true, recommendedClassId: true },
+          })
+        : Promise.resolve(null),
+      nearbyPlanes(manager, round, parameters.windowM),
+    ]);
+    if (!h) throw new Error(`Heading ${round.headingId} of round ${round.id} is missing`);
+    return assessRound(
+      {
+        faceChainage: round.faceChainage,
+        roundLength: round.roundLength,
+        ground: round.ground,
+        joints: [...joints]
+          .sort((a, b) => a.seq - b.seq)
+          .map((j) => ({
+            id: j.id,
+            kind: j.kind,
+            dipDirection: j.dipDirection,
+            dip: j.dip,
+            setLabel: j.setLabel,
+            setOverride: j.setOverride,
+            spacingM: j.spacingM,
+          })),
+        qInput: round.qInput,
+        rmrInput: round.rmrInput,
+        gsiObserved: round.gsiObserved,
+        recommendedClassId: round.recommendedClassId,
+        setParameters: parameters,
+      },
+      {
+        heading: headingGeometry(h, round.stage),
+        supportClasses: classes,
+        nearbyJoints: nearby,
+        previousRound: previous ? { classId: previous.recommendedClassId } : null,
+        rules,
+        qTableEdition: project.qTableEdition,
+      },
+    );
+  }
+}

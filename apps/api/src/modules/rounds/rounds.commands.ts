@@ -1,0 +1,433 @@
+import { randomUUID } from 'node:crypto';
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DEFAULT_SET_PARAMETERS, shiftOf, type RoundAssessment, type Stage } from '@roundbook/domain';
+import { DataSource, In, type EntityManager } from 'typeorm';
+import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
+import { isDuplicateKey } from '../../common/errors/database-errors.js';
+import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { priorResult, rememberResult } from '../../common/idempotency/idempotency.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { Heading } from '../headings/heading.entity.js';
+import { ProjectsService } from '../projects/projects.service.js';
+import { SupportClassesService } from '../support-classes/support-classes.service.js';
+import type {
+  CreateRoundDto,
+  NextRoundDto,
+  RoundDto,
+  SaveRoundDto,
+  SubmitRoundDto,
+} from './dto/round.dto.js';
+import { Joint } from './joint.entity.js';
+import { readOrientation } from './orientation-reading.js';
+import { RoundAssessor } from './round-assessor.service.js';
+import { RoundRevision } from './round-revision.entity.js';
+import { applyTransition, assertEditable, type RoundEvent } from './round-status.js';
+import { Round, type GroundRecord } from './round.entity.js';
+import { recordOf } from './rounds.mapper.js';
+import { RoundsQueries } from './rounds.queries.js';
+
+const emptyGround = (): GroundRecord => ({
+  units: [],
+  pointLoadIs50: null,
+  pointLoadFactor: null,
+  inflowLpm: null,
+  inflowLengthM: null,
+  waterDescription: '',
+  overbreakM3: null,
+  notes: '',
+});
+const AUDITED = [
+  'faceChainage',
+  'previousChainage',
+  'roundLength',
+  'shiftDate',
+  'shift',
+  'distantParts',
+  'ground',
+  'qInput',
+  'rmrInput',
+  'gsiObserved',
+  'recommendedClassId',
+  'nextRoundLength',
+  'recommendationReason',
+  'setParameters',
+] as const;
+const JOINT_FIELDS = [
+  'kind',
+  'orientationText',
+  'notation',
+  'setLabel',
+  'setOverride',
+  'spacingM',
+  'persistenceM',
+  'apertureMm',
+  'jr',
+  'jrc',
+  'jrcMethod',
+  'infill',
+  'ja',
+  'water',
+  'thicknessM',
+  'notes',
+] as const;
+const CREATE_SCOPE = 'round:create';
+
+/** Stores the assessment and what is kept of it in columns (for listing, sorting and the Board). */
+function storeAssessment(round: Round, assessment: RoundAssessment): void {
+  round.assessment = assessment;
+  round.assessmentVersion = assessment.version;
+  round.q = assessment.ratings.q.value;
+  round.rmr = assessment.ratings.rmr.value;
+  round.gsi = assessment.ratings.gsi.value;
+  round.triggerLevel = assessment.triggers.level;
+  round.triggerFirings = assessment.triggers.firings;
+  round.triggersNotEvaluated = assessment.triggers.notEvaluated.length;
+}
+
+/** Changes to rounds: open, save (drafts save as you go), submit. Status changes go through round-status.ts. */
+@Injectable()
+export class RoundsCommands {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(RoundsQueries) private readonly queries: RoundsQueries,
+    @Inject(RoundAssessor) private readonly assessor: RoundAssessor,
+    @Inject(ProjectsService) private readonly projects: ProjectsService,
+    @Inject(SupportClassesService) private readonly supportClasses: SupportClassesService,
+  ) {}
+
+  async next(access: ProjectAccess, headingId: string, stage: Stage): Promise<NextRoundDto> {
+    const heading = await this.queries.heading(access, headingId);
+    return this.nextFor(this.dataSource.manager, heading, stage);
+  }
+
+  /**
+   * Opens a new round. Idempotent: a retried request with the same Idempotency-Key, or with the same client
+   * round id, returns the round the first one made.
+   */
+  async create(
+    caller: AuthUser,
+    access: ProjectAccess,
+    headingId: string,
+    dto: CreateRoundDto,
+    idempotencyKey: string | null = null,
+  ): Promise<RoundDto> {
+    try {
+      return await this.createOnce(caller, access, headingId, dto, idempotencyKey);
+    } catch (error) {
+      // Two copies of one request raced: the loser finds what the winner made.
+      if (isDuplicateKey(error) && (idempotencyKey !== null || dto.id !== undefined))
+        return this.createOnce(caller, access, headingId, dto, idempotencyKey);
+      throw error;
+    }
+  }
+
+  private async createOnce(
+    caller: AuthUser,
+    access: ProjectAccess,
+    headingId: string,
+    dto: CreateRoundDto,
+    idempotencyKey: string | null,
+  ): Promise<RoundDto> {
+    const id = await this.dataSource.transaction(async (manager) => {
+      if (idempotencyKey !== null) {
+        const prior = await priorResult(manager, caller.id, idempotencyKey, CREATE_SCOPE);
+        if (prior !== null) return prior;
+      }
+      if (dto.id !== undefined) {
+        const existing = await manager.findOne(Round, { where: { id: dto.id } });
+        if (existing) {
+          if (existing.projectId !== access.projectId || existing.headingId !== headingId)
+            throw new DomainException(ErrorCode.Conflict, 'A round with this id already exists elsewhere.');
+          return existing.id;
+        }
+      }
+      const heading = await this.queries.heading(access, headingId, manager, true);
+      if (!heading.stages.includes(dto.stage)) {
+        throw new DomainException(
+          ErrorCode.ValidationFailed,
+          `Heading ${heading.code} does not use the ${dto.stage} stage.`,
+          { stage: `Choose one of: ${heading.stages.join(', ')}.` },
+        );
+      }
+      const next = await this.nextFor(manager, heading, dto.stage);
+      const project = await this.projects.findProject(access.projectId);
+      const now = new Date();
+      const round = manager.create(Round, {
+        id: dto.id ?? randomUUID(),
+        projectId: access.projectId,
+        headingId,
+        stage: dto.stage,
+        roundNumber: next.roundNumber,
+        faceChainage: dto.faceChainage,
+        previousChainage: next.previousChainage,
+        roundLength: Math.round((dto.faceChainage - next.previousChainage) * 1000) / 1000,
+        ...shiftOf(now, project.timeZone),
+        mappedBy: caller.id,
+        mappedAt: now,
+        distantParts: '',
+        ground: emptyGround(),
+        qInput: null,
+        rmrInput: null,
+        gsiObserved: null,
+        q: null,
+        rmr: null,
+        gsi: null,
+        recommendedClassId: null,
+        nextRoundLength: null,
+        recommendationReason: '',
+        setParameters: DEFAULT_SET_PARAMETERS,
+        status: 'draft',
+        revision: 1,
+        submittedAt: null,
+      });
+      // Assessed from the start, so its trigger panel speaks of the project's rules before the first save.
+      storeAssessment(round, await this.assessor.assess(round, [], manager, heading));
+      const saved = await manager.save(round);
+      if (idempotencyKey !== null)
+        await rememberResult(manager, caller.id, idempotencyKey, CREATE_SCOPE, saved.id);
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'round',
+        entityId: saved.id,
+        action: 'create',
+        after: {
+          headingId,
+          stage: saved.stage,
+          roundNumber: saved.roundNumber,
+          faceChainage: saved.faceChainage,
+        },
+      });
+      return saved.id;
+    });
+    return this.queries.get(access, id);
+  }
+
+  /** Saves the whole editable record (drafts save as you go). Optimistic locking by version; joints kept by id. */
+  async save(caller: AuthUser, access: ProjectAccess, roundId: string, dto: SaveRoundDto): Promise<RoundDto> {
+    await this.dataSource.transaction(async (manager) => {
+      const round = await this.queries.find(manager, access, roundId, true);
+      await this.assertCurrent(manager, round, dto.version);
+      assertEditable(round.status);
+      const project = await this.projects.findProject(access.projectId);
+      if (dto.recommendedClassId) await this.supportClass(access, dto.recommendedClassId);
+      const before = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
+      Object.assign(round, {
+        faceChainage: dto.faceChainage,
+        previousChainage: dto.previousChainage ?? null,
+        roundLength: dto.roundLength ?? null,
+        shiftDate: dto.shiftDate,
+        shift: dto.shift,
+        distantParts: dto.distantParts,
+        ground: { ...emptyGround(), ...dto.ground },
+        qInput: (dto.qInput as Round['qInput']) ?? null,
+        rmrInput: (dto.rmrInput as Round['rmrInput']) ?? null,
+        gsiObserved: dto.gsiObserved ?? null,
+        recommendedClassId: dto.recommendedClassId ?? null,
+        nextRoundLength: dto.nextRoundLength ?? null,
+        recommendationReason: dto.recommendationReason,
+        setParameters: dto.setParameters
+          ? { windowM: dto.setParameters.windowM, count: dto.setParameters.count ?? null }
+          : (round.setParameters ?? DEFAULT_SET_PARAMETERS),
+      });
+      const joints = await this.upsertJoints(manager, round, dto, project.defaultNotation);
+      const assessment = await this.assessor.assess(round, joints, manager);
+      // Joints without an override take the set the assessment found (the screen and triggers read the same).
+      const relabel = joints.filter(
+        (j) => !j.setOverride && (assessment.sets.membership[j.id] || null) !== j.setLabel,
+      );
+      for (const j of relabel) j.setLabel = assessment.sets.membership[j.id] || null;
+      if (relabel.length) await manager.save(Joint, relabel);
+      storeAssessment(round, assessment);
+      await manager.save(round);
+      const after = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
+      const changed = AUDITED.filter((f) => JSON.stringify(before[f]) !== JSON.stringify(after[f]));
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'round',
+        entityId: roundId,
+        action: 'save',
+        before: Object.fromEntries(changed.map((f) => [f, before[f]])),
+        after: { ...Object.fromEntries(changed.map((f) => [f, after[f]])), joints: joints.length },
+      });
+    });
+    return this.queries.get(access, roundId);
+  }
+
+  /**
+   * The joints of the save, kept by id: ids already on the round are updated in place, new ids (or none)
+   * inserted, joints left out removed. A joint's id never changes across saves.
+   */
+  private async upsertJoints(
+    manager: EntityManager,
+    round: Round,
+    dto: SaveRoundDto,
+    defaultNotation: Joint['notation'],
+  ): Promise<Joint[]> {
+    const existing = await manager.find(Joint, { where: { roundId: round.id } });
+    const byId = new Map(existing.map((j) => [j.id, j]));
+    const wanted = dto.joints.map((j) => j.id).filter((id): id is string => id !== undefined);
+    if (new Set(wanted).size !== wanted.length)
+      throw new DomainException(ErrorCode.ValidationFailed, 'Two joints of the save have the same id.', {
+        joints: 'Each joint needs its own id.',
+      });
+    const foreign = wanted.filter((id) => !byId.has(id));
+    if (foreign.length) {
+      const taken = await manager.count(Joint, { where: { id: In(foreign) } });
+      if (taken > 0)
+        throw new DomainException(ErrorCode.Conflict, 'A joint id of this save belongs to another round.', {
+          joints: 'Make new ids for joints copied from another round.',
+        });
+    }
+    const kept: Joint[] = dto.joints.map((j, i) => {
+      const reading = readOrientation(j.orientationText, j.notation ?? defaultNotation);
+      const joint =
+        (j.id ? byId.get(j.id) : undefined) ?? manager.create(Joint, { id: j.id ?? randomUUID() });
+      const values: Partial<Joint> = {
+        roundId: round.id,
+        headingId: round.headingId,
+        faceChainage: round.faceChainage,
+        seq: i + 1,
+        dipDirection: 'error' in reading ? null : reading.dipDirection,
+        dip: 'error' in reading ? null : reading.dip,
+        orientationError: 'error' in reading ? reading.error.slice(0, 300) : null,
+      };
+      for (const f of JOINT_FIELDS)
+        (values as Record<string, unknown>)[f] = j[f] ?? (f === 'setOverride' ? false : null);
+      values.infill = j.infill;
+      values.notes = j.notes;
+      values.orientationText = j.orientationText;
+      return Object.assign(joint, values);
+    });
+    const keptIds = new Set(kept.map((j) => j.id));
+    const removed = existing.filter((j) => !keptIds.has(j.id)).map((j) => j.id);
+    if (removed.length) await manager.delete(Joint, { id: In(removed) });
+    if (kept.length) await manager.save(Joint, kept);
+    return kept;
+  }
+
+  /** Draft (or returned) → submitted, when the record is complete enough for the engineer; the assessment is frozen. */
+  async submit(
+    caller: AuthUser,
+    access: ProjectAccess,
+    roundId: string,
+    dto: SubmitRoundDto,
+  ): Promise<RoundDto> {
+    await this.dataSource.transaction(async (manager) => {
+      const round = await this.queries.find(manager, access, roundId, true);
+      await this.assertCurrent(manager, round, dto.version);
+      assertEditable(round.status);
+      const joints = await manager.find(Joint, { where: { roundId } });
+      const assessment = await this.assessor.assess(round, joints, manager);
+      const fields: Record<string, string> = {};
+      const badJoints = joints.filter((j) => j.orientationError).sort((a, b) => a.seq - b.seq);
+      if (badJoints.length)
+        fields.joints = `Fix the orientation of joint ${badJoints.map((j) => j.seq).join(', ')} before submitting.`;
+      if (assessment.ratings.q.value === null && assessment.ratings.rmr.value === null) {
+        fields.ratings =
+          assessment.ratings.q.error ??
+          assessment.ratings.rmr.error ??
+          'Rate the rock mass (Q or RMR89) before submitting.';
+      }
+      if (!round.recommendedClassId) fields.recommendedClassId = 'Choose the support class you recommend.';
+      if (round.nextRoundLength === null) fields.nextRoundLength = 'Give the length of the next round.';
+      if (round.recommendedClassId) {
+        const c = await this.supportClass(access, round.recommendedClassId);
+        if (c.retired) fields.recommendedClassId = `${c.code} is retired; choose an active class.`;
+        if (round.nextRoundLength !== null && round.nextRoundLength > c.maxRoundLength) {
+          fields.nextRoundLength = `${c.code} allows rounds of up to ${c.maxRoundLength} m.`;
+        }
+        if (!assessment.suggestedClassIds.includes(c.id) && round.recommendationReason.trim().length < 5) {
+          fields.recommendationReason = `${c.code} is outside the classes the ratings suggest: say why you recommend it.`;
+        }
+      }
+      if (Object.keys(fields).length) {
+        throw new DomainException(
+          ErrorCode.ValidationFailed,
+          `The round is not ready to submit: ${Object.values(fields)[0]}`,
+          fields,
+        );
+      }
+      const change = applyTransition(round, 'submit');
+      round.submittedAt = new Date();
+      storeAssessment(round, assessment);
+      await manager.save(round);
+      await this.freeze(manager, round, joints, 'submit', caller);
+      await this.audit.record(manager, {
+        projectId: access.projectId,
+        actorId: caller.id,
+        entityType: 'round',
+        entityId: roundId,
+        action: 'submit',
+        before: { status: change.from },
+        after: {
+          status: change.to,
+          recommendedClassId: round.recommendedClassId,
+          nextRoundLength: round.nextRoundLength,
+        },
+      });
+    });
+    return this.queries.get(access, roundId);
+  }
+
+  /** Keeps the record and its assessment as they are at this event (a revision that later edits never touch). */
+  private async freeze(
+    manager: EntityManager,
+    round: Round,
+    joints: Joint[],
+    event: RoundEvent,
+    caller: AuthUser,
+  ): Promise<void> {
+    await manager.save(
+      manager.create(RoundRevision, {
+        id: randomUUID(),
+        roundId: round.id,
+        revision: round.revision,
+        event,
+        status: round.status,
+        record: recordOf(round, joints),
+        assessment: round.assessment!,
+        assessmentVersion: round.assessmentVersion!,
+        createdBy: caller.id,
+      }),
+    );
+  }
+
+  private async nextFor(manager: EntityManager, heading: Heading, stage: Stage): Promise<NextRoundDto> {
+    const last = await manager.findOne(Round, {
+      where: { headingId: heading.id, stage },
+      order: { roundNumber: 'DESC' },
+    });
+    const previousChainage = last?.faceChainage ?? heading.startChainage;
+    return {
+      stage,
+      roundNumber: (last?.roundNumber ?? 0) + 1,
+      previousChainage,
+      plannedRoundLength: heading.plannedRoundLength,
+      suggestedFaceChainage: Math.round((previousChainage + heading.plannedRoundLength) * 1000) / 1000,
+    };
+  }
+
+  private async assertCurrent(manager: EntityManager, round: Round, version: number): Promise<void> {
+    if (round.version !== version) {
+      throw new DomainException(
+        ErrorCode.StaleVersion,
+        'Someone else saved this round since you opened it. Your typing is kept on this screen: compare it with their version, then save again.',
+        undefined,
+        { current: await this.queries.dto(manager, round) },
+      );
+    }
+  }
+
+  private async supportClass(access: ProjectAccess, id: string) {
+    const c = (await this.supportClasses.classesOf(access.projectId)).find((x) => x.id === id);
+    if (!c)
+      throw new DomainException(ErrorCode.ValidationFailed, 'That support class is not in this project.', {
+        recommendedClassId: 'Choose a class of this project.',
+      });
+    return c;
+  }
+}

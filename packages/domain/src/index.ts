@@ -1,0 +1,10 @@
+// Public exports of @roundbook/domain: the round's assessment, the vocabulary and the formatters, composed
+// from packages/geomath. Pure TypeScript; used by the browser, the API and the report renderers alike.
+export * from './vocabulary.js';
+export * from './format.js';
+export * from './ratings.js';
+export * from './sets.js';
+export * from './support.js';
+export * from './water.js';
+export * from './triggers.js';
+export * from './assess-round.js';

@@ -1,0 +1,405 @@
+// Trigger rules as pure functions over a round's facts (product.md "Trigger rule"). The API evaluates them
+// on save and in the Setup try-out; the browser shows the same words.
+import {
+  driveOf,
+  fisherStatistics,
+  planarSlidingOut,
+  planeCrossings,
+  planeOfPole,
+  poleOf,
+  rmrOrientationInTunnel,
+  surfaceFacing,
+} from '@roundbook/geomath';
+import type { Plane } from '@roundbook/geomath';
+import { formatDipDirectionDip, formatQ, Q_RANGE, RMR_RANGE, roundedAsPrinted } from './format.js';
+import { LEVEL_RANK, SINGLE_FEATURE_KINDS, type TriggerLevel } from './vocabulary.js';
+
+export const WATCHED = [
+  'q',
+  'rmr89',
+  'inflow-per-10m',
+  'overbreak',
+  'adverse-orientation',
+  'crown-crossing-within',
+  'support-class-change',
+  'open-red-hazard',
+] as const;
+export type Watched = (typeof WATCHED)[number];
+export const COMPARISONS = ['<', '<=', '>', '>=', '='] as const;
+export type Comparison = (typeof COMPARISONS)[number];
+
+/** How each watched quantity is judged, and its words. */
+export const WATCH_KIND: Record<
+  Watched,
+  { kind: 'numeric' | 'distance' | 'flag'; label: string; unit: string }
+> = {
+  q: { kind: 'numeric', label: 'Q', unit: '' },
+  rmr89: { kind: 'numeric', label: 'RMR89', unit: '' },
+  'inflow-per-10m': { kind: 'numeric', label: 'Water inflow per 10 m', unit: 'l/min' },
+  overbreak: { kind: 'numeric', label: 'Overbreak', unit: 'm³' },
+  'adverse-orientation': { kind: 'flag', label: 'A set or feature adverse to the drive', unit: '' },
+  'crown-crossing-within': {
+    kind: 'distance',
+    label: 'A mapped plane reaches the crown within',
+    unit: 'm ahead',
+  },
+  'support-class-change': { kind: 'flag', label: 'Support class differs from the last round', unit: '' },
+  'open-red-hazard': { kind: 'flag', label: 'Any open red hazard on the heading', unit: '' },
+};
+
+export const comparisonSymbols: Record<Comparison, string> = {
+  '<': '<',
+  '<=': '≤',
+  '>': '>',
+  '>=': '≥',
+  '=': '=',
+};
+export const comparisonLabels: Record<Comparison, string> = {
+  '<': 'below (<)',
+  '<=': 'at or below (≤)',
+  '>': 'above (>)',
+  '>=': 'at or above (≥)',
+  '=': 'equal to (=)',
+};
+
+/** Rules that cannot fire until a later feature records what they watch. */
+export const WAITING_RULES: Partial<Record<Watched, string>> = {
+  'open-red-hazard':
+    'Hazards are not recorded in Roundbook yet, so this rule cannot fire (waiting for hazards).',
+};
+
+export interface TriggerRuleInput {
+  id: string;
+  watch: Watched;
+  comparison: Comparison | null;
+  threshold: number | null;
+  level: TriggerLevel;
+  action: string;
+  ownerRole: string;
+  timeAllowedHours: number;
+  enabled: boolean;
+}
+
+/** Field errors for a rule whose comparison and threshold do not suit what it watches. */
+export function triggerRuleErrors(
+  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
+): Record<string, string> {
+  const kind = WATCH_KIND[r.watch].kind;
+  const fields: Record<string, string> = {};
+  if (kind === 'numeric') {
+    if (!r.comparison) fields.comparison = 'Choose how the value is compared with the threshold.';
+    if (r.threshold === null || r.threshold === undefined) fields.threshold = 'Give the threshold.';
+    if (r.watch === 'q' && r.threshold != null && (r.threshold < Q_RANGE.min || r.threshold > Q_RANGE.max))
+      fields.threshold = Q_RANGE.message;
+    if (
+      r.watch === 'rmr89' &&
+      r.threshold != null &&
+      (r.threshold < RMR_RANGE.min || r.threshold > RMR_RANGE.max)
+    )
+      fields.threshold = RMR_RANGE.message;
+    if ((r.watch === 'inflow-per-10m' || r.watch === 'overbreak') && r.threshold != null && r.threshold < 0) {
+      fields.threshold = 'The threshold cannot be negative.';
+    }
+  } else if (kind === 'distance') {
+    if (r.threshold === null || r.threshold === undefined || r.threshold <= 0)
+      fields.threshold = 'Give the distance ahead of the face, in metres.';
+    if (r.comparison)
+      fields.comparison =
+        'This rule has no comparison: it fires when a plane reaches the crown within the distance.';
+  } else {
+    if (r.comparison) fields.comparison = 'This rule watches a yes/no condition and has no comparison.';
+    if (r.threshold !== null && r.threshold !== undefined)
+      fields.threshold = 'This rule watches a yes/no condition and has no threshold.';
+  }
+  return fields;
+}
+
+/** The rule in words, e.g. "Q < 0.1 → red". */
+export function triggerRuleSummary(
+  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level'>,
+): string {
+  const w = WATCH_KIND[r.watch];
+  const condition =
+    w.kind === 'numeric'
+      ? `${w.label} ${comparisonSymbols[r.comparison ?? '=']} ${r.threshold ?? '?'}${w.unit ? ` ${w.unit}` : ''}`
+      : w.kind === 'distance'
+        ? `${w.label} ${r.threshold ?? '?'} ${w.unit}`
+        : w.label;
+  return `${condition} → ${r.level}`;
+}
+
+/** A joint as the rules read it (canonical orientation, set label, kind, and where it was mapped on the face). */
+export interface FactJoint {
+  id?: string;
+  kind: string;
+  setLabel: string | null;
+  dipDirection: number | null;
+  dip: number | null;
+  /** Where the feature's trace crosses the face, metres right of and above the axis (face centre if absent). */
+  faceOffset?: { right: number; up: number } | null;
+}
+
+export interface RoundFacts {
+  q: number | null;
+  rmr: number | null;
+  inflowPer10m: number | null;
+  overbreakM3: number | null;
+  faceChainage: number;
+  recommendedClassId: string | null;
+  previousClassId: string | null | undefined; // undefined: no previous round of this heading and stage
+  joints: FactJoint[];
+  /** The round's sets as found by its assessment; when absent the sets are the joints' labels. */
+  sets?: Array<{ label: string; plane: Plane; count: number }>;
+}
+
+export interface HeadingGeometry {
+  driveTrend: number;
+  gradientPercent: number;
+  profileHeight: number;
+  profileWidth: number;
+  axisHeight: number;
+  /** +1 when chainage increases in the drive direction (default), −1 when it decreases. */
+  chainageSense?: 1 | -1;
+  /** Crown height above the axis and invert depth below it for the round's stage (default: the full profile). */
+  stageCrownHeight?: number;
+  stageInvertDepth?: number;
+  /** Friction angle of the joints for the face-sliding screen, degrees (default 30, common practice). */
+  frictionAngle?: number;
+}
+
+export type Firing = { value: number | null; detail: string } | null;
+export type RuleOutcome =
+  | { state: 'fired'; value: number | null; detail: string }
+  | { state: 'clear'; detail?: string }
+  | { state: 'not-evaluated'; detail: string }
+  | { state: 'waiting'; detail: string };
+
+const compare = (a: number, op: Comparison, b: number): boolean =>
+  op === '<' ? a < b : op === '<=' ? a <= b : op === '>' ? a > b : op === '>=' ? a >= b : a === b;
+
+/** Mean plane of each labelled set (Fisher mean of the poles, axial), from the round's readable joints. */
+export function setMeans(joints: FactJoint[]): Array<{ label: string; plane: Plane; count: number }> {
+  const groups = new Map<string, Plane[]>();
+  for (const j of joints) {
+    if (!j.setLabel || j.dipDirection === null || j.dip === null) continue;
+    groups.set(j.setLabel, [...(groups.get(j.setLabel) ?? []), { dipDirection: j.dipDirection, dip: j.dip }]);
+  }
+  return [...groups].map(([label, planes]) => ({
+    label,
+    count: planes.length,
+    plane:
+      planes.length === 1
+        ? planes[0]
+        : planeOfPole(fisherStatistics(planes.map(poleOf), { axial: true }).mean),
+  }));
+}
+
+const readable = (j: FactJoint): j is FactJoint & { dipDirection: number; dip: number } =>
+  j.dipDirection !== null && j.dip !== null;
+
+/** Adverse sets and significant single features: RMR89 assessment against the drive, and sliding out of the face. */
+export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): string[] {
+  const drive = driveOf(heading);
+  const sets = round.sets ?? setMeans(round.joints);
+  const features = round.joints
+    .filter((j) => SINGLE_FEATURE_KINDS.includes(j.kind as never))
+    .filter(readable)
+    .map((j, i) => ({
+      label: `${j.kind === 'fault' ? 'fault' : 'shear zone'} ${i + 1}`,
+      plane: { dipDirection: j.dipDirection, dip: j.dip },
+    }));
+  const out: string[] = [];
+  const face = { facing: surfaceFacing(drive, 'face'), inclination: 90 };
+  const friction = heading.frictionAngle ?? 30;
+  for (const item of [...sets.map((s) => ({ label: s.label, plane: s.plane })), ...features]) {
+    const shown = { dipDirection: Math.round(item.plane.dipDirection), dip: Math.round(item.plane.dip) };
+    const r = rmrOrientationInTunnel(item.plane, drive);
+    const reasons: string[] = [];
+    if (r.assessment === 'unfavourable' || r.assessment === 'very unfavourable')
+      reasons.push(`is ${r.assessment} for the drive`);
+    const slide = planarSlidingOut(item.plane, face, friction, 20);
+    if (slide.flagged) reasons.push(`dips out of the face and can slide (friction ${friction}°)`);
+    if (reasons.length) out.push(`${item.label} (${formatDipDirectionDip(shown)}) ${reasons.join(' and ')}`);
+  }
+  return out;
+}
+
+/** Nearest distance ahead of the face at which a mapped fault or shear zone reaches the crown, m; null if none. */
+export function nearestCrownReach(
+  round: RoundFacts,
+  heading: HeadingGeometry,
+): { distance: number; chainage: number } | null {
+  const drive = driveOf(heading);
+  const sense = heading.chainageSense ?? 1;
+  let best: { distance: number; chainage: number } | null = null;
+  for (const j of round.joints) {
+    if (!SINGLE_FEATURE_KINDS.includes(j.kind as never) || !readable(j)) continue;
+    const c = planeCrossings({
+      plane: { dipDirection: j.dipDirection, dip: j.dip },
+      chainage: 0,
+      offset: j.faceOffset ?? { right: 0, up: 0 },
+      drive,
+      crownHeight: heading.stageCrownHeight ?? heading.profileHeight - heading.axisHeight,
+      invertDepth: heading.stageInvertDepth ?? heading.axisHeight,
+      halfWidth: heading.profileWidth / 2,
+    });
+    // planeCrossings measures along the drive from the face; chainage follows the heading's sense.
+    if (c.crown === null || c.crown <= 0) continue;
+    if (best === null || c.crown < best.distance)
+      best = { distance: c.crown, chainage: round.faceChainage + sense * c.crown };
+  }
+  return best;
+}
+
+/** One rule against one round: fired, clear, not evaluated (its input is missing) or waiting (cannot fire yet). */
+export function evaluateRuleOutcome(
+  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
+  round: RoundFacts,
+  heading: HeadingGeometry,
+): RuleOutcome {
+  const numeric = (
+    value: number | null,
+    what: string,
+    unit = '',
+    kind: 'q' | 'other' = 'other',
+  ): RuleOutcome => {
+    if (value === null) return { state: 'not-evaluated', detail: `${what} is not recorded yet` };
+    if (!rule.comparison || rule.threshold === null)
+      return { state: 'not-evaluated', detail: 'incomplete rule' };
+    // Compare the value as it is printed, so that the sentence never contradicts itself.
+    const shown = roundedAsPrinted(value, kind);
+    const text = kind === 'q' ? formatQ(value) : String(shown);
+    return compare(shown, rule.comparison, rule.threshold)
+      ? {
+          state: 'fired',
+          value,
+          detail: `${what} ${text}${unit} ${rule.comparison} ${rule.threshold}${unit}`,
+        }
+      : { state: 'clear' };
+  };
+  const readableJoints = round.joints.filter(readable);
+  switch (rule.watch) {
+    case 'q':
+      return numeric(round.q, 'Q', '', 'q');
+    case 'rmr89':
+      return numeric(round.rmr, 'RMR89');
+    case 'inflow-per-10m':
+      return numeric(round.inflowPer10m, 'Inflow', ' l/min per 10 m');
+    case 'overbreak':
+      return numeric(round.overbreakM3, 'Overbreak', ' m³');
+    case 'support-class-change':
+      if (round.recommendedClassId === null)
+        return { state: 'not-evaluated', detail: 'no support class recommended yet' };
+      if (round.previousClassId === undefined) return { state: 'clear', detail: 'first round of this stage' };
+      return round.recommendedClassId !== round.previousClassId
+        ? { state: 'fired', value: null, detail: 'The recommended class differs from the last round’s.' }
+        : { state: 'clear' };
+    case 'adverse-orientation': {
+      if (readableJoints.length === 0 && (round.sets ?? []).length === 0)
+        return { state: 'not-evaluated', detail: 'no readable joints recorded yet' };
+      const found = adverseFindings(round, heading);
+      return found.length ? { state: 'fired', value: null, detail: found.join('; ') } : { state: 'clear' };
+    }
+    case 'crown-crossing-within': {
+      if (rule.threshold === null) return { state: 'not-evaluated', detail: 'incomplete rule' };
+      if (readableJoints.length === 0)
+        return { state: 'not-evaluated', detail: 'no readable joints recorded yet' };
+      const hit = nearestCrownReach(round, heading);
+      if (hit === null || hit.distance > rule.threshold) return { state: 'clear' };
+      return {
+        state: 'fired',
+        value: hit.distance,
+        detail: `A mapped fault reaches the crown ${hit.distance.toFixed(1)} m ahead of the face`,
+      };
+    }
+    case 'open-red-hazard':
+      return { state: 'waiting', detail: WAITING_RULES['open-red-hazard']! };
+  }
+}
+
+/** One rule against one round: the firing, or null when it does not fire (for any reason). */
+export function evaluateRule(
+  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
+  round: RoundFacts,
+  heading: HeadingGeometry,
+): Firing {
+  const o = evaluateRuleOutcome(rule, round, heading);
+  return o.state === 'fired' ? { value: o.value, detail: o.detail } : null;
+}
+
+export interface TriggerFiring {
+  ruleId: string;
+  level: TriggerLevel;
+  summary: string;
+  detail: string;
+  action: string;
+  ownerRole: string;
+  timeAllowedHours: number;
+}
+
+export interface TriggerAssessment {
+  /**
+   * The highest level among the rules that fire; green only when every enabled rule could be evaluated and
+   * none fires; null when the project has no enabled rule, or when none fires but some still lack their data.
+   */
+  level: TriggerLevel | null;
+  firings: TriggerFiring[];
+  /** Rules whose input is missing on this round, with why. */
+  notEvaluated: Array<{ ruleId: string; summary: string; detail: string }>;
+  /** Rules that cannot fire yet (what they watch is not recorded by Roundbook yet). */
+  waiting: Array<{ ruleId: string; summary: string; detail: string }>;
+  /** Enabled rules that were evaluated (fired or clear). */
+  evaluated: number;
+}
+
+/** The trigger level of a round from the project's enabled rules, firings red first. */
+export function assessTriggers(
+  rules: Array<
+    Pick<
+      TriggerRuleInput,
+      | 'id'
+      | 'watch'
+      | 'comparison'
+      | 'threshold'
+      | 'level'
+      | 'action'
+      | 'ownerRole'
+      | 'timeAllowedHours'
+      | 'enabled'
+    >
+  >,
+  round: RoundFacts,
+  heading: HeadingGeometry,
+  summaryOf: (
+    rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level'>,
+  ) => string = triggerRuleSummary,
+): TriggerAssessment {
+  const active = rules.filter((r) => r.enabled);
+  const firings: TriggerFiring[] = [];
+  const notEvaluated: TriggerAssessment['notEvaluated'] = [];
+  const waiting: TriggerAssessment['waiting'] = [];
+  let evaluated = 0;
+  for (const rule of active) {
+    const o = evaluateRuleOutcome(rule, round, heading);
+    if (o.state === 'waiting') waiting.push({ ruleId: rule.id, summary: summaryOf(rule), detail: o.detail });
+    else if (o.state === 'not-evaluated')
+      notEvaluated.push({ ruleId: rule.id, summary: summaryOf(rule), detail: o.detail });
+    else {
+      evaluated++;
+      if (o.state === 'fired')
+        firings.push({
+          ruleId: rule.id,
+          level: rule.level,
+          summary: summaryOf(rule),
+          detail: o.detail,
+          action: rule.action,
+          ownerRole: rule.ownerRole,
+          timeAllowedHours: rule.timeAllowedHours,
+        });
+    }
+  }
+  firings.sort((a, b) => LEVEL_RANK[b.level] - LEVEL_RANK[a.level]);
+  const level: TriggerLevel | null =
+    firings[0]?.level ?? (evaluated > 0 && notEvaluated.length === 0 ? 'green' : null);
+  return { level, firings, notEvaluated, waiting, evaluated };
+}

@@ -1,0 +1,150 @@
+import { assessRound, type AssessmentContext, type RoundRecordInput } from '../src/index.js';
+
+const heading = {
+  driveTrend: 60,
+  gradientPercent: 0,
+  profileHeight: 10,
+  profileWidth: 10,
+  axisHeight: 5,
+  plannedRoundLength: 3,
+};
+const ground: RoundRecordInput['ground'] = {
+  units: [],
+  pointLoadIs50: null,
+  pointLoadFactor: null,
+  inflowLpm: 6,
+  inflowLengthM: 3,
+  waterDescription: '',
+  overbreakM3: null,
+  notes: '',
+};
+const joint = (id: string, dipDirection: number, dip: number, extra = {}) => ({
+  id,
+  kind: 'joint' as const,
+  dipDirection,
+  dip,
+  setLabel: null,
+  setOverride: false,
+  spacingM: 0.4,
+  ...extra,
+});
+const record = (joints: RoundRecordInput['joints']): RoundRecordInput => ({
+  faceChainage: 1003,
+  roundLength: 3,
+  ground,
+  joints,
+  qInput: null,
+  rmrInput: null,
+  gsiObserved: null,
+  recommendedClassId: null,
+  setParameters: { windowM: 25, count: null },
+});
+const adverseRule = {
+  id: 'adv',
+  watch: 'adverse-orientation' as const,
+  comparison: null,
+  threshold: null,
+  level: 'amber' as const,
+  action: 'Check the bolting pattern',
+  ownerRole: 'engineer',
+  timeAllowedHours: 12,
+  enabled: true,
+};
+
+describe('assessRound', () => {
+  // An earlier round mapped a set striking along the drive (dip direction 150 for drive 060, dip 70):
+  // very unfavourable (Bieniawski 1989 Table 4.1 F). This round sees two joints of it, a little scattered.
+  const nearby = [148, 150, 152, 149, 151, 150].map((dd, i) => ({
+    id: `n${i}`,
+    roundId: 'earlier',
+    dipDirection: dd,
+    dip: 70 + (i % 3) - 1,
+  }));
+  const context: AssessmentContext = {
+    heading,
+    supportClasses: [],
+    nearbyJoints: nearby,
+    previousRound: null,
+    rules: [adverseRule],
+  };
+  const here = record([joint('a', 147, 69), joint('b', 153, 71), joint('c', 20, 30)]);
+
+  it('reads the same sets in the Rating view and in the adverse-orientation trigger', () => {
+    const a = assessRound(here, context);
+    const s1 = a.sets.sets.find((s) => s.memberIds.includes('a'));
+    expect(s1).toBeDefined();
+    expect(s1!.memberIds).toEqual(expect.arrayContaining(['a', 'b']));
+    expect(s1!.nearbyMemberIds).toHaveLength(6);
+    // The trigger reads the set found with the earlier round's joints, by the same label and mean.
+    expect(a.facts.sets).toContainEqual({ label: s1!.label, plane: s1!.mean, count: 8 });
+    expect(a.triggers.firings[0].detail).toContain(`${s1!.label} (150/70) is very unfavourable`);
+    expect(s1!.orientation?.assessment).toBe('very unfavourable');
+  });
+
+  it('keeps a geologist’s override and marks it, and the override joins the named set', () => {
+    const overridden = record([
+      joint('a', 147, 69),
+      joint('b', 153, 71),
+      joint('c', 20, 30, { setLabel: 'S1', setOverride: true }),
+    ]);
+    const a = assessRound(overridden, context);
+    expect(a.sets.membership.c).toBe('S1');
+    expect(a.sets.overridden).toEqual(['c']);
+  });
+
+  it('judges faults on their own and keeps them out of the sets', () => {
+    const a = assessRound(record([joint('f', 240, 60, { kind: 'fault' })]), context);
+    expect(a.features).toHaveLength(1);
+    expect(a.sets.membership.f).toBeUndefined();
+  });
+
+  it('does not change with nearby joints when the window is 0 m', () => {
+    const alone = assessRound({ ...here, setParameters: { windowM: 0, count: null } }, context);
+    expect(alone.sets.sets.every((s) => s.nearbyMemberIds.length === 0)).toBe(true);
+  });
+
+  it('survives a JSON round trip unchanged (it is stored as JSON with the round)', () => {
+    const a = assessRound(here, context);
+    expect(JSON.parse(JSON.stringify(a))).toEqual(a);
+  });
+
+  it('suggests the classes whose ranges hold the ratings and stamps the editions', () => {
+    const a = assessRound(
+      {
+        ...here,
+        qInput: { rqd: 90, jn: 4, jr: 3, ja: 1, jw: 1, srf: 1 },
+      },
+      {
+        ...context,
+        supportClasses: [
+          {
+            id: 'good',
+            code: 'A',
+            qMin: 10,
+            qMax: null,
+            rmrMin: null,
+            rmrMax: null,
+            maxRoundLength: 4,
+            retired: false,
+            sortOrder: 1,
+          },
+          {
+            id: 'fair',
+            code: 'B',
+            qMin: 1,
+            qMax: 10,
+            rmrMin: null,
+            rmrMax: null,
+            maxRoundLength: 3,
+            retired: false,
+            sortOrder: 2,
+          },
+        ],
+      },
+    );
+    // Q = 90/4 × 3/1 × 1/1 = 67.5 (Barton et al. 1974) → class A [computed here].
+    expect(a.ratings.q.value).toBeCloseTo(67.5, 9);
+    expect(a.suggestedClassIds).toEqual(['good']);
+    expect(a.editions.rmr).toMatch(/Bieniawski 1989/);
+  });
+});
