@@ -27,8 +27,16 @@ export { project, unproject, greatCircle, smallCircle } from './projection.js';
 export type { Net } from './projection.js';
 export { fisherStatistics, terzaghiWeight } from './statistics.js';
 export type { FisherResult } from './statistics.js';
-export { densityGrid, densityContours, exponentialK, kambFraction } from './density.js';
-export type { DensityGrid, DensityMethod, DensityContour } from './density.js';
+export {
+  densityGrid,
+  densityContours,
+  densityLegend,
+  rawDensity,
+  exponentialK,
+  kambFraction,
+  DENSITY_UNITS,
+} from './density.js';
+export type { DensityGrid, DensityMethod, DensityContour, DensityUnits } from './density.js';
 export { findSets, SET_SEPARATION, SET_SIGNIFICANCE } from './sets.js';
 export type { JointSet } from './sets.js';
 export {
