@@ -25,8 +25,22 @@ export {
 } from './angles.js';
 export { project, unproject, greatCircle, smallCircle } from './projection.js';
 export type { Net } from './projection.js';
-export { fisherStatistics, terzaghiWeight } from './statistics.js';
-export type { FisherResult } from './statistics.js';
+export {
+  fisherStatistics,
+  terzaghiWeight,
+  terzaghiWeightFor,
+  terzaghiWeights,
+  TERZAGHI_SAMPLINGS,
+  TERZAGHI_SAMPLING_LABELS,
+  TERZAGHI_DEFAULT_CAP,
+} from './statistics.js';
+export type {
+  FisherResult,
+  TerzaghiSampling,
+  TerzaghiOptions,
+  TerzaghiWeights,
+  WeightingUsed,
+} from './statistics.js';
 export {
   densityGrid,
   densityContours,
