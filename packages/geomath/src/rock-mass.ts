@@ -29,6 +29,8 @@ export {
 export type { EsrRow, QSupportInput, QSupportResult } from './q-support.js';
 export { ESR_RANGE, ESR_TABLE, qSupport } from './q-support.js';
 export type {
+  GoverningJointRecord,
+  Rmr89ConditionWarning,
   Rmr89Class,
   Rmr89Condition,
   Rmr89Groundwater,
@@ -55,6 +57,8 @@ export {
   RMR89_ROUGHNESS,
   RMR89_RQD,
   RMR89_SEPARATION,
+  RMR89_SOFT_INFILL_GOVERNS_MM,
+  RMR89_SOFT_INFILL_NOTE,
   RMR89_SPACING,
   RMR89_STRENGTH_IS50,
   RMR89_STRENGTH_UCS,
@@ -62,6 +66,7 @@ export {
   RMR89_WEATHERING,
   rmr89,
   rmr89Class,
+  rmr89ConditionWarnings,
 } from './rmr89.js';
 export type {
   RmrOrientationAdjustment,
