@@ -11,6 +11,8 @@ export type {
   QParameterTable,
   QResult,
   QTableRow,
+  QWarning,
+  QWarningCode,
   TableCheck,
 } from './q-system.js';
 export {
@@ -23,6 +25,8 @@ export {
   Q_RQD_TABLE,
   Q_SRF_TABLE,
   Q_TABLES,
+  Q_TABLE_EDITION,
+  nearestQRows,
   qClass,
   qValue,
 } from './q-system.js';
