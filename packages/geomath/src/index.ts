@@ -62,6 +62,24 @@ export {
   type ChainageStyle,
 } from './alignment.js';
 export {
+  CHAINAGE_SENSES,
+  alignmentLength,
+  alignmentPointAt,
+  chainageAhead,
+  chainageSign,
+  distanceAheadOf,
+  driveAt,
+  driveBearingAt,
+  positionAt,
+  straightAlignment,
+} from './heading-alignment.js';
+export type {
+  AlignmentPoint,
+  AlignmentSegment,
+  ChainageSense,
+  HeadingAlignment,
+} from './heading-alignment.js';
+export {
   STRENGTH_GRADES,
   WEATHERING_GRADES,
   isGrade,

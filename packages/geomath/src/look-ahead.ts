@@ -1,3 +1,5 @@
+import type { ChainageSense } from './heading-alignment.js';
+import { chainageSign } from './heading-alignment.js';
 import { DEG } from './math.js';
 import { tunnelFrame } from './tunnel-frame.js';
 import type { Drive, Plane, Vector3 } from './types.js';
@@ -19,6 +21,11 @@ export interface PlaneCrossingsInput {
   crownHeight: number;
   invertDepth: number;
   halfWidth: number;
+  /**
+   * How chainage runs in the drive direction (default 'increasing'). With 'decreasing' (a heading driven
+   * against the chainage) a crossing ahead of the face has a smaller chainage than the face.
+   */
+  chainageSense?: ChainageSense;
 }
 
 export interface PlaneCrossings {
@@ -51,7 +58,11 @@ function checkPlane(plane: Plane): void {
   }
 }
 
-/** Chainages where the plane crosses the axis, crown, invert and walls; null where it runs along them. */
+/**
+ * Chainages where the plane crosses the axis, crown, invert and walls; null where it runs along them.
+ * The distance t along the axis in the drive direction becomes chainage face + t, or face − t when the
+ * chainage decreases in the drive direction (`chainageSense: 'decreasing'`).
+ */
 export function planeCrossings(input: PlaneCrossingsInput): PlaneCrossings {
   checkPlane(input.plane);
   if (!Number.isFinite(input.chainage))
@@ -62,13 +73,14 @@ export function planeCrossings(input: PlaneCrossingsInput): PlaneCrossings {
   requireLength('crown height', input.crownHeight);
   requireLength('invert depth', input.invertDepth);
   requireLength('half-width', input.halfWidth);
+  const sign = chainageSign(input.chainageSense);
   const frame = tunnelFrame(input.drive);
   const n = planeNormal(input.plane);
   const na = dot(n, frame.forward);
   const point = add(scale(frame.right, input.offset.right), scale(frame.up, input.offset.up));
   const along = (origin: Vector3): number | null => {
     if (Math.abs(na) < ALONG_TUNNEL_LIMIT) return null;
-    return input.chainage + (dot(n, point) - dot(n, origin)) / na;
+    return input.chainage + (sign * (dot(n, point) - dot(n, origin))) / na;
   };
   return {
     axis: along([0, 0, 0]),
@@ -99,12 +111,15 @@ export interface RoundArrivalInput {
   crownHeight: number;
   invertDepth: number;
   halfWidth: number;
+  /** Default 'increasing'; see PlaneCrossingsInput. */
+  chainageSense?: ChainageSense;
 }
 
 /**
  * Where one line of the tunnel meets the plane relative to the coming rounds. Round k (1 = the next round)
- * covers chainages over faceChainage + (k − 1)·L up to and including faceChainage + k·L: a crossing exactly
- * at the end of a round is exposed by that round. A crossing at or behind the face is 'behind'.
+ * covers distances ahead of the face over (k − 1)·L up to and including k·L: a crossing exactly at the end
+ * of a round is exposed by that round. A crossing at or behind the face is 'behind'. Distances ahead are
+ * measured in the drive direction, so they are positive ahead whatever the chainage sense.
  */
 export type Arrival =
   | { status: 'ahead'; chainage: number; distanceAhead: number; round: number }
@@ -120,9 +135,9 @@ export interface RoundArrival {
   summary: string;
 }
 
-function arrival(chainage: number | null, face: number, roundLength: number): Arrival {
+function arrival(chainage: number | null, face: number, roundLength: number, sign: 1 | -1): Arrival {
   if (chainage === null) return { status: 'runs along the tunnel' };
-  const distanceAhead = chainage - face;
+  const distanceAhead = sign * (chainage - face);
   if (distanceAhead <= 0) return { status: 'behind', chainage, distanceAhead };
   // A tiny tolerance so that a crossing computed as k·L + 1e-12 still belongs to round k.
   const round = Math.max(1, Math.ceil(distanceAhead / roundLength - 1e-9));
@@ -145,8 +160,10 @@ export function roundsToCrownAndInvert(input: RoundArrivalInput): RoundArrival[]
   if (!Number.isFinite(input.roundLength) || input.roundLength <= 0) {
     throw new RatingError(`round length ${String(input.roundLength)} m is not valid: expected more than 0 m`);
   }
+  const sign = chainageSign(input.chainageSense);
   return input.planes.map((mapped) => {
     const crossings = planeCrossings({
+      chainageSense: input.chainageSense,
       plane: mapped.plane,
       chainage: input.faceChainage,
       offset: mapped.offset ?? { right: 0, up: 0 },
@@ -155,8 +172,8 @@ export function roundsToCrownAndInvert(input: RoundArrivalInput): RoundArrival[]
       invertDepth: input.invertDepth,
       halfWidth: input.halfWidth,
     });
-    const crown = arrival(crossings.crown, input.faceChainage, input.roundLength);
-    const invert = arrival(crossings.invert, input.faceChainage, input.roundLength);
+    const crown = arrival(crossings.crown, input.faceChainage, input.roundLength, sign);
+    const invert = arrival(crossings.invert, input.faceChainage, input.roundLength, sign);
     return {
       label: mapped.label,
       kind: mapped.kind,
