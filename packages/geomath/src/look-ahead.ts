@@ -64,15 +64,48 @@ function checkPlane(plane: Plane): void {
  * chainage decreases in the drive direction (`chainageSense: 'decreasing'`).
  */
 export function planeCrossings(input: PlaneCrossingsInput): PlaneCrossings {
+  checkCommon(input);
+  requireLength('crown height', input.crownHeight);
+  requireLength('invert depth', input.invertDepth);
+  requireLength('half-width', input.halfWidth);
+  return crossingsAt(input, input);
+}
+
+/**
+ * Like planeCrossings for one stage's part of the profile (see `stagePart`): `crown` is the top of the
+ * part and `invert` its floor, with signed heights relative to the axis (a bench below the axis has a
+ * negative crownHeight); the walls at the part's largest half-width.
+ */
+export function stageCrossings(
+  input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>,
+  part: { crownHeight: number; invertDepth: number; halfWidth: number },
+): PlaneCrossings {
+  checkCommon(input);
+  if (!Number.isFinite(part.crownHeight) || !Number.isFinite(part.invertDepth)) {
+    throw new RatingError("the part's crown height and invert depth must be finite numbers of metres");
+  }
+  if (part.crownHeight + part.invertDepth < 0) {
+    throw new RatingError(
+      "the part's crown lies below its floor: expected crownHeight + invertDepth of 0 m or more",
+    );
+  }
+  requireLength('half-width', part.halfWidth);
+  return crossingsAt(input, part);
+}
+
+function checkCommon(input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>): void {
   checkPlane(input.plane);
   if (!Number.isFinite(input.chainage))
     throw new RatingError('face chainage must be a finite number of metres');
   if (!Number.isFinite(input.offset.right) || !Number.isFinite(input.offset.up)) {
     throw new RatingError('the mapped point offsets must be finite numbers of metres');
   }
-  requireLength('crown height', input.crownHeight);
-  requireLength('invert depth', input.invertDepth);
-  requireLength('half-width', input.halfWidth);
+}
+
+function crossingsAt(
+  input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>,
+  levels: { crownHeight: number; invertDepth: number; halfWidth: number },
+): PlaneCrossings {
   const sign = chainageSign(input.chainageSense);
   const frame = tunnelFrame(input.drive);
   const n = planeNormal(input.plane);
@@ -84,10 +117,10 @@ export function planeCrossings(input: PlaneCrossingsInput): PlaneCrossings {
   };
   return {
     axis: along([0, 0, 0]),
-    crown: along(scale(frame.up, input.crownHeight)),
-    invert: along(scale(frame.up, -input.invertDepth)),
-    rightWall: along(scale(frame.right, input.halfWidth)),
-    leftWall: along(scale(frame.right, -input.halfWidth)),
+    crown: along(scale(frame.up, levels.crownHeight)),
+    invert: along(scale(frame.up, -levels.invertDepth)),
+    rightWall: along(scale(frame.right, levels.halfWidth)),
+    leftWall: along(scale(frame.right, -levels.halfWidth)),
   };
 }
 

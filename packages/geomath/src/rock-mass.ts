@@ -124,4 +124,22 @@ export type {
   RoundArrival,
   RoundArrivalInput,
 } from './look-ahead.js';
-export { ALONG_TUNNEL_LIMIT, planeCrossings, roundsToCrownAndInvert } from './look-ahead.js';
+export { ALONG_TUNNEL_LIMIT, planeCrossings, roundsToCrownAndInvert, stageCrossings } from './look-ahead.js';
+export type {
+  ExcavationStage,
+  ProfileInput,
+  ProfileOutline,
+  ProfilePoint,
+  ProfileShape,
+  StageGeometryInput,
+  StagePart,
+} from './profile.js';
+export {
+  EXCAVATION_STAGES,
+  PROFILE_SHAPES,
+  clipBetween,
+  polygonArea,
+  profileOutline,
+  stagePart,
+  stageParts,
+} from './profile.js';
