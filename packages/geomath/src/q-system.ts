@@ -582,7 +582,11 @@ export interface QInput {
 }
 
 export type QWarningCode =
-  'not-in-table' | 'spacing-bonus-not-applied' | 'spacing-bonus-assumes-contact' | 'row-value-mismatch';
+  | 'not-in-table'
+  | 'spacing-bonus-not-applied'
+  | 'spacing-bonus-assumes-contact'
+  | 'row-value-mismatch'
+  | 'set-count-mismatch';
 
 /** A warning about a Q input that is accepted but deserves a second look. */
 export interface QWarning {
@@ -749,4 +753,47 @@ function jrSpacingBonus(input: QInput, warnings: QWarning[]): boolean {
     });
   }
   return true;
+}
+
+/**
+ * The Jn row for a number of joint sets found and whether random joints are present (the Jn table: none or
+ * few 0.5–1, one set 2, one set + random 3, two 4, two + random 6, three 9, three + random 12, four or more
+ * 15). Crushed rock (20) is a description, not a count, and is never suggested.
+ */
+export function jnRowForSets(setCount: number, randomJoints: boolean): QTableRow {
+  if (!Number.isInteger(setCount) || setCount < 0) {
+    throw new RatingError(
+      `the number of joint sets must be a whole number of 0 or more, not ${String(setCount)}`,
+    );
+  }
+  const id =
+    setCount >= 4
+      ? 'jn-four'
+      : setCount === 0
+        ? randomJoints
+          ? 'jn-one'
+          : 'jn-massive'
+        : (['jn-one', 'jn-two', 'jn-three'] as const)[setCount - 1] + (randomJoints ? '-random' : '');
+  const row = Q_JN_TABLE.rows.find((r) => r.id === id);
+  if (row === undefined) throw new RatingError(`no Jn row for ${setCount} sets`);
+  return row;
+}
+
+/**
+ * A warning (never a refusal) when Jn does not match the number of sets found plus the random-joints flag;
+ * undefined when it does. Random joints alone (no set) are taken as "one set" (2) or fewer: Jn 0.5–2 fits.
+ * Jn 15 fits four or more sets, and Jn 20 (crushed rock) fits any count.
+ */
+export function jnSetCountWarning(jn: number, setCount: number, randomJoints: boolean): QWarning | undefined {
+  const row = jnRowForSets(setCount, randomJoints);
+  const fits =
+    rowDistance(row, jn) === 0 || jn === 20 || (setCount === 0 && randomJoints && jn >= 0.5 && jn <= 2);
+  if (fits) return undefined;
+  const found = `${setCount === 0 ? 'no' : setCount} set${setCount === 1 ? '' : 's'}${randomJoints ? ' and random joints' : ''}`;
+  return {
+    parameter: 'jn',
+    code: 'set-count-mismatch',
+    message: `Jn ${jn} does not match the ${found} found: the table gives ${rowText(row)}.`,
+    nearest: [row],
+  };
 }

@@ -26,6 +26,8 @@ export {
   Q_SRF_TABLE,
   Q_TABLES,
   Q_TABLE_EDITION,
+  jnRowForSets,
+  jnSetCountWarning,
   nearestQRows,
   qClass,
   qValue,

@@ -9,6 +9,8 @@ import {
   Q_SRF_TABLE,
   Q_TABLES,
   Q_TABLE_EDITION,
+  jnRowForSets,
+  jnSetCountWarning,
   nearestQRows,
   qClass,
   qValue,
@@ -295,5 +297,35 @@ describe('Q inputs between table rows, the spacing note and the edition (issue 1
   it('stamps the table edition', () => {
     expect(Q_TABLE_EDITION).toBe(Q_EDITION.id);
     expect(qValue(base).edition).toBe('ngi-2015');
+  });
+});
+
+// Jn rows by number of sets: Hudson & Harrison 1997 App. C p.498; Singh & Goel 2011 Table 8.1 [source, seen].
+describe('Jn against the sets found and the random-joints flag (warning, not refusal)', () => {
+  it.each([
+    [0, false, 0.75],
+    [1, false, 2],
+    [1, true, 3],
+    [2, false, 4],
+    [2, true, 6],
+    [3, false, 9],
+    [3, true, 12],
+    [4, false, 15],
+    [5, true, 15],
+  ])('%d sets, random %s → Jn %d', (sets, random, jn) => {
+    expect(jnRowForSets(sets, random).value).toBe(jn);
+    expect(jnSetCountWarning(jn, sets, random)).toBeUndefined();
+  });
+
+  it('two sets found and random joints, Jn 4 typed: a warning naming the row 6', () => {
+    const w = jnSetCountWarning(4, 2, true);
+    expect(w?.code).toBe('set-count-mismatch');
+    expect(w?.message).toBe(
+      'Jn 4 does not match the 2 sets and random joints found: the table gives 6 (Two sets and random joints).',
+    );
+    expect(jnSetCountWarning(0.9, 0, false)).toBeUndefined(); // within 0.5–1
+    expect(jnSetCountWarning(20, 2, false)).toBeUndefined(); // crushed rock fits any count
+    expect(jnSetCountWarning(9, 0, true)?.code).toBe('set-count-mismatch');
+    expect(() => jnRowForSets(-1, false)).toThrow(RatingError);
   });
 });
