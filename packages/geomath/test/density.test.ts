@@ -157,17 +157,22 @@ function meanInside(values: Float64Array, cells: number): number {
 
 describe("density units: Kamb's own multiples of σ by default (Kamb 1959; Vollmer 1995; methods.md §3.2)", () => {
   it.each(['kamb', 'exponential'] as const)(
-    '%s: uniform data read 3σ on average and an empty cell 0 (Kamb 1959, from memory: E = 3σ)',
+    '%s: uniform data read 3σ on average (Kamb 1959, from memory: E = 3σ)',
     (method) => {
       const grid = densityGrid(randomLines(3000, 9), { method, net: 'equal-area', cells: 40 });
       expect(grid.units).toBe('multiples-of-sigma');
       expectClose(grid.uniformValue, 3, 1e-3); // E/σ = 3 by the choice of A and k [computed here]
       expect(Math.abs(meanInside(grid.values, 40) - 3)).toBeLessThan(0.1);
-      // One pole: far from it the count is 0, and 0 stays 0 in multiples of σ.
-      const one = densityGrid([{ trend: 0, plunge: 90 }], { method: 'kamb', net: 'equal-area', cells: 20 });
-      expect(one.values[0 + 10 * 20]).toBe(0); // west rim: no pole within the cap
     },
   );
+
+  it('Kamb: a cell with no pole in its cap reads 0 (Kamb 1959, from memory)', () => {
+    // 20 vertical poles: A = 9/29, cap half-angle acos(20/29) = 46.4° [computed here]; the rim is 90° away.
+    const poles = Array.from({ length: 20 }, () => ({ trend: 0, plunge: 90 }));
+    const grid = densityGrid(poles, { method: 'kamb', net: 'equal-area', cells: 20 });
+    expect(grid.values[0 + 10 * 20]).toBe(0); // west rim
+    expectClose(grid.values[10 + 10 * 20], 20 / grid.sigma, 1e-12); // centre: all 20 counted
+  });
 
   it('N = 50 Kamb: a cell with the uniform count E = 7.627 reads 3.000σ, the old convention 0 (methods.md §3.2, computed here)', () => {
     const lines = randomLines(50, 1);
