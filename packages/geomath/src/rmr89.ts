@@ -502,19 +502,19 @@ export function rmr89ConditionWarnings(
             message: `The condition ${name} means gouge under 5 mm, but the governing joint has ${describeInfill(filled)}: A4 rates that 0.`,
           });
         break;
-      case 'soft-gouge-or-wide-open':
-        if (
-          !thickSoft &&
-          (aperture === undefined || aperture < 5) &&
-          (aperture !== undefined || infill !== undefined)
-        )
+      case 'soft-gouge-or-wide-open': {
+        // Separation over 5 mm: the opening is the aperture or, when filled, the filling's thickness.
+        const opening = Math.max(aperture ?? 0, filled?.thicknessMm ?? 0);
+        const known = aperture !== undefined || infill !== undefined;
+        if (known && !thickSoft && opening < RMR89_SOFT_INFILL_GOVERNS_MM)
           out.push({
-            code: filled || infill !== undefined ? 'infill' : 'aperture',
+            code: infill !== undefined ? 'infill' : 'aperture',
             message: `The condition ${name} means soft gouge or an opening of 5 mm or more, but the governing joint has ${
               infill !== undefined ? describeInfill(infill) : 'no infill recorded'
             }${aperture !== undefined ? ` and is open ${mm(aperture)}` : ''}.`,
           });
         break;
+      }
     }
     return out;
   }

@@ -444,7 +444,13 @@ describe('RMR89 condition against the governing joint recorded (warnings; A4 wor
         { apertureMm: 40, infill: { kind: 'soft', thicknessMm: 40 } },
       ),
     ).toEqual([]);
-    // A wide opening without infill also fits "open over 5 mm".
+    // A wide opening without infill, or a hard filling 10 mm thick, also fits "open over 5 mm".
+    expect(
+      rmr89ConditionWarnings(
+        { kind: 'simple', condition: 'soft-gouge-or-wide-open' },
+        { infill: { kind: 'hard', thicknessMm: 10 } },
+      ),
+    ).toEqual([]);
     expect(
       rmr89ConditionWarnings({ kind: 'simple', condition: 'soft-gouge-or-wide-open' }, { apertureMm: 8 }),
     ).toEqual([]);
