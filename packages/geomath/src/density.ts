@@ -1,6 +1,8 @@
 // Density of poles over the net (methods.md §3.2): Kamb (1959) counting and the exponential ("modified
-// Kamb") kernel of Vollmer (1995), reported in multiples of σ above the uniform expectation E. Contour
-// lines are traced by d3-contour.
+// Kamb") kernel of Vollmer (1995), reported by default in Kamb's own units, multiples of σ (value =
+// density/σ, so a uniform distribution reads 3σ and an empty cell 0). "σ above uniform" ((density − E)/σ)
+// and multiples of the uniform density (density/E) are named options. Contour lines are traced by
+// d3-contour.
 import { contours } from 'd3-contour';
 import { exactVector } from './angles.js';
 import { AxialIndex } from './kernel-index.js';
@@ -15,16 +17,36 @@ const { exp, abs, sqrt } = Math;
 
 export type DensityMethod = 'kamb' | 'exponential';
 
+/**
+ * Units of a density grid's values (methods.md §3.2):
+ * - 'multiples-of-sigma' (default): density/σ, Kamb's (1959) own units; uniform = E/σ = 3σ by construction,
+ *   an empty cell 0;
+ * - 'sigma-above-uniform': (density − E)/σ; uniform = 0, an empty cell −3;
+ * - 'multiples-of-uniform': density/E; uniform = 1, an empty cell 0.
+ */
+export type DensityUnits = 'multiples-of-sigma' | 'sigma-above-uniform' | 'multiples-of-uniform';
+
+export const DENSITY_UNITS: readonly DensityUnits[] = [
+  'multiples-of-sigma',
+  'sigma-above-uniform',
+  'multiples-of-uniform',
+];
+
 export interface DensityGrid {
   /** Cells along each side; values has cells × cells entries. */
   cells: number;
   /**
    * Row-major, row 0 at the top (north) and column 0 at the left (west), as an image. Value of the cell
    * centred at x = −1 + (i + ½)·2/cells, y = 1 − (j + ½)·2/cells (net radius 1) is values[i + j·cells], in
-   * multiples of σ above the uniform expectation: raw density = expected + value·sigma. Cells outside the
+   * `units` (default multiples of σ: raw density = value·sigma; see `rawDensity`). Cells outside the
    * primitive hold the value at the point of the primitive on the same radius, so contours stay closed.
    */
   values: Float64Array;
+  /** What the values mean; show `densityLegend(grid)` beside every plot. */
+  units: DensityUnits;
+  method: DensityMethod;
+  /** The value a uniform distribution gives in these units (3 in multiples of σ, unweighted). */
+  uniformValue: number;
   /** Raw density expected at every cell under a uniform distribution (counts, or kernel sum). */
   expected: number;
   /** Standard deviation of the raw density under a uniform distribution. */
@@ -167,13 +189,25 @@ export function kernelSums(
  * Exponential kernel (Vollmer 1995): Σ exp(k(|cos θ| − 1)) with k = 2(1 + N/9), E and σ from the exact
  * kernel moments. With weights, E and σ use Σw and Σw² (N stays the number of poles for A and k).
  * Kernel values below 1e-12/k are skipped (poles are binned in space), which changes no value by more
- * than 1e-12·E.
+ * than 1e-12·E. Values are in `units`, by default Kamb's multiples of σ (density/σ; uniform = 3σ,
+ * empty = 0); 'sigma-above-uniform' and 'multiples-of-uniform' must be asked for by name.
  */
 export function densityGrid(
   lines: Line[],
-  options: { method: DensityMethod; net: Net; cells: number; weights?: number[] },
+  options: {
+    method: DensityMethod;
+    net: Net;
+    cells: number;
+    weights?: number[];
+    /** Default 'multiples-of-sigma' (Kamb 1959). */
+    units?: DensityUnits;
+  },
 ): DensityGrid {
   const { method, net, cells, weights } = options;
+  const units = options.units ?? 'multiples-of-sigma';
+  if (!DENSITY_UNITS.includes(units)) {
+    throw new RangeError(`Unknown density units ${String(units)}: expected ${DENSITY_UNITS.join(', ')}.`);
+  }
   if (!Number.isInteger(cells) || cells < 2 || cells > 2000) {
     throw new RangeError(
       `A density grid needs a whole number of cells from 2 to 2000 per side, not ${cells}.`,
@@ -203,9 +237,78 @@ export function densityGrid(
   }
   const raw = kernelSums(data, densityNodes(net, cells), method, parameter);
   const values = raw;
-  const scale = sigma > 0 ? 1 / sigma : 0;
-  for (let g = 0; g < values.length; g++) values[g] = (raw[g] - expected) * scale;
-  return { cells, values, expected, sigma };
+  const { offset, scale } = unitTransform(units, expected, sigma);
+  for (let g = 0; g < values.length; g++) values[g] = (raw[g] - offset) * scale;
+  return {
+    cells,
+    values,
+    expected,
+    sigma,
+    units,
+    method,
+    uniformValue: (expected - offset) * scale,
+  };
+}
+
+/** value = (raw − offset)·scale for each unit. */
+function unitTransform(
+  units: DensityUnits,
+  expected: number,
+  sigma: number,
+): { offset: number; scale: number } {
+  switch (units) {
+    case 'multiples-of-sigma':
+      return { offset: 0, scale: sigma > 0 ? 1 / sigma : 0 };
+    case 'sigma-above-uniform':
+      return { offset: expected, scale: sigma > 0 ? 1 / sigma : 0 };
+    case 'multiples-of-uniform':
+      return { offset: 0, scale: expected > 0 ? 1 / expected : 0 };
+  }
+}
+
+/** The raw density (count in the cap, or kernel sum) behind a value of the grid. */
+export function rawDensity(grid: Pick<DensityGrid, 'units' | 'expected' | 'sigma'>, value: number): number {
+  switch (grid.units) {
+    case 'multiples-of-sigma':
+      return value * grid.sigma;
+    case 'sigma-above-uniform':
+      return grid.expected + value * grid.sigma;
+    case 'multiples-of-uniform':
+      return value * grid.expected;
+  }
+}
+
+const METHOD_NAMES: Record<DensityMethod, string> = {
+  kamb: 'Kamb 1959',
+  exponential: 'exponential kernel, Vollmer 1995',
+};
+
+const formatUniform = (value: number): string => {
+  const rounded = Math.round(value * 10) / 10;
+  return Number.isInteger(rounded) ? String(rounded) : rounded.toFixed(1);
+};
+
+/**
+ * The legend text for a density plot, naming the units, the method and what a uniform distribution reads:
+ * "multiples of σ, Kamb 1959; uniform = 3σ", "σ above uniform, exponential kernel, Vollmer 1995;
+ * uniform = 0σ", "multiples of uniform, Kamb 1959; uniform = 1". With a grid, the uniform value is the
+ * grid's own (weights can move it off 3σ); with only a method and units, the unweighted value.
+ */
+export function densityLegend(
+  grid: Pick<DensityGrid, 'units' | 'method'> & { uniformValue?: number },
+): string {
+  const uniform =
+    grid.uniformValue ??
+    (grid.units === 'multiples-of-sigma' ? 3 : grid.units === 'sigma-above-uniform' ? 0 : 1);
+  const method = METHOD_NAMES[grid.method];
+  switch (grid.units) {
+    case 'multiples-of-sigma':
+      return `multiples of σ, ${method}; uniform = ${formatUniform(uniform)}σ`;
+    case 'sigma-above-uniform':
+      return `σ above uniform, ${method}; uniform = ${formatUniform(uniform)}σ`;
+    case 'multiples-of-uniform':
+      return `multiples of uniform, ${method}; uniform = ${formatUniform(uniform)}`;
+  }
 }
 
 /** One contour level: polygons (rings of [x, y] in net coordinates, radius 1) enclosing value ≥ level. */
@@ -215,7 +318,7 @@ export interface DensityContour {
 }
 
 /**
- * Contour lines of a density grid at the given levels (in σ above E), traced by d3-contour and mapped to
+ * Contour lines of a density grid at the given levels (in the grid's units), traced by d3-contour and mapped to
  * net coordinates (x east, y north, radius 1). Clip them to the primitive when drawing.
  */
 export function densityContours(grid: DensityGrid, levels: number[]): DensityContour[] {

@@ -25,10 +25,32 @@ export {
 } from './angles.js';
 export { project, unproject, greatCircle, smallCircle } from './projection.js';
 export type { Net } from './projection.js';
-export { fisherStatistics, terzaghiWeight } from './statistics.js';
-export type { FisherResult } from './statistics.js';
-export { densityGrid, densityContours, exponentialK, kambFraction } from './density.js';
-export type { DensityGrid, DensityMethod, DensityContour } from './density.js';
+export {
+  fisherStatistics,
+  terzaghiWeight,
+  terzaghiWeightFor,
+  terzaghiWeights,
+  TERZAGHI_SAMPLINGS,
+  TERZAGHI_SAMPLING_LABELS,
+  TERZAGHI_DEFAULT_CAP,
+} from './statistics.js';
+export type {
+  FisherResult,
+  TerzaghiSampling,
+  TerzaghiOptions,
+  TerzaghiWeights,
+  WeightingUsed,
+} from './statistics.js';
+export {
+  densityGrid,
+  densityContours,
+  densityLegend,
+  rawDensity,
+  exponentialK,
+  kambFraction,
+  DENSITY_UNITS,
+} from './density.js';
+export type { DensityGrid, DensityMethod, DensityContour, DensityUnits } from './density.js';
 export { findSets, SET_SEPARATION, SET_SIGNIFICANCE } from './sets.js';
 export type { JointSet } from './sets.js';
 export {
@@ -39,6 +61,24 @@ export {
   parseChainage,
   type ChainageStyle,
 } from './alignment.js';
+export {
+  CHAINAGE_SENSES,
+  alignmentLength,
+  alignmentPointAt,
+  chainageAhead,
+  chainageSign,
+  distanceAheadOf,
+  driveAt,
+  driveBearingAt,
+  positionAt,
+  straightAlignment,
+} from './heading-alignment.js';
+export type {
+  AlignmentPoint,
+  AlignmentSegment,
+  ChainageSense,
+  HeadingAlignment,
+} from './heading-alignment.js';
 export {
   STRENGTH_GRADES,
   WEATHERING_GRADES,

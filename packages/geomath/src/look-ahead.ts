@@ -1,3 +1,5 @@
+import type { ChainageSense } from './heading-alignment.js';
+import { chainageSign } from './heading-alignment.js';
 import { DEG } from './math.js';
 import { tunnelFrame } from './tunnel-frame.js';
 import type { Drive, Plane, Vector3 } from './types.js';
@@ -19,6 +21,11 @@ export interface PlaneCrossingsInput {
   crownHeight: number;
   invertDepth: number;
   halfWidth: number;
+  /**
+   * How chainage runs in the drive direction (default 'increasing'). With 'decreasing' (a heading driven
+   * against the chainage) a crossing ahead of the face has a smaller chainage than the face.
+   */
+  chainageSense?: ChainageSense;
 }
 
 export interface PlaneCrossings {
@@ -51,31 +58,69 @@ function checkPlane(plane: Plane): void {
   }
 }
 
-/** Chainages where the plane crosses the axis, crown, invert and walls; null where it runs along them. */
+/**
+ * Chainages where the plane crosses the axis, crown, invert and walls; null where it runs along them.
+ * The distance t along the axis in the drive direction becomes chainage face + t, or face − t when the
+ * chainage decreases in the drive direction (`chainageSense: 'decreasing'`).
+ */
 export function planeCrossings(input: PlaneCrossingsInput): PlaneCrossings {
+  checkCommon(input);
+  requireLength('crown height', input.crownHeight);
+  requireLength('invert depth', input.invertDepth);
+  requireLength('half-width', input.halfWidth);
+  return crossingsAt(input, input);
+}
+
+/**
+ * Like planeCrossings for one stage's part of the profile (see `stagePart`): `crown` is the top of the
+ * part and `invert` its floor, with signed heights relative to the axis (a bench below the axis has a
+ * negative crownHeight); the walls at the part's largest half-width.
+ */
+export function stageCrossings(
+  input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>,
+  part: { crownHeight: number; invertDepth: number; halfWidth: number },
+): PlaneCrossings {
+  checkCommon(input);
+  if (!Number.isFinite(part.crownHeight) || !Number.isFinite(part.invertDepth)) {
+    throw new RatingError("the part's crown height and invert depth must be finite numbers of metres");
+  }
+  if (part.crownHeight + part.invertDepth < 0) {
+    throw new RatingError(
+      "the part's crown lies below its floor: expected crownHeight + invertDepth of 0 m or more",
+    );
+  }
+  requireLength('half-width', part.halfWidth);
+  return crossingsAt(input, part);
+}
+
+function checkCommon(input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>): void {
   checkPlane(input.plane);
   if (!Number.isFinite(input.chainage))
     throw new RatingError('face chainage must be a finite number of metres');
   if (!Number.isFinite(input.offset.right) || !Number.isFinite(input.offset.up)) {
     throw new RatingError('the mapped point offsets must be finite numbers of metres');
   }
-  requireLength('crown height', input.crownHeight);
-  requireLength('invert depth', input.invertDepth);
-  requireLength('half-width', input.halfWidth);
+}
+
+function crossingsAt(
+  input: Omit<PlaneCrossingsInput, 'crownHeight' | 'invertDepth' | 'halfWidth'>,
+  levels: { crownHeight: number; invertDepth: number; halfWidth: number },
+): PlaneCrossings {
+  const sign = chainageSign(input.chainageSense);
   const frame = tunnelFrame(input.drive);
   const n = planeNormal(input.plane);
   const na = dot(n, frame.forward);
   const point = add(scale(frame.right, input.offset.right), scale(frame.up, input.offset.up));
   const along = (origin: Vector3): number | null => {
     if (Math.abs(na) < ALONG_TUNNEL_LIMIT) return null;
-    return input.chainage + (dot(n, point) - dot(n, origin)) / na;
+    return input.chainage + (sign * (dot(n, point) - dot(n, origin))) / na;
   };
   return {
     axis: along([0, 0, 0]),
-    crown: along(scale(frame.up, input.crownHeight)),
-    invert: along(scale(frame.up, -input.invertDepth)),
-    rightWall: along(scale(frame.right, input.halfWidth)),
-    leftWall: along(scale(frame.right, -input.halfWidth)),
+    crown: along(scale(frame.up, levels.crownHeight)),
+    invert: along(scale(frame.up, -levels.invertDepth)),
+    rightWall: along(scale(frame.right, levels.halfWidth)),
+    leftWall: along(scale(frame.right, -levels.halfWidth)),
   };
 }
 
@@ -99,12 +144,15 @@ export interface RoundArrivalInput {
   crownHeight: number;
   invertDepth: number;
   halfWidth: number;
+  /** Default 'increasing'; see PlaneCrossingsInput. */
+  chainageSense?: ChainageSense;
 }
 
 /**
  * Where one line of the tunnel meets the plane relative to the coming rounds. Round k (1 = the next round)
- * covers chainages over faceChainage + (k − 1)·L up to and including faceChainage + k·L: a crossing exactly
- * at the end of a round is exposed by that round. A crossing at or behind the face is 'behind'.
+ * covers distances ahead of the face over (k − 1)·L up to and including k·L: a crossing exactly at the end
+ * of a round is exposed by that round. A crossing at or behind the face is 'behind'. Distances ahead are
+ * measured in the drive direction, so they are positive ahead whatever the chainage sense.
  */
 export type Arrival =
   | { status: 'ahead'; chainage: number; distanceAhead: number; round: number }
@@ -120,9 +168,9 @@ export interface RoundArrival {
   summary: string;
 }
 
-function arrival(chainage: number | null, face: number, roundLength: number): Arrival {
+function arrival(chainage: number | null, face: number, roundLength: number, sign: 1 | -1): Arrival {
   if (chainage === null) return { status: 'runs along the tunnel' };
-  const distanceAhead = chainage - face;
+  const distanceAhead = sign * (chainage - face);
   if (distanceAhead <= 0) return { status: 'behind', chainage, distanceAhead };
   // A tiny tolerance so that a crossing computed as k·L + 1e-12 still belongs to round k.
   const round = Math.max(1, Math.ceil(distanceAhead / roundLength - 1e-9));
@@ -145,8 +193,10 @@ export function roundsToCrownAndInvert(input: RoundArrivalInput): RoundArrival[]
   if (!Number.isFinite(input.roundLength) || input.roundLength <= 0) {
     throw new RatingError(`round length ${String(input.roundLength)} m is not valid: expected more than 0 m`);
   }
+  const sign = chainageSign(input.chainageSense);
   return input.planes.map((mapped) => {
     const crossings = planeCrossings({
+      chainageSense: input.chainageSense,
       plane: mapped.plane,
       chainage: input.faceChainage,
       offset: mapped.offset ?? { right: 0, up: 0 },
@@ -155,8 +205,8 @@ export function roundsToCrownAndInvert(input: RoundArrivalInput): RoundArrival[]
       invertDepth: input.invertDepth,
       halfWidth: input.halfWidth,
     });
-    const crown = arrival(crossings.crown, input.faceChainage, input.roundLength);
-    const invert = arrival(crossings.invert, input.faceChainage, input.roundLength);
+    const crown = arrival(crossings.crown, input.faceChainage, input.roundLength, sign);
+    const invert = arrival(crossings.invert, input.faceChainage, input.roundLength, sign);
     return {
       label: mapped.label,
       kind: mapped.kind,

@@ -142,14 +142,23 @@ function signedDifference(a: number, b: number): number {
   return d;
 }
 
-/** Which letters may name a dip direction: the quadrant strictly containing it, or a letter within 90°. */
+/**
+ * A single dip letter names a dip direction only within this angle of it (common practice): N89E 40E is
+ * refused, since E lies 89° from either side of that strike.
+ */
+export const SINGLE_LETTER_LIMIT = 67.5;
+
+/**
+ * Which letters may name a dip direction: the quadrant strictly containing it, or a single letter within
+ * 67.5° (SINGLE_LETTER_LIMIT, included) of it.
+ */
 function letterFits(letters: string, dipDirection: number): boolean {
   const centre = DIRECTION_OF_LETTERS[letters];
   if (centre === undefined) return false;
   const d = Math.abs(signedDifference(centre, dipDirection));
   // A quadrant (two letters) must contain the dip direction strictly; on its edge the single letter is
   // the unambiguous name (strike N–S takes E or W, strike E–W takes N or S).
-  return letters.length === 2 ? d < 45 - 1e-9 : d < 90 - 1e-9;
+  return letters.length === 2 ? d < 45 - 1e-9 : d <= SINGLE_LETTER_LIMIT + 1e-9;
 }
 
 /** Name of a dip direction for display: a single letter on a cardinal direction, else the quadrant. */
@@ -163,7 +172,14 @@ function quadrantLabel(dipDirection: number): string {
   return 'NW';
 }
 
-function resolveDipQuadrant(strike: number, dip: number, letters: string, original: string): Plane {
+function resolveDipQuadrant(
+  strike: number,
+  dip: number,
+  letters: string,
+  original: string,
+  strikeText: string,
+  dipText: string,
+): Plane {
   if (DIRECTION_OF_LETTERS[letters] === undefined) {
     throw new OrientationError(
       `The dip direction “${letters}” in ${quote(original)} is not a compass quadrant: use N, E, S, W, NE, SE, SW or NW.`,
@@ -180,9 +196,25 @@ function resolveDipQuadrant(strike: number, dip: number, letters: string, origin
         .sort((a, b) => b.length - a.length);
       return `${formatAngle(dd, 3)}° (${names.join(', ').replace(/, ([^,]*)$/, ' or $1')})`;
     };
+    const reading = (dd: number): string => {
+      const names = Object.keys(DIRECTION_OF_LETTERS).filter((l) => letterFits(l, dd));
+      // The nearest name: a single letter when one fits, else the quadrant.
+      names.sort(
+        (a, b) =>
+          Math.abs(signedDifference(DIRECTION_OF_LETTERS[a], dd)) -
+          Math.abs(signedDifference(DIRECTION_OF_LETTERS[b], dd)),
+      );
+      return `${strikeText} ${dipText}${names[0] ?? ''} (${formatAngle(dd, 3)}/${formatAngle(dip, 2)})`;
+    };
+    const why =
+      letters.length === 1
+        ? ` A single letter must lie within ${SINGLE_LETTER_LIMIT}° of the dip direction it names; ` +
+          `${letters} is ${formatAngle(Math.min(Math.abs(signedDifference(DIRECTION_OF_LETTERS[letters], right)), Math.abs(signedDifference(DIRECTION_OF_LETTERS[letters], left))), 1)}° from the nearer side.`
+        : '';
     throw new OrientationError(
       `The dip direction ${letters} does not fit the strike in ${quote(original)}: a plane striking ` +
-        `${formatAngle(strike, 3)}° dips at right angles to its strike, toward ${options(right)} or ${options(left)}.`,
+        `${formatAngle(strike, 3)}° dips at right angles to its strike, toward ${options(right)} or ${options(left)}.` +
+        `${why} Valid readings: ${reading(right)} or ${reading(left)}.`,
     );
   }
   return { dipDirection: fitsRight ? right : left, dip };
@@ -236,11 +268,11 @@ export function parsePlane(text: string, options?: { notation?: PlaneNotation })
   }
   if (shape === 'nnl') {
     const strike = checkAzimuth(num(0), 'Strike');
-    return resolveDipQuadrant(strike, checkDip(num(1)), str(2), text);
+    return resolveDipQuadrant(strike, checkDip(num(1)), str(2), text, str(0), str(1));
   }
   if (shape === 'lnlnl') {
     const strike = bearingToAzimuth(str(0), num(1), str(2), `${str(0)}${str(1)}${str(2)}`);
-    return resolveDipQuadrant(strike, checkDip(num(3)), str(4), text);
+    return resolveDipQuadrant(strike, checkDip(num(3)), str(4), text, `${str(0)}${str(1)}${str(2)}`, str(3));
   }
   if (['n', 'nl', 'ln', 'lnl', 'lnln'].includes(shape)) {
     throw new OrientationError(

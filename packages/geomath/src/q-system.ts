@@ -17,6 +17,9 @@ export const Q_EDITION = {
   ],
 } as const;
 
+/** The table edition a round stamps with its Q (the UI shows Q_EDITION.name). */
+export const Q_TABLE_EDITION: string = Q_EDITION.id;
+
 export type QParameter = 'rqd' | 'jn' | 'jr' | 'ja' | 'jw' | 'srf';
 export type TableCheck = 'seen' | 'from memory';
 
@@ -431,7 +434,8 @@ export const Q_SRF_TABLE: QParameterTable = {
       group: SRF_B,
       description:
         'High stress, very tight; usually good for the roof, maybe not for the walls (σc/σ1 10–5, σθ/σc 0.3–0.4)',
-      value: 1,
+      // The middle of the range, as for every range row of these tables (was 1 before issue 10).
+      value: 1.25,
       range: [0.5, 2],
       check: 'from memory',
     },
@@ -565,8 +569,32 @@ export interface QInput {
   srf: number;
   /** Default 'tunnel' (factor 1). */
   location?: QLocation;
-  /** True when the mean spacing of the relevant set is more than 3 m: Jr + 1. */
+  /**
+   * True when the mean spacing of the relevant set is more than 3 m: Jr + 1, for the wall-contact groups
+   * only (not for a zone that keeps the walls apart).
+   */
   jrSpacingOver3m?: boolean;
+  /**
+   * The Jr row chosen (an id of Q_JR_TABLE), when known: it says whether the walls are in contact, which
+   * Jr 1 alone does not (smooth planar, or a zone without wall contact).
+   */
+  jrRowId?: string;
+}
+
+export type QWarningCode =
+  | 'not-in-table'
+  | 'spacing-bonus-not-applied'
+  | 'spacing-bonus-assumes-contact'
+  | 'row-value-mismatch'
+  | 'set-count-mismatch';
+
+/** A warning about a Q input that is accepted but deserves a second look. */
+export interface QWarning {
+  parameter: QParameter;
+  code: QWarningCode;
+  message: string;
+  /** For 'not-in-table': the nearest rows below and above the value. */
+  nearest?: readonly QTableRow[];
 }
 
 export interface QResult {
@@ -577,6 +605,12 @@ export interface QResult {
   /** Jr after the +1 for spacing over 3 m. */
   jrUsed: number;
   rockClass: QClass;
+  /** True when the +1 for spacing over 3 m was added to Jr. */
+  jrSpacingApplied: boolean;
+  /** Inputs accepted but worth a second look (values between table rows, the spacing note). */
+  warnings: QWarning[];
+  /** Q_TABLE_EDITION: the table edition used. */
+  edition: string;
 }
 
 const LOCATION_FACTOR: Record<QLocation, number> = { tunnel: 1, intersection: 3, portal: 2 };
@@ -594,7 +628,10 @@ function checkQParameter(table: QParameterTable, value: number): void {
 
 /**
  * Q = (RQD/Jn)·(Jr/Ja)·(Jw/SRF). Every parameter is checked against its table's range (RatingError
- * otherwise); RQD below 10 is taken as 10.
+ * otherwise); RQD below 10 is taken as 10. A value between table rows (Jn 7) is accepted with a warning
+ * naming the nearest rows. The +1 to Jr for spacing over 3 m is added only for the wall-contact groups:
+ * not when `jrRowId` names a zone without wall contact; Jr 1 without a row is taken as walls in contact,
+ * with a warning.
  */
 export function qValue(input: QInput): QResult {
   for (const table of Q_TABLES) checkQParameter(table, input[table.parameter]);
@@ -605,10 +642,158 @@ export function qValue(input: QInput): QResult {
       `location "${String(location)}" is not known: expected tunnel, intersection or portal`,
     );
   }
+  const warnings: QWarning[] = [];
+  for (const table of Q_TABLES) {
+    if (table.parameter === 'rqd') continue;
+    const w = notInTableWarning(table, input[table.parameter]);
+    if (w) warnings.push(w);
+  }
+  const spacing = jrSpacingBonus(input, warnings);
   const rqdUsed = Math.max(10, input.rqd);
   const jnUsed = input.jn * factor;
-  const jrUsed = input.jr + (input.jrSpacingOver3m === true ? 1 : 0);
+  const jrUsed = input.jr + (spacing ? 1 : 0);
   const q = (rqdUsed / jnUsed) * (jrUsed / input.ja) * (input.jw / input.srf);
   requireFinite('Q', q);
-  return { q, rqdUsed, jnUsed, jrUsed, rockClass: qClass(q) };
+  return {
+    q,
+    rqdUsed,
+    jnUsed,
+    jrUsed,
+    rockClass: qClass(q),
+    jrSpacingApplied: spacing,
+    warnings,
+    edition: Q_TABLE_EDITION,
+  };
+}
+
+const ROW_TOLERANCE = 1e-9;
+
+/** Distance from a value to a row: 0 inside its range (ends included) or at its value. */
+function rowDistance(row: QTableRow, value: number): number {
+  if (row.range) {
+    if (value >= row.range[0] - ROW_TOLERANCE && value <= row.range[1] + ROW_TOLERANCE) return 0;
+    return Math.min(Math.abs(value - row.range[0]), Math.abs(value - row.range[1]));
+  }
+  const d = Math.abs(value - row.value);
+  return d <= ROW_TOLERANCE ? 0 : d;
+}
+
+const rowText = (row: QTableRow): string =>
+  `${row.range ? `${row.range[0]}–${row.range[1]}` : String(row.value)} (${row.description})`;
+
+/**
+ * The rows of a Q table nearest to a value that no row holds: the nearest row(s) below and above it.
+ * Empty when a row holds the value (at its value or within its range).
+ */
+export function nearestQRows(parameter: QParameter, value: number): QTableRow[] {
+  const table = Q_TABLES.find((t) => t.parameter === parameter);
+  if (table === undefined) throw new RatingError(`Q parameter "${String(parameter)}" is not known`);
+  if (table.rows.some((r) => rowDistance(r, value) === 0)) return [];
+  const below = table.rows.filter((r) => (r.range ? r.range[1] : r.value) < value);
+  const above = table.rows.filter((r) => (r.range ? r.range[0] : r.value) > value);
+  const nearestOf = (rows: readonly QTableRow[]): QTableRow[] => {
+    if (rows.length === 0) return [];
+    const best = Math.min(...rows.map((r) => rowDistance(r, value)));
+    return rows.filter((r) => rowDistance(r, value) - best <= ROW_TOLERANCE);
+  };
+  return [...nearestOf(below), ...nearestOf(above)];
+}
+
+function notInTableWarning(table: QParameterTable, value: number): QWarning | undefined {
+  const nearest = nearestQRows(table.parameter, value);
+  if (nearest.length === 0) return undefined;
+  return {
+    parameter: table.parameter,
+    code: 'not-in-table',
+    message: `${table.symbol} ${value} is not a value of the ${table.title.toLowerCase()} table (${Q_EDITION.id}): the nearest rows are ${nearest
+      .map(rowText)
+      .join(', ')
+      .replace(/, ([^,]*)$/, ' and $1')}.`,
+    nearest,
+  };
+}
+
+/** Whether the +1 for spacing over 3 m applies: only to the wall-contact groups of Jr. */
+function jrSpacingBonus(input: QInput, warnings: QWarning[]): boolean {
+  let row: QTableRow | undefined;
+  if (input.jrRowId !== undefined) {
+    row = Q_JR_TABLE.rows.find((r) => r.id === input.jrRowId);
+    if (row === undefined) {
+      throw new RatingError(
+        `Jr row "${String(input.jrRowId)}" is not in the table: expected one of ${Q_JR_TABLE.rows.map((r) => r.id).join(', ')}`,
+      );
+    }
+    if (rowDistance(row, input.jr) !== 0) {
+      warnings.push({
+        parameter: 'jr',
+        code: 'row-value-mismatch',
+        message: `Jr ${input.jr} is not the value of the row chosen, “${row.description}” (${row.value}).`,
+      });
+    }
+  }
+  if (input.jrSpacingOver3m !== true) return false;
+  if (row?.group === NO_CONTACT) {
+    warnings.push({
+      parameter: 'jr',
+      code: 'spacing-bonus-not-applied',
+      message: `The +1 for spacing over 3 m is for walls in contact; it is not added to Jr ${input.jr} of “${row.description}” (no wall contact).`,
+    });
+    return false;
+  }
+  const contactRows = Q_JR_TABLE.rows.filter((r) => r.group !== NO_CONTACT);
+  const contactPossible = contactRows.some((r) => rowDistance(r, input.jr) === 0);
+  const noContactPossible = Q_JR_TABLE.rows.some(
+    (r) => r.group === NO_CONTACT && rowDistance(r, input.jr) === 0,
+  );
+  if (row === undefined && noContactPossible && contactPossible) {
+    warnings.push({
+      parameter: 'jr',
+      code: 'spacing-bonus-assumes-contact',
+      message: `Jr ${input.jr} is both “smooth, planar” (walls in contact) and a zone that keeps the walls apart; the +1 for spacing over 3 m was added as for walls in contact. Name the Jr row to be sure.`,
+    });
+  }
+  return true;
+}
+
+/**
+ * The Jn row for a number of joint sets found and whether random joints are present (the Jn table: none or
+ * few 0.5–1, one set 2, one set + random 3, two 4, two + random 6, three 9, three + random 12, four or more
+ * 15). Crushed rock (20) is a description, not a count, and is never suggested.
+ */
+export function jnRowForSets(setCount: number, randomJoints: boolean): QTableRow {
+  if (!Number.isInteger(setCount) || setCount < 0) {
+    throw new RatingError(
+      `the number of joint sets must be a whole number of 0 or more, not ${String(setCount)}`,
+    );
+  }
+  const id =
+    setCount >= 4
+      ? 'jn-four'
+      : setCount === 0
+        ? randomJoints
+          ? 'jn-one'
+          : 'jn-massive'
+        : (['jn-one', 'jn-two', 'jn-three'] as const)[setCount - 1] + (randomJoints ? '-random' : '');
+  const row = Q_JN_TABLE.rows.find((r) => r.id === id);
+  if (row === undefined) throw new RatingError(`no Jn row for ${setCount} sets`);
+  return row;
+}
+
+/**
+ * A warning (never a refusal) when Jn does not match the number of sets found plus the random-joints flag;
+ * undefined when it does. Random joints alone (no set) are taken as "one set" (2) or fewer: Jn 0.5–2 fits.
+ * Jn 15 fits four or more sets, and Jn 20 (crushed rock) fits any count.
+ */
+export function jnSetCountWarning(jn: number, setCount: number, randomJoints: boolean): QWarning | undefined {
+  const row = jnRowForSets(setCount, randomJoints);
+  const fits =
+    rowDistance(row, jn) === 0 || jn === 20 || (setCount === 0 && randomJoints && jn >= 0.5 && jn <= 2);
+  if (fits) return undefined;
+  const found = `${setCount === 0 ? 'no' : setCount} set${setCount === 1 ? '' : 's'}${randomJoints ? ' and random joints' : ''}`;
+  return {
+    parameter: 'jn',
+    code: 'set-count-mismatch',
+    message: `Jn ${jn} does not match the ${found} found: the table gives ${rowText(row)}.`,
+    nearest: [row],
+  };
 }

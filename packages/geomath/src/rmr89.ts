@@ -255,7 +255,8 @@ export type Rmr89Orientation =
  * - rqd: 0–100 %.
  * - spacingM: mean spacing of discontinuities, metres (> 0).
  * - condition: the simple A4 class, or the detailed E ratings (persistence m, separation mm, roughness,
- *   infilling, weathering) whose sum replaces A4.
+ *   infilling, weathering) whose sum replaces A4 — except that soft infilling of 5 mm or more governs and
+ *   the condition is then 0 (Bieniawski's note to Table E; RMR89_SOFT_INFILL_NOTE).
  * - groundwater: inflow per 10 m of tunnel (L/min), pressure ratio, or the general condition.
  * - orientation: an assessment, a set and the drive (rmrOrientationInTunnel), or 'not assessed' (0).
  */
@@ -279,7 +280,22 @@ export interface Rmr89Result {
   /** RMR89′ for GSI: groundwater taken as dry (15) and no orientation adjustment. */
   dryUnadjusted: number;
   meaning: (typeof RMR89_CLASSES)[number];
+  /** Set when a note to table E overrode the sum of the E ratings (the condition rating is then 0). */
+  conditionGovernedBy?: 'soft infilling 5 mm or more';
+  /** Notes applied, in words, for the UI to show beside the condition rating. */
+  notes: string[];
 }
+
+/**
+ * Bieniawski's note to Table 4.1 E (1989; methods.md §4.2, from memory): where soft infilling thicker than
+ * 5 mm is present it governs, and the condition rating is that of A4's last row (0), whatever the other E
+ * ratings sum to. Roundbook applies it from 5 mm itself (a boundary value takes the less favourable side).
+ */
+export const RMR89_SOFT_INFILL_NOTE =
+  'Soft infilling of 5 mm or more governs the joint condition (Bieniawski 1989, note to Table 4.1 E): the condition rating is that of A4, soft gouge over 5 mm (0), not the sum of the E ratings.';
+
+/** Thickness (mm) from which soft infilling governs the condition (Roundbook boundary rule: 5 mm included). */
+export const RMR89_SOFT_INFILL_GOVERNS_MM = 5;
 
 function strengthRating(strength: Rmr89Strength): number {
   switch (strength.kind) {
@@ -312,16 +328,23 @@ function conditionRatings(condition: Rmr89Condition): Record<string, number> {
       const roughness = lookup('roughness', condition.roughness, RMR89_ROUGHNESS);
       const weathering = lookup('weathering', condition.weathering, RMR89_WEATHERING);
       const infilling = infillingRating(condition.infilling);
+      const governed = softInfillGoverns(condition.infilling);
       return {
         persistence,
         separation,
         roughness,
         infilling,
         weathering,
-        condition: persistence + separation + roughness + infilling + weathering,
+        condition: governed
+          ? RMR89_CONDITION_SIMPLE[RMR89_CONDITION_SIMPLE.length - 1].rating
+          : persistence + separation + roughness + infilling + weathering,
       };
     }
   }
+}
+
+function softInfillGoverns(infilling: Rmr89Infilling): boolean {
+  return infilling.kind === 'soft' && infilling.thicknessMm >= RMR89_SOFT_INFILL_GOVERNS_MM;
 }
 
 function infillingRating(infilling: Rmr89Infilling): number {
@@ -387,12 +410,137 @@ export function rmr89(input: Rmr89Input): Rmr89Result {
   const total = basic + orientation;
   const rockClass = rmr89Class(total);
   const meaning = RMR89_CLASSES.find((c) => c.rockClass === rockClass) ?? RMR89_CLASSES[4];
-  return {
+  const governed = input.condition.kind === 'detailed' && softInfillGoverns(input.condition.infilling);
+  const result: Rmr89Result = {
     total,
     rockClass,
     ratings: { strength, rqd, spacing, ...condition, groundwater, orientation },
     basic,
     dryUnadjusted: basic - groundwater + RMR89_WATER_CONDITION['completely dry'],
     meaning,
+    notes: governed ? [RMR89_SOFT_INFILL_NOTE] : [],
   };
+  if (governed) result.conditionGovernedBy = 'soft infilling 5 mm or more';
+  return result;
+}
+
+/** What was recorded for the governing joint (or set) of the round: aperture and infill. */
+export interface GoverningJointRecord {
+  /** Aperture (separation) in mm; null or undefined when not recorded. */
+  apertureMm?: number | null;
+  /** Infill as recorded; null or undefined when not recorded. */
+  infill?: Rmr89Infilling | null;
+}
+
+export interface Rmr89ConditionWarning {
+  code: 'aperture' | 'infill';
+  message: string;
+}
+
+const mm = (v: number): string => `${Number(v.toFixed(2))} mm`;
+
+function describeInfill(infill: Rmr89Infilling): string {
+  return infill.kind === 'none' ? 'no infill' : `${infill.kind} infill ${mm(infill.thicknessMm)}`;
+}
+
+/**
+ * Warnings (never refusals) where the typed joint condition contradicts what was recorded for the
+ * governing joint: its aperture and infill. The simple A4 rows are read by their own words (closed; under
+ * 1 mm; gouge under 5 mm or open 1–5 mm; soft gouge or open over 5 mm); the detailed path compares the
+ * E bands of separation and infilling. Unrecorded values give no warning.
+ */
+export function rmr89ConditionWarnings(
+  condition: Rmr89Condition,
+  joint: GoverningJointRecord,
+): Rmr89ConditionWarning[] {
+  const out: Rmr89ConditionWarning[] = [];
+  const aperture =
+    typeof joint.apertureMm === 'number' && Number.isFinite(joint.apertureMm) && joint.apertureMm >= 0
+      ? joint.apertureMm
+      : undefined;
+  const infill = joint.infill ?? undefined;
+  const filled = infill !== undefined && infill.kind !== 'none' ? infill : undefined;
+  const thickSoft = infill !== undefined && softInfillGoverns(infill);
+  if (condition.kind === 'simple') {
+    const row = RMR89_CONDITION_SIMPLE.find((r) => r.id === condition.condition);
+    const name = row ? `“${row.description}” (${row.rating})` : condition.condition;
+    switch (condition.condition) {
+      case 'very-rough-tight':
+        if (aperture !== undefined && aperture > 0)
+          out.push({
+            code: 'aperture',
+            message: `The condition ${name} means closed joints, but the governing joint is open ${mm(aperture)}.`,
+          });
+        if (filled)
+          out.push({
+            code: 'infill',
+            message: `The condition ${name} means closed joints, but the governing joint has ${describeInfill(filled)}.`,
+          });
+        break;
+      case 'slightly-rough-slightly-weathered':
+      case 'slightly-rough-highly-weathered':
+        if (aperture !== undefined && aperture >= 1)
+          out.push({
+            code: 'aperture',
+            message: `The condition ${name} means open under 1 mm, but the governing joint is open ${mm(aperture)}.`,
+          });
+        if (filled && filled.thicknessMm >= 1)
+          out.push({
+            code: 'infill',
+            message: `The condition ${name} means open under 1 mm, but the governing joint has ${describeInfill(filled)}.`,
+          });
+        break;
+      case 'slickensided-or-thin-gouge':
+        if (aperture !== undefined && aperture >= 5)
+          out.push({
+            code: 'aperture',
+            message: `The condition ${name} means open under 5 mm, but the governing joint is open ${mm(aperture)}: A4 rates that 0.`,
+          });
+        if (thickSoft && filled)
+          out.push({
+            code: 'infill',
+            message: `The condition ${name} means gouge under 5 mm, but the governing joint has ${describeInfill(filled)}: A4 rates that 0.`,
+          });
+        break;
+      case 'soft-gouge-or-wide-open': {
+        // Separation over 5 mm: the opening is the aperture or, when filled, the filling's thickness.
+        const opening = Math.max(aperture ?? 0, filled?.thicknessMm ?? 0);
+        const known = aperture !== undefined || infill !== undefined;
+        if (known && !thickSoft && opening < RMR89_SOFT_INFILL_GOVERNS_MM)
+          out.push({
+            code: infill !== undefined ? 'infill' : 'aperture',
+            message: `The condition ${name} means soft gouge or an opening of 5 mm or more, but the governing joint has ${
+              infill !== undefined ? describeInfill(infill) : 'no infill recorded'
+            }${aperture !== undefined ? ` and is open ${mm(aperture)}` : ''}.`,
+          });
+        break;
+      }
+    }
+    return out;
+  }
+  if (aperture !== undefined) {
+    const typed = bandOf('separation', condition.separationMm, RMR89_SEPARATION, 'mm');
+    const recorded = bandOf('recorded aperture', aperture, RMR89_SEPARATION, 'mm');
+    if (typed !== recorded)
+      out.push({
+        code: 'aperture',
+        message: `The separation typed (${mm(condition.separationMm)}, ${typed.description}) differs from the governing joint's aperture (${mm(aperture)}, ${recorded.description}).`,
+      });
+  }
+  if (infill !== undefined) {
+    const typed = condition.infilling;
+    const sameKind = typed.kind === infill.kind;
+    const sameBand =
+      sameKind && (typed.kind === 'none' || infillingRating(typed) === infillingRating(infill));
+    if (!sameBand)
+      out.push({
+        code: 'infill',
+        message: `The infilling typed (${describeInfill(typed)}) differs from the governing joint's (${describeInfill(infill)})${
+          softInfillGoverns(infill) && !softInfillGoverns(typed)
+            ? ': soft infill of 5 mm or more governs the condition (0)'
+            : ''
+        }.`,
+      });
+  }
+  return out;
 }

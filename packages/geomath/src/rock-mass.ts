@@ -11,6 +11,8 @@ export type {
   QParameterTable,
   QResult,
   QTableRow,
+  QWarning,
+  QWarningCode,
   TableCheck,
 } from './q-system.js';
 export {
@@ -23,12 +25,18 @@ export {
   Q_RQD_TABLE,
   Q_SRF_TABLE,
   Q_TABLES,
+  Q_TABLE_EDITION,
+  jnRowForSets,
+  jnSetCountWarning,
+  nearestQRows,
   qClass,
   qValue,
 } from './q-system.js';
 export type { EsrRow, QSupportInput, QSupportResult } from './q-support.js';
 export { ESR_RANGE, ESR_TABLE, qSupport } from './q-support.js';
 export type {
+  GoverningJointRecord,
+  Rmr89ConditionWarning,
   Rmr89Class,
   Rmr89Condition,
   Rmr89Groundwater,
@@ -55,6 +63,8 @@ export {
   RMR89_ROUGHNESS,
   RMR89_RQD,
   RMR89_SEPARATION,
+  RMR89_SOFT_INFILL_GOVERNS_MM,
+  RMR89_SOFT_INFILL_NOTE,
   RMR89_SPACING,
   RMR89_STRENGTH_IS50,
   RMR89_STRENGTH_UCS,
@@ -62,6 +72,7 @@ export {
   RMR89_WEATHERING,
   rmr89,
   rmr89Class,
+  rmr89ConditionWarnings,
 } from './rmr89.js';
 export type {
   RmrOrientationAdjustment,
@@ -115,4 +126,22 @@ export type {
   RoundArrival,
   RoundArrivalInput,
 } from './look-ahead.js';
-export { ALONG_TUNNEL_LIMIT, planeCrossings, roundsToCrownAndInvert } from './look-ahead.js';
+export { ALONG_TUNNEL_LIMIT, planeCrossings, roundsToCrownAndInvert, stageCrossings } from './look-ahead.js';
+export type {
+  ExcavationStage,
+  ProfileInput,
+  ProfileOutline,
+  ProfilePoint,
+  ProfileShape,
+  StageGeometryInput,
+  StagePart,
+} from './profile.js';
+export {
+  EXCAVATION_STAGES,
+  PROFILE_SHAPES,
+  clipBetween,
+  polygonArea,
+  profileOutline,
+  stagePart,
+  stageParts,
+} from './profile.js';

@@ -5,7 +5,8 @@ import { axisToLine } from './angles.js';
 import { densityNodes, exponentialK, exponentialMoments, kernelSums, toUnitVectors } from './density.js';
 import type { UnitVectors } from './kernel-index.js';
 import { RAD } from './math.js';
-import { checkWeights, fisherFromResultant } from './statistics.js';
+import { checkWeights, fisherFromResultant, resolveWeights } from './statistics.js';
+import type { TerzaghiOptions, WeightingUsed } from './statistics.js';
 import type { Line, Vector3 } from './types.js';
 
 export interface JointSet {
@@ -120,19 +121,29 @@ function fillSeeds(data: UnitVectors, seeds: Vector3[], count: number): void {
  * that set's cone (1 − cos θ = ln 1000/k, θ between 3° and 45°); means are axial Fisher means of the
  * members, iterated until no pole changes set. Sets with fewer than two members are dissolved. Sets are
  * returned largest first, members in input order; k and α95 as in `fisherStatistics` (weighted when
- * weights are given).
+ * weights are given, or Terzaghi-weighted with `terzaghi`, in which case the result names the sampling).
  */
 export function findSets(
   poles: Line[],
-  options?: { count?: number; weights?: number[] },
-): { sets: JointSet[]; unassigned: number[] } {
+  options?: { count?: number; weights?: number[]; terzaghi?: TerzaghiOptions },
+): { sets: JointSet[]; unassigned: number[]; weighting?: WeightingUsed } {
   const count = options?.count;
   if (count !== undefined && (!Number.isInteger(count) || count < 1)) {
     throw new RangeError(`The number of sets must be a whole number of 1 or more, not ${count}.`);
   }
   checkWeights(options?.weights, poles.length);
+  const { weights, weighting } = resolveWeights(poles, options);
+  const found = findSetsWeighted(poles, count, weights);
+  return weighting ? { ...found, weighting } : found;
+}
+
+function findSetsWeighted(
+  poles: Line[],
+  count: number | undefined,
+  weights: number[] | undefined,
+): { sets: JointSet[]; unassigned: number[] } {
   if (poles.length === 0) return { sets: [], unassigned: [] };
-  const data = toUnitVectors(poles, options?.weights);
+  const data = toUnitVectors(poles, weights);
   const seeds = densitySeeds(data, count === undefined ? SET_SIGNIFICANCE : Number.NEGATIVE_INFINITY);
   if (count !== undefined) {
     seeds.length = Math.min(seeds.length, count);

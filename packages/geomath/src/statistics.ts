@@ -11,6 +11,34 @@ export interface FisherResult {
   resultantLength: number;
   k: number;
   alpha95: number;
+  /** Present when the statistics were Terzaghi-weighted through the `terzaghi` option. */
+  weighting?: WeightingUsed;
+}
+
+/** Which weighting a result used, for the UI to state beside it. */
+export interface WeightingUsed {
+  method: 'terzaghi';
+  sampling: TerzaghiSampling;
+  label: string;
+  cap: number;
+}
+
+/**
+ * Resolves `weights` or `terzaghi` (not both) into one weight per line and the weighting used.
+ */
+export function resolveWeights(
+  lines: readonly Line[],
+  options?: { weights?: number[]; terzaghi?: TerzaghiOptions },
+): { weights?: number[]; weighting?: WeightingUsed } {
+  if (options?.terzaghi === undefined) return { weights: options?.weights };
+  if (options.weights !== undefined) {
+    throw new OrientationError('Give either weights or a Terzaghi weighting, not both.');
+  }
+  const t = terzaghiWeights(lines, options.terzaghi);
+  return {
+    weights: t.weights,
+    weighting: { method: 'terzaghi', sampling: t.sampling, label: t.label, cap: t.cap },
+  };
 }
 
 /** Checks optional weights: one finite, non-negative number per item. */
@@ -87,14 +115,15 @@ export function principalAxis(vectors: readonly Vector3[], weights?: readonly nu
 /**
  * Fisher statistics of lines (Fisher 1953; formulas as in Tauxe et al., Essentials of Paleomagnetism,
  * ch. 11). Directional unless `axial: true`; axial data are first flipped toward the principal axis of
- * the orientation tensor. With weights each vector is scaled by its weight and N = Σ weights.
+ * the orientation tensor. With weights each vector is scaled by its weight and N = Σ weights; with
+ * `terzaghi` the weights are Terzaghi's for the named sampling geometry and the result says which.
  * Needs N > 1. The mean is returned on the lower hemisphere.
  */
 export function fisherStatistics(
   lines: Line[],
-  options?: { axial?: boolean; weights?: number[] },
+  options?: { axial?: boolean; weights?: number[]; terzaghi?: TerzaghiOptions },
 ): FisherResult {
-  const weights = options?.weights;
+  const { weights, weighting } = resolveWeights(lines, options);
   checkWeights(weights, lines.length);
   const vectors = lines.map((l) => {
     if (!Number.isFinite(l.trend) || !Number.isFinite(l.plunge)) {
@@ -115,21 +144,119 @@ export function fisherStatistics(
   const r = Math.hypot(s[0], s[1], s[2]);
   const { k, alpha95 } = fisherFromResultant(n, r);
   const mean = r > 0 ? axisToLine(s) : { trend: 0, plunge: 90 };
-  return { mean, count: n, resultantLength: r, k, alpha95 };
+  const result: FisherResult = { mean, count: n, resultantLength: r, k, alpha95 };
+  if (weighting) result.weighting = weighting;
+  return result;
 }
 
 /**
- * Terzaghi (1965) weight of a pole sampled along a line (scanline, borehole, or tunnel axis = face
- * normal): w = 1/|cos δ|, δ the angle between the pole and the sampling direction, capped at `cap`
- * (default 10, i.e. δ ≥ 84.26° all weigh 10) for the blind zone.
+ * How a set of discontinuities was sampled, which decides its Terzaghi (1965) weight (methods.md §3.3):
+ * - 'planar-window': one mapped face, a window whose normal is the drive direction. A set is seen in
+ *   proportion to sin θ, θ between its pole and the face normal: w = 1/sin θ.
+ * - 'scanline': features recorded once where a line crosses them (a scanline, a borehole, or the tunnel
+ *   axis when the faces of a heading are pooled, each feature counted once). A set is crossed in
+ *   proportion to |cos δ|, δ between its pole and the line: w = 1/|cos δ|.
  */
-export function terzaghiWeight(pole: Line, samplingDirection: Line, cap = 10): number {
+export type TerzaghiSampling = 'planar-window' | 'scanline';
+
+export const TERZAGHI_SAMPLINGS: readonly TerzaghiSampling[] = ['planar-window', 'scanline'];
+
+/** Words for the UI beside every weighted statistic: which sampling geometry the weights assume. */
+export const TERZAGHI_SAMPLING_LABELS: Readonly<Record<TerzaghiSampling, string>> = {
+  'planar-window':
+    'Terzaghi weighting, planar window (one face): w = 1/sin θ, θ between the pole and the face normal (the drive)',
+  scanline:
+    'Terzaghi weighting, scanline (faces pooled along the heading, the axis as the line): w = 1/cos δ, δ between the pole and the axis',
+};
+
+/** Default cap on a Terzaghi weight (the blind zone; common practice, from memory). */
+export const TERZAGHI_DEFAULT_CAP = 10;
+
+function checkCap(cap: number): void {
   if (!(cap >= 1)) throw new RangeError(`The Terzaghi weight cap must be 1 or more, not ${cap}.`);
+}
+
+/** |cos| and sin of the angle between a pole and a sampling direction (either sign of each). */
+function cosSin(pole: Line, direction: Line): { c: number; s: number } {
   const a = exactVector(pole);
-  const b = exactVector(samplingDirection);
+  const b = exactVector(direction);
   const c = Math.abs(a[0] * b[0] + a[1] * b[1] + a[2] * b[2]);
-  if (!Number.isFinite(c)) {
+  const s = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
+  if (!Number.isFinite(c) || !Number.isFinite(s)) {
     throw new OrientationError('The pole and the sampling direction must both be numbers in degrees.');
   }
+  return { c, s };
+}
+
+/**
+ * Terzaghi (1965) weight of a pole sampled along a line — the scanline case (scanline, borehole, or the
+ * tunnel axis when the faces of a heading are pooled): w = 1/|cos δ|, δ the angle between the pole and
+ * the sampling direction, capped at `cap` (default 10, i.e. δ ≥ 84.26° all weigh 10) for the blind zone.
+ * For one face (a planar window) use `terzaghiWeightFor(pole, 'planar-window', drive)`.
+ */
+export function terzaghiWeight(pole: Line, samplingDirection: Line, cap = TERZAGHI_DEFAULT_CAP): number {
+  checkCap(cap);
+  const { c } = cosSin(pole, samplingDirection);
   return c * cap <= 1 ? cap : 1 / c;
+}
+
+/**
+ * Terzaghi (1965) weight by sampling geometry (methods.md §3.3): 'planar-window' w = 1/sin θ with θ between
+ * the pole and the face normal (give the drive direction); 'scanline' w = 1/|cos δ| with δ between the pole
+ * and the line (give the axis). Capped at `cap` (default 10). A Drive may be passed as the direction
+ * (a climbing drive's negative plunge is the same axis).
+ */
+export function terzaghiWeightFor(
+  pole: Line,
+  sampling: TerzaghiSampling,
+  direction: Line,
+  cap = TERZAGHI_DEFAULT_CAP,
+): number {
+  checkCap(cap);
+  const { c, s } = cosSin(pole, direction);
+  switch (sampling) {
+    case 'scanline':
+      return c * cap <= 1 ? cap : 1 / c;
+    case 'planar-window':
+      return s * cap <= 1 ? cap : 1 / s;
+    default:
+      throw new RangeError(
+        `Unknown sampling geometry ${String(sampling)}: expected ${TERZAGHI_SAMPLINGS.join(' or ')}.`,
+      );
+  }
+}
+
+/** Terzaghi weighting to apply, named by its sampling geometry. */
+export interface TerzaghiOptions {
+  sampling: TerzaghiSampling;
+  /** The face normal (the drive) for a planar window; the line (the axis) for a scanline. */
+  direction: Line;
+  /** Default 10. */
+  cap?: number;
+}
+
+/** Weights of a list of poles, with the sampling geometry used, for the UI to state beside the result. */
+export interface TerzaghiWeights {
+  sampling: TerzaghiSampling;
+  label: string;
+  cap: number;
+  weights: number[];
+  /** Indices of the poles whose weight was capped (in the blind zone of this sampling). */
+  capped: number[];
+}
+
+export function terzaghiWeights(poles: readonly Line[], options: TerzaghiOptions): TerzaghiWeights {
+  const cap = options.cap ?? TERZAGHI_DEFAULT_CAP;
+  const weights = poles.map((p) => terzaghiWeightFor(p, options.sampling, options.direction, cap));
+  const capped: number[] = [];
+  weights.forEach((w, i) => {
+    if (w === cap) capped.push(i);
+  });
+  return {
+    sampling: options.sampling,
+    label: TERZAGHI_SAMPLING_LABELS[options.sampling],
+    cap,
+    weights,
+    capped,
+  };
 }

@@ -2,7 +2,9 @@ import { densityNodes, exponentialMoments } from '../src/density.js';
 import {
   densityContours,
   densityGrid,
+  densityLegend,
   exponentialK,
+  rawDensity,
   kambFraction,
   lineToVector,
   project,
@@ -75,8 +77,7 @@ describe('Kamb counting (Kamb 1959; methods.md §3.2, formula from memory, numbe
     for (const net of ['equal-area', 'equal-angle'] as const) {
       const grid = densityGrid(lines, { method: 'kamb', net, cells: 30 });
       const bare = bareLoop(lines, 'kamb', net, 30);
-      for (let g = 0; g < bare.length; g++)
-        expectClose(grid.expected + grid.values[g] * grid.sigma, bare[g], 1e-9);
+      for (let g = 0; g < bare.length; g++) expectClose(rawDensity(grid, grid.values[g]), bare[g], 1e-9);
     }
   });
 });
@@ -105,15 +106,22 @@ describe('exponential kernel (Vollmer 1995; methods.md §3.2, k from memory, num
       const bare = bareLoop(lines, 'exponential', net, 30);
       let worst = 0;
       for (let g = 0; g < bare.length; g++) {
-        const raw = grid.expected + grid.values[g] * grid.sigma;
+        const raw = rawDensity(grid, grid.values[g]);
         worst = Math.max(worst, Math.abs(raw - bare[g]) / Math.max(Math.abs(bare[g]), grid.expected));
       }
       expect(worst).toBeLessThan(1e-9);
     }
   });
 
-  it('uniform data average 0σ above E over the net', () => {
-    const grid = densityGrid(randomLines(3000, 9), { method: 'exponential', net: 'equal-area', cells: 40 });
+  // The σ-above-uniform convention is kept as a named option: uniform reads 0 there, 3 lower than Kamb's
+  // own units (methods.md §3.2).
+  it('uniform data average 0σ above E over the net (units: sigma-above-uniform)', () => {
+    const grid = densityGrid(randomLines(3000, 9), {
+      method: 'exponential',
+      net: 'equal-area',
+      cells: 40,
+      units: 'sigma-above-uniform',
+    });
     let sum = 0;
     let count = 0;
     for (let j = 0; j < 40; j++) {
@@ -127,6 +135,103 @@ describe('exponential kernel (Vollmer 1995; methods.md §3.2, k from memory, num
       }
     }
     expect(Math.abs(sum / count)).toBeLessThan(0.1);
+  });
+});
+
+/** Mean of the grid values over the cells inside the primitive. */
+function meanInside(values: Float64Array, cells: number): number {
+  let sum = 0;
+  let count = 0;
+  for (let j = 0; j < cells; j++) {
+    for (let i = 0; i < cells; i++) {
+      const x = -1 + ((i + 0.5) * 2) / cells;
+      const y = 1 - ((j + 0.5) * 2) / cells;
+      if (x * x + y * y < 1) {
+        sum += values[i + j * cells];
+        count++;
+      }
+    }
+  }
+  return sum / count;
+}
+
+describe("density units: Kamb's own multiples of σ by default (Kamb 1959; Vollmer 1995; methods.md §3.2)", () => {
+  it.each(['kamb', 'exponential'] as const)(
+    '%s: uniform data read 3σ on average (Kamb 1959, from memory: E = 3σ)',
+    (method) => {
+      const grid = densityGrid(randomLines(3000, 9), { method, net: 'equal-area', cells: 40 });
+      expect(grid.units).toBe('multiples-of-sigma');
+      expectClose(grid.uniformValue, 3, 1e-3); // E/σ = 3 by the choice of A and k [computed here]
+      expect(Math.abs(meanInside(grid.values, 40) - 3)).toBeLessThan(0.1);
+    },
+  );
+
+  it('Kamb: a cell with no pole in its cap reads 0 (Kamb 1959, from memory)', () => {
+    // 20 vertical poles: A = 9/29, cap half-angle acos(20/29) = 46.4° [computed here]; the rim is 90° away.
+    const poles = Array.from({ length: 20 }, () => ({ trend: 0, plunge: 90 }));
+    const grid = densityGrid(poles, { method: 'kamb', net: 'equal-area', cells: 20 });
+    expect(grid.values[0 + 10 * 20]).toBe(0); // west rim
+    expectClose(grid.values[10 + 10 * 20], 20 / grid.sigma, 1e-12); // centre: all 20 counted
+  });
+
+  it('N = 50 Kamb: a cell with the uniform count E = 7.627 reads 3.000σ, the old convention 0 (methods.md §3.2, computed here)', () => {
+    const lines = randomLines(50, 1);
+    const kamb = densityGrid(lines, { method: 'kamb', net: 'equal-area', cells: 10 });
+    const above = densityGrid(lines, {
+      method: 'kamb',
+      net: 'equal-area',
+      cells: 10,
+      units: 'sigma-above-uniform',
+    });
+    const ratio = densityGrid(lines, {
+      method: 'kamb',
+      net: 'equal-area',
+      cells: 10,
+      units: 'multiples-of-uniform',
+    });
+    for (let g = 0; g < kamb.values.length; g++) {
+      expectClose(kamb.values[g] - above.values[g], 3, 1e-9); // the two conventions differ by E/σ = 3
+      expectClose(ratio.values[g], (kamb.values[g] * kamb.sigma) / kamb.expected, 1e-12);
+    }
+    expectClose(kamb.expected / kamb.sigma, 7.627 / 2.542, 0.001);
+    expect(above.uniformValue).toBe(0);
+    expectClose(ratio.uniformValue, 1, 1e-12);
+  });
+
+  it('names the units on the legend (issue 10 wording; Kamb 1959, Vollmer 1995)', () => {
+    const lines = randomLines(30, 4);
+    const grid = densityGrid(lines, { method: 'kamb', net: 'equal-area', cells: 8 });
+    expect(densityLegend(grid)).toBe('multiples of σ, Kamb 1959; uniform = 3σ');
+    expect(densityLegend({ method: 'exponential', units: 'multiples-of-sigma' })).toBe(
+      'multiples of σ, exponential kernel, Vollmer 1995; uniform = 3σ',
+    );
+    expect(densityLegend({ method: 'kamb', units: 'sigma-above-uniform' })).toBe(
+      'σ above uniform, Kamb 1959; uniform = 0σ',
+    );
+    expect(densityLegend({ method: 'kamb', units: 'multiples-of-uniform' })).toBe(
+      'multiples of uniform, Kamb 1959; uniform = 1',
+    );
+    // Weights move E/σ off 3, and the legend states the grid's own uniform value. Kamb, N = 2, weights 1
+    // and 3: A = 9/11, E = 4·9/11, σ = √(10·(9/11)·(2/11)) = √180/11, E/σ = 36/√180 = 2.683 [computed here].
+    const weighted = densityGrid(lines.slice(0, 2), {
+      method: 'kamb',
+      net: 'equal-area',
+      cells: 8,
+      weights: [1, 3],
+    });
+    expectClose(weighted.uniformValue, 36 / Math.sqrt(180), 1e-12);
+    expect(densityLegend(weighted)).toBe('multiples of σ, Kamb 1959; uniform = 2.7σ');
+  });
+
+  it('rejects unknown units', () => {
+    expect(() =>
+      densityGrid([{ trend: 0, plunge: 0 }], {
+        method: 'kamb',
+        net: 'equal-area',
+        cells: 4,
+        units: 'percent' as never,
+      }),
+    ).toThrow(RangeError);
   });
 });
 
@@ -180,7 +285,7 @@ describe('density grid layout', () => {
       const c1 = Math.abs(v1[0] * nodes[3 * g] + v1[1] * nodes[3 * g + 1] + v1[2] * nodes[3 * g + 2]);
       const c2 = Math.abs(v2[0] * nodes[3 * g] + v2[1] * nodes[3 * g + 1] + v2[2] * nodes[3 * g + 2]);
       const raw = 3 * Math.exp(k2 * (c1 - 1)) + Math.exp(k2 * (c2 - 1));
-      expectClose(a.expected + a.values[g] * a.sigma, raw, 1e-9);
+      expectClose(rawDensity(a, a.values[g]), raw, 1e-9);
     }
   });
 

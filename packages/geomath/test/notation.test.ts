@@ -83,6 +83,23 @@ describe('parsePlane: quadrant strike with dip quadrant (methods.md §1.1, rule 
     expect(() => parsePlane('N45E 40SW')).toThrow(OrientationError);
   });
 
+  // Common practice: a single dip letter names a dip direction only within 67.5° of it (issue 10).
+  it('a single dip letter must lie within 67.5° of the dip direction it selects (common practice)', () => {
+    const e = errorOf(() => parsePlane('N89E 40E')); // read as 179/40 before this rule
+    expect(e).toBeInstanceOf(OrientationError);
+    expect(e.message).toContain('within 67.5°');
+    expect(e.message).toContain('Valid readings: N89E 40S (179/40) or N89E 40N (359/40)');
+    expect(() => parsePlane('N70E 40E')).toThrow(OrientationError); // E is 70° from 160
+    expect(() => parsePlane('080 40 E')).toThrow('Valid readings: 080 40S (170/40) or 080 40N (350/40)');
+    expect(parsePlane('030 40 N').dipDirection).toBe(300); // N is 60° from 300
+    // 67.5° itself is within: strike N22.5E, dip direction 112.5, E is 22.5° away, S 67.5° away.
+    expect(parsePlane('N22.5E 40S').dipDirection).toBe(112.5);
+    expect(parsePlane('N22.5E 40E').dipDirection).toBe(112.5);
+    expect(() => parsePlane('N22E 40S')).toThrow(OrientationError); // S is 68° from 112
+    expect(parsePlane('N30E 40E').dipDirection).toBe(120); // 30° away
+    expect(parsePlane('N60E 40S').dipDirection).toBe(150); // 30° away
+  });
+
   it('rejects a dip quadrant along the strike (N30E 40NE, N30E 40SW) and says which sides are possible', () => {
     const e = errorOf(() => parsePlane('N30E 40NE'));
     expect(e.message).toContain('NE does not fit the strike');

@@ -16,7 +16,10 @@ const input = fc.record({
   srf: uniform(0.5, 400),
 });
 
-const ranges: Record<keyof Omit<QInput, 'location' | 'jrSpacingOver3m'>, [number, number, 1 | -1]> = {
+const ranges: Record<
+  keyof Omit<QInput, 'location' | 'jrSpacingOver3m' | 'jrRowId'>,
+  [number, number, 1 | -1]
+> = {
   rqd: [0, 100, 1],
   jn: [0.5, 20, -1],
   jr: [0.5, 4, 1],

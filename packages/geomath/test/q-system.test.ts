@@ -8,6 +8,10 @@ import {
   Q_RQD_TABLE,
   Q_SRF_TABLE,
   Q_TABLES,
+  Q_TABLE_EDITION,
+  jnRowForSets,
+  jnSetCountWarning,
+  nearestQRows,
   qClass,
   qValue,
 } from '../src/rock-mass.js';
@@ -212,5 +216,116 @@ describe('Q parameter tables as data', () => {
     expect(Q_JR_TABLE.notes.join(' ')).toMatch(/Add 1 .*3 m/);
     expect(Q_SRF_TABLE.rows.filter((r) => r.check === 'from memory').length).toBeGreaterThan(0);
     expect(Q_JN_TABLE.rows.every((r) => r.check === 'seen')).toBe(true);
+  });
+});
+
+describe('Q inputs between table rows, the spacing note and the edition (issue 10)', () => {
+  // Jn rows 2, 3, 4, 6, 9, 12, 15, 20 and 0.5–1: Hudson & Harrison 1997 App. C p.498; Singh & Goel 2011
+  // Table 8.1 [source, seen]. Jn 7 lies between "two sets and random" (6) and "three sets" (9).
+  it('Jn 7 is accepted with a warning naming the nearest rows, 6 and 9', () => {
+    const r = qValue({ ...base, jn: 7 });
+    expectClose(r.q, (90 / 7) * (3 / 1) * (1 / 15), 1e-12); // accepted as before
+    expect(r.warnings).toHaveLength(1);
+    const [w] = r.warnings;
+    expect(w.parameter).toBe('jn');
+    expect(w.code).toBe('not-in-table');
+    expect(w.nearest?.map((row) => row.value)).toEqual([6, 9]);
+    expect(w.message).toContain('Jn 7 is not a value');
+    expect(w.message).toContain('6 (Two sets and random joints) and 9 (Three sets)');
+  });
+
+  it('table values and values within a range row give no warning', () => {
+    expect(qValue(base).warnings).toEqual([]);
+    expect(qValue({ ...base, jn: 0.8, ja: 11, jw: 0.12, srf: 30 }).warnings).toEqual([]);
+    expect(nearestQRows('jn', 9)).toEqual([]);
+  });
+
+  it('nearest rows: both rows of a shared value, and a range row by its nearer end', () => {
+    // Jr 1.25: below are 1.0 (smooth planar, and both no-contact zones), above the two 1.5 rows [Hudson &
+    // Harrison 1997 App. C, seen].
+    const jr = nearestQRows('jr', 1.25).map((row) => row.id);
+    expect(jr).toEqual([
+      'jr-smooth-planar',
+      'jr-clay-zone',
+      'jr-crushed-zone',
+      'jr-slick-undulating',
+      'jr-rough-planar',
+    ]);
+    // Jw 0.25: between 0.1–0.2 (decaying) and 0.33 [Jw rows: same sources, seen].
+    expect(nearestQRows('jw', 0.25).map((row) => row.id)).toEqual(['jw-decaying', 'jw-outwash']);
+    const srf = qValue({ ...base, srf: 3 }).warnings[0];
+    expect(srf.nearest?.map((row) => row.value)).toEqual([2.5, 2.5, 2.5, 5, 5, 5, 27.5, 7.5, 7.5]);
+  });
+
+  // Jr note: "add 1 when the mean spacing of the relevant set exceeds 3 m" belongs to the wall-contact groups
+  // (a) and (b); group (c) has no wall contact [Hudson & Harrison 1997 App. C p.498, seen; methods.md §4.1].
+  it('the +1 for spacing over 3 m is not added to Jr 1 of a zone with no wall contact', () => {
+    const zone = qValue({ ...base, jr: 1, jrRowId: 'jr-clay-zone', jrSpacingOver3m: true });
+    expect(zone.jrUsed).toBe(1); // was 2 before issue 10
+    expect(zone.jrSpacingApplied).toBe(false);
+    expect(zone.warnings.map((w) => w.code)).toEqual(['spacing-bonus-not-applied']);
+    const joint = qValue({ ...base, jr: 1, jrRowId: 'jr-smooth-planar', jrSpacingOver3m: true });
+    expect(joint.jrUsed).toBe(2);
+    expect(joint.warnings).toEqual([]);
+    // Jr 1 without a row: taken as walls in contact (the former behaviour), with a warning.
+    const unnamed = qValue({ ...base, jr: 1, jrSpacingOver3m: true });
+    expect(unnamed.jrUsed).toBe(2);
+    expect(unnamed.warnings.map((w) => w.code)).toEqual(['spacing-bonus-assumes-contact']);
+    // Jr 3 can only be walls in contact: no warning.
+    expect(qValue({ ...base, jrSpacingOver3m: true }).warnings).toEqual([]);
+  });
+
+  it('a row id that does not match Jr warns; an unknown row id is refused', () => {
+    expect(qValue({ ...base, jrRowId: 'jr-smooth-planar' }).warnings.map((w) => w.code)).toEqual([
+      'row-value-mismatch',
+    ]);
+    expect(() => qValue({ ...base, jrRowId: 'jr-nonsense' })).toThrow(RatingError);
+  });
+
+  it('SRF "high stress" defaults to the middle of its range 0.5–2, as every range row does (1.25)', () => {
+    // Range 0.5–2 from memory of the 1993/2015 table (methods.md §4.1); middle-of-range rule [common
+    // practice of this module: RQD bands, Jw 0.1–0.2 → 0.15, SRF 5–50 → 27.5].
+    const high = Q_SRF_TABLE.rows.find((r) => r.id === 'srf-high-stress');
+    expect(high?.value).toBe(1.25);
+    for (const table of Q_TABLES) {
+      for (const row of table.rows) {
+        if (row.range) expectClose(row.value, (row.range[0] + row.range[1]) / 2, 1e-12);
+      }
+    }
+  });
+
+  it('stamps the table edition', () => {
+    expect(Q_TABLE_EDITION).toBe(Q_EDITION.id);
+    expect(qValue(base).edition).toBe('ngi-2015');
+  });
+});
+
+// Jn rows by number of sets: Hudson & Harrison 1997 App. C p.498; Singh & Goel 2011 Table 8.1 [source, seen].
+describe('Jn against the sets found and the random-joints flag (warning, not refusal)', () => {
+  it.each([
+    [0, false, 0.75],
+    [1, false, 2],
+    [1, true, 3],
+    [2, false, 4],
+    [2, true, 6],
+    [3, false, 9],
+    [3, true, 12],
+    [4, false, 15],
+    [5, true, 15],
+  ])('%d sets, random %s → Jn %d', (sets, random, jn) => {
+    expect(jnRowForSets(sets, random).value).toBe(jn);
+    expect(jnSetCountWarning(jn, sets, random)).toBeUndefined();
+  });
+
+  it('two sets found and random joints, Jn 4 typed: a warning naming the row 6', () => {
+    const w = jnSetCountWarning(4, 2, true);
+    expect(w?.code).toBe('set-count-mismatch');
+    expect(w?.message).toBe(
+      'Jn 4 does not match the 2 sets and random joints found: the table gives 6 (Two sets and random joints).',
+    );
+    expect(jnSetCountWarning(0.9, 0, false)).toBeUndefined(); // within 0.5–1
+    expect(jnSetCountWarning(20, 2, false)).toBeUndefined(); // crushed rock fits any count
+    expect(jnSetCountWarning(9, 0, true)?.code).toBe('set-count-mismatch');
+    expect(() => jnRowForSets(-1, false)).toThrow(RatingError);
   });
 });

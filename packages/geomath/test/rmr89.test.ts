@@ -1,4 +1,11 @@
-import { RMR89_CLASSES, RMR89_CONDITION_SIMPLE, rmr89, rmr89Class } from '../src/rock-mass.js';
+import {
+  RMR89_CLASSES,
+  RMR89_CONDITION_SIMPLE,
+  RMR89_SOFT_INFILL_NOTE,
+  rmr89,
+  rmr89Class,
+  rmr89ConditionWarnings,
+} from '../src/rock-mass.js';
 import type { Rmr89Condition, Rmr89Input } from '../src/rock-mass.js';
 import { RatingError } from '../src/types.js';
 
@@ -357,5 +364,116 @@ describe('RMR89 classes (C) and their meaning (D, from memory)', () => {
       'under 15',
     ]);
     expect(RMR89_CLASSES.every((c) => c.meaningCheck === 'from memory')).toBe(true);
+  });
+});
+
+// Bieniawski 1989, Engineering Rock Mass Classifications, note to Table 4.1 E (from memory; methods.md §4.2):
+// where soft infilling thicker than 5 mm is present it governs, and the condition is that of A4's last row (0).
+describe('RMR89 detailed condition: soft infilling over 5 mm governs (Bieniawski 1989, note to Table 4.1 E, from memory)', () => {
+  const gouge: Rmr89Condition = {
+    kind: 'detailed',
+    persistenceM: 0.5,
+    separationMm: 0,
+    roughness: 'very rough',
+    infilling: { kind: 'soft', thicknessMm: 10 },
+    weathering: 'unweathered',
+  };
+
+  it('a soft 10 mm gouge with very rough, unweathered walls rates 0, not the sum 18', () => {
+    // Sum of the E ratings would be 6 + 6 + 6 + 0 + 6 = 24 with a closed joint; the issue's case (18) has
+    // the separation of the gouge itself, 10 mm → 0: 6 + 0 + 6 + 0 + 6 = 18 [computed here].
+    const r = rmr89({ ...hoek, condition: { ...gouge, separationMm: 10 } });
+    expect(
+      r.ratings.persistence +
+        r.ratings.separation +
+        r.ratings.roughness +
+        r.ratings.infilling +
+        r.ratings.weathering,
+    ).toBe(18);
+    expect(r.ratings.condition).toBe(0); // A4 last row (Brady & Brown 2004 p.97 [source, seen])
+    expect(r.conditionGovernedBy).toBe('soft infilling 5 mm or more');
+    expect(r.notes).toEqual([RMR89_SOFT_INFILL_NOTE]);
+    expect(r.basic).toBe(12 + 13 + 10 + 0 + 7);
+  });
+
+  it('5 mm itself governs (a boundary value takes the less favourable side); 4.9 mm and hard infill do not', () => {
+    expect(ratingOf({ ...gouge, infilling: { kind: 'soft', thicknessMm: 5 } })).toBe(0);
+    // soft under 5 mm: the E sum stands, 6 + 6 + 6 + 2 + 6 = 26 [computed here]
+    expect(ratingOf({ ...gouge, infilling: { kind: 'soft', thicknessMm: 4.9 } })).toBe(26);
+    // hard 10 mm: 6 + 6 + 6 + 2 + 6 = 26
+    expect(ratingOf({ ...gouge, infilling: { kind: 'hard', thicknessMm: 10 } })).toBe(26);
+    expect(rmr89(hoek).notes).toEqual([]);
+    expect(rmr89(hoek).conditionGovernedBy).toBeUndefined();
+  });
+
+  function ratingOf(condition: Rmr89Condition): number {
+    return rmr89({ ...hoek, condition }).ratings.condition;
+  }
+});
+
+describe('RMR89 condition against the governing joint recorded (warnings; A4 wording, Brady & Brown 2004 p.97, seen)', () => {
+  it('a simple “very rough, closed” condition contradicts an open joint with soft gouge', () => {
+    const w = rmr89ConditionWarnings(
+      { kind: 'simple', condition: 'very-rough-tight' },
+      { apertureMm: 10, infill: { kind: 'soft', thicknessMm: 10 } },
+    );
+    expect(w.map((x) => x.code)).toEqual(['aperture', 'infill']);
+    expect(w[0].message).toContain('open 10 mm');
+  });
+
+  it('“slickensided or gouge under 5 mm” contradicts 10 mm of soft gouge (A4 rates that 0)', () => {
+    const w = rmr89ConditionWarnings(
+      { kind: 'simple', condition: 'slickensided-or-thin-gouge' },
+      { apertureMm: 3, infill: { kind: 'soft', thicknessMm: 10 } },
+    );
+    expect(w).toHaveLength(1);
+    expect(w[0].code).toBe('infill');
+    expect(w[0].message).toContain('A4 rates that 0');
+  });
+
+  it('“soft gouge over 5 mm” contradicts a 0.5 mm clean joint; agrees with 40 mm of soft gouge', () => {
+    expect(
+      rmr89ConditionWarnings(
+        { kind: 'simple', condition: 'soft-gouge-or-wide-open' },
+        { apertureMm: 0.5, infill: { kind: 'none' } },
+      ),
+    ).toHaveLength(1);
+    expect(
+      rmr89ConditionWarnings(
+        { kind: 'simple', condition: 'soft-gouge-or-wide-open' },
+        { apertureMm: 40, infill: { kind: 'soft', thicknessMm: 40 } },
+      ),
+    ).toEqual([]);
+    // A wide opening without infill, or a hard filling 10 mm thick, also fits "open over 5 mm".
+    expect(
+      rmr89ConditionWarnings(
+        { kind: 'simple', condition: 'soft-gouge-or-wide-open' },
+        { infill: { kind: 'hard', thicknessMm: 10 } },
+      ),
+    ).toEqual([]);
+    expect(
+      rmr89ConditionWarnings({ kind: 'simple', condition: 'soft-gouge-or-wide-open' }, { apertureMm: 8 }),
+    ).toEqual([]);
+  });
+
+  it('agreeing records and unrecorded values give no warning', () => {
+    expect(
+      rmr89ConditionWarnings(
+        { kind: 'simple', condition: 'slightly-rough-slightly-weathered' },
+        { apertureMm: 0.5, infill: { kind: 'none' } },
+      ),
+    ).toEqual([]);
+    expect(rmr89ConditionWarnings({ kind: 'simple', condition: 'very-rough-tight' }, {})).toEqual([]);
+    expect(rmr89ConditionWarnings(hoek.condition, { apertureMm: null, infill: null })).toEqual([]);
+  });
+
+  it('the detailed path compares the E bands of separation and infilling', () => {
+    const w = rmr89ConditionWarnings(hoek.condition, {
+      apertureMm: 3,
+      infill: { kind: 'soft', thicknessMm: 12 },
+    });
+    expect(w.map((x) => x.code)).toEqual(['aperture', 'infill']);
+    expect(w[1].message).toContain('governs the condition (0)');
+    expect(rmr89ConditionWarnings(hoek.condition, { apertureMm: 0.8, infill: { kind: 'none' } })).toEqual([]);
   });
 });

@@ -1,5 +1,14 @@
 import { geoCentroid, geoDistance } from 'd3-geo';
-import { OrientationError, angleBetweenLines, fisherStatistics, terzaghiWeight } from '../src/index.js';
+import {
+  OrientationError,
+  TERZAGHI_SAMPLING_LABELS,
+  angleBetweenLines,
+  fisherStatistics,
+  findSets,
+  terzaghiWeight,
+  terzaghiWeightFor,
+  terzaghiWeights,
+} from '../src/index.js';
 import type { Line } from '../src/index.js';
 import { expectAzimuthClose, expectClose } from './asserts.js';
 import { seededRandom } from './random.js';
@@ -115,5 +124,92 @@ describe('Terzaghi weights (Terzaghi 1965; methods.md §3.3, computed here)', ()
     expect(terzaghiWeight({ trend: 150, plunge: 0 }, axis)).toBe(10);
     expect(terzaghiWeight(at(80), axis, 3)).toBe(3);
     expectClose(terzaghiWeight(at(60), { trend: 240, plunge: 0 }), 2, 1e-12); // sign of the axis is irrelevant
+  });
+});
+
+describe('Terzaghi weights by sampling geometry (Terzaghi 1965, from memory; Priest 1993 ch. 4, from memory; methods.md §3.3)', () => {
+  const drive: Line = { trend: 60, plunge: 0 };
+  /** A pole at angle θ from the drive (the face normal), in the vertical plane of the drive. */
+  const at = (theta: number): Line => ({ trend: 60, plunge: theta });
+
+  // Planar window (one face): w = 1/sin θ; the sheet's numbers with α = 90° − δ [computed here].
+  it.each([
+    [90, 1],
+    [60, 1.155],
+    [30, 2.0],
+    [10, 5.759],
+    [5.74, 9.999],
+    [1, 10],
+  ])('planar window: θ = %d° from the face normal weighs %d', (theta, w) => {
+    expectClose(terzaghiWeightFor(at(theta), 'planar-window', drive), w, 0.0005);
+  });
+
+  it('scanline (the axis as the line) gives the old terzaghiWeight: w = 1/|cos δ|', () => {
+    for (const delta of [0, 30, 60, 80, 84.26, 89]) {
+      expect(terzaghiWeightFor(at(delta), 'scanline', drive)).toBe(terzaghiWeight(at(delta), drive));
+    }
+  });
+
+  it('a set parallel to the face (pole along the drive) is sampled worst by a face and best by the axis', () => {
+    const poleAlongDrive: Line = { trend: 240, plunge: 0 }; // set 060/90, strike across the tunnel
+    expect(terzaghiWeightFor(poleAlongDrive, 'planar-window', drive)).toBe(10); // capped
+    expectClose(terzaghiWeightFor(poleAlongDrive, 'scanline', drive), 1, 1e-12);
+    const poleAcross: Line = { trend: 150, plunge: 0 }; // set 330/90 contains the axis
+    expectClose(terzaghiWeightFor(poleAcross, 'planar-window', drive), 1, 1e-12);
+    expect(terzaghiWeightFor(poleAcross, 'scanline', drive)).toBe(10);
+  });
+
+  it('a climbing drive (negative plunge) is the same axis; the cap can be set', () => {
+    const climbing: Line = { trend: 60, plunge: -5 };
+    const pole: Line = { trend: 100, plunge: 30 };
+    const descending: Line = { trend: 240, plunge: 5 };
+    expectClose(
+      terzaghiWeightFor(pole, 'planar-window', climbing),
+      terzaghiWeightFor(pole, 'planar-window', descending),
+      1e-12,
+    );
+    expect(terzaghiWeightFor(at(5), 'planar-window', drive, 3)).toBe(3);
+    expect(() => terzaghiWeightFor(at(5), 'planar-window', drive, 0.5)).toThrow(RangeError);
+    expect(() => terzaghiWeightFor(at(5), 'window' as never, drive)).toThrow(RangeError);
+  });
+
+  it('terzaghiWeights returns the sampling used, its label and the capped poles', () => {
+    const t = terzaghiWeights([at(90), at(30), at(0.5)], { sampling: 'planar-window', direction: drive });
+    expect(t.sampling).toBe('planar-window');
+    expect(t.label).toBe(TERZAGHI_SAMPLING_LABELS['planar-window']);
+    expect(t.label).toContain('planar window (one face)');
+    expect(t.cap).toBe(10);
+    expectClose(t.weights, [1, 2, 10], 1e-9); // 1/sin 90, 1/sin 30, capped [computed here]
+    expect(t.capped).toEqual([2]);
+  });
+
+  it('fisherStatistics and findSets state the weighting they used', () => {
+    const poles = wessel.map((l) => ({ ...l }));
+    const weighted = fisherStatistics(poles, {
+      axial: true,
+      terzaghi: { sampling: 'scanline', direction: drive },
+    });
+    expect(weighted.weighting).toEqual({
+      method: 'terzaghi',
+      sampling: 'scanline',
+      label: TERZAGHI_SAMPLING_LABELS.scanline,
+      cap: 10,
+    });
+    const same = fisherStatistics(poles, {
+      axial: true,
+      weights: poles.map((p) => terzaghiWeight(p, drive)),
+    });
+    expectClose(weighted.mean, same.mean, 1e-12);
+    expectClose(weighted.k, same.k, 1e-9);
+    expect(same.weighting).toBeUndefined();
+    expect(() =>
+      fisherStatistics(poles, {
+        weights: [1, 1, 1, 1, 1, 1],
+        terzaghi: { sampling: 'scanline', direction: drive },
+      }),
+    ).toThrow(OrientationError);
+    const sets = findSets(poles, { terzaghi: { sampling: 'planar-window', direction: drive } });
+    expect(sets.weighting?.sampling).toBe('planar-window');
+    expect(findSets(poles).weighting).toBeUndefined();
   });
 });
