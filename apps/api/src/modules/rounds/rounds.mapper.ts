@@ -7,6 +7,9 @@ import type { JointDto, RoundDto } from './dto/round.dto.js';
 import type { Joint } from './joint.entity.js';
 import type { Round } from './round.entity.js';
 
+/** A stored JSON record read as the DTO that validated it on the way in. */
+const stored = <T>(value: unknown): T => value as T;
+
 export function toJointDto(j: Joint): JointDto {
   return {
     id: j.id,
@@ -55,8 +58,9 @@ export function toRoundDto(
     distantParts: round.distantParts,
     ground: round.ground,
     joints: [...joints].sort((a, b) => a.seq - b.seq).map(toJointDto),
-    qInput: round.qInput as Record<string, unknown> | null,
-    rmrInput: round.rmrInput,
+    // Stored as typed (a draft's numbers may still be empty); the DTOs describe exactly that shape.
+    qInput: stored<RoundDto['qInput']>(round.qInput),
+    rmrInput: stored<RoundDto['rmrInput']>(round.rmrInput),
     gsiObserved: round.gsiObserved,
     setParameters: round.setParameters ?? DEFAULT_SET_PARAMETERS,
     ratings: assessment.ratings,

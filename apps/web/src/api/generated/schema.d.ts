@@ -976,6 +976,108 @@ export interface components {
             stage: components["schemas"]["Stage"];
             faceChainage: number;
         };
+        /** @enum {string} */
+        QLocation: "tunnel" | "intersection" | "portal";
+        QRowsDto: {
+            rqd?: string;
+            jn?: string;
+            jr?: string;
+            ja?: string;
+            jw?: string;
+            srf?: string;
+        };
+        QInputDto: {
+            rqd: number | null;
+            jn: number | null;
+            jr: number | null;
+            ja: number | null;
+            jw: number | null;
+            srf: number | null;
+            location?: components["schemas"]["QLocation"];
+            jrSpacingOver3m?: boolean;
+            rows?: components["schemas"]["QRowsDto"];
+            /** @description True when the RQD came from Jv (a correlation) rather than a measurement */
+            rqdFromJv?: boolean;
+        };
+        PointLoadStrengthDto: {
+            /** @enum {string} */
+            kind: "point-load";
+            /** @description Point-load index Is50, MPa */
+            is50: number | null;
+        };
+        UcsStrengthDto: {
+            /** @enum {string} */
+            kind: "ucs";
+            /** @description Uniaxial compressive strength, MPa */
+            ucs: number | null;
+        };
+        /** @enum {string} */
+        Rmr89SimpleCondition: "very-rough-tight" | "slightly-rough-slightly-weathered" | "slightly-rough-highly-weathered" | "slickensided-or-thin-gouge" | "soft-gouge-or-wide-open";
+        SimpleConditionDto: {
+            /** @enum {string} */
+            kind: "simple";
+            condition: components["schemas"]["Rmr89SimpleCondition"] | null;
+        };
+        /** @enum {string} */
+        Rmr89Roughness: "very rough" | "rough" | "slightly rough" | "smooth" | "slickensided";
+        /** @enum {string} */
+        Rmr89Weathering: "unweathered" | "slightly" | "moderately" | "highly" | "decomposed";
+        DetailedConditionDto: {
+            /** @enum {string} */
+            kind: "detailed";
+            persistenceM: number | null;
+            separationMm: number | null;
+            roughness: components["schemas"]["Rmr89Roughness"] | null;
+            infilling: components["schemas"]["NoInfillingDto"] | components["schemas"]["InfillingDto"];
+            weathering: components["schemas"]["Rmr89Weathering"] | null;
+        };
+        NoInfillingDto: {
+            /** @enum {string} */
+            kind: "none";
+        };
+        InfillingDto: {
+            /** @enum {string} */
+            kind: "hard" | "soft";
+            thicknessMm: number | null;
+        };
+        InflowGroundwaterDto: {
+            /** @enum {string} */
+            kind: "inflow";
+            /** @description Inflow per 10 m of tunnel, l/min */
+            litresPerMinutePer10m: number | null;
+        };
+        PressureGroundwaterDto: {
+            /** @enum {string} */
+            kind: "pressure-ratio";
+            ratio: number | null;
+        };
+        /** @enum {string} */
+        Rmr89WaterCondition: "completely dry" | "damp" | "wet" | "dripping" | "flowing";
+        ConditionGroundwaterDto: {
+            /** @enum {string} */
+            kind: "condition";
+            condition: components["schemas"]["Rmr89WaterCondition"] | null;
+        };
+        /** @enum {string} */
+        RmrOrientationAssessment: "very favourable" | "favourable" | "fair" | "unfavourable" | "very unfavourable";
+        AssessedOrientationDto: {
+            /** @enum {string} */
+            kind: "assessment";
+            assessment: components["schemas"]["RmrOrientationAssessment"];
+        };
+        NotAssessedOrientationDto: {
+            /** @enum {string} */
+            kind: "not assessed";
+        };
+        RmrInputDto: {
+            strength: components["schemas"]["PointLoadStrengthDto"] | components["schemas"]["UcsStrengthDto"];
+            rqd: number | null;
+            /** @description Mean spacing of the discontinuities, m */
+            spacingM: number | null;
+            condition: components["schemas"]["SimpleConditionDto"] | components["schemas"]["DetailedConditionDto"];
+            groundwater: components["schemas"]["InflowGroundwaterDto"] | components["schemas"]["PressureGroundwaterDto"] | components["schemas"]["ConditionGroundwaterDto"];
+            orientation: components["schemas"]["AssessedOrientationDto"] | components["schemas"]["NotAssessedOrientationDto"];
+        };
         SetParametersDto: {
             /**
              * @description Metres either side of the face (0, 10, 25, 50 or 100)
@@ -1080,14 +1182,10 @@ export interface components {
             previousChainage: number | null;
             roundLength: number | null;
             shift: components["schemas"]["Shift"];
-            /** @description Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
-            qInput: {
-                [key: string]: unknown;
-            } | null;
-            /** @description RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
-            rmrInput: {
-                [key: string]: unknown;
-            } | null;
+            /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
+            qInput: components["schemas"]["QInputDto"] | null;
+            /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
+            rmrInput: components["schemas"]["RmrInputDto"] | null;
             gsiObserved: number | null;
             /** Format: uuid */
             recommendedClassId: string | null;
@@ -1197,14 +1295,10 @@ export interface components {
             previousChainage: number | null;
             roundLength: number | null;
             shift: components["schemas"]["Shift"];
-            /** @description Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
-            qInput: {
-                [key: string]: unknown;
-            } | null;
-            /** @description RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
-            rmrInput: {
-                [key: string]: unknown;
-            } | null;
+            /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
+            qInput: components["schemas"]["QInputDto"] | null;
+            /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
+            rmrInput: components["schemas"]["RmrInputDto"] | null;
             gsiObserved: number | null;
             /** Format: uuid */
             recommendedClassId: string | null;

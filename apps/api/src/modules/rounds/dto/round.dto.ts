@@ -17,7 +17,6 @@ import {
   IsIn,
   IsInt,
   IsNumber,
-  IsObject,
   IsOptional,
   IsString,
   IsUUID,
@@ -28,6 +27,7 @@ import {
   Min,
   ValidateNested,
 } from 'class-validator';
+import { QInputDto, RmrInputDto } from './rating-input.dto.js';
 
 export class RockUnitDto {
   @IsString()
@@ -274,17 +274,19 @@ export class RoundInputDto {
   @Type(() => JointInputDto)
   joints: JointInputDto[];
 
-  /** Q inputs: { rqd, jn, jr, ja, jw, srf, location?, jrSpacingOver3m? } (checked by the Q tables) */
+  /** Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
   @IsOptional()
-  @IsObject()
-  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true })
-  qInput: Record<string, unknown> | null;
+  @ValidateNested()
+  @Type(() => QInputDto)
+  @ApiProperty({ type: () => QInputDto, nullable: true })
+  qInput: QInputDto | null;
 
-  /** RMR89 inputs (packages/geomath Rmr89Input; orientation as an assessment or not assessed) */
+  /** RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
   @IsOptional()
-  @IsObject()
-  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true })
-  rmrInput: Record<string, unknown> | null;
+  @ValidateNested()
+  @Type(() => RmrInputDto)
+  @ApiProperty({ type: () => RmrInputDto, nullable: true })
+  rmrInput: RmrInputDto | null;
 
   @IsOptional()
   @IsNumber()

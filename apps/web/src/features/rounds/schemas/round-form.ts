@@ -333,7 +333,7 @@ export function formValuesOf(round: Round): RoundFormValues {
 const anyFilled = (values: string[]) => values.some((v) => v.trim() !== '');
 
 /** Q inputs as stored: the six numbers (empty ones as null, so the server says what is missing) and the choices. */
-export function qInputOf(q: QForm): Record<string, unknown> | null {
+export function qInputOf(q: QForm): SaveRoundRequest['qInput'] {
   if (!anyFilled([q.rqd, q.jn, q.jr, q.ja, q.jw, q.srf])) return null;
   return {
     rqd: num(q.rqd),
@@ -346,11 +346,11 @@ export function qInputOf(q: QForm): Record<string, unknown> | null {
     jrSpacingOver3m: q.jrSpacingOver3m,
     rows: q.rows,
     rqdFromJv: q.rqdFromJv,
-  };
+  } as SaveRoundRequest['qInput'];
 }
 
 /** RMR89 inputs in geomath's Rmr89Input shape (orientation as an assessment or not assessed). */
-export function rmrInputOf(r: RmrForm): Record<string, unknown> | null {
+export function rmrInputOf(r: RmrForm): SaveRoundRequest['rmrInput'] {
   const filled = anyFilled([
     r.is50,
     r.ucs,
@@ -393,7 +393,7 @@ export function rmrInputOf(r: RmrForm): Record<string, unknown> | null {
           : { kind: 'condition', condition: r.waterCondition || null },
     orientation:
       r.orientation === '' ? { kind: 'not assessed' } : { kind: 'assessment', assessment: r.orientation },
-  };
+  } as SaveRoundRequest['rmrInput'];
 }
 
 export function jointInputOf(j: JointRow): JointInput {
