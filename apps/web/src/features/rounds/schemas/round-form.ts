@@ -330,12 +330,15 @@ export function formValuesOf(round: Round): RoundFormValues {
   };
 }
 
+/** The form's inputs as sent: empty choices go as null and the server says what is missing. */
+const asSent = <T>(value: unknown): T => value as T;
+
 const anyFilled = (values: string[]) => values.some((v) => v.trim() !== '');
 
 /** Q inputs as stored: the six numbers (empty ones as null, so the server says what is missing) and the choices. */
 export function qInputOf(q: QForm): SaveRoundRequest['qInput'] {
   if (!anyFilled([q.rqd, q.jn, q.jr, q.ja, q.jw, q.srf])) return null;
-  return {
+  return asSent<SaveRoundRequest['qInput']>({
     rqd: num(q.rqd),
     jn: num(q.jn),
     jr: num(q.jr),
@@ -346,7 +349,7 @@ export function qInputOf(q: QForm): SaveRoundRequest['qInput'] {
     jrSpacingOver3m: q.jrSpacingOver3m,
     rows: q.rows,
     rqdFromJv: q.rqdFromJv,
-  } as SaveRoundRequest['qInput'];
+  });
 }
 
 /** RMR89 inputs in geomath's Rmr89Input shape (orientation as an assessment or not assessed). */
@@ -366,7 +369,7 @@ export function rmrInputOf(r: RmrForm): SaveRoundRequest['rmrInput'] {
     r.pressureRatio,
   ]);
   if (!filled) return null;
-  return {
+  return asSent<SaveRoundRequest['rmrInput']>({
     strength:
       r.strengthKind === 'ucs' ? { kind: 'ucs', ucs: num(r.ucs) } : { kind: 'point-load', is50: num(r.is50) },
     rqd: num(r.rqd),
@@ -393,7 +396,7 @@ export function rmrInputOf(r: RmrForm): SaveRoundRequest['rmrInput'] {
           : { kind: 'condition', condition: r.waterCondition || null },
     orientation:
       r.orientation === '' ? { kind: 'not assessed' } : { kind: 'assessment', assessment: r.orientation },
-  } as SaveRoundRequest['rmrInput'];
+  });
 }
 
 export function jointInputOf(j: JointRow): JointInput {
