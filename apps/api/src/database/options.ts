@@ -1,5 +1,7 @@
 import type { DataSourceOptions } from 'typeorm';
 import type { AppConfig } from '../config/app-config.js';
+import { Job } from '../infrastructure/jobs/job.entity.js';
+import { Notice } from '../infrastructure/mail/notice.entity.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
@@ -23,6 +25,8 @@ export const entities = [
   Invitation,
   Round,
   Joint,
+  Job,
+  Notice,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

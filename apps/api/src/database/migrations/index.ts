@@ -2,6 +2,7 @@ import { Init1764633600000 } from './1764633600000-Init.js';
 import { SetupLibrary1764720000000 } from './1764720000000-SetupLibrary.js';
 import { Rounds1764806400000 } from './1764806400000-Rounds.js';
 import { RoundTriggers1764892800000 } from './1764892800000-RoundTriggers.js';
+import { JobsAndOperators1796193536073 } from './1796193536073-JobsAndOperators.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -9,4 +10,5 @@ export const migrations = [
   SetupLibrary1764720000000,
   Rounds1764806400000,
   RoundTriggers1764892800000,
+  JobsAndOperators1796193536073,
 ];

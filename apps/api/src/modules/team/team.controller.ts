@@ -3,6 +3,7 @@ import {
   Controller,
   Delete,
   Get,
+  Headers,
   HttpCode,
   Inject,
   Param,
@@ -15,6 +16,7 @@ import {
   ApiBearerAuth,
   ApiConflictResponse,
   ApiCreatedResponse,
+  ApiForbiddenResponse,
   ApiNoContentResponse,
   ApiOkResponse,
   ApiTags,
@@ -25,8 +27,8 @@ import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decor
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { Public } from '../../common/auth/public.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
-import { TokenResponseDto } from '../auth/dto/token-response.dto.js';
 import {
+  AcceptedInvitationDto,
   AcceptInvitationDto,
   ChangeRoleDto,
   InvitationDto,
@@ -137,14 +139,25 @@ export class InvitationsController {
     return this.team.invitationInfo(token);
   }
 
-  /** Accepts an invitation: sets the password (or checks the existing one), joins, signs in */
+  /**
+   * Accepts an invitation, once, for the invited address only: signed in as that address, joins with the
+   * account; not signed in, creates the account for it (refused if one exists: sign in first). Signed in
+   * as anyone else: 403.
+   */
   @Public()
   @UseGuards(ThrottlerGuard)
   @Throttle({ login: {} })
   @Post(':token/accept')
   @HttpCode(200)
-  @ApiOkResponse({ type: TokenResponseDto })
-  accept(@Param('token') token: string, @Body() body: AcceptInvitationDto): Promise<TokenResponseDto> {
-    return this.team.accept(token, body);
+  @ApiBearerAuth()
+  @ApiOkResponse({ type: AcceptedInvitationDto })
+  @ApiForbiddenResponse({ type: ErrorResponseDto, description: 'Signed in as another address' })
+  @ApiConflictResponse({ type: ErrorResponseDto, description: 'The address has an account: sign in first' })
+  accept(
+    @Param('token') token: string,
+    @Body() body: AcceptInvitationDto,
+    @Headers('authorization') authorization?: string,
+  ): Promise<AcceptedInvitationDto> {
+    return this.team.accept(token, body, authorization);
   }
 }
