@@ -23,6 +23,9 @@ export class SmtpMailService extends MailService implements OnApplicationShutdow
       connectionTimeout: 5000,
       greetingTimeout: 5000,
       socketTimeout: 15000,
+      // Keep a few connections open for the jobs worker's parallel sends (one per worker slot).
+      pool: true,
+      maxConnections: config.jobs.concurrency,
     });
   }
 
