@@ -3,13 +3,13 @@ import {
   Controller,
   Delete,
   Get,
-  Headers,
   HttpCode,
   Inject,
   Param,
   ParseUUIDPipe,
   Patch,
   Post,
+  Req,
 } from '@nestjs/common';
 import { UseGuards } from '@nestjs/common';
 import {
@@ -22,6 +22,7 @@ import {
   ApiTags,
 } from '@nestjs/swagger';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
+import type { Request } from 'express';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
@@ -156,8 +157,8 @@ export class InvitationsController {
   accept(
     @Param('token') token: string,
     @Body() body: AcceptInvitationDto,
-    @Headers('authorization') authorization?: string,
+    @Req() req: Request,
   ): Promise<AcceptedInvitationDto> {
-    return this.team.accept(token, body, authorization);
+    return this.team.accept(token, body, req.headers.authorization);
   }
 }
