@@ -266,10 +266,12 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
       const refused = await request(http).get('/api/local/mail').set(bearer(lead.token)).expect(403);
       expect(refused.body.message).toMatch(/operator/);
       await request(http).get('/api/local/jobs').set(bearer(lead.token)).expect(403);
-      expect((await request(http).get('/api/local/access').set(bearer(lead.token)).expect(200)).body).toEqual({
-        localMode: true,
-        operator: false,
-      });
+      expect((await request(http).get('/api/local/access').set(bearer(lead.token)).expect(200)).body).toEqual(
+        {
+          localMode: true,
+          operator: false,
+        },
+      );
       expect((await request(http).get('/api/local/access').set(as('admin')).expect(200)).body).toEqual({
         localMode: true,
         operator: true,
