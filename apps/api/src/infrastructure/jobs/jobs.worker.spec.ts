@@ -1,3 +1,4 @@
+import { Logger } from '@nestjs/common';
 import type { FailureOutcome } from './backoff';
 import { JobHandlers, PermanentJobError } from './job-handlers';
 import type { Job } from './job.entity';
@@ -84,6 +85,9 @@ async function until(check: () => boolean, ms = 2000): Promise<void> {
 }
 
 describe('JobsWorker', () => {
+  beforeAll(() => Logger.overrideLogger(false));
+  afterAll(() => Logger.overrideLogger(['error', 'warn', 'log']));
+
   let store: FakeJobs;
   let handlers: JobHandlers;
   let now: Date;
