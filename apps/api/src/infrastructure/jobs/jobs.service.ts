@@ -44,18 +44,20 @@ export class JobsService {
   /**
    * Claims up to `limit` due jobs for `workerId`: SELECT … FOR UPDATE SKIP LOCKED on the (state,
    * next_attempt_at) index in a READ COMMITTED transaction, so two workers never take the same row and
-   * neither waits for the other. Each claim counts as an attempt.
+   * neither waits for the other. Each claim counts as an attempt. `kinds` limits it to some job kinds
+   * (a worker that runs only those).
    */
-  async claim(workerId: string, limit: number, now: Date): Promise<Job[]> {
-    if (limit <= 0) return [];
+  async claim(workerId: string, limit: number, now: Date, kinds?: string[]): Promise<Job[]> {
+    if (limit <= 0 || kinds?.length === 0) return [];
+    const byKind = kinds ? `AND kind IN (${kinds.map(() => '?').join(', ')})` : '';
     return this.dataSource.transaction('READ COMMITTED', async (manager) => {
       const due = await manager.query<Array<{ id: string }>>(
         `SELECT id FROM jobs
-          WHERE state = 'pending' AND next_attempt_at <= ?
+          WHERE state = 'pending' AND next_attempt_at <= ? ${byKind}
           ORDER BY next_attempt_at, created_at
           LIMIT ?
           FOR UPDATE SKIP LOCKED`,
-        [now, limit],
+        [now, ...(kinds ?? []), limit],
       );
       if (due.length === 0) return [];
       const ids = due.map((r) => r.id);
