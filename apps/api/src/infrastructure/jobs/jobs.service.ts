@@ -45,7 +45,9 @@ export class JobsService {
    * Claims up to `limit` due jobs for `workerId`: SELECT … FOR UPDATE SKIP LOCKED on the (state,
    * next_attempt_at) index in a READ COMMITTED transaction, so two workers never take the same row and
    * neither waits for the other. Each claim counts as an attempt. `kinds` limits it to some job kinds
-   * (a worker that runs only those).
+   * (a worker that runs only those). The order is the index's own (state, next_attempt_at, then the primary
+   * key InnoDB appends), so the scan stops after `limit` rows and locks no others; an order the index does
+   * not give (say created_at) would sort — locking every due row — and the other worker would skip them all.
    */
   async claim(workerId: string, limit: number, now: Date, kinds?: string[]): Promise<Job[]> {
     if (limit <= 0 || kinds?.length === 0) return [];
@@ -54,7 +56,7 @@ export class JobsService {
       const due = await manager.query<Array<{ id: string }>>(
         `SELECT id FROM jobs
           WHERE state = 'pending' AND next_attempt_at <= ? ${byKind}
-          ORDER BY next_attempt_at, created_at
+          ORDER BY next_attempt_at, id
           LIMIT ?
           FOR UPDATE SKIP LOCKED`,
         [now, ...(kinds ?? []), limit],
