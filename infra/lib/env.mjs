@@ -93,6 +93,10 @@ export function profileEnv(profileName) {
     WEB_DIST_DIR: pick('WEB_DIST_DIR', path.join(root, 'apps/web/dist')),
     DEMO_PASSWORD: pick('DEMO_PASSWORD', 'rb-demo-2026'),
     LOGIN_RATE_LIMIT: pick('LOGIN_RATE_LIMIT', profileName === 'test' ? '1000' : '10'),
+    WORKER_ENABLED: pick('WORKER_ENABLED', 'true'),
+    JOBS_POLL_INTERVAL_MS: pick('JOBS_POLL_INTERVAL_MS', profileName === 'test' ? '50' : '1000'),
+    // Local and test instances let anyone signed in create a project; the API's own default is operators.
+    PROJECT_CREATION: pick('PROJECT_CREATION', 'anyone'),
   };
   return {
     profile: profileName,

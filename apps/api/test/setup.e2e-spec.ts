@@ -1,10 +1,7 @@
-import { readdirSync, readFileSync } from 'node:fs';
-import path from 'node:path';
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
-import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
 import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { Project } from '../src/modules/projects/project.entity';
 import { hashPassword } from '../src/modules/users/password';
@@ -436,132 +433,7 @@ describe('Setup: headings, support classes, trigger rules, team (e2e, real Maria
     });
   });
 
-  describe('team', () => {
-    const mailFor = (to: string): Body[] => {
-      const dir = app.get<AppConfig>(APP_CONFIG).mail.localInboxDir!;
-      return readdirSync(dir)
-        .filter((f) => f.endsWith('.json'))
-        .map((f) => JSON.parse(readFileSync(path.join(dir, f), 'utf8')) as Body)
-        .filter((m) => (m.to as string[]).includes(to));
-    };
-
-    it('invites by e-mail; the SMTP fake receives the link; accepting creates the account and the membership', async () => {
-      const email = `new.geologist.${Date.now()}@roundbook.test`;
-      await request(http)
-        .post(`${base}/invitations`)
-        .set(as('engineer'))
-        .send({ email, role: 'geologist' })
-        .expect(403);
-      const invited = await request(http)
-        .post(`${base}/invitations`)
-        .set(as('admin'))
-        .send({ email: email.toUpperCase(), name: 'Invented Newcomer', role: 'geologist' })
-        .expect(201);
-      expect(invited.body).toMatchObject({ email, role: 'geologist', emailSent: true });
-
-      const [message] = mailFor(email);
-      expect(message.subject).toBe('You are invited to Brannoch Hydro — Headrace Tunnel in Roundbook');
-      expect(message.text).toContain('Invented Newcomer');
-      const link = /(http:\/\/\S+\/invitation\/([A-Za-z0-9_-]+))/.exec(message.text as string)!;
-      const token = link[2];
-
-      const info = await request(http).get(`/api/invitations/${token}`).expect(200);
-      expect(info.body).toMatchObject({
-        email,
-        role: 'geologist',
-        accountExists: false,
-        projectName: 'Brannoch Hydro — Headrace Tunnel',
-      });
-      const short = await request(http)
-        .post(`/api/invitations/${token}/accept`)
-        .send({ name: 'Invented Newcomer', password: 'short' })
-        .expect(400);
-      expect(short.body.fields).toEqual({ password: 'Use at least 10 characters.' });
-      const accepted = await request(http)
-        .post(`/api/invitations/${token}/accept`)
-        .send({ name: 'Invented Newcomer', password: 'a-long-enough-pw' })
-        .expect(200);
-      const projects = await request(http)
-        .get('/api/projects')
-        .set('Authorization', `Bearer ${accepted.body.accessToken}`)
-        .expect(200);
-      expect((projects.body as Body[]).map((p) => [p.id, p.role])).toEqual([[projectId, 'geologist']]);
-      await request(http).get(`/api/invitations/${token}`).expect(404); // used once
-
-      const team = await request(http).get(`${base}/team`).set(as('viewer')).expect(200);
-      const member = (team.body.members as Body[]).find((m) => m.email === email)!;
-      expect(member.role).toBe('geologist');
-
-      const promoted = await request(http)
-        .patch(`${base}/members/${member.memberId}`)
-        .set(as('admin'))
-        .send({ role: 'engineer' })
-        .expect(200);
-      expect((promoted.body.members as Body[]).find((m) => m.email === email)!.role).toBe('engineer');
-      expect(await lastAudit(member.userId as string)).toMatchObject({
-        action: 'change-role',
-        before: { role: 'geologist' },
-        after: { role: 'engineer' },
-      });
-
-      const removed = await request(http)
-        .delete(`${base}/members/${member.memberId}`)
-        .set(as('admin'))
-        .expect(200);
-      expect((removed.body.members as Body[]).map((m) => m.email)).not.toContain(email);
-      await request(http)
-        .get(`${base}`)
-        .set('Authorization', `Bearer ${accepted.body.accessToken}`)
-        .expect(404);
-    });
-
-    it('keeps the last admin, and refuses to invite an existing member', async () => {
-      const team = await request(http).get(`${base}/team`).set(as('admin')).expect(200);
-      const admin = (team.body.members as Body[]).find((m) => m.role === 'admin')!;
-      const res = await request(http)
-        .patch(`${base}/members/${admin.memberId}`)
-        .set(as('admin'))
-        .send({ role: 'viewer' })
-        .expect(409);
-      expect(res.body.message).toMatch(/at least one admin/);
-      await request(http).delete(`${base}/members/${admin.memberId}`).set(as('admin')).expect(409);
-      const dup = await request(http)
-        .post(`${base}/invitations`)
-        .set(as('admin'))
-        .send({ email: 'viewer@roundbook.test', role: 'viewer' })
-        .expect(409);
-      expect(dup.body.fields).toEqual({ email: 'Already a member.' });
-    });
-
-    it('keeps the invitation when the mail server is down, and sends it on resend', async () => {
-      const down = await createTestApp((c) => ({ ...c, mail: { ...c.mail, port: 1 } }));
-      const email = `later.${Date.now()}@roundbook.test`;
-      let invitationId: string;
-      try {
-        const res = await request(down.getHttpServer() as App)
-          .post(`${base}/invitations`)
-          .set(as('admin'))
-          .send({ email, role: 'viewer' })
-          .expect(201);
-        expect(res.body).toMatchObject({ email, emailSent: false });
-        invitationId = res.body.id as string;
-      } finally {
-        await down.close();
-      }
-      expect(mailFor(email)).toHaveLength(0);
-      const team = await request(http).get(`${base}/team`).set(as('admin')).expect(200);
-      expect((team.body.invitations as Body[]).find((i) => i.email === email)).toMatchObject({
-        emailSent: false,
-      });
-      const resent = await request(http)
-        .post(`${base}/invitations/${invitationId}/resend`)
-        .set(as('admin'))
-        .expect(200);
-      expect(resent.body.emailSent).toBe(true);
-      expect(mailFor(email)).toHaveLength(1);
-      await request(http).delete(`${base}/invitations/${invitationId}`).set(as('admin')).expect(204);
-    });
-  });
+  // The team and invitation tests moved to invitations.e2e-spec.ts (e-mail now goes through the jobs worker).
 
   describe('a new project from scratch', () => {
     it('lets a signed-in person create a project and become its admin; a taken code lands on the field', async () => {

@@ -31,6 +31,16 @@ export interface AppConfig {
   };
   webDistDir?: string;
   demoPassword?: string;
+  jobs: {
+    workerEnabled: boolean;
+    pollIntervalMs: number;
+    concurrency: number;
+    maxAttempts: number;
+    backoffBaseMs: number;
+    backoffMaxMs: number;
+    leaseMs: number;
+  };
+  projectCreation: 'anyone' | 'operators';
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
@@ -66,6 +76,16 @@ export function toAppConfig(e: EnvironmentVariables): AppConfig {
     },
     webDistDir: e.WEB_DIST_DIR,
     demoPassword: e.DEMO_PASSWORD,
+    jobs: {
+      workerEnabled: e.WORKER_ENABLED,
+      pollIntervalMs: e.JOBS_POLL_INTERVAL_MS,
+      concurrency: e.JOBS_CONCURRENCY,
+      maxAttempts: e.JOBS_MAX_ATTEMPTS,
+      backoffBaseMs: e.JOBS_BACKOFF_BASE_MS,
+      backoffMaxMs: e.JOBS_BACKOFF_MAX_MS,
+      leaseMs: e.JOBS_LEASE_MS,
+    },
+    projectCreation: e.PROJECT_CREATION,
   };
 }
 

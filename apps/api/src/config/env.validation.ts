@@ -158,6 +158,55 @@ export class EnvironmentVariables {
   @IsInt()
   @Min(1)
   LOGIN_RATE_LIMIT = 10;
+
+  // --- Background jobs and instance permissions (jobs worker, operators) ---
+
+  /** Whether this API process runs the jobs worker (any number of processes may). */
+  @Transform(toBool)
+  @IsBoolean()
+  WORKER_ENABLED = true;
+
+  /** How often an idle worker looks for due jobs, in milliseconds. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(10)
+  @Max(600_000)
+  JOBS_POLL_INTERVAL_MS = 1000;
+
+  /** How many jobs one worker runs at once. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(64)
+  JOBS_CONCURRENCY = 4;
+
+  /** Attempts before a job is given up (state dead, its last error kept). */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(1000)
+  JOBS_MAX_ATTEMPTS = 12;
+
+  /** First retry delay; each further attempt doubles it, up to JOBS_BACKOFF_MAX_MS. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  JOBS_BACKOFF_BASE_MS = 5000;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  JOBS_BACKOFF_MAX_MS = 1_800_000;
+
+  /** A running job whose worker went silent this long is claimed again. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1000)
+  JOBS_LEASE_MS = 300_000;
+
+  /** Who may create projects: anyone signed in, or instance operators only. */
+  @IsIn(['anyone', 'operators'])
+  PROJECT_CREATION: 'anyone' | 'operators' = 'operators';
 }
 
 /** Returns the validated variables or throws one Error listing every problem, one per line. */

@@ -1,6 +1,8 @@
 import type { DataSourceOptions } from 'typeorm';
 import { IdempotencyKey } from '../common/idempotency/idempotency-key.entity.js';
 import type { AppConfig } from '../config/app-config.js';
+import { Job } from '../infrastructure/jobs/job.entity.js';
+import { Notice } from '../infrastructure/mail/notice.entity.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
@@ -27,6 +29,8 @@ export const entities = [
   Joint,
   RoundRevision,
   IdempotencyKey,
+  Job,
+  Notice,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -34,6 +34,9 @@ interface Scenario {
   rounds: DemoRoundsPlan[];
 }
 
+/** The demo user who is the instance operator. */
+export const DEMO_OPERATOR_EMAIL = 'admin@roundbook.test';
+
 export const scenarioFile = (): string =>
   path.resolve(__dirname, '../../../../../fixtures/demo/scenario.json');
 
@@ -64,7 +67,13 @@ export async function seedDemo(
     }
     for (const u of scenario.users) {
       const user = await manager.save(
-        manager.create(User, { email: u.email, name: u.name, passwordHash: hash }),
+        manager.create(User, {
+          email: u.email,
+          name: u.name,
+          passwordHash: hash,
+          // The demo admin also runs the instance (local mail view, jobs, creating projects).
+          isOperator: u.email === DEMO_OPERATOR_EMAIL,
+        }),
       );
       await manager.save(
         manager.create(ProjectMember, { projectId: project.id, userId: user.id, role: u.role }),

@@ -9,7 +9,7 @@ export class LogMailService extends MailService {
 
   send(message: MailMessage): Promise<{ messageId: string }> {
     this.logger.log(`(not sent, MAIL_DRIVER=log) to ${message.to.join(', ')}: ${message.subject}`);
-    return Promise.resolve({ messageId: `<${randomUUID()}@log>` });
+    return Promise.resolve({ messageId: message.messageId ?? `<${randomUUID()}@log>` });
   }
 
   check(): Promise<string> {

@@ -11,6 +11,8 @@ export interface MailMessage {
   text: string;
   html?: string;
   attachments?: MailAttachment[];
+  /** A fixed Message-ID (`<id@domain>`), so a message sent again is recognisably the same one */
+  messageId?: string;
 }
 
 /** Outgoing e-mail behind an interface; SMTP in production and locally (against the SMTP fake). */

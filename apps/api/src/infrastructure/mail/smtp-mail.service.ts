@@ -1,10 +1,10 @@
-import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
+import { Inject, Injectable, type OnApplicationShutdown } from '@nestjs/common';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { MailService, type MailMessage } from './mail.service.js';
 
 @Injectable()
-export class SmtpMailService extends MailService implements OnModuleDestroy {
+export class SmtpMailService extends MailService implements OnApplicationShutdown {
   private readonly transporter: Transporter;
   private readonly from: string;
   private readonly target: string;
@@ -23,6 +23,9 @@ export class SmtpMailService extends MailService implements OnModuleDestroy {
       connectionTimeout: 5000,
       greetingTimeout: 5000,
       socketTimeout: 15000,
+      // Keep a few connections open for the jobs worker's parallel sends (one per worker slot).
+      pool: true,
+      maxConnections: config.jobs.concurrency,
     });
   }
 
@@ -35,6 +38,7 @@ export class SmtpMailService extends MailService implements OnModuleDestroy {
       text: message.text,
       html: message.html,
       attachments: message.attachments,
+      messageId: message.messageId,
     })) as { messageId: string };
     return { messageId: info.messageId };
   }
@@ -44,7 +48,8 @@ export class SmtpMailService extends MailService implements OnModuleDestroy {
     return `SMTP ${this.target} answering`;
   }
 
-  onModuleDestroy(): void {
+  /** After the jobs worker has stopped (it stops in beforeApplicationShutdown). */
+  onApplicationShutdown(): void {
     this.transporter.close();
   }
 }

@@ -1,12 +1,11 @@
 import { Module } from '@nestjs/common';
-import { TypeOrmModule } from '@nestjs/typeorm';
-import { ProjectMember } from '../projects/project-member.entity.js';
+import { LocalAccessController } from './local-access.controller.js';
 import { LocalMailController } from './local-mail.controller.js';
 import { LocalMailService } from './local-mail.service.js';
+import { OperatorGuard } from './operator.guard.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ProjectMember])],
-  controllers: [LocalMailController],
-  providers: [LocalMailService],
+  controllers: [LocalAccessController, LocalMailController],
+  providers: [LocalMailService, OperatorGuard],
 })
 export class LocalMailModule {}

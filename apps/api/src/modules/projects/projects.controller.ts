@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Inject, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Inject, Param, ParseUUIDPipe, Patch, Post, UseGuards } from '@nestjs/common';
 import {
   ApiBearerAuth,
   ApiConflictResponse,
@@ -10,6 +10,7 @@ import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
+import { ProjectCreationGuard } from '../users/project-creation.guard.js';
 import { CreateProjectDto, ProjectSummaryDto, UpdateProjectDto } from './dto/project.dto.js';
 import { ProjectsService } from './projects.service.js';
 
@@ -26,8 +27,9 @@ export class ProjectsController {
     return this.projects.listForUser(user);
   }
 
-  /** Creates a project; the caller becomes its admin */
+  /** Creates a project; the caller becomes its admin (PROJECT_CREATION: anyone, or operators only) */
   @Post()
+  @UseGuards(ProjectCreationGuard)
   @ApiCreatedResponse({ type: ProjectSummaryDto })
   @ApiConflictResponse({ type: ErrorResponseDto, description: 'CONFLICT: the code is taken' })
   create(@CurrentUser() user: AuthUser, @Body() body: CreateProjectDto): Promise<ProjectSummaryDto> {

@@ -38,9 +38,9 @@ export class Invitation {
   @Column({ name: 'accepted_at', type: 'datetime', precision: 3, nullable: true })
   acceptedAt: Date | null;
 
-  /** When the e-mail reached the mail server; null while it has not (it can be resent). */
-  @Column({ name: 'email_sent_at', type: 'datetime', precision: 3, nullable: true })
-  emailSentAt: Date | null;
+  /** The queued e-mail that carries the current link (notices table); its sent_at says whether it went. */
+  @Column({ name: 'notice_id', type: 'uuid', nullable: true })
+  noticeId: string | null;
 
   @CreatedAt()
   createdAt: Date;

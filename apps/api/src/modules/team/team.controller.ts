@@ -9,24 +9,27 @@ import {
   ParseUUIDPipe,
   Patch,
   Post,
+  Req,
 } from '@nestjs/common';
 import { UseGuards } from '@nestjs/common';
 import {
   ApiBearerAuth,
   ApiConflictResponse,
   ApiCreatedResponse,
+  ApiForbiddenResponse,
   ApiNoContentResponse,
   ApiOkResponse,
   ApiTags,
 } from '@nestjs/swagger';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
+import type { Request } from 'express';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { Public } from '../../common/auth/public.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
-import { TokenResponseDto } from '../auth/dto/token-response.dto.js';
 import {
+  AcceptedInvitationDto,
   AcceptInvitationDto,
   ChangeRoleDto,
   InvitationDto,
@@ -137,14 +140,25 @@ export class InvitationsController {
     return this.team.invitationInfo(token);
   }
 
-  /** Accepts an invitation: sets the password (or checks the existing one), joins, signs in */
+  /**
+   * Accepts an invitation, once, for the invited address only: signed in as that address, joins with the
+   * account; not signed in, creates the account for it (refused if one exists: sign in first). Signed in
+   * as anyone else: 403.
+   */
   @Public()
   @UseGuards(ThrottlerGuard)
   @Throttle({ login: {} })
   @Post(':token/accept')
   @HttpCode(200)
-  @ApiOkResponse({ type: TokenResponseDto })
-  accept(@Param('token') token: string, @Body() body: AcceptInvitationDto): Promise<TokenResponseDto> {
-    return this.team.accept(token, body);
+  @ApiBearerAuth()
+  @ApiOkResponse({ type: AcceptedInvitationDto })
+  @ApiForbiddenResponse({ type: ErrorResponseDto, description: 'Signed in as another address' })
+  @ApiConflictResponse({ type: ErrorResponseDto, description: 'The address has an account: sign in first' })
+  accept(
+    @Param('token') token: string,
+    @Body() body: AcceptInvitationDto,
+    @Req() req: Request,
+  ): Promise<AcceptedInvitationDto> {
+    return this.team.accept(token, body, req.headers.authorization);
   }
 }

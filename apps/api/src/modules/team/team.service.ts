@@ -1,20 +1,21 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { Inject, Injectable, Logger } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
+import { JwtService } from '@nestjs/jwt';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, IsNull, MoreThan, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
-import { MailService } from '../../infrastructure/mail/mail.service.js';
+import { NoticesService, type NoticeStatus } from '../../infrastructure/mail/notices.service.js';
 import { invitationEmail } from '../../infrastructure/mail/templates/invitation.email.js';
 import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
-import type { TokenResponseDto } from '../auth/dto/token-response.dto.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
-import { hashPassword, verifyPassword } from '../users/password.js';
+import { hashPassword } from '../users/password.js';
 import { User } from '../users/user.entity.js';
 import type {
+  AcceptedInvitationDto,
   AcceptInvitationDto,
   ChangeRoleDto,
   InvitationDto,
@@ -26,16 +27,17 @@ import { Invitation } from './invitation.entity.js';
 
 const INVITATION_DAYS = 7;
 const sha256 = (s: string): string => createHash('sha256').update(s).digest('hex');
+const isDuplicateKey = (e: unknown): boolean =>
+  typeof e === 'object' && e !== null && (e as { code?: unknown }).code === 'ER_DUP_ENTRY';
 
 @Injectable()
 export class TeamService {
-  private readonly logger = new Logger('Team');
-
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
-    @Inject(MailService) private readonly mail: MailService,
+    @Inject(NoticesService) private readonly notices: NoticesService,
     @Inject(AuthService) private readonly auth: AuthService,
+    @Inject(JwtService) private readonly jwt: JwtService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
@@ -48,6 +50,9 @@ export class TeamService {
       where: { projectId: access.projectId, acceptedAt: IsNull(), expiresAt: MoreThan(new Date()) },
       order: { createdAt: 'DESC' },
     });
+    const status = await this.notices.status(
+      invitations.map((i) => i.noticeId).filter((id): id is string => id !== null),
+    );
     return {
       members: members
         .map((m) => ({
@@ -59,11 +64,15 @@ export class TeamService {
           since: m.createdAt.toISOString(),
         }))
         .sort((a, b) => a.name.localeCompare(b.name)),
-      invitations: invitations.map((i) => this.toInvitationDto(i)),
+      invitations: invitations.map((i) => this.toInvitationDto(i, status)),
     };
   }
 
-  /** Invites by e-mail. The invitation is kept even when the mail server is down; it can be resent. */
+  /**
+   * Invites by e-mail. The invitation and its e-mail (a notice with its job) are written in one transaction;
+   * the worker sends it later, so a mail server that is down delays the e-mail, never the invitation. The
+   * answer is the same whether the address has an account or not, and never shows an account holder's name.
+   */
   async invite(caller: AuthUser, access: ProjectAccess, dto: InviteDto): Promise<InvitationDto> {
     const token = randomBytes(32).toString('base64url');
     const invitation = await this.dataSource.transaction(async (manager) => {
@@ -86,15 +95,16 @@ export class TeamService {
         manager.create(Invitation, {
           projectId: access.projectId,
           email: dto.email,
-          name: dto.name ?? existing?.name ?? '',
+          name: dto.name?.trim() ?? '',
           role: dto.role,
           tokenHash: sha256(token),
           expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
           invitedBy: caller.id,
           acceptedAt: null,
-          emailSentAt: null,
+          noticeId: null,
         }),
       );
+      await this.queueEmail(manager, caller, saved, token);
       await this.audit.record(manager, {
         projectId: access.projectId,
         actorId: caller.id,
@@ -105,23 +115,24 @@ export class TeamService {
       });
       return saved;
     });
-    await this.send(caller, invitation, token);
-    return this.toInvitationDto(invitation);
+    return this.toInvitationDto(invitation, new Map([[invitation.noticeId!, 'queued']]));
   }
 
-  /** Sends a fresh link for an open invitation (the old link stops working). */
+  /** Queues a fresh link for an open invitation (the old link stops working). */
   async resend(caller: AuthUser, access: ProjectAccess, invitationId: string): Promise<InvitationDto> {
     const token = randomBytes(32).toString('base64url');
-    const invitation = await this.dataSource
-      .getRepository(Invitation)
-      .findOne({ where: { id: invitationId, projectId: access.projectId, acceptedAt: IsNull() } });
-    if (!invitation) throw DomainException.notFound('The invitation');
-    invitation.tokenHash = sha256(token);
-    invitation.expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
-    invitation.emailSentAt = null;
-    await this.dataSource.getRepository(Invitation).save(invitation);
-    await this.send(caller, invitation, token);
-    return this.toInvitationDto(invitation);
+    const invitation = await this.dataSource.transaction(async (manager) => {
+      const found = await manager.findOne(Invitation, {
+        where: { id: invitationId, projectId: access.projectId, acceptedAt: IsNull() },
+        lock: { mode: 'pessimistic_write' },
+      });
+      if (!found) throw DomainException.notFound('The invitation');
+      found.tokenHash = sha256(token);
+      found.expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
+      await this.queueEmail(manager, caller, found, token);
+      return found;
+    });
+    return this.toInvitationDto(invitation, new Map([[invitation.noticeId!, 'queued']]));
   }
 
   async revoke(caller: AuthUser, access: ProjectAccess, invitationId: string): Promise<void> {
@@ -186,85 +197,136 @@ export class TeamService {
     return this.team(access);
   }
 
+  /** What an invitation link is for: the project, the invited address and the name the admin typed. */
   async invitationInfo(token: string): Promise<InvitationInfoDto> {
     const invitation = await this.openInvitation(this.dataSource.manager, token);
     const project = await this.dataSource
       .getRepository(Project)
       .findOneByOrFail({ id: invitation.projectId });
-    const accountExists = await this.dataSource
-      .getRepository(User)
-      .exists({ where: { email: invitation.email } });
     return {
       projectName: project.name,
       email: invitation.email,
       name: invitation.name,
       role: invitation.role,
       expiresAt: invitation.expiresAt.toISOString(),
-      accountExists,
     };
   }
 
-  /** Accepts an invitation: creates the account (or checks the existing password) and joins the project. */
-  async accept(token: string, dto: AcceptInvitationDto): Promise<TokenResponseDto> {
-    const email = await this.dataSource.transaction(async (manager) => {
-      const invitation = await this.openInvitation(manager, token, true);
-      let user = await manager.findOne(User, { where: { email: invitation.email } });
-      if (user) {
-        if (!(await verifyPassword(user.passwordHash, dto.password))) {
-          throw new DomainException(
-            ErrorCode.InvalidCredentials,
-            'This e-mail already has an account: enter its password to join.',
-            {
-              password: 'Not the password of this account.',
-            },
-          );
-        }
-      } else {
-        const name = (dto.name ?? invitation.name).trim();
-        if (!name)
-          throw new DomainException(ErrorCode.ValidationFailed, 'Enter your name.', {
-            name: 'Enter your name.',
-          });
-        user = await manager.save(
-          manager.create(User, {
-            email: invitation.email,
-            name,
-            passwordHash: await hashPassword(dto.password),
-          }),
-        );
-      }
-      if (
-        !(await manager.exists(ProjectMember, {
-          where: { projectId: invitation.projectId, userId: user.id },
-        }))
-      ) {
-        await manager.save(
-          manager.create(ProjectMember, {
+  /**
+   * Accepts an invitation; only the owner of the invited address can. The token is single-use and bound to
+   * the address. Signed in (a bearer token) as the invited address: joins with that account. Signed in as
+   * anyone else: refused. Not signed in: creates the account for the invited address — refused when that
+   * address already has an account (its owner signs in first; no password is checked here).
+   */
+  async accept(
+    token: string,
+    dto: AcceptInvitationDto,
+    authorization?: string,
+  ): Promise<AcceptedInvitationDto> {
+    const caller = await this.callerOf(authorization);
+    try {
+      return await this.dataSource
+        .transaction(async (manager) => {
+          const invitation = await this.openInvitation(manager, token, true);
+          if (caller && caller.email !== invitation.email) {
+            throw DomainException.forbidden(
+              `This invitation was sent to ${invitation.email}, and you are signed in as ${caller.email}. Sign out, then open the link again.`,
+            );
+          }
+          let user = await manager.findOne(User, { where: { email: invitation.email } });
+          let created = false;
+          if (caller) {
+            if (!user || user.id !== caller.id)
+              throw DomainException.forbidden('Sign in again, then open the link.');
+          } else {
+            if (user) {
+              throw new DomainException(
+                ErrorCode.Conflict,
+                `${invitation.email} already has a Roundbook account. Sign in with it, then open this link again to join.`,
+              );
+            }
+            const name = (dto.name ?? invitation.name).trim();
+            if (!name)
+              throw new DomainException(ErrorCode.ValidationFailed, 'Enter your name.', {
+                name: 'Enter your name.',
+              });
+            if (!dto.password)
+              throw new DomainException(ErrorCode.ValidationFailed, 'Choose a password.', {
+                password: 'Choose a password of at least 10 characters.',
+              });
+            user = await manager.save(
+              manager.create(User, {
+                email: invitation.email,
+                name,
+                passwordHash: await hashPassword(dto.password),
+              }),
+            );
+            created = true;
+          }
+          if (
+            !(await manager.exists(ProjectMember, {
+              where: { projectId: invitation.projectId, userId: user.id },
+            }))
+          ) {
+            await manager.save(
+              manager.create(ProjectMember, {
+                projectId: invitation.projectId,
+                userId: user.id,
+                role: invitation.role,
+              }),
+            );
+          }
+          invitation.acceptedAt = new Date();
+          await manager.save(invitation);
+          await this.audit.record(manager, {
             projectId: invitation.projectId,
-            userId: user.id,
-            role: invitation.role,
-          }),
+            actorId: user.id,
+            entityType: 'member',
+            entityId: user.id,
+            action: 'join',
+            after: { role: invitation.role, email: user.email, newAccount: created },
+          });
+          return { projectId: invitation.projectId, email: user.email, created };
+        })
+        .then(async (r) => ({
+          projectId: r.projectId,
+          newAccount: r.created,
+          session: r.created ? await this.auth.login(r.email, dto.password!) : undefined,
+        }));
+    } catch (e) {
+      // Two invitations to one new address accepted at once: the second finds the account taken.
+      if (isDuplicateKey(e)) {
+        throw new DomainException(
+          ErrorCode.Conflict,
+          'This address already has a Roundbook account. Sign in with it, then open this link again to join.',
         );
       }
-      invitation.acceptedAt = new Date();
-      await manager.save(invitation);
-      await this.audit.record(manager, {
-        projectId: invitation.projectId,
-        actorId: user.id,
-        entityType: 'member',
-        entityId: user.id,
-        action: 'join',
-        after: { role: invitation.role, email: user.email },
-      });
-      return user.email;
-    });
-    return this.auth.login(email, dto.password);
+      throw e;
+    }
   }
 
-  private async send(caller: AuthUser, invitation: Invitation, token: string): Promise<void> {
-    const project = await this.dataSource
-      .getRepository(Project)
-      .findOneByOrFail({ id: invitation.projectId });
+  /** The account behind an optional bearer token on a public route (null when absent or not valid). */
+  private async callerOf(authorization?: string): Promise<AuthUser | null> {
+    const [scheme, bearer] = (authorization ?? '').split(' ');
+    if (scheme?.toLowerCase() !== 'bearer' || !bearer) return null;
+    let sub: string;
+    try {
+      sub = (await this.jwt.verifyAsync<{ sub: string }>(bearer, { algorithms: ['HS256'] })).sub;
+    } catch {
+      return null;
+    }
+    const user = await this.dataSource.getRepository(User).findOne({ where: { id: sub } });
+    return user ? { id: user.id, email: user.email, name: user.name } : null;
+  }
+
+  /** Renders the invitation e-mail and queues it (notice + job) in the caller's transaction. */
+  private async queueEmail(
+    manager: EntityManager,
+    caller: AuthUser,
+    invitation: Invitation,
+    token: string,
+  ): Promise<void> {
+    const project = await manager.findOneByOrFail(Project, { id: invitation.projectId });
     const message = invitationEmail({
       inviteeName: invitation.name,
       inviterName: caller.name,
@@ -273,21 +335,19 @@ export class TeamService {
       link: `${this.config.appUrl}/invitation/${token}`,
       expiresAt: invitation.expiresAt,
     });
-    try {
-      await this.mail.send({ to: [invitation.email], ...message });
-      invitation.emailSentAt = new Date();
-    } catch (e) {
-      invitation.emailSentAt = null;
-      this.logger.warn(
-        `Invitation e-mail to ${invitation.email} not sent: ${e instanceof Error ? e.message : String(e)}`,
-      );
-    }
-    await this.dataSource
-      .getRepository(Invitation)
-      .update({ id: invitation.id }, { emailSentAt: invitation.emailSentAt });
+    const notice = await this.notices.queue(manager, {
+      kind: 'invitation',
+      projectId: invitation.projectId,
+      to: [invitation.email],
+      sensitive: true,
+      ...message,
+    });
+    invitation.noticeId = notice.id;
+    await manager.save(invitation);
   }
 
-  private toInvitationDto(i: Invitation): InvitationDto {
+  private toInvitationDto(i: Invitation, status: Map<string, NoticeStatus>): InvitationDto {
+    const emailStatus: NoticeStatus = (i.noticeId && status.get(i.noticeId)) || 'failed';
     return {
       id: i.id,
       email: i.email,
@@ -295,7 +355,8 @@ export class TeamService {
       role: i.role,
       expiresAt: i.expiresAt.toISOString(),
       invitedBy: i.invitedBy,
-      emailSent: i.emailSentAt !== null,
+      emailSent: emailStatus === 'sent',
+      emailStatus,
     };
   }
 

@@ -15,6 +15,13 @@ export class User {
   @Column({ name: 'password_hash', type: 'varchar', length: 255, nullable: true })
   passwordHash: string | null;
 
+  /**
+   * Instance operator: runs this Roundbook instance (sees the local mail view and the jobs, and may create
+   * projects when PROJECT_CREATION=operators). Not a project role.
+   */
+  @Column({ name: 'is_operator', type: 'boolean', default: false })
+  isOperator: boolean;
+
   @CreatedAt()
   createdAt: Date;
 

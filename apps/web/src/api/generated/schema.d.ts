@@ -82,7 +82,7 @@ export interface paths {
         /** The caller's projects with their headings and the caller's role in each */
         get: operations["ProjectsController_list"];
         put?: never;
-        /** Creates a project; the caller becomes its admin */
+        /** Creates a project; the caller becomes its admin (PROJECT_CREATION: anyone, or operators only) */
         post: operations["ProjectsController_create"];
         delete?: never;
         options?: never;
@@ -362,7 +362,11 @@ export interface paths {
         };
         get?: never;
         put?: never;
-        /** Accepts an invitation: sets the password (or checks the existing one), joins, signs in */
+        /**
+         * Accepts an invitation, once, for the invited address only: signed in as that address, joins with the
+         *     account; not signed in, creates the account for it (refused if one exists: sign in first). Signed in
+         *     as anyone else: 403.
+         */
         post: operations["InvitationsController_accept"];
         delete?: never;
         options?: never;
@@ -491,6 +495,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/local/access": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Whether the caller may open the local mail and jobs view (local mode and instance operator) */
+        get: operations["LocalAccessController_access"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/local/mail": {
         parameters: {
             query?: never;
@@ -498,7 +519,7 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** E-mails received by the local SMTP fake, newest first (local mode, project admins) */
+        /** E-mails received by the local SMTP fake, newest first (local mode, the instance operator) */
         get: operations["LocalMailController_list"];
         put?: never;
         post?: never;
@@ -519,6 +540,40 @@ export interface paths {
         get: operations["LocalMailController_attachment"];
         put?: never;
         post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/local/jobs": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Background jobs not done yet: waiting, running and failed (with their last error), and counts */
+        get: operations["LocalMailController_jobs"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/local/jobs/{jobId}/retry": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Runs a waiting job now, or starts a failed one over */
+        post: operations["LocalMailController_retry"];
         delete?: never;
         options?: never;
         head?: never;
@@ -891,14 +946,21 @@ export interface components {
             /** @description When they joined the project */
             since: string;
         };
+        /**
+         * @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it
+         * @enum {string}
+         */
+        InvitationEmailStatus: "queued" | "sent" | "failed";
         InvitationDto: {
             role: components["schemas"]["ProjectRole"];
+            /** @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it */
+            emailStatus: components["schemas"]["InvitationEmailStatus"];
             id: string;
             email: string;
             name: string;
             expiresAt: string;
             invitedBy: string;
-            /** @description Whether the e-mail reached the mail server; if not, resend it */
+            /** @description Whether the e-mail reached the mail server */
             emailSent: boolean;
         };
         TeamDto: {
@@ -921,14 +983,19 @@ export interface components {
             email: string;
             name: string;
             expiresAt: string;
-            /** @description True when the e-mail already has a Roundbook account: accept with its password */
-            accountExists: boolean;
         };
         AcceptInvitationDto: {
             /** @description Your name as colleagues know it (new accounts) */
             name?: string;
-            /** @description A new password (new accounts, at least 10 characters) or your existing password */
-            password: string;
+            /** @description The new account's password (at least 10 characters); not needed when signed in as the invited address */
+            password?: string;
+        };
+        AcceptedInvitationDto: {
+            projectId: string;
+            /** @description True when accepting created the account */
+            newAccount: boolean;
+            /** @description A session for the new account (absent when the caller was already signed in) */
+            session?: components["schemas"]["TokenResponseDto"];
         };
         /** @enum {string} */
         RoundSort: "faceChainage" | "-faceChainage" | "shiftDate" | "-shiftDate" | "q" | "-q" | "rmr" | "-rmr" | "roundNumber" | "-roundNumber";
@@ -1330,6 +1397,12 @@ export interface components {
             storage: components["schemas"]["ComponentHealthDto"];
             mail: components["schemas"]["ComponentHealthDto"];
         };
+        LocalAccessDto: {
+            /** @description LOCAL_MODE=true and a local inbox folder: the local mail view exists */
+            localMode: boolean;
+            /** @description The caller is an operator of this instance (not a project role) */
+            operator: boolean;
+        };
         MailAttachmentDto: {
             index: number;
             filename: string;
@@ -1346,6 +1419,33 @@ export interface components {
             date: string;
             text: string;
             attachments: components["schemas"]["MailAttachmentDto"][];
+        };
+        JobCountsDto: {
+            pending: number;
+            running: number;
+            done: number;
+            dead: number;
+        };
+        /** @enum {string} */
+        JobState: "pending" | "running" | "done" | "dead";
+        JobDto: {
+            state: components["schemas"]["JobState"];
+            lastError: string | null;
+            /** @description For e-mails: to whom and about what */
+            summary: string | null;
+            id: string;
+            /** @description The handler, e.g. mail.send */
+            kind: string;
+            attempts: number;
+            maxAttempts: number;
+            nextAttemptAt: string;
+            createdAt: string;
+            updatedAt: string;
+        };
+        JobsOverviewDto: {
+            counts: components["schemas"]["JobCountsDto"];
+            /** @description Jobs not done, most recently changed first */
+            jobs: components["schemas"]["JobDto"][];
         };
     };
     responses: never;
@@ -2462,7 +2562,25 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["TokenResponseDto"];
+                    "application/json": components["schemas"]["AcceptedInvitationDto"];
+                };
+            };
+            /** @description Signed in as another address */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description The address has an account: sign in first */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };
@@ -2828,6 +2946,25 @@ export interface operations {
             };
         };
     };
+    LocalAccessController_access: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LocalAccessDto"];
+                };
+            };
+        };
+    };
     LocalMailController_list: {
         parameters: {
             query?: never;
@@ -2843,6 +2980,24 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["MailMessageDto"][];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };
@@ -2865,6 +3020,100 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_jobs: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["JobsOverviewDto"];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_retry: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                jobId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["JobDto"];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
             };
         };
     };

@@ -1,4 +1,5 @@
 import {
+  Button,
   makeStyles,
   MessageBar,
   MessageBarBody,
@@ -10,14 +11,15 @@ import {
 } from '@fluentui/react-components';
 import { RoleBadge } from '@roundbook/ui';
 import { useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import type { LoginResponse } from '@/api/contract';
 import { CautionNote } from '@/app/caution-note';
 import { HighContrastSwitch } from '@/app/high-contrast-switch';
-import { useInvitation } from '@/features/team/api/invitation';
+import type { AcceptedInvitation } from '@/features/team/api/invitation';
+import { useAcceptInvitation, useInvitation } from '@/features/team/api/invitation';
 import { AcceptInvitationForm } from '@/features/team/components/accept-invitation-form';
 import { isApiError, NETWORK_ERROR_CODE } from '@/lib/api-client';
-import { saveSession } from '@/lib/session';
+import { clearSession, readSession, saveSession } from '@/lib/session';
 
 const useStyles = makeStyles({
   page: {
@@ -77,18 +79,30 @@ function explain(error: unknown): { title: string; message: string } {
   };
 }
 
-/** Public page behind the link in an invitation e-mail: see the invitation, then join the project. */
+/**
+ * Public page behind the link in an invitation e-mail. It shows the invited address; only that address
+ * joins: signed in as it, with one button; not signed in, by creating the account for it (or signing in
+ * first when it already has one); signed in as someone else, after signing out.
+ */
 export function InvitationRoute() {
   const styles = useStyles();
   const { token = '' } = useParams();
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const invitation = useInvitation(token);
+  const join = useAcceptInvitation(token);
+  const [signedInAs, setSignedInAs] = useState(() => readSession()?.user.email ?? null);
+  const next = `/sign-in?next=${encodeURIComponent(`/invitation/${token}`)}`;
 
-  const onAccepted = (result: LoginResponse) => {
+  const onAccepted = (result: AcceptedInvitation) => {
     queryClient.clear();
-    saveSession({ accessToken: result.accessToken, expiresAt: result.expiresAt, user: result.user });
+    if (result.session) saveSession(result.session);
     void navigate('/', { replace: true });
+  };
+  const signOut = () => {
+    clearSession();
+    queryClient.clear();
+    setSignedInAs(null);
   };
 
   return (
@@ -126,15 +140,58 @@ export function InvitationRoute() {
               <dd className={styles.detail}>
                 <RoleBadge role={invitation.data.role} />
               </dd>
-              <dt className={styles.term}>E-mail</dt>
+              <dt className={styles.term}>For the address</dt>
               <dd className={styles.detail}>{invitation.data.email}</dd>
             </dl>
-            <Text as="p">
-              {invitation.data.accountExists
-                ? 'This e-mail already has a Roundbook account. Enter its password to join.'
-                : 'Create your account: your name as colleagues know it, and a password.'}
-            </Text>
-            <AcceptInvitationForm token={token} invitation={invitation.data} onAccepted={onAccepted} />
+            {signedInAs === invitation.data.email ? (
+              <>
+                <Text as="p">You are signed in with this address. Join with your account:</Text>
+                {join.isError && (
+                  <div role="alert">
+                    <MessageBar intent="error" layout="multiline">
+                      <MessageBarBody>
+                        <MessageBarTitle>Not joined yet</MessageBarTitle>
+                        {isApiError(join.error) ? join.error.message : 'Try again.'}
+                      </MessageBarBody>
+                    </MessageBar>
+                  </div>
+                )}
+                <Button
+                  appearance="primary"
+                  size="large"
+                  disabled={join.isPending}
+                  icon={join.isPending ? <Spinner size="tiny" /> : undefined}
+                  onClick={() => join.mutate({}, { onSuccess: onAccepted })}
+                >
+                  Join the project
+                </Button>
+              </>
+            ) : signedInAs !== null ? (
+              <>
+                <MessageBar intent="warning" layout="multiline">
+                  <MessageBarBody>
+                    <MessageBarTitle>This invitation is for another address</MessageBarTitle>
+                    You are signed in as {signedInAs}. Only {invitation.data.email} can accept it: sign out,
+                    then sign in with that address or create its account here.
+                  </MessageBarBody>
+                </MessageBar>
+                <Button appearance="secondary" size="large" onClick={signOut}>
+                  Sign out
+                </Button>
+              </>
+            ) : (
+              <>
+                <Text as="p">
+                  New to Roundbook? Create the account for this address: your name as colleagues know it, and
+                  a password.
+                </Text>
+                <AcceptInvitationForm token={token} invitation={invitation.data} onAccepted={onAccepted} />
+                <Text as="p">
+                  Already have a Roundbook account for {invitation.data.email}?{' '}
+                  <Link to={next}>Sign in with it</Link>, then you come back here to join.
+                </Text>
+              </>
+            )}
           </>
         )}
       </main>

@@ -3,26 +3,32 @@ import { ArrowSyncRegular } from '@fluentui/react-icons';
 import { EmptyState, PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import type { CurrentUser } from '@/api/contract';
 import { guarded } from '@/app/routes/session-guard';
-import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
+import type { LocalAccess } from '@/features/mail/api/get-local-access';
+import { localAccessQueryOptions, useLocalAccess } from '@/features/mail/api/get-local-access';
 import { mailQueryOptions, useMail } from '@/features/mail/api/get-mail';
+import { jobsQueryOptions, useJobs } from '@/features/mail/api/jobs';
+import { JobsPanel } from '@/features/mail/components/jobs-panel';
 import { MailInbox } from '@/features/mail/components/mail-inbox';
 import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
 
-function mayReadLocalMail(localMode: boolean, me: CurrentUser): boolean {
-  return localMode && me.memberships.some((m) => m.role === 'admin');
+/** Local mode and the instance operator (a flag on the account, not a project role). */
+function mayReadLocalMail(localMode: boolean, access: LocalAccess): boolean {
+  return localMode && access.localMode && access.operator;
 }
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   ({ request }: LoaderFunctionArgs) =>
     guarded(request, async () => {
-      const [config, me] = await Promise.all([
-        queryClient.ensureQueryData(configQueryOptions()),
-        queryClient.ensureQueryData(currentUserQueryOptions()),
-      ]);
-      if (mayReadLocalMail(config.localMode, me)) await queryClient.ensureQueryData(mailQueryOptions());
+      const config = await queryClient.ensureQueryData(configQueryOptions());
+      if (!config.localMode) return null;
+      const access = await queryClient.ensureQueryData(localAccessQueryOptions());
+      if (mayReadLocalMail(config.localMode, access))
+        await Promise.all([
+          queryClient.ensureQueryData(mailQueryOptions()),
+          queryClient.ensureQueryData(jobsQueryOptions()),
+        ]);
       return null;
     });
 
@@ -34,6 +40,7 @@ const useStyles = makeStyles({
 function Inbox() {
   const styles = useStyles();
   const { data: messages, refetch, isFetching } = useMail();
+  const jobs = useJobs();
   return (
     <>
       <PageHeader
@@ -47,21 +54,22 @@ function Inbox() {
             disabled={isFetching}
             onClick={() => {
               void refetch();
+              void jobs.refetch();
             }}
           >
-            {isFetching ? 'Checking…' : 'Check for new'}
+            {isFetching || jobs.isFetching ? 'Checking…' : 'Check for new'}
           </Button>
         }
       />
+      <JobsPanel overview={jobs.data} />
       <MailInbox messages={messages} />
     </>
   );
 }
 
-/** Local mail: the SMTP fake's inbox, for admins, in local mode only. */
+/** Local mail: the SMTP fake's inbox and the jobs queue, for the instance operator, in local mode only. */
 export function MailRoute() {
   const { data: config } = useConfig();
-  const { data: me } = useCurrentUser();
   if (!config.localMode) {
     return (
       <EmptyState
@@ -70,11 +78,16 @@ export function MailRoute() {
       />
     );
   }
-  if (!mayReadLocalMail(config.localMode, me)) {
+  return <OperatorOnly localMode={config.localMode} />;
+}
+
+function OperatorOnly({ localMode }: { localMode: boolean }) {
+  const { data: access } = useLocalAccess();
+  if (!mayReadLocalMail(localMode, access)) {
     return (
       <EmptyState
-        title="For project admins"
-        message="Only people who are admin on at least one project can read the local inbox."
+        title="For the instance operator"
+        message="Only the person who runs this Roundbook reads its local inbox; being a project admin is not enough."
       />
     );
   }

@@ -36,6 +36,8 @@ describe('Signed-out and expired sessions', () => {
           ? new Response(JSON.stringify(adminUser), { headers: { 'Content-Type': 'application/json' } })
           : apiError(401, 'UNAUTHORIZED', 'Token expired')(request),
       'GET /api/config': localConfig,
+      'GET /api/local/access': { localMode: true, operator: true },
+      'GET /api/local/jobs': { counts: { pending: 0, running: 0, done: 0, dead: 0 }, jobs: [] },
       'GET /api/local/mail': mailbox,
       'GET /api/projects': [harrowdale],
       'POST /api/auth/login': { ...loginAnswer, accessToken: 'fresh' },
@@ -61,6 +63,8 @@ describe('Signed-out and expired sessions', () => {
     mockApi({
       'GET /api/auth/me': adminUser,
       'GET /api/config': localConfig,
+      'GET /api/local/access': { localMode: true, operator: true },
+      'GET /api/local/jobs': { counts: { pending: 0, running: 0, done: 0, dead: 0 }, jobs: [] },
       'GET /api/local/mail': (request) =>
         expired
           ? apiError(401, 'UNAUTHORIZED')(request)

@@ -87,6 +87,8 @@ describe('Sign-in page', () => {
         }),
       'GET /api/auth/me': adminUser,
       'GET /api/config': localConfig,
+      'GET /api/local/access': { localMode: true, operator: true },
+      'GET /api/local/jobs': { counts: { pending: 0, running: 0, done: 0, dead: 0 }, jobs: [] },
       'GET /api/local/mail': mailbox,
       'GET /api/projects': [harrowdale],
     });

@@ -27,7 +27,8 @@ export function invitationEmail(e: InvitationEmail): { subject: string; text: st
     '',
     `${e.inviterName} has added you to "${e.projectName}" in Roundbook as ${role}.`,
     '',
-    `Open this link to set your password and join (valid until ${until}):`,
+    `Open this link to join (valid until ${until}, once). New to Roundbook? You choose your password there.`,
+    'Already have an account for this address? Sign in with it, then open the link.',
     e.link,
     '',
     'If you did not expect this, ignore this message; nothing happens unless the link is used.',
@@ -37,8 +38,9 @@ export function invitationEmail(e: InvitationEmail): { subject: string; text: st
   const html = `<div style="font-family:'Open Sans',Arial,sans-serif;font-size:15px;line-height:1.5;color:#1d2327">
 <p>${escapeHtml(greeting)}</p>
 <p>${escapeHtml(e.inviterName)} has added you to <strong>${escapeHtml(e.projectName)}</strong> in Roundbook as ${escapeHtml(role)}.</p>
-<p><a href="${escapeHtml(e.link)}" style="display:inline-block;padding:12px 20px;background:#1f5f7a;color:#ffffff;text-decoration:none;border-radius:6px">Set my password and join</a></p>
-<p style="font-size:13px;color:#4a555c">The link is valid until ${escapeHtml(until)}. If the button does not work, copy this address into your browser:<br>${escapeHtml(e.link)}</p>
+<p><a href="${escapeHtml(e.link)}" style="display:inline-block;padding:12px 20px;background:#1f5f7a;color:#ffffff;text-decoration:none;border-radius:6px">Join the project</a></p>
+<p style="font-size:13px;color:#4a555c">New to Roundbook? You choose your password there. Already have an account for this address? Sign in with it, then open the link.</p>
+<p style="font-size:13px;color:#4a555c">The link works once, until ${escapeHtml(until)}. If the button does not work, copy this address into your browser:<br>${escapeHtml(e.link)}</p>
 <p style="font-size:13px;color:#4a555c">If you did not expect this, ignore this message; nothing happens unless the link is used.</p>
 </div>`;
   return { subject: `You are invited to ${e.projectName} in Roundbook`, text, html };

@@ -2,6 +2,7 @@ import { ApiProperty } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import { IsEmail, IsIn, IsOptional, IsString, Length, MaxLength, MinLength } from 'class-validator';
 import { PROJECT_ROLES } from '../../../common/auth/auth-user.js';
+import { TokenResponseDto } from '../../auth/dto/token-response.dto.js';
 
 export class MemberDto {
   memberId: string;
@@ -22,8 +23,11 @@ export class InvitationDto {
   role: (typeof PROJECT_ROLES)[number];
   expiresAt: string;
   invitedBy: string;
-  /** Whether the e-mail reached the mail server; if not, resend it */
+  /** Whether the e-mail reached the mail server */
   emailSent: boolean;
+  /** queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it */
+  @ApiProperty({ enum: ['queued', 'sent', 'failed'], enumName: 'InvitationEmailStatus' })
+  emailStatus: 'queued' | 'sent' | 'failed';
 }
 
 export class TeamDto {
@@ -64,8 +68,6 @@ export class InvitationInfoDto {
   @ApiProperty({ enum: PROJECT_ROLES, enumName: 'ProjectRole' })
   role: (typeof PROJECT_ROLES)[number];
   expiresAt: string;
-  /** True when the e-mail already has a Roundbook account: accept with its password */
-  accountExists: boolean;
 }
 
 export class AcceptInvitationDto {
@@ -75,9 +77,18 @@ export class AcceptInvitationDto {
   @Length(1, 120)
   name?: string;
 
-  /** A new password (new accounts, at least 10 characters) or your existing password */
+  /** The new account's password (at least 10 characters); not needed when signed in as the invited address */
+  @IsOptional()
   @IsString()
   @MinLength(10, { message: 'Use at least 10 characters.' })
   @MaxLength(200)
-  password: string;
+  password?: string;
+}
+
+export class AcceptedInvitationDto {
+  projectId: string;
+  /** True when accepting created the account */
+  newAccount: boolean;
+  /** A session for the new account (absent when the caller was already signed in) */
+  session?: TokenResponseDto;
 }

@@ -11,16 +11,17 @@ import { FormikInputField, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { Form, Formik } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
-import type { InvitationInfo, LoginResponse } from '@/api/contract';
+import type { InvitationInfo } from '@/api/contract';
+import type { AcceptedInvitation } from '@/features/team/api/invitation';
 import { useAcceptInvitation } from '@/features/team/api/invitation';
 import type { NewAccountValues } from '@/features/team/schemas/team.schema';
-import { existingAccountSchema, newAccountSchema } from '@/features/team/schemas/team.schema';
+import { newAccountSchema } from '@/features/team/schemas/team.schema';
 import { applyServerErrors } from '@/lib/form-errors';
 
 export interface AcceptInvitationFormProps {
   token: string;
   invitation: InvitationInfo;
-  onAccepted: (result: LoginResponse) => void;
+  onAccepted: (result: AcceptedInvitation) => void;
 }
 
 const useStyles = makeStyles({
@@ -28,21 +29,18 @@ const useStyles = makeStyles({
   submit: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%' },
 });
 
-/** Joins the project: a new account chooses a name and password; an existing one confirms its password. */
+/** Creates the account for the invited address (name prefilled with what the admin typed) and joins. */
 export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptInvitationFormProps) {
   const styles = useStyles();
   const accept = useAcceptInvitation(token);
   const [problem, setProblem] = useState<string | null>(null);
-  const isNew = !invitation.accountExists;
 
   const submit = async (values: NewAccountValues, helpers: FormikHelpers<NewAccountValues>) => {
     setProblem(null);
     try {
-      const result = await accept.mutateAsync(
-        isNew ? { name: values.name.trim(), password: values.password } : { password: values.password },
-      );
-      onAccepted(result);
+      onAccepted(await accept.mutateAsync({ name: values.name.trim(), password: values.password }));
     } catch (error) {
+      // A 409 (the address already has an account) comes back with its message: sign in with it first.
       setProblem(applyServerErrors(error, helpers, values));
     }
   };
@@ -50,39 +48,27 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
   return (
     <Formik<NewAccountValues>
       initialValues={{ name: invitation.name, password: '', repeat: '' }}
-      validationSchema={isNew ? newAccountSchema : existingAccountSchema}
+      validationSchema={newAccountSchema}
       onSubmit={submit}
     >
       {({ isSubmitting }) => (
-        <Form className={styles.form} noValidate aria-label="Join the project">
-          {isNew ? (
-            <>
-              <FormikInputField name="name" label="Your name" autoComplete="name" required />
-              <FormikInputField
-                name="password"
-                label="Choose a password"
-                type="password"
-                autoComplete="new-password"
-                hint="At least 10 characters"
-                required
-              />
-              <FormikInputField
-                name="repeat"
-                label="Type it again"
-                type="password"
-                autoComplete="new-password"
-                required
-              />
-            </>
-          ) : (
-            <FormikInputField
-              name="password"
-              label="Password of your Roundbook account"
-              type="password"
-              autoComplete="current-password"
-              required
-            />
-          )}
+        <Form className={styles.form} noValidate aria-label="Create your account and join">
+          <FormikInputField name="name" label="Your name" autoComplete="name" required />
+          <FormikInputField
+            name="password"
+            label="Choose a password"
+            type="password"
+            autoComplete="new-password"
+            hint="At least 10 characters"
+            required
+          />
+          <FormikInputField
+            name="repeat"
+            label="Type it again"
+            type="password"
+            autoComplete="new-password"
+            required
+          />
           {problem !== null && (
             <div role="alert">
               <MessageBar intent="error" layout="multiline">
@@ -101,7 +87,7 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
             disabled={isSubmitting}
             icon={isSubmitting ? <Spinner size="tiny" /> : undefined}
           >
-            {isNew ? 'Create account and join' : 'Join the project'}
+            Create account and join
           </Button>
         </Form>
       )}

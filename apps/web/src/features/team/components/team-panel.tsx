@@ -265,13 +265,17 @@ export function TeamPanel({ projectId, canEdit, myUserId, timeZone }: TeamPanelP
                     </TableCell>
                     <TableCell>{when(i.expiresAt, timeZone)}</TableCell>
                     <TableCell>
-                      {i.emailSent ? (
+                      {i.emailStatus === 'sent' ? (
                         <Badge appearance="tint" color="success">
                           Sent
                         </Badge>
+                      ) : i.emailStatus === 'queued' ? (
+                        <Badge appearance="tint" color="informative">
+                          Queued: goes out shortly
+                        </Badge>
                       ) : (
                         <Badge appearance="filled" color="warning">
-                          Not sent yet: resend
+                          Not sent: resend
                         </Badge>
                       )}
                     </TableCell>

@@ -32,7 +32,3 @@ export const newAccountSchema: ObjectSchema<Required<AcceptInvitationRequest> & 
     .required('Type the password again.')
     .oneOf([ref('password')], 'The two passwords differ.'),
 });
-
-export const existingAccountSchema: ObjectSchema<Pick<AcceptInvitationRequest, 'password'>> = object({
-  password: string().required('Enter the password of your Roundbook account.'),
-});
