@@ -4,11 +4,13 @@ import { EmptyState, PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import type { CurrentUser } from '@/api/contract';
+import { currentUserQueryOptions } from '@/api/resources/auth';
+import { configQueryOptions } from '@/api/resources/config';
 import { guarded } from '@/app/routes/session-guard';
-import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
+import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { mailQueryOptions, useMail } from '@/features/mail/api/get-mail';
 import { MailInbox } from '@/features/mail/components/mail-inbox';
-import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
+import { useConfig } from '@/features/system/api/get-config';
 
 function mayReadLocalMail(localMode: boolean, me: CurrentUser): boolean {
   return localMode && me.memberships.some((m) => m.role === 'admin');
