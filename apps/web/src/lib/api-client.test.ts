@@ -1,4 +1,11 @@
-import { apiClient, ApiError, NETWORK_ERROR_CODE, toApiError, unwrap } from '@/lib/api-client';
+import {
+  apiClient,
+  ApiError,
+  NETWORK_ERROR_CODE,
+  parseRetryAfter,
+  toApiError,
+  unwrap,
+} from '@/lib/api-client';
 import { readSession, saveSession } from '@/lib/session';
 import { adminSession } from '@/testing/fixtures';
 import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
@@ -28,6 +35,26 @@ describe('API errors', () => {
     await expect(unwrap(apiClient.GET('/api/projects'))).rejects.toMatchObject({
       status: 0,
       code: NETWORK_ERROR_CODE,
+    });
+  });
+});
+
+describe('Retry-After', () => {
+  // RFC 9110 §10.2.3: delay-seconds or an HTTP date.
+  it('is read as seconds or as a date, and carried by the error of a busy server', async () => {
+    const now = Date.parse('2026-12-02T07:00:00Z');
+    expect(parseRetryAfter('120', now)).toBe(120_000);
+    expect(parseRetryAfter('Wed, 02 Dec 2026 07:00:30 GMT', now)).toBe(30_000);
+    expect(parseRetryAfter('Wed, 02 Dec 2026 06:00:00 GMT', now)).toBe(0);
+    expect(parseRetryAfter('soon', now)).toBeUndefined();
+    expect(parseRetryAfter(null, now)).toBeUndefined();
+
+    mockApi({
+      'GET /api/projects': () => new Response('Busy', { status: 503, headers: { 'Retry-After': '7' } }),
+    });
+    await expect(unwrap(apiClient.GET('/api/projects'))).rejects.toMatchObject({
+      code: NETWORK_ERROR_CODE,
+      retryAfterMs: 7000,
     });
   });
 });

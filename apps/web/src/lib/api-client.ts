@@ -13,6 +13,8 @@ export class ApiError extends Error {
   readonly fields: Record<string, string> | undefined;
   /** Extra facts some errors carry, e.g. `current` (the saved version) with 409 STALE_VERSION. */
   readonly details: Record<string, unknown> | undefined;
+  /** How long the server asked us to wait before trying again (`Retry-After`), in ms. */
+  readonly retryAfterMs: number | undefined;
 
   constructor(
     status: number,
@@ -20,6 +22,7 @@ export class ApiError extends Error {
     message: string,
     fields?: Record<string, string>,
     details?: Record<string, unknown>,
+    retryAfterMs?: number,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -27,6 +30,7 @@ export class ApiError extends Error {
     this.code = code;
     this.fields = fields;
     this.details = details;
+    this.retryAfterMs = retryAfterMs;
   }
 }
 
@@ -81,13 +85,33 @@ function isErrorBody(value: unknown): value is ApiErrorBody {
   return typeof value === 'object' && value !== null && typeof (value as ApiErrorBody).code === 'string';
 }
 
-function unreachable(): ApiError {
-  return new ApiError(0, NETWORK_ERROR_CODE, 'The Roundbook server could not be reached.');
+function unreachable(retryAfterMs?: number): ApiError {
+  return new ApiError(
+    0,
+    NETWORK_ERROR_CODE,
+    'The Roundbook server could not be reached.',
+    undefined,
+    undefined,
+    retryAfterMs,
+  );
+}
+
+/** The longest wait a `Retry-After` may ask for; anything longer is read as this. */
+const MAX_RETRY_AFTER_MS = 10 * 60_000;
+
+/** `Retry-After` as delay-seconds or an HTTP date (RFC 9110, section 10.2.3), in ms from `now`. */
+export function parseRetryAfter(value: string | null, now: number = Date.now()): number | undefined {
+  if (value === null || value.trim() === '') return undefined;
+  const text = value.trim();
+  const ms = /^\d+$/.test(text) ? Number(text) * 1000 : Date.parse(text) - now;
+  if (!Number.isFinite(ms)) return undefined;
+  return Math.min(Math.max(ms, 0), MAX_RETRY_AFTER_MS);
 }
 
 export function toApiError(response: Response, body: unknown): ApiError {
+  const retryAfterMs = parseRetryAfter(response.headers.get('Retry-After'));
   // A proxy in front of a stopped API answers 502/503/504 without our error body.
-  if (!isErrorBody(body) && [502, 503, 504].includes(response.status)) return unreachable();
+  if (!isErrorBody(body) && [502, 503, 504].includes(response.status)) return unreachable(retryAfterMs);
   if (isErrorBody(body)) {
     const details = (body as { details?: unknown }).details;
     return new ApiError(
@@ -96,9 +120,17 @@ export function toApiError(response: Response, body: unknown): ApiError {
       body.message ?? body.code,
       body.fields,
       typeof details === 'object' && details !== null ? (details as Record<string, unknown>) : undefined,
+      retryAfterMs,
     );
   }
-  return new ApiError(response.status, `HTTP_${response.status}`, response.statusText || 'Request failed');
+  return new ApiError(
+    response.status,
+    `HTTP_${response.status}`,
+    response.statusText || 'Request failed',
+    undefined,
+    undefined,
+    retryAfterMs,
+  );
 }
 
 interface ClientResult<T> {

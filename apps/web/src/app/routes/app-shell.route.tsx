@@ -14,6 +14,8 @@ import { Suspense, useCallback, useState } from 'react';
 import type { ReactElement } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { currentUserQueryOptions } from '@/api/resources/auth';
+import { configQueryOptions } from '@/api/resources/config';
 import { CautionNote } from '@/app/caution-note';
 import { HighContrastSwitch } from '@/app/high-contrast-switch';
 import type { NavItem } from '@/app/navigation';
@@ -21,8 +23,8 @@ import { navigationFor, pickCurrentProject, rememberCurrentProject } from '@/app
 import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import type { ShellContext } from '@/app/shell-context';
-import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
-import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
+import { useCurrentUser } from '@/features/auth/api/get-current-user';
+import { useConfig } from '@/features/system/api/get-config';
 import { clearSession } from '@/lib/session';
 
 export const clientLoader =

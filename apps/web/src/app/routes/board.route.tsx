@@ -4,8 +4,9 @@ import { EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { useNavigate } from 'react-router-dom';
+import { projectsQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
-import { projectsQueryOptions, useProjects } from '@/features/projects/api/get-projects';
+import { useProjects } from '@/features/projects/api/get-project';
 import { ProjectBoard } from '@/features/projects/components/project-board';
 
 export const clientLoader =

@@ -4,13 +4,10 @@ import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { Link, useNavigate, useParams } from 'react-router-dom';
+import { headingQueryOptions } from '@/api/resources/headings';
+import { projectQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
-import {
-  headingQueryOptions,
-  projectDetailQueryOptions,
-  useHeading,
-  useProjectDetail,
-} from '@/features/rounds/api/get-round-context';
+import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
 import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
 import { RoundsTable } from '@/features/rounds/components/rounds-table';
 
@@ -21,7 +18,7 @@ export const clientLoader =
       const projectId = params.projectId ?? '';
       const headingId = params.headingId ?? '';
       await Promise.all([
-        queryClient.ensureQueryData(projectDetailQueryOptions(projectId)),
+        queryClient.ensureQueryData(projectQueryOptions(projectId)),
         queryClient.ensureQueryData(headingQueryOptions(projectId, headingId)),
       ]);
       return null;
@@ -38,8 +35,8 @@ export function HeadingRoute() {
   const styles = useStyles();
   const navigate = useNavigate();
   const { projectId = '', headingId = '' } = useParams();
-  const { data: project } = useProjectDetail(projectId);
-  const { data: heading } = useHeading(projectId, headingId);
+  const { data: project } = useRoundProject(projectId);
+  const { data: heading } = useRoundHeading(projectId, headingId);
   const drive = `${String(Math.round(heading.driveTrend)).padStart(3, '0')}°`;
   return (
     <>

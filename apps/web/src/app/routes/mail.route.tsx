@@ -3,6 +3,7 @@ import { ArrowSyncRegular } from '@fluentui/react-icons';
 import { EmptyState, PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { configQueryOptions } from '@/api/resources/config';
 import { guarded } from '@/app/routes/session-guard';
 import type { LocalAccess } from '@/features/mail/api/get-local-access';
 import { localAccessQueryOptions, useLocalAccess } from '@/features/mail/api/get-local-access';
@@ -10,7 +11,7 @@ import { mailQueryOptions, useMail } from '@/features/mail/api/get-mail';
 import { jobsQueryOptions, useJobs } from '@/features/mail/api/jobs';
 import { JobsPanel } from '@/features/mail/components/jobs-panel';
 import { MailInbox } from '@/features/mail/components/mail-inbox';
-import { configQueryOptions, useConfig } from '@/features/system/api/get-config';
+import { useConfig } from '@/features/system/api/get-config';
 
 /** Local mode and the instance operator (a flag on the account, not a project role). */
 function mayReadLocalMail(localMode: boolean, access: LocalAccess): boolean {

@@ -2,9 +2,9 @@ import { PageHeader } from '@roundbook/ui';
 import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import type { ProjectSummary } from '@/api/contract';
+import { currentUserQueryOptions } from '@/api/resources/auth';
 import { rememberCurrentProject } from '@/app/navigation';
 import { useShellContext } from '@/app/shell-context';
-import { currentUserQueryOptions } from '@/features/auth/api/get-current-user';
 import { NewProjectForm } from '@/features/projects/components/new-project-form';
 
 /** What Setup is told when it opens on a project just created. */

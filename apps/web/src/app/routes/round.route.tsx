@@ -1,19 +1,20 @@
 import { Button, makeStyles } from '@fluentui/react-components';
 import { ArrowLeftRegular } from '@fluentui/react-icons';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
-import { useSuspenseQuery } from '@tanstack/react-query';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { Link, useParams } from 'react-router-dom';
+import { headingQueryOptions } from '@/api/resources/headings';
+import { projectQueryOptions } from '@/api/resources/projects';
+import { roundQueryOptions } from '@/api/resources/rounds';
+import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
-import { roundQueryOptions, useRound } from '@/features/rounds/api/get-round';
 import {
-  headingQueryOptions,
-  projectDetailQueryOptions,
-  supportClassesQueryOptions,
-  useProjectDetail,
-  useSupportClasses,
-} from '@/features/rounds/api/get-round-context';
+  useRound,
+  useRoundHeading,
+  useRoundProject,
+  useRoundSupportClasses,
+} from '@/features/rounds/api/get-round';
 import { RoundEditor } from '@/features/rounds/components/round-editor';
 
 export const clientLoader =
@@ -24,7 +25,7 @@ export const clientLoader =
       const roundId = params.roundId ?? '';
       const [round] = await Promise.all([
         queryClient.ensureQueryData(roundQueryOptions(projectId, roundId)),
-        queryClient.ensureQueryData(projectDetailQueryOptions(projectId)),
+        queryClient.ensureQueryData(projectQueryOptions(projectId)),
         queryClient.ensureQueryData(supportClassesQueryOptions(projectId)),
       ]);
       await queryClient.ensureQueryData(headingQueryOptions(projectId, round.headingId));
@@ -38,9 +39,9 @@ export function RoundRoute() {
   const styles = useStyles();
   const { projectId = '', roundId = '' } = useParams();
   const { data: round } = useRound(projectId, roundId);
-  const { data: project } = useProjectDetail(projectId);
-  const { data: heading } = useSuspenseQuery(headingQueryOptions(projectId, round.headingId));
-  const { data: library } = useSupportClasses(projectId);
+  const { data: project } = useRoundProject(projectId);
+  const { data: heading } = useRoundHeading(projectId, round.headingId);
+  const { data: library } = useRoundSupportClasses(projectId);
   return (
     <>
       <Link to={`/projects/${projectId}/headings/${heading.id}`}>

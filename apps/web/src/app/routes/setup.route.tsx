@@ -12,29 +12,31 @@ import { AddRegular } from '@fluentui/react-icons';
 import { formatChainage } from '@roundbook/geomath';
 import { EmptyState, PageHeader, RoleBadge, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { Suspense, useMemo, useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import type { ExcavationStage, Heading, ProjectRole } from '@/api/contract';
+import { currentUserQueryOptions } from '@/api/resources/auth';
+import { headingsQueryOptions } from '@/api/resources/headings';
+import { projectQueryOptions } from '@/api/resources/projects';
+import { supportClassesQueryOptions } from '@/api/resources/support-classes';
+import { teamQueryOptions } from '@/api/resources/team';
+import { triggerRulesQueryOptions } from '@/api/resources/trigger-rules';
 import { pickCurrentProject } from '@/app/navigation';
 import type { CreatedProjectState } from '@/app/routes/new-project.route';
 import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import { useShellContext } from '@/app/shell-context';
-import { currentUserQueryOptions, useCurrentUser } from '@/features/auth/api/get-current-user';
-import { headingsQueryOptions, useHeadings } from '@/features/headings/api/get-headings';
+import { useCurrentUser } from '@/features/auth/api/get-current-user';
+import { useHeadings } from '@/features/headings/api/get-headings';
 import { HeadingForm } from '@/features/headings/components/heading-form';
 import { HeadingsTable } from '@/features/headings/components/headings-table';
 import { stageLabels } from '@/features/headings/utils/labels';
-import { projectQueryOptions, useProject } from '@/features/projects/api/get-project';
-import { projectKeys } from '@/features/projects/api/get-projects';
+import { useProject } from '@/features/projects/api/get-project';
 import { ProjectSettingsForm } from '@/features/projects/components/project-settings-form';
-import { supportClassesQueryOptions } from '@/features/support-classes/api/get-support-classes';
 import { SupportClassLibrary } from '@/features/support-classes/components/support-class-library';
-import { teamQueryOptions } from '@/features/team/api/team';
 import { TeamPanel } from '@/features/team/components/team-panel';
-import { triggerRulesQueryOptions } from '@/features/trigger-rules/api/trigger-rules';
 import type { RoundPlaceFormat } from '@/features/trigger-rules/components/trigger-preview';
 import { plainPlaceFormat } from '@/features/trigger-rules/components/trigger-preview';
 import { TriggerRuleList } from '@/features/trigger-rules/components/trigger-rule-list';
@@ -131,7 +133,6 @@ function HeadingsSection({
   coordinateGrid: string;
 }) {
   const styles = useStyles();
-  const queryClient = useQueryClient();
   const { data: headings } = useHeadings(projectId);
   const [editing, setEditing] = useState<Heading | 'new' | null>(null);
   if (editing !== null) {
@@ -140,10 +141,7 @@ function HeadingsSection({
         projectId={projectId}
         heading={editing === 'new' ? undefined : editing}
         coordinateGrid={coordinateGrid}
-        onSaved={() => {
-          setEditing(null);
-          void queryClient.invalidateQueries({ queryKey: projectKeys.all });
-        }}
+        onSaved={() => setEditing(null)}
         onCancel={() => setEditing(null)}
       />
     );

@@ -1,22 +1,13 @@
-import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { Heading } from '@/api/contract';
-import { apiClient, unwrap } from '@/lib/api-client';
-
-export const headingKeys = {
-  all: ['headings'] as const,
-  list: (projectId: string) => [...headingKeys.all, projectId, 'list'] as const,
-};
-
-export function getHeadings(projectId: string): Promise<Heading[]> {
-  return unwrap(apiClient.GET('/api/projects/{projectId}/headings', { params: { path: { projectId } } }));
-}
-
-export const headingsQueryOptions = (projectId: string) =>
-  queryOptions({
-    queryKey: headingKeys.list(projectId),
-    queryFn: () => getHeadings(projectId),
-  });
+import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
+import { headingQueryOptions, headingsQueryOptions } from '@/api/resources/headings';
 
 export function useHeadings(projectId: string) {
   return useSuspenseQuery(headingsQueryOptions(projectId));
+}
+
+/** Reads one heading from the server now (into its one cache entry), e.g. after a 409. */
+export function useReloadHeading(projectId: string) {
+  const queryClient = useQueryClient();
+  return (headingId: string) =>
+    queryClient.fetchQuery({ ...headingQueryOptions(projectId, headingId), staleTime: 0 });
 }

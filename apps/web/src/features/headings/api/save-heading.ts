@@ -1,34 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateHeadingRequest, Heading, UpdateHeadingRequest } from '@/api/contract';
-import { headingKeys } from '@/features/headings/api/get-headings';
-import { apiClient, unwrap } from '@/lib/api-client';
-
-export function createHeading(projectId: string, body: CreateHeadingRequest): Promise<Heading> {
-  return unwrap(
-    apiClient.POST('/api/projects/{projectId}/headings', { params: { path: { projectId } }, body }),
-  );
-}
-
-export function updateHeading(
-  projectId: string,
-  headingId: string,
-  body: UpdateHeadingRequest,
-): Promise<Heading> {
-  return unwrap(
-    apiClient.PATCH('/api/projects/{projectId}/headings/{headingId}', {
-      params: { path: { projectId, headingId } },
-      body,
-    }),
-  );
-}
-
-export function getHeading(projectId: string, headingId: string): Promise<Heading> {
-  return unwrap(
-    apiClient.GET('/api/projects/{projectId}/headings/{headingId}', {
-      params: { path: { projectId, headingId } },
-    }),
-  );
-}
+import type { CreateHeadingRequest, UpdateHeadingRequest } from '@/api/contract';
+import { createHeading, headingSaved, updateHeading } from '@/api/resources/headings';
+import { resourceKeys } from '@/api/resources/keys';
 
 export type SaveHeadingInput =
   | { kind: 'create'; body: CreateHeadingRequest }
@@ -37,11 +10,11 @@ export type SaveHeadingInput =
 export function useSaveHeading(projectId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...headingKeys.all, projectId, 'save'],
+    mutationKey: [...resourceKeys.headings(projectId), 'save'],
     mutationFn: (input: SaveHeadingInput) =>
       input.kind === 'create'
         ? createHeading(projectId, input.body)
         : updateHeading(projectId, input.headingId, input.body),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: headingKeys.list(projectId) }),
+    onSuccess: (heading) => headingSaved(queryClient, projectId, heading),
   });
 }

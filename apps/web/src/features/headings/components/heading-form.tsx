@@ -24,7 +24,8 @@ import { Form, Formik, useField, useFormikContext } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
 import type { ExcavationStage, Heading } from '@/api/contract';
-import { getHeading, useSaveHeading } from '@/features/headings/api/save-heading';
+import { useReloadHeading } from '@/features/headings/api/get-headings';
+import { useSaveHeading } from '@/features/headings/api/save-heading';
 import { ProfilePreview } from '@/features/headings/components/profile-preview';
 import type { GradientUnit, HeadingFormValues } from '@/features/headings/schemas/heading.schema';
 import {
@@ -215,11 +216,12 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
   const [pending, setPending] = useState<PendingRecompute | null>(null);
   const [pendingProblem, setPendingProblem] = useState<string | null>(null);
   const [declined, setDeclined] = useState(false);
+  const reloadHeading = useReloadHeading(projectId);
   const stale = useStaleVersion<Heading, HeadingFormValues>({
     initialVersion: heading?.version ?? 0,
     toValues: headingToFormValues,
     labels: headingFieldLabels,
-    reload: heading === undefined ? undefined : () => getHeading(projectId, heading.id),
+    reload: heading === undefined ? undefined : () => reloadHeading(heading.id),
   });
   const initialValues = heading === undefined ? emptyHeadingValues : headingToFormValues(heading);
 

@@ -1,18 +1,16 @@
-import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { ProjectSummary } from '@/api/contract';
-import { projectKeys } from '@/features/projects/api/get-projects';
-import { apiClient, unwrap } from '@/lib/api-client';
+import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
+import { projectQueryOptions, projectsQueryOptions } from '@/api/resources/projects';
 
-export function getProject(projectId: string): Promise<ProjectSummary> {
-  return unwrap(apiClient.GET('/api/projects/{projectId}', { params: { path: { projectId } } }));
+export function useProjects() {
+  return useSuspenseQuery(projectsQueryOptions());
 }
-
-export const projectQueryOptions = (projectId: string) =>
-  queryOptions({
-    queryKey: projectKeys.detail(projectId),
-    queryFn: () => getProject(projectId),
-  });
 
 export function useProject(projectId: string) {
   return useSuspenseQuery(projectQueryOptions(projectId));
+}
+
+/** Reads the project from the server now (into the one cache entry), e.g. after a 409. */
+export function useReloadProject(projectId: string) {
+  const queryClient = useQueryClient();
+  return () => queryClient.fetchQuery({ ...projectQueryOptions(projectId), staleTime: 0 });
 }

@@ -12,7 +12,7 @@ import { Form, Formik } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useMemo, useState } from 'react';
 import type { ProjectSummary } from '@/api/contract';
-import { useCreateProject } from '@/features/projects/api/create-project';
+import { useCreateProject } from '@/features/projects/api/save-project';
 import type { NewProjectValues } from '@/features/projects/schemas/new-project.schema';
 import { emptyNewProject, newProjectSchema } from '@/features/projects/schemas/new-project.schema';
 import {

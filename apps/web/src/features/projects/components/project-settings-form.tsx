@@ -15,8 +15,8 @@ import { FieldArray, Form, Formik, getIn, useFormikContext } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
 import type { ProjectSummary } from '@/api/contract';
-import { getProject } from '@/features/projects/api/get-project';
-import { useUpdateProject } from '@/features/projects/api/update-project';
+import { useReloadProject } from '@/features/projects/api/get-project';
+import { useUpdateProject } from '@/features/projects/api/save-project';
 import type { ProjectSettingsValues } from '@/features/projects/schemas/project-settings.schema';
 import {
   GROUND_SCALES,
@@ -129,13 +129,14 @@ function DistributionList({ disabled }: { disabled: boolean }) {
 export function ProjectSettingsForm({ project, canEdit }: ProjectSettingsFormProps) {
   const styles = useStyles();
   const update = useUpdateProject(project.id);
+  const reloadProject = useReloadProject(project.id);
   const [problem, setProblem] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const stale = useStaleVersion<ProjectSummary, ProjectSettingsValues>({
     initialVersion: project.version,
     toValues: projectToSettingsValues,
     labels: projectSettingsLabels,
-    reload: () => getProject(project.id),
+    reload: reloadProject,
   });
 
   const submit = async (values: ProjectSettingsValues, helpers: FormikHelpers<ProjectSettingsValues>) => {

@@ -3,7 +3,9 @@ import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
 import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { roundDrafts } from '@/features/rounds/hooks/use-round-autosave';
 import { formValuesOf } from '@/features/rounds/schemas/round-form';
+import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import {
   draftRound,
   heading,
@@ -11,8 +13,16 @@ import {
   renderWithProviders,
   supportClasses,
 } from '@/features/rounds/testing/round-fixtures';
-import { localDraftKey, readLocalDraft, writeLocalDraft } from '@/features/rounds/utils/local-draft';
+import type { LocalDraft } from '@/lib/sync/local-draft';
 import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
+
+const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
+const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
+const writeLocalDraft = ({
+  roundId,
+  ...draft
+}: Omit<LocalDraft<RoundFormValues>, 'key'> & { roundId: string }) =>
+  roundDrafts.write({ key: roundId, ...draft });
 
 afterEach(restoreFetch);
 

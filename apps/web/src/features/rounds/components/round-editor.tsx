@@ -13,9 +13,9 @@ import {
 import { driveOf, formatChainage } from '@roundbook/geomath';
 import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
-import { useCallback, useMemo, useState } from 'react';
-import { useNearbyJoints } from '@/features/rounds/api/get-nearby-joints';
-import { submitRound } from '@/features/rounds/api/save-round';
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { submitRound } from '@/api/resources/rounds';
+import { useNearbyJoints } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
 import { GroundSection } from '@/features/rounds/components/ground-section';
 import { JointsSection } from '@/features/rounds/components/joints-section';
@@ -25,9 +25,10 @@ import { RoundEditContext } from '@/features/rounds/components/round-fields';
 import { SaveStateBadge } from '@/features/rounds/components/save-state';
 import { SupportSection } from '@/features/rounds/components/support-section';
 import { TriggerPanel } from '@/features/rounds/components/trigger-panel';
+import type { RoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
-import { chainageOf, formValuesOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
+import { chainageOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
 import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 import { liveRatings } from '@/features/rounds/utils/live-ratings';
 import { computeSets } from '@/features/rounds/utils/sets';
@@ -91,16 +92,21 @@ const useStyles = makeStyles({
 
 /** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
 export function RoundEditor(props: RoundEditorProps) {
-  const initialValues = useMemo(() => formValuesOf(props.round), [props.round]);
+  const { projectId, round, supportClasses, canEdit } = props;
+  const classCode = useCallback(
+    (id: string) => supportClasses.find((c) => c.id === id)?.code ?? id,
+    [supportClasses],
+  );
+  const autosave = useRoundAutosave({ projectId, initial: round, canEdit, classCode });
   return (
     <Formik<RoundFormValues>
-      initialValues={initialValues}
+      initialValues={autosave.initialValues}
       validationSchema={roundFormSchema}
       validateOnBlur
       validateOnChange
       onSubmit={() => undefined}
     >
-      <RoundEditorBody {...props} />
+      <RoundEditorBody {...props} autosave={autosave} />
     </Formik>
   );
 }
@@ -113,7 +119,8 @@ function RoundEditorBody({
   supportClasses,
   canEdit,
   initialSection,
-}: RoundEditorProps) {
+  autosave,
+}: RoundEditorProps & { autosave: RoundAutosave }) {
   const styles = useStyles();
   const { values, resetForm } = useFormikContext<RoundFormValues>();
   const [section, setSection] = useState<RoundSection>(initialSection ?? 'position');
@@ -123,20 +130,13 @@ function RoundEditorBody({
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
 
-  const editableStatus = round.status === 'draft' || round.status === 'returned';
-  const reset = useCallback((v: RoundFormValues) => resetForm({ values: v }), [resetForm]);
-  const classCode = useCallback(
-    (id: string) => supportClasses.find((c) => c.id === id)?.code ?? id,
-    [supportClasses],
-  );
-  const autosave = useRoundAutosave({
-    projectId,
-    initial: round,
-    values,
-    editable: canEdit && editableStatus,
-    reset,
-    classCode,
-  });
+  // Every change goes to the autosave engine: kept on this device at once, sent after a pause.
+  const { edit } = autosave;
+  useEffect(() => edit(values), [edit, values]);
+  const takeTheirs = () => {
+    const theirs = autosave.takeTheirs();
+    if (theirs !== null) resetForm({ values: theirs });
+  };
   const server = autosave.server;
   const readOnly = !canEdit || !(server.status === 'draft' || server.status === 'returned');
 
@@ -144,9 +144,7 @@ function RoundEditorBody({
   const nearby = useNearbyJoints(
     projectId,
     heading.id,
-    face - distance,
-    face + distance,
-    round.id,
+    { fromChainage: face - distance, toChainage: face + distance, excludeRoundId: round.id },
     distance > 0,
   );
   const drive = useMemo(() => driveOf(heading), [heading]);
@@ -204,7 +202,7 @@ function RoundEditorBody({
               >
                 {statusLabels[server.status]}
               </Badge>
-              <SaveStateBadge state={autosave.state} readOnly={readOnly} />
+              <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
             </>
           }
         />
@@ -225,7 +223,7 @@ function RoundEditorBody({
             </MessageBarActions>
           </MessageBar>
         )}
-        {(autosave.state === 'invalid' || autosave.state === 'refused') && autosave.message !== null && (
+        {autosave.state === 'error' && autosave.message !== null && (
           <MessageBar intent="error" data-testid="save-error">
             <MessageBarBody>
               <MessageBarTitle>Not saved</MessageBarTitle>
@@ -248,7 +246,7 @@ function RoundEditorBody({
             message={autosave.stale.message}
             differences={autosave.stale.differences}
             state={autosave.stale.state}
-            onLoadTheirs={autosave.takeTheirs}
+            onLoadTheirs={takeTheirs}
             onKeepMine={autosave.keepMine}
             onDismiss={autosave.dismissStale}
           />

@@ -1,5 +1,5 @@
-import { Field, Input, makeStyles, Select, Textarea, tokens } from '@fluentui/react-components';
-import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { Field, Input, makeStyles, Textarea, tokens } from '@fluentui/react-components';
+import { FormikSelectField, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useField } from 'formik';
 import { createContext, useContext } from 'react';
 import type { ReactElement } from 'react';
@@ -19,7 +19,6 @@ export function useRoundEdit(): RoundEditState {
 
 const useStyles = makeStyles({
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%' },
-  select: { '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   number: { fontVariantNumeric: 'tabular-nums' },
   hint: { color: tokens.colorNeutralForeground2 },
 });
@@ -128,48 +127,28 @@ export function TextField({
   );
 }
 
-export interface ChoiceFieldProps extends BaseProps {
+export interface ChoiceFieldProps {
+  name: string;
+  label: string;
+  hint?: string | ReactElement;
   options: readonly { value: string; label: string }[];
   /** Shown as the first, empty choice. */
   placeholder?: string;
   onValueChange?: (value: string) => void;
 }
 
-export function ChoiceField({
-  name,
-  label,
-  hint,
-  apiName,
-  warning,
-  options,
-  placeholder,
-  onValueChange,
-}: ChoiceFieldProps) {
-  const styles = useStyles();
-  const [field, , helpers] = useField<string>(name);
+/** A choice from a list: the packages/ui Formik adapter, shut while the round is read only. */
+export function ChoiceField({ name, label, hint, options, placeholder, onValueChange }: ChoiceFieldProps) {
   const { readOnly } = useRoundEdit();
-  const message = useMessage(name, apiName, warning);
+  const choices = placeholder === undefined ? options : [{ value: '', label: placeholder }, ...options];
   return (
-    <Field label={label} hint={hint} size="large" {...message}>
-      <Select
-        className={styles.select}
-        name={field.name}
-        value={field.value ?? ''}
-        size="large"
-        disabled={readOnly}
-        onChange={(_e, data) => {
-          void helpers.setValue(data.value);
-          onValueChange?.(data.value);
-        }}
-        onBlur={field.onBlur}
-      >
-        {placeholder !== undefined && <option value="">{placeholder}</option>}
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </Select>
-    </Field>
+    <FormikSelectField
+      name={name}
+      label={label}
+      hint={hint}
+      options={choices}
+      disabled={readOnly}
+      onValueChange={onValueChange}
+    />
   );
 }

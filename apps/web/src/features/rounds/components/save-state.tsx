@@ -9,21 +9,22 @@ import type { SaveState } from '@/features/rounds/hooks/use-round-autosave';
 
 export interface SaveStateBadgeProps {
   state: SaveState;
+  /** With state 'error': the server named fields to fix. */
+  invalid?: boolean;
   readOnly: boolean;
 }
 
 const texts: Record<SaveState, string> = {
   saved: 'Saved',
-  pending: 'Not saved yet',
+  waiting: 'Not saved yet',
   saving: 'Saving…',
   offline: 'Not saved yet — will retry',
-  invalid: 'Not saved — see the marked fields',
-  stale: 'Not saved — changed by someone else',
-  refused: 'Not saved',
+  error: 'Not saved',
+  conflict: 'Not saved — changed by someone else',
 };
 
 /** Where the typing is: on the server, on its way, or kept on this device only. */
-export function SaveStateBadge({ state, readOnly }: SaveStateBadgeProps) {
+export function SaveStateBadge({ state, invalid = false, readOnly }: SaveStateBadgeProps) {
   if (readOnly) {
     return (
       <Badge size="extra-large" appearance="outline" color="informative" shape="rounded">
@@ -32,7 +33,7 @@ export function SaveStateBadge({ state, readOnly }: SaveStateBadgeProps) {
     );
   }
   const colour =
-    state === 'saved' ? 'success' : state === 'saving' || state === 'pending' ? 'informative' : 'danger';
+    state === 'saved' ? 'success' : state === 'saving' || state === 'waiting' ? 'informative' : 'danger';
   const icon =
     state === 'saving' ? (
       <Spinner size="extra-tiny" />
@@ -40,7 +41,7 @@ export function SaveStateBadge({ state, readOnly }: SaveStateBadgeProps) {
       <CheckmarkCircleRegular />
     ) : state === 'offline' ? (
       <CloudOffRegular />
-    ) : state === 'pending' ? (
+    ) : state === 'waiting' ? (
       <EditRegular />
     ) : (
       <ErrorCircleRegular />
@@ -54,7 +55,7 @@ export function SaveStateBadge({ state, readOnly }: SaveStateBadgeProps) {
         shape="rounded"
         icon={icon}
       >
-        {texts[state]}
+        {state === 'error' && invalid ? 'Not saved — see the marked fields' : texts[state]}
       </Badge>
     </span>
   );

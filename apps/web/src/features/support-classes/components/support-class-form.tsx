@@ -10,8 +10,10 @@ import { Form, Formik, useField } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
 import type { SupportClass, SupportClassLibrary } from '@/api/contract';
-import { useChangeSupportClasses } from '@/features/support-classes/api/change-support-classes';
-import { getSupportClasses } from '@/features/support-classes/api/get-support-classes';
+import {
+  useChangeSupportClasses,
+  useReloadSupportClasses,
+} from '@/features/support-classes/api/support-classes';
 import type { SupportClassFormValues } from '@/features/support-classes/schemas/support-class.schema';
 import {
   emptySupportClassValues,
@@ -76,6 +78,7 @@ function NotesField() {
 export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }: SupportClassFormProps) {
   const styles = useStyles();
   const change = useChangeSupportClasses(projectId);
+  const reloadLibrary = useReloadSupportClasses(projectId);
   const [problem, setProblem] = useState<string | null>(null);
   const stale = useStaleVersion<SupportClass, SupportClassFormValues>({
     initialVersion: supportClass?.version ?? 0,
@@ -85,7 +88,7 @@ export function SupportClassForm({ projectId, supportClass, onSaved, onCancel }:
       supportClass === undefined
         ? undefined
         : async () => {
-            const library = await getSupportClasses(projectId);
+            const library = await reloadLibrary();
             const found = library.classes.find((c) => c.id === supportClass.id);
             if (found === undefined) throw new Error('gone');
             return found;

@@ -31,8 +31,7 @@ import {
 import { ConfirmDialog, EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useState } from 'react';
 import type { SupportClass } from '@/api/contract';
-import { useChangeSupportClasses } from '@/features/support-classes/api/change-support-classes';
-import { useSupportClasses } from '@/features/support-classes/api/get-support-classes';
+import { useChangeSupportClasses, useSupportClasses } from '@/features/support-classes/api/support-classes';
 import { RangeWarnings } from '@/features/support-classes/components/range-warnings';
 import { SupportClassForm } from '@/features/support-classes/components/support-class-form';
 import { qRangeText, rmrRangeText, supportText } from '@/features/support-classes/utils/format';

@@ -1,20 +1,18 @@
-import { queryOptions, useMutation, useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
+import { useMutation, useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
 import type { CreateTriggerRuleRequest, TriggerRule, UpdateTriggerRuleRequest } from '@/api/contract';
-import { apiClient, unwrap } from '@/lib/api-client';
+import { resourceKeys } from '@/api/resources/keys';
+import type { TriggerPreview } from '@/api/resources/trigger-rules';
+import {
+  createTriggerRule,
+  deleteTriggerRule,
+  previewTriggerRule,
+  triggerRulesChanged,
+  triggerRulesQueryOptions,
+  updateTriggerRule,
+} from '@/api/resources/trigger-rules';
 
-export const triggerRuleKeys = {
-  all: ['trigger-rules'] as const,
-  list: (projectId: string) => [...triggerRuleKeys.all, projectId, 'list'] as const,
-};
-
-export function getTriggerRules(projectId: string): Promise<TriggerRule[]> {
-  return unwrap(
-    apiClient.GET('/api/projects/{projectId}/trigger-rules', { params: { path: { projectId } } }),
-  );
-}
-
-export const triggerRulesQueryOptions = (projectId: string) =>
-  queryOptions({ queryKey: triggerRuleKeys.list(projectId), queryFn: () => getTriggerRules(projectId) });
+export type { TriggerPreview };
+export type TriggerPreviewMatch = TriggerPreview['matches'][number];
 
 export function useTriggerRules(projectId: string) {
   return useSuspenseQuery(triggerRulesQueryOptions(projectId));
@@ -25,60 +23,36 @@ export type TriggerRuleChange =
   | { kind: 'update'; ruleId: string; body: UpdateTriggerRuleRequest }
   | { kind: 'delete'; ruleId: string };
 
-export async function changeTriggerRule(
-  projectId: string,
-  change: TriggerRuleChange,
-): Promise<TriggerRule | null> {
+async function run(projectId: string, change: TriggerRuleChange): Promise<TriggerRule | null> {
   switch (change.kind) {
     case 'create':
-      return unwrap(
-        apiClient.POST('/api/projects/{projectId}/trigger-rules', {
-          params: { path: { projectId } },
-          body: change.body,
-        }),
-      );
+      return createTriggerRule(projectId, change.body);
     case 'update':
-      return unwrap(
-        apiClient.PATCH('/api/projects/{projectId}/trigger-rules/{ruleId}', {
-          params: { path: { projectId, ruleId: change.ruleId } },
-          body: change.body,
-        }),
-      );
+      return updateTriggerRule(projectId, change.ruleId, change.body);
     case 'delete':
-      await unwrap(
-        apiClient.DELETE('/api/projects/{projectId}/trigger-rules/{ruleId}', {
-          params: { path: { projectId, ruleId: change.ruleId } },
-        }),
-      );
+      await deleteTriggerRule(projectId, change.ruleId);
       return null;
   }
+}
+
+/** Reads the rules from the server now (into their one cache entry), e.g. after a 409. */
+export function useReloadTriggerRules(projectId: string) {
+  const queryClient = useQueryClient();
+  return () => queryClient.fetchQuery({ ...triggerRulesQueryOptions(projectId), staleTime: 0 });
 }
 
 export function useChangeTriggerRule(projectId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...triggerRuleKeys.all, projectId, 'change'],
-    mutationFn: (change: TriggerRuleChange) => changeTriggerRule(projectId, change),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: triggerRuleKeys.list(projectId) }),
+    mutationKey: [...resourceKeys.triggerRules(projectId), 'change'],
+    mutationFn: (change: TriggerRuleChange) => run(projectId, change),
+    onSuccess: () => triggerRulesChanged(queryClient, projectId),
   });
 }
 
-/** How a rule (saved or not) would have fired on each heading's latest rounds; nothing is saved. */
-export function previewTriggerRule(projectId: string, body: CreateTriggerRuleRequest) {
-  return unwrap(
-    apiClient.POST('/api/projects/{projectId}/trigger-rules/preview', {
-      params: { path: { projectId } },
-      body,
-    }),
-  );
-}
-
-export type TriggerPreview = Awaited<ReturnType<typeof previewTriggerRule>>;
-export type TriggerPreviewMatch = TriggerPreview['matches'][number];
-
 export function usePreviewTriggerRule(projectId: string) {
   return useMutation({
-    mutationKey: [...triggerRuleKeys.all, projectId, 'preview'],
+    mutationKey: [...resourceKeys.triggerRules(projectId), 'preview'],
     mutationFn: (body: CreateTriggerRuleRequest) => previewTriggerRule(projectId, body),
   });
 }

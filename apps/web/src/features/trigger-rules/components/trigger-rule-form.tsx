@@ -26,9 +26,9 @@ import { useState } from 'react';
 import type { ProjectRole, TriggerLevel, TriggerRule, WatchedQuantity } from '@/api/contract';
 import type { TriggerPreview } from '@/features/trigger-rules/api/trigger-rules';
 import {
-  getTriggerRules,
   useChangeTriggerRule,
   usePreviewTriggerRule,
+  useReloadTriggerRules,
 } from '@/features/trigger-rules/api/trigger-rules';
 import { LevelBadge } from '@/features/trigger-rules/components/level-badge';
 import type { RoundPlaceFormat } from '@/features/trigger-rules/components/trigger-preview';
@@ -204,6 +204,7 @@ export function TriggerRuleForm({ projectId, rule, onSaved, onCancel, placeForma
   const change = useChangeTriggerRule(projectId);
   const [problem, setProblem] = useState<string | null>(null);
   const preview = usePreviewTriggerRule(projectId);
+  const reloadRules = useReloadTriggerRules(projectId);
   const [tried, setTried] = useState<{ key: string; result: TriggerPreview } | null>(null);
   const [previewProblem, setPreviewProblem] = useState<string | null>(null);
   const stale = useStaleVersion<TriggerRule, TriggerRuleFormValues>({
@@ -214,7 +215,7 @@ export function TriggerRuleForm({ projectId, rule, onSaved, onCancel, placeForma
       rule === undefined
         ? undefined
         : async () => {
-            const found = (await getTriggerRules(projectId)).find((r) => r.id === rule.id);
+            const found = (await reloadRules()).find((r) => r.id === rule.id);
             if (found === undefined) throw new Error('gone');
             return found;
           },
