@@ -6,7 +6,6 @@ import {
   chainageSign,
   stagePart,
   type AlignmentSegment,
-  type ChainageSense,
   type HeadingAlignment,
 } from '@roundbook/geomath';
 import type { Stage } from './vocabulary.js';
@@ -42,7 +41,7 @@ export interface HeadingAlignmentRecord {
 
 /** +1 when chainage increases in the drive direction, −1 when it decreases. */
 export const senseSign = (sense: ChainageSenseCode | null | undefined): 1 | -1 =>
-  chainageSign((sense ?? 'increasing') as ChainageSense);
+  chainageSign((sense ?? 'increasing'));
 
 /**
  * The geomath alignment of a heading: its segments, then straight on without end (a face beyond the last
@@ -60,7 +59,7 @@ export function headingAlignment(h: HeadingAlignmentRecord): HeadingAlignment {
     start: { east: h.startEasting ?? 0, north: h.startNorthing ?? 0 },
     startBearing: h.initialBearing ?? h.driveTrend,
     segments,
-    chainageSense: (h.chainageSense ?? 'increasing') as ChainageSense,
+    chainageSense: (h.chainageSense ?? 'increasing'),
     gradientPercent: h.gradientPercent,
   };
 }

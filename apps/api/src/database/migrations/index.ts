@@ -3,6 +3,7 @@ import { SetupLibrary1764720000000 } from './1764720000000-SetupLibrary.js';
 import { Rounds1764806400000 } from './1764806400000-Rounds.js';
 import { RoundTriggers1764892800000 } from './1764892800000-RoundTriggers.js';
 import { RoundAssessments1764979200000 } from './1764979200000-RoundAssessments.js';
+import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -11,4 +12,5 @@ export const migrations = [
   Rounds1764806400000,
   RoundTriggers1764892800000,
   RoundAssessments1764979200000,
+  HeadingAlignment1796196409420,
 ];
