@@ -679,6 +679,24 @@ export interface components {
         };
         /** @enum {string} */
         ChainageStyle: "km+m" | "metres";
+        /**
+         * @description Whether chainage increases or decreases in the drive direction
+         * @enum {string}
+         */
+        ChainageSense: "increasing" | "decreasing";
+        /**
+         * @description Which side the arc turns to, looking in the drive direction; null for a straight
+         * @enum {string}
+         */
+        AlignmentSide: "left" | "right";
+        AlignmentSegmentDto: {
+            /** @description Radius of an arc, metres; null for a straight */
+            radius: number | null;
+            /** @description Which side the arc turns to, looking in the drive direction; null for a straight */
+            side: components["schemas"]["AlignmentSide"] | null;
+            /** @description Length along the alignment, metres */
+            length: number;
+        };
         HeadingDto: {
             chainageStyle: components["schemas"]["ChainageStyle"];
             profileShape: components["schemas"]["ProfileShape"];
@@ -686,6 +704,12 @@ export interface components {
             startEasting: number | null;
             startNorthing: number | null;
             startElevation: number | null;
+            /** @description Whether chainage increases or decreases in the drive direction */
+            chainageSense: components["schemas"]["ChainageSense"];
+            /** @description Drive bearing at the start when a curve begins there; null: the drive trend */
+            initialBearing: number | null;
+            /** @description Top of the bench above the invert, metres (staged profiles); null: at the axis */
+            benchHeight: number | null;
             id: string;
             projectId: string;
             code: string;
@@ -702,12 +726,18 @@ export interface components {
             /** @description Height of the tunnel axis above the invert, metres */
             axisHeight: number;
             plannedRoundLength: number;
+            /** @description Straights and arcs from the start, in the drive direction (empty: one straight) */
+            alignmentSegments: components["schemas"]["AlignmentSegmentDto"][];
             version: number;
         };
         CreateHeadingDto: {
             chainageStyle?: components["schemas"]["ChainageStyle"];
             profileShape: components["schemas"]["ProfileShape"];
             stages: components["schemas"]["Stage"][];
+            chainageSense?: components["schemas"]["ChainageSense"];
+            initialBearing?: number | null;
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
+            benchHeight?: number | null;
             code: string;
             name: string;
             startChainage: number;
@@ -727,6 +757,10 @@ export interface components {
             chainageStyle?: components["schemas"]["ChainageStyle"];
             profileShape?: components["schemas"]["ProfileShape"];
             stages?: components["schemas"]["Stage"][];
+            chainageSense?: components["schemas"]["ChainageSense"];
+            initialBearing?: number | null;
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
+            benchHeight?: number | null;
             code?: string;
             name?: string;
             startChainage?: number;
@@ -964,7 +998,7 @@ export interface components {
             /** @description Face chainage of the last round of this heading and stage, or the heading's start */
             previousChainage: number;
             plannedRoundLength: number;
-            /** @description previousChainage + planned round length, as a starting value */
+            /** @description previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
             suggestedFaceChainage: number;
         };
         CreateRoundDto: {
@@ -1009,6 +1043,12 @@ export interface components {
         JrcMethod: "profile-comb" | "tilt-test" | "visual";
         /** @enum {string} */
         JointWater: "dry" | "damp" | "wet" | "dripping" | "flowing";
+        FaceOffsetDto: {
+            /** @description Metres right of the axis, looking at the face (negative: left) */
+            right: number;
+            /** @description Metres above the axis (negative: below) */
+            up: number;
+        };
         JointDto: {
             /**
              * Format: uuid
@@ -1028,6 +1068,8 @@ export interface components {
             water: components["schemas"]["JointWater"] | null;
             /** @description Thickness of a fault or shear zone, m */
             thicknessM: number | null;
+            /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
+            faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
             /** @description Canonical dip direction, null while the typed text cannot be read */
             dipDirection: number | null;
             dip: number | null;
@@ -1071,6 +1113,8 @@ export interface components {
             inflowLpm: number | null;
             /** @description Tunnel length the inflow comes from, m (for inflow per 10 m) */
             inflowLengthM: number | null;
+            /** @description True when the inflow was measured at the face (a point inflow; no length of tunnel is needed) */
+            inflowAtFace?: boolean | null;
             overbreakM3: number | null;
             units: components["schemas"]["RockUnitDto"][];
             waterDescription: string;
@@ -1187,6 +1231,8 @@ export interface components {
             water: components["schemas"]["JointWater"] | null;
             /** @description Thickness of a fault or shear zone, m */
             thicknessM: number | null;
+            /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
+            faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
             /** @description The orientation exactly as typed (kept even when it cannot be read) */
             orientationText: string;
             setOverride?: boolean;
