@@ -705,11 +705,13 @@ export interface components {
             startNorthing: number | null;
             startElevation: number | null;
             /** @description Whether chainage increases or decreases in the drive direction */
-            chainageSense: components["schemas"]["ChainageSense"];
+            chainageSense?: components["schemas"]["ChainageSense"];
             /** @description Drive bearing at the start when a curve begins there; null: the drive trend */
-            initialBearing: number | null;
+            initialBearing?: number | null;
+            /** @description Straights and arcs from the start, in the drive direction (empty: one straight) */
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
             /** @description Top of the bench above the invert, metres (staged profiles); null: at the axis */
-            benchHeight: number | null;
+            benchHeight?: number | null;
             id: string;
             projectId: string;
             code: string;
@@ -726,8 +728,6 @@ export interface components {
             /** @description Height of the tunnel axis above the invert, metres */
             axisHeight: number;
             plannedRoundLength: number;
-            /** @description Straights and arcs from the start, in the drive direction (empty: one straight) */
-            alignmentSegments: components["schemas"]["AlignmentSegmentDto"][];
             version: number;
         };
         CreateHeadingDto: {

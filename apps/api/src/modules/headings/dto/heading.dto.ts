@@ -73,16 +73,19 @@ export class HeadingDto {
   @ApiProperty({ type: Number, nullable: true })
   startElevation: number | null;
   /** Whether chainage increases or decreases in the drive direction */
-  @ApiProperty({ enum: CHAINAGE_SENSE_CODES, enumName: 'ChainageSense' })
-  chainageSense: (typeof CHAINAGE_SENSE_CODES)[number];
+  // The four alignment fields are always sent; they are marked optional in the contract so that readers
+  // written before them keep compiling (absent reads as: increasing, drive trend, one straight, axis).
+  @ApiProperty({ enum: CHAINAGE_SENSE_CODES, enumName: 'ChainageSense', required: false })
+  chainageSense?: (typeof CHAINAGE_SENSE_CODES)[number];
   /** Drive bearing at the start when a curve begins there; null: the drive trend */
-  @ApiProperty({ type: Number, nullable: true })
-  initialBearing: number | null;
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  initialBearing?: number | null;
   /** Straights and arcs from the start, in the drive direction (empty: one straight) */
-  alignmentSegments: AlignmentSegmentDto[];
+  @ApiProperty({ type: [AlignmentSegmentDto], required: false })
+  alignmentSegments?: AlignmentSegmentDto[];
   /** Top of the bench above the invert, metres (staged profiles); null: at the axis */
-  @ApiProperty({ type: Number, nullable: true })
-  benchHeight: number | null;
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  benchHeight?: number | null;
   version: number;
 }
 
