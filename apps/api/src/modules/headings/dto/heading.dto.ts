@@ -171,7 +171,9 @@ export class CreateHeadingDto {
   startElevation?: number | null;
 
   @IsOptional()
-  @IsIn(CHAINAGE_SENSE_CODES, { message: 'Chainage sense is increasing or decreasing (in the drive direction).' })
+  @IsIn(CHAINAGE_SENSE_CODES, {
+    message: 'Chainage sense is increasing or decreasing (in the drive direction).',
+  })
   @ApiProperty({ enum: CHAINAGE_SENSE_CODES, enumName: 'ChainageSense', required: false })
   chainageSense?: (typeof CHAINAGE_SENSE_CODES)[number];
 
