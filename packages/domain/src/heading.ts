@@ -41,7 +41,7 @@ export interface HeadingAlignmentRecord {
 
 /** +1 when chainage increases in the drive direction, −1 when it decreases. */
 export const senseSign = (sense: ChainageSenseCode | null | undefined): 1 | -1 =>
-  chainageSign((sense ?? 'increasing'));
+  chainageSign(sense ?? 'increasing');
 
 /**
  * The geomath alignment of a heading: its segments, then straight on without end (a face beyond the last
@@ -59,7 +59,7 @@ export function headingAlignment(h: HeadingAlignmentRecord): HeadingAlignment {
     start: { east: h.startEasting ?? 0, north: h.startNorthing ?? 0 },
     startBearing: h.initialBearing ?? h.driveTrend,
     segments,
-    chainageSense: (h.chainageSense ?? 'increasing'),
+    chainageSense: h.chainageSense ?? 'increasing',
     gradientPercent: h.gradientPercent,
   };
 }

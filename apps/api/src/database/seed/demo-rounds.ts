@@ -5,7 +5,6 @@ import {
   DEFAULT_SET_PARAMETERS,
   driveTrendAt,
   nextFaceChainage,
-  senseSign,
   shiftOf,
   suggestClasses,
 } from '@roundbook/domain';
@@ -21,9 +20,9 @@ import {
   type RmrOrientationAssessment,
 } from '@roundbook/geomath';
 import type { EntityManager } from 'typeorm';
-import { Project } from '../../modules/projects/project.entity.js';
 import { headingGeometry } from '../../modules/headings/heading-geometry.js';
 import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
+import { Project } from '../../modules/projects/project.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
 import { readOrientation } from '../../modules/rounds/orientation-reading.js';
 import { RoundRevision } from '../../modules/rounds/round-revision.entity.js';
@@ -88,7 +87,6 @@ export async function seedDemoRounds(
 ): Promise<void> {
   const random = rng(plan.heading.split('').reduce((s, c) => s * 31 + c.charCodeAt(0), 7));
   const project = await manager.findOneByOrFail(Project, { id: heading.projectId });
-  const sense = senseSign(heading.chainageSense);
   // No round is dated in the future: the last one was mapped two hours (plus endsDaysAgo days) before now,
   // each earlier one a shift (12 h) before the next; dates and shifts in the project's time zone.
   const lastMappedAt = Date.now() - 2 * 3600_000 - plan.endsDaysAgo * 24 * 3600_000;
