@@ -128,7 +128,8 @@ describe('One round, one truth (e2e, real MariaDB)', () => {
       .body as Body;
     expect(frozen.suggestedClassIds).toEqual([classId('C2')]);
     expect(frozen.assessment).toEqual(submitted.assessment);
-    expect(frozen.assessmentVersion).toBe('domain-1');
+    // Issue 10 changed the rules (water once, governing discontinuity, …): the version is now domain-2.
+    expect(frozen.assessmentVersion).toBe('domain-2');
 
     const revisions = (
       await request(http).get(`${p.base}/rounds/${r0.id}/revisions`).set(p.as('viewer')).expect(200)

@@ -1,7 +1,15 @@
 // The round's assessment: everything Roundbook works out from one face record, in one pure function that
 // the browser runs live, the API runs on save (and freezes at submit), and the reports read back.
-import { driveOf, rmrOrientationInTunnel } from '@roundbook/geomath';
-import type { Plane, RmrOrientationResult } from '@roundbook/geomath';
+import { driveOf, Q_TABLE_EDITION, rmrOrientationInTunnel } from '@roundbook/geomath';
+import type { GroundScale, Plane, RmrOrientationResult } from '@roundbook/geomath';
+import {
+  conditionWarnings,
+  governingDiscontinuity,
+  jnWarning,
+  jrJaWarnings,
+  type GoverningDiscontinuity,
+} from './governing.js';
+import { groundErrors, pointLoadWarning } from './ground.js';
 import {
   computeRatings,
   RATING_EDITIONS,
@@ -13,17 +21,19 @@ import { DEFAULT_SET_PARAMETERS, findRoundSets, type RoundSets, type SetParamete
 import { suggestClasses, type SupportClassInput } from './support.js';
 import {
   assessTriggers,
+  featureReaches,
   type FactJoint,
+  type FeatureReach,
   type HeadingGeometry,
   type RoundFacts,
   type TriggerAssessment,
   type TriggerRuleInput,
 } from './triggers.js';
 import { SINGLE_FEATURE_KINDS, type JointKind } from './vocabulary.js';
-import { inflowPer10m } from './water.js';
+import { readWater, waterConditionWarning } from './water.js';
 
 /** The version of the rules that produced an assessment (stored with it; bump when a rule changes). */
-export const ASSESSMENT_VERSION = 'domain-1';
+export const ASSESSMENT_VERSION = 'domain-2';
 
 export interface GroundRecord {
   units: Array<{
@@ -36,6 +46,8 @@ export interface GroundRecord {
   pointLoadFactor: number | null;
   inflowLpm: number | null;
   inflowLengthM: number | null;
+  /** True when the inflow was measured at the face (a point inflow, no length of tunnel). */
+  inflowAtFace?: boolean | null;
   waterDescription: string;
   overbreakM3: number | null;
   notes: string;
@@ -52,6 +64,13 @@ export interface AssessedJoint {
   setOverride: boolean;
   spacingM: number | null;
   faceOffset?: { right: number; up: number } | null;
+  /** Position on the round (1, 2, …), for the words of the warnings. */
+  seq?: number;
+  jr?: number | null;
+  ja?: number | null;
+  apertureMm?: number | null;
+  infill?: string | null;
+  thicknessM?: number | null;
 }
 
 export interface RoundRecordInput {
@@ -75,6 +94,8 @@ export interface AssessmentContext {
   previousRound: { classId: string | null } | null;
   rules: TriggerRuleInput[];
   qTableEdition?: string;
+  /** The project's scale of weathering and strength grades (default ISRM). */
+  groundScale?: GroundScale;
 }
 
 export interface FeatureAssessment {
@@ -86,12 +107,21 @@ export interface FeatureAssessment {
 
 export interface RoundAssessment {
   version: string;
-  editions: { q: string; rmr: string; gsi: string };
+  /** qTable: the Q table edition the Q was computed with (geomath qValue().edition). */
+  editions: { q: string; qTable: string; rmr: string; gsi: string };
   ratings: RoundRatings;
   sets: RoundSets;
   /** Significant single features (faults, shear zones) judged on their own against the drive. */
   features: FeatureAssessment[];
   inflowPer10m: number | null;
+  /** How the inflow per 10 m was worked out from the one record (null: none recorded, or its length missing). */
+  inflowBasis: string | null;
+  /** The discontinuity Jr and Ja come from: named in the record, or the weakest significant one suggested. */
+  governing: GoverningDiscontinuity | null;
+  /** Where each significant feature meets the stage's profile ahead of the face (crown, invert, walls). */
+  lookAhead: FeatureReach[];
+  /** Fields the record should still give (e.g. the length the inflow comes from), by field path. */
+  missing: Record<string, string>;
   suggestedClassIds: string[];
   warnings: string[];
   /** What the trigger rules read, as worked out here. */
@@ -123,7 +153,16 @@ export function roundWarnings(
 /** Everything worked out from one round record and its context; no input is changed. */
 export function assessRound(record: RoundRecordInput, context: AssessmentContext): RoundAssessment {
   const drive = driveOf(context.heading);
-  const ratings = computeRatings(record);
+  const water = readWater(record.ground);
+  // Water once: an RMR89 groundwater rating by inflow reads the one inflow record when it has one.
+  const rmrInput =
+    record.rmrInput && record.rmrInput.groundwater.kind === 'inflow' && water.per10m !== null
+      ? {
+          ...record.rmrInput,
+          groundwater: { kind: 'inflow' as const, litresPerMinutePer10m: water.per10m },
+        }
+      : record.rmrInput;
+  const ratings = computeRatings({ ...record, rmrInput });
   const parameters = record.setParameters ?? DEFAULT_SET_PARAMETERS;
   const readable = record.joints.filter(
     (j): j is AssessedJoint & { dipDirection: number; dip: number } =>
@@ -160,7 +199,6 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       }
       return { jointId: j.id, kind: j.kind, plane, orientation };
     });
-  const water = inflowPer10m(record.ground.inflowLpm, record.ground.inflowLengthM ?? record.roundLength);
   const previousClass =
     context.previousRound?.classId != null
       ? context.supportClasses.find((c) => c.id === context.previousRound!.classId)
@@ -168,7 +206,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
   const facts: RoundFacts = {
     q: ratings.q.value,
     rmr: ratings.rmr.value,
-    inflowPer10m: water,
+    inflowPer10m: water.per10m,
     overbreakM3: record.ground.overbreakM3,
     faceChainage: record.faceChainage,
     recommendedClassId: record.recommendedClassId,
@@ -186,19 +224,78 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
   const qEdition = context.qTableEdition
     ? `${RATING_EDITIONS.q}; project tables: ${context.qTableEdition} edition`
     : RATING_EDITIONS.q;
+
+  const warnings = roundWarnings(
+    record,
+    context.heading.plannedRoundLength,
+    previousClass?.maxRoundLength ?? null,
+  );
+  const missing: Record<string, string> = { ...water.missing };
+  warnings.push(...Object.values(water.missing));
+  // Q: values between table rows and the Jr +1 rule (geomath qValue warnings).
+  warnings.push(...(ratings.q.warnings ?? []));
+  // The governing discontinuity of Jr and Ja, and the RMR89 condition against its aperture and infill.
+  const { governing, warnings: namedWarnings } = governingDiscontinuity(
+    { jointId: record.qInput?.governingJointId ?? null, setLabel: record.qInput?.governingSetLabel ?? null },
+    record.joints.map((j, i) => ({
+      id: j.id,
+      seq: j.seq ?? i + 1,
+      kind: j.kind,
+      jr: j.jr ?? null,
+      ja: j.ja ?? null,
+      apertureMm: j.apertureMm ?? null,
+      infill: j.infill ?? null,
+      thicknessM: j.thicknessM ?? null,
+      setLabel: SINGLE_FEATURE_KINDS.includes(j.kind)
+        ? null
+        : sets.membership[j.id] || (j.setOverride ? j.setLabel : null),
+    })),
+  );
+  warnings.push(...namedWarnings);
+  if (record.qInput && governing) warnings.push(...jrJaWarnings(record.qInput, governing));
+  if (record.rmrInput && governing) warnings.push(...conditionWarnings(record.rmrInput.condition, governing));
+  // Jn against the sets found and the random joints (joints of this round in no set, or the record's flag).
+  if (record.qInput && setJoints.length > 0) {
+    const random = record.qInput.randomJoints ?? setJoints.some((j) => (sets.membership[j.id] ?? '') === '');
+    const w = jnWarning(record.qInput.jn, sets.sets.length, random);
+    if (w) warnings.push(w);
+  }
+  // Water: a rating by condition that contradicts the measured inflow; a typed inflow the record overrides.
+  if (record.rmrInput?.groundwater.kind === 'condition') {
+    const w = waterConditionWarning(record.rmrInput.groundwater.condition, water.per10m);
+    if (w) warnings.push(w);
+  } else if (
+    record.rmrInput?.groundwater.kind === 'inflow' &&
+    water.per10m !== null &&
+    Math.abs(record.rmrInput.groundwater.litresPerMinutePer10m - water.per10m) > 0.05
+  ) {
+    warnings.push(
+      `RMR89 groundwater reads the inflow recorded in Ground (${Math.round(water.per10m * 10) / 10} l/min per 10 m), not the ${record.rmrInput.groundwater.litresPerMinutePer10m} typed with the rating.`,
+    );
+  }
+  // Ground: grades of the project's scale (refused by the API on save) and the point load against the grade.
+  warnings.push(...Object.values(groundErrors(record.ground, context.groundScale)));
+  const pl = pointLoadWarning(record.ground, context.groundScale);
+  if (pl) warnings.push(pl);
+
   return {
     version: ASSESSMENT_VERSION,
-    editions: { q: qEdition, rmr: RATING_EDITIONS.rmr, gsi: RATING_EDITIONS.gsi },
+    editions: {
+      q: qEdition,
+      qTable: ratings.q.edition ?? Q_TABLE_EDITION,
+      rmr: RATING_EDITIONS.rmr,
+      gsi: RATING_EDITIONS.gsi,
+    },
     ratings,
     sets,
     features,
-    inflowPer10m: water,
+    inflowPer10m: water.per10m,
+    inflowBasis: water.basis,
+    governing,
+    lookAhead: featureReaches(facts, context.heading),
+    missing,
     suggestedClassIds: suggestClasses(context.supportClasses, ratings.q.value, ratings.rmr.value),
-    warnings: roundWarnings(
-      record,
-      context.heading.plannedRoundLength,
-      previousClass?.maxRoundLength ?? null,
-    ),
+    warnings,
     facts,
     triggers: assessTriggers(context.rules, facts, context.heading),
   };

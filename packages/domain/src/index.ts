@@ -8,3 +8,6 @@ export * from './support.js';
 export * from './water.js';
 export * from './triggers.js';
 export * from './assess-round.js';
+export * from './heading.js';
+export * from './ground.js';
+export * from './governing.js';

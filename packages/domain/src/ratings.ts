@@ -8,6 +8,10 @@ export interface RatingOutcome {
   error: string | null;
   /** Intermediate values and ratings, for showing the inputs beside the result. */
   parts: Record<string, number>;
+  /** Inputs accepted but worth a second look (Q: values between table rows, the Jr +1 rule). */
+  warnings?: string[];
+  /** The table edition used (Q: geomath qValue().edition). */
+  edition?: string;
 }
 
 export interface RoundRatings {
@@ -25,7 +29,15 @@ export type RmrRecord = Omit<Rmr89Input, 'orientation'> & {
       }
     | { kind: 'not assessed' };
 };
-export type QRecord = QInput;
+/**
+ * The Q inputs as recorded: geomath's QInput, plus the governing discontinuity Jr and Ja were taken from
+ * (a joint of the round by id, or a set by label) and whether random joints were seen beside the sets.
+ */
+export type QRecord = QInput & {
+  governingJointId?: string | null;
+  governingSetLabel?: string | null;
+  randomJoints?: boolean | null;
+};
 
 /** The editions the ratings follow, stamped on every assessment. */
 export const RATING_EDITIONS = {
@@ -49,6 +61,8 @@ export function computeRatings(input: {
       const r = qValue(input.qInput);
       q.value = r.q;
       q.label = r.rockClass;
+      q.edition = r.edition;
+      q.warnings = r.warnings.map((w) => w.message);
       q.parts = {
         rqdUsed: r.rqdUsed,
         jnUsed: r.jnUsed,

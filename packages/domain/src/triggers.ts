@@ -4,10 +4,10 @@ import {
   driveOf,
   fisherStatistics,
   planarSlidingOut,
-  planeCrossings,
   planeOfPole,
   poleOf,
   rmrOrientationInTunnel,
+  stageCrossings,
   surfaceFacing,
 } from '@roundbook/geomath';
 import type { Plane } from '@roundbook/geomath';
@@ -163,6 +163,8 @@ export interface HeadingGeometry {
   /** Crown height above the axis and invert depth below it for the round's stage (default: the full profile). */
   stageCrownHeight?: number;
   stageInvertDepth?: number;
+  /** Largest half-width of the stage's part, to its walls (default: half the profile width). */
+  stageHalfWidth?: number;
   /** Friction angle of the joints for the face-sliding screen, degrees (default 30, common practice). */
   frictionAngle?: number;
 }
@@ -224,32 +226,98 @@ export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): st
   return out;
 }
 
+/** Where a mapped fault or shear zone meets the stage's part of the profile ahead of (or behind) the face. */
+export interface FeatureReach {
+  jointId: string | null;
+  label: string;
+  /** Distances along the drive from the face, m (negative: behind the face); null where it runs along. */
+  distance: {
+    crown: number | null;
+    invert: number | null;
+    rightWall: number | null;
+    leftWall: number | null;
+  };
+  /** The same places as chainages, following the heading's chainage sense. */
+  chainage: {
+    crown: number | null;
+    invert: number | null;
+    rightWall: number | null;
+    leftWall: number | null;
+  };
+  /** Whether the trace position on the face was recorded (else the face centre was used). */
+  traceKnown: boolean;
+}
+
+/**
+ * The look-ahead of the round's significant single features: where each reaches the crown, the invert and
+ * the walls of the stage's own part of the profile (geomath stageCrossings, methods.md §6), measured from
+ * its trace on the face when recorded (faceOffset), else from the face centre.
+ */
+export function featureReaches(round: RoundFacts, heading: HeadingGeometry): FeatureReach[] {
+  const drive = driveOf(heading);
+  const sense = heading.chainageSense ?? 1;
+  const part = {
+    crownHeight: heading.stageCrownHeight ?? heading.profileHeight - heading.axisHeight,
+    invertDepth: heading.stageInvertDepth ?? heading.axisHeight,
+    halfWidth: heading.stageHalfWidth ?? heading.profileWidth / 2,
+  };
+  const out: FeatureReach[] = [];
+  let n = 0;
+  for (const j of round.joints) {
+    if (!SINGLE_FEATURE_KINDS.includes(j.kind as never) || !readable(j)) continue;
+    n++;
+    let c;
+    try {
+      c = stageCrossings(
+        {
+          plane: { dipDirection: j.dipDirection, dip: j.dip },
+          chainage: 0,
+          offset: j.faceOffset ?? { right: 0, up: 0 },
+          drive,
+        },
+        part,
+      );
+    } catch {
+      continue;
+    }
+    const d = { crown: c.crown, invert: c.invert, rightWall: c.rightWall, leftWall: c.leftWall };
+    const at = (v: number | null): number | null => (v === null ? null : round.faceChainage + sense * v);
+    out.push({
+      jointId: j.id ?? null,
+      label: `${j.kind === 'fault' ? 'fault' : 'shear zone'} ${n}`,
+      distance: d,
+      chainage: {
+        crown: at(d.crown),
+        invert: at(d.invert),
+        rightWall: at(d.rightWall),
+        leftWall: at(d.leftWall),
+      },
+      traceKnown: j.faceOffset != null,
+    });
+  }
+  return out;
+}
+
 /** Nearest distance ahead of the face at which a mapped fault or shear zone reaches the crown, m; null if none. */
 export function nearestCrownReach(
   round: RoundFacts,
   heading: HeadingGeometry,
-): { distance: number; chainage: number } | null {
-  const drive = driveOf(heading);
-  const sense = heading.chainageSense ?? 1;
-  let best: { distance: number; chainage: number } | null = null;
-  for (const j of round.joints) {
-    if (!SINGLE_FEATURE_KINDS.includes(j.kind as never) || !readable(j)) continue;
-    const c = planeCrossings({
-      plane: { dipDirection: j.dipDirection, dip: j.dip },
-      chainage: 0,
-      offset: j.faceOffset ?? { right: 0, up: 0 },
-      drive,
-      crownHeight: heading.stageCrownHeight ?? heading.profileHeight - heading.axisHeight,
-      invertDepth: heading.stageInvertDepth ?? heading.axisHeight,
-      halfWidth: heading.profileWidth / 2,
-    });
-    // planeCrossings measures along the drive from the face; chainage follows the heading's sense.
-    if (c.crown === null || c.crown <= 0) continue;
-    if (best === null || c.crown < best.distance)
-      best = { distance: c.crown, chainage: round.faceChainage + sense * c.crown };
+): { distance: number; chainage: number; reach: FeatureReach } | null {
+  let best: { distance: number; chainage: number; reach: FeatureReach } | null = null;
+  for (const r of featureReaches(round, heading)) {
+    const c = r.distance.crown;
+    if (c === null || c <= 0) continue;
+    if (best === null || c < best.distance) best = { distance: c, chainage: r.chainage.crown!, reach: r };
   }
   return best;
 }
+
+const ahead = (what: string, v: number | null): string | null =>
+  v === null
+    ? null
+    : v > 0
+      ? `${what} ${v.toFixed(1)} m ahead`
+      : `${what} ${(-v).toFixed(1)} m behind the face`;
 
 /** One rule against one round: fired, clear, not evaluated (its input is missing) or waiting (cannot fire yet). */
 export function evaluateRuleOutcome(
@@ -306,10 +374,20 @@ export function evaluateRuleOutcome(
         return { state: 'not-evaluated', detail: 'no readable joints recorded yet' };
       const hit = nearestCrownReach(round, heading);
       if (hit === null || hit.distance > rule.threshold) return { state: 'clear' };
+      const d = hit.reach.distance;
+      const others = [
+        ahead('the invert', d.invert),
+        ahead('the right wall', d.rightWall),
+        ahead('the left wall', d.leftWall),
+      ]
+        .filter((x): x is string => x !== null)
+        .join(', ');
       return {
         state: 'fired',
         value: hit.distance,
-        detail: `A mapped fault reaches the crown ${hit.distance.toFixed(1)} m ahead of the face`,
+        detail: `The mapped ${hit.reach.label} reaches the crown ${hit.distance.toFixed(1)} m ahead of the face${
+          hit.reach.traceKnown ? '' : ' (trace position not recorded: from the face centre)'
+        }${others ? `; ${others}` : ''}`,
       };
     }
     case 'open-red-hazard':

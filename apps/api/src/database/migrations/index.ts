@@ -4,6 +4,7 @@ import { Rounds1764806400000 } from './1764806400000-Rounds.js';
 import { RoundTriggers1764892800000 } from './1764892800000-RoundTriggers.js';
 import { RoundAssessments1764979200000 } from './1764979200000-RoundAssessments.js';
 import { JobsAndOperators1796193536073 } from './1796193536073-JobsAndOperators.js';
+import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -13,4 +14,5 @@ export const migrations = [
   RoundTriggers1764892800000,
   RoundAssessments1764979200000,
   JobsAndOperators1796193536073,
+  HeadingAlignment1796196409420,
 ];

@@ -1,8 +1,19 @@
 import { randomUUID } from 'node:crypto';
-import { assessRound, computeRatings, DEFAULT_SET_PARAMETERS, suggestClasses } from '@roundbook/domain';
+import {
+  assessRound,
+  computeRatings,
+  DEFAULT_SET_PARAMETERS,
+  driveTrendAt,
+  nextFaceChainage,
+  shiftOf,
+  suggestClasses,
+} from '@roundbook/domain';
 import {
   driveOf,
   formatPlane,
+  jvFromSpacings,
+  rqdFromJv,
+  STRENGTH_GRADES,
   rmrOrientationInTunnel,
   type Plane,
   type PlaneNotation,
@@ -11,6 +22,7 @@ import {
 import type { EntityManager } from 'typeorm';
 import { headingGeometry } from '../../modules/headings/heading-geometry.js';
 import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
+import { Project } from '../../modules/projects/project.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
 import { readOrientation } from '../../modules/rounds/orientation-reading.js';
 import { RoundRevision } from '../../modules/rounds/round-revision.entity.js';
@@ -25,7 +37,7 @@ export interface DemoRoundsPlan {
   stage: Stage;
   count: number;
   roundLength: number;
-  /** The last round's shift date is this many days before the day the demo is seeded. */
+  /** The last round was mapped this many days (and two hours) before the moment the demo is seeded. */
   endsDaysAgo: number;
   sets: Array<{ label: string; dipDirection: number; dip: number }>;
   fault: {
@@ -59,7 +71,12 @@ const ORDER: Record<RmrOrientationAssessment, number> = {
   unfavourable: 3,
   'very unfavourable': 4,
 };
-const round5 = (x: number): number => Math.max(0, Math.min(100, Math.round(x / 5) * 5));
+/** The ISRM strength grade whose UCS band holds a strength (ISRM 1981, from memory). */
+const strengthGradeOf = (ucs: number): string =>
+  STRENGTH_GRADES.isrm.find((r) => r.ucsMPa && ucs >= r.ucsMPa[0] && ucs < r.ucsMPa[1])?.code ?? 'R6';
+/** Point-load factor of the demo: UCS ≈ 22 × Is50 (Broch & Franklin 1972 about 24; from memory). */
+const POINT_LOAD_FACTOR = 22;
+const SHIFT_MS = 12 * 3600_000;
 
 export async function seedDemoRounds(
   manager: EntityManager,
@@ -69,7 +86,10 @@ export async function seedDemoRounds(
   mappedBy: string,
 ): Promise<void> {
   const random = rng(plan.heading.split('').reduce((s, c) => s * 31 + c.charCodeAt(0), 7));
-  const drive = driveOf(heading);
+  const project = await manager.findOneByOrFail(Project, { id: heading.projectId });
+  // No round is dated in the future: the last one was mapped two hours (plus endsDaysAgo days) before now,
+  // each earlier one a shift (12 h) before the next; dates and shifts in the project's time zone.
+  const lastMappedAt = Date.now() - 2 * 3600_000 - plan.endsDaysAgo * 24 * 3600_000;
   const rules = await manager.find(TriggerRule, { where: { projectId: heading.projectId } });
   const earlier: Array<{
     id: string;
@@ -82,12 +102,16 @@ export async function seedDemoRounds(
   for (let i = 1; i <= plan.count; i++) {
     const t = (i - 1) / Math.max(1, plan.count - 1);
     const faultHere = plan.fault !== null && i >= plan.fault.fromRound;
-    const face = heading.startChainage + i * plan.roundLength;
-    const day = Math.floor((i - 1) / 2);
-    const shiftDate = new Date(`${new Date().toISOString().slice(0, 10)}T12:00:00Z`);
-    shiftDate.setUTCDate(shiftDate.getUTCDate() - plan.endsDaysAgo - Math.floor((plan.count - 1) / 2) + day);
-    const shift = i % 2 === 1 ? 'day' : 'night';
-    const mappedAt = new Date(shiftDate.getTime() + (shift === 'day' ? 2 : 14) * 3600_000);
+    // Chainage follows the heading's sense: on a heading driven against the chainage it decreases.
+    const previousFace = nextFaceChainage(
+      heading.startChainage,
+      (i - 1) * plan.roundLength,
+      heading.chainageSense,
+    );
+    const face = nextFaceChainage(previousFace, plan.roundLength, heading.chainageSense);
+    const drive = driveOf({ ...heading, driveTrend: driveTrendAt(heading, face) });
+    const mappedAt = new Date(lastMappedAt - (plan.count - i) * SHIFT_MS);
+    const { shiftDate, shift } = shiftOf(mappedAt, project.timeZone);
 
     const jitter = (p: Plane, spread: number): Plane => ({
       dipDirection: (p.dipDirection + (random() - 0.5) * 2 * spread + 360) % 360,
@@ -124,34 +148,56 @@ export async function seedDemoRounds(
     const worst = plan.sets
       .map((s) => rmrOrientationInTunnel(s, drive).assessment)
       .reduce((a, b) => (ORDER[b] > ORDER[a] ? b : a), 'very favourable' as RmrOrientationAssessment);
+    // Joint spacing closes toward the fault; the rock around the fault is crushed (0.12 m).
+    const spacingM = faultHere ? 0.12 : Math.round((0.9 - 0.5 * t) * 100) / 100;
+    // RQD agrees with the spacing recorded: Jv = Σ 1/spacing over the sets, RQD = 115 − 3.3 Jv
+    // (Palmström 1982, via geomath rqdFromJv).
+    const rqd = Math.round(rqdFromJv(jvFromSpacings(plan.sets.map(() => spacingM)), 1982));
+    // Jr and Ja of the fault rounds come from the fault, the weakest significant discontinuity: a clay-gouge
+    // zone with no wall contact, Jr 1 and Ja 8 (crushed soft zone) then 13 (thick soft clay band) (Barton et
+    // al. 1974; NGI 2015 tables). SRF 2.5: a single weakness zone with clay (NGI 2015, from memory).
+    const thickClay = faultHere && plan.fault !== null && i >= plan.fault.fromRound + 2;
+    const faultJa = thickClay ? 13 : 8;
     const qInput: QRecord = {
-      rqd: round5(92 - 55 * t - random() * 6),
+      rqd,
       jn: (faultHere ? 3 : 0) + (plan.sets.length >= 3 ? 9 : 4),
-      jr: t < 0.5 ? 2 : 1.5,
-      ja: faultHere ? 4 : t < 0.6 ? 1 : 2,
-      jw: t < 0.7 ? 1 : 0.66,
+      jr: faultHere ? 1 : t < 0.5 ? 2 : 1.5,
+      ja: faultHere ? faultJa : t < 0.6 ? 1 : 2,
+      jw: faultHere ? 0.66 : 1,
       srf: faultHere ? 2.5 : 1,
+      ...(faultHere ? { jrRowId: 'jr-clay-zone' } : {}),
     };
+    const is50 = Math.round((6.5 - 3.5 * t) * 10) / 10;
     const rmrInput: RmrRecord = {
-      strength: { kind: 'point-load', is50: Math.round((6.5 - 3.5 * t) * 10) / 10 },
-      rqd: qInput.rqd,
-      spacingM: Math.round((0.7 - 0.45 * t) * 100) / 100,
+      strength: { kind: 'point-load', is50 },
+      rqd,
+      spacingM,
       condition: {
         kind: 'simple',
         condition: faultHere
-          ? 'slickensided-or-thin-gouge'
+          ? 'soft-gouge-or-wide-open'
           : t < 0.5
             ? 'slightly-rough-slightly-weathered'
             : 'slightly-rough-highly-weathered',
       },
-      groundwater: { kind: 'inflow', litresPerMinutePer10m: Math.round(4 + 40 * t) },
+      groundwater: { kind: 'inflow', litresPerMinutePer10m: faultHere ? 30 : Math.round(3 + 12 * t) },
       orientation: { kind: 'assessment', assessment: worst },
     };
     const ratings = computeRatings({ qInput, rmrInput, gsiObserved: null });
     const suggested = suggestClasses(classes, ratings.q.value, ratings.rmr.value);
-    const recommended =
-      classes.find((c) => c.id === suggested[0]) ??
-      classes.find((c) => !c.retired && c.qMin !== null && (ratings.q.value ?? 0) >= c.qMin);
+    // When Q and RMR89 point to different classes, the more cautious (heavier) one is recommended.
+    const byQ = classes.find((c) => c.id === suggestClasses(classes, ratings.q.value, null)[0]);
+    const byRmr = classes.find((c) => c.id === suggestClasses(classes, null, ratings.rmr.value)[0]);
+    const cautious = [byQ, byRmr]
+      .filter((c): c is SupportClass => c !== undefined)
+      .sort((a, b) => b.sortOrder - a.sortOrder)[0];
+    const recommended = classes.find((c) => c.id === suggested[0]) ?? cautious;
+    const reason =
+      suggested.length || !recommended
+        ? ''
+        : `Q ${ratings.q.value?.toPrecision(2)} points to ${byQ?.code ?? 'no class'} and RMR89 ${ratings.rmr.value} to ${
+            byRmr?.code ?? 'no class'
+          }: the more cautious ${recommended.code} is recommended.`;
     const status =
       i === plan.count && plan.lastDraft ? 'draft' : i >= plan.count - 1 ? 'submitted' : 'confirmed';
     const saved = manager.create(Round, {
@@ -161,9 +207,9 @@ export async function seedDemoRounds(
       stage: plan.stage,
       roundNumber: i,
       faceChainage: face,
-      previousChainage: face - plan.roundLength,
+      previousChainage: previousFace,
       roundLength: plan.roundLength,
-      shiftDate: shiftDate.toISOString().slice(0, 10),
+      shiftDate,
       shift,
       mappedBy,
       mappedAt,
@@ -174,12 +220,18 @@ export async function seedDemoRounds(
             name: plan.rockUnit,
             sharePercent: 100,
             weatheringGrade: t < 0.6 ? 'WII' : 'WIII',
-            strengthGrade: t < 0.6 ? 'R4' : 'R3',
+            // Is50 × factor agrees with the grade (ISRM 1981 strength bands, from memory).
+            strengthGrade: strengthGradeOf(is50 * POINT_LOAD_FACTOR),
           },
         ],
-        pointLoadIs50: rmrInput.strength.kind === 'point-load' ? rmrInput.strength.is50 : null,
-        pointLoadFactor: 22,
-        inflowLpm: Math.round((4 + 40 * t) * plan.roundLength) / 10,
+        pointLoadIs50: is50,
+        pointLoadFactor: POINT_LOAD_FACTOR,
+        // Water once: the inflow over the round's length; RMR89 A5 and the trigger read it.
+        inflowLpm:
+          Math.round(
+            (rmrInput.groundwater.kind === 'inflow' ? rmrInput.groundwater.litresPerMinutePer10m : 0) *
+              plan.roundLength,
+          ) / 10,
         inflowLengthM: plan.roundLength,
         waterDescription:
           t < 0.4
@@ -198,13 +250,11 @@ export async function seedDemoRounds(
       gsi: ratings.gsi.value,
       recommendedClassId: recommended?.id ?? null,
       nextRoundLength: recommended ? Math.min(recommended.maxRoundLength, plan.roundLength) : null,
-      recommendationReason: suggested.length
-        ? ''
-        : 'No class fits both ratings; the Q recommendation is followed.',
+      recommendationReason: reason,
       setParameters: DEFAULT_SET_PARAMETERS,
       status,
       revision: 1,
-      submittedAt: status === 'draft' ? null : new Date(mappedAt.getTime() + 3600_000),
+      submittedAt: status === 'draft' ? null : new Date(Math.min(mappedAt.getTime() + 3600_000, Date.now())),
     });
     const jointRows = entries.map((e, seq) => {
       const text = formatPlane(e.plane, e.notation);
@@ -223,19 +273,26 @@ export async function seedDemoRounds(
         orientationError: 'error' in reading ? reading.error : null,
         setLabel: e.label,
         setOverride: false,
-        spacingM: e.fault ? null : Math.round((0.7 - 0.45 * t) * 100) / 100,
+        spacingM: e.fault ? null : spacingM,
         persistenceM: e.fault ? 20 : 3,
         apertureMm: e.fault ? 40 : 0.5,
-        jr: e.fault ? 1 : qInput.jr,
+        jr: e.fault ? 1 : faultHere ? 1.5 : qInput.jr,
         jrc: null,
         jrcMethod: null,
         infill: e.fault ? (plan.fault?.infill ?? '') : '',
-        ja: e.fault ? 4 : qInput.ja,
+        ja: e.fault ? faultJa : faultHere ? 2 : qInput.ja,
         water: e.fault ? 'dripping' : 'damp',
         thicknessM: e.fault ? (plan.fault?.thicknessM ?? null) : null,
         notes: '',
+        faceOffset: null,
       });
     });
+    // The record keeps which discontinuity Jr and Ja came from: the fault where it crosses the face.
+    const faultJoint = jointRows.find((j) => j.kind === 'fault');
+    if (faultJoint) {
+      qInput.governingJointId = faultJoint.id;
+      saved.qInput = qInput;
+    }
     // The same assessment the API makes on save (packages/domain), frozen for rounds past draft.
     const assessment = assessRound(
       {
@@ -250,6 +307,12 @@ export async function seedDemoRounds(
           setLabel: j.setLabel,
           setOverride: false,
           spacingM: j.spacingM,
+          seq: j.seq,
+          jr: j.jr,
+          ja: j.ja,
+          apertureMm: j.apertureMm,
+          infill: j.infill,
+          thicknessM: j.thicknessM,
         })),
         qInput,
         rmrInput,
@@ -258,13 +321,15 @@ export async function seedDemoRounds(
         setParameters: DEFAULT_SET_PARAMETERS,
       },
       {
-        heading: headingGeometry(heading, plan.stage),
+        heading: headingGeometry(heading, plan.stage, face),
         supportClasses: classes,
         nearbyJoints: earlier.filter(
           (e) => Math.abs(e.faceChainage - face) <= DEFAULT_SET_PARAMETERS.windowM,
         ),
         previousRound: previousClassId === undefined ? null : { classId: previousClassId },
         rules,
+        qTableEdition: project.qTableEdition,
+        groundScale: project.groundScale,
       },
     );
     for (const j of jointRows)

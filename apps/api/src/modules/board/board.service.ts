@@ -15,12 +15,18 @@ export class BoardService implements HeadingProgressPort {
     const rows = await this.dataSource
       .createQueryBuilder()
       .from(Round, 'r')
+      .innerJoin('headings', 'h', 'h.id = r.heading_id')
       .select('r.heading_id', 'headingId')
-      .addSelect('MAX(r.face_chainage)', 'faceChainage')
+      // The face furthest along the drive: the lowest chainage on a heading driven against the chainage.
+      .addSelect(
+        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(r.face_chainage) ELSE MAX(r.face_chainage) END",
+        'faceChainage',
+      )
       .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
       .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
       .where('r.heading_id IN (:...headingIds)', { headingIds })
       .groupBy('r.heading_id')
+      .addGroupBy('h.chainage_sense')
       .getRawMany<{
         headingId: string;
         faceChainage: string;

@@ -1,10 +1,17 @@
-import { CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '@roundbook/domain';
+import {
+  CHAINAGE_SENSE_CODES,
+  CHAINAGE_STYLES,
+  PROFILE_SHAPES,
+  STAGES,
+  type AlignmentSegmentRecord,
+  type ChainageSenseCode,
+} from '@roundbook/domain';
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Project } from '../projects/project.entity.js';
 
-export { CHAINAGE_STYLES, PROFILE_SHAPES };
+export { CHAINAGE_SENSE_CODES, CHAINAGE_STYLES, PROFILE_SHAPES };
 export type ProfileShape = (typeof PROFILE_SHAPES)[number];
 export type ChainageStyle = (typeof CHAINAGE_STYLES)[number];
 
@@ -100,6 +107,36 @@ export class Heading {
     transformer: decimal,
   })
   startElevation: number | null;
+
+  /** Whether chainage increases or decreases in the drive direction (a heading driven against the chainage). */
+  @Column({ name: 'chainage_sense', type: 'enum', enum: CHAINAGE_SENSE_CODES, default: 'increasing' })
+  chainageSense: ChainageSenseCode;
+
+  /** Drive bearing at the start when it differs from the drive trend (null: the drive trend). */
+  @Column({
+    name: 'initial_bearing',
+    type: 'decimal',
+    precision: 6,
+    scale: 2,
+    nullable: true,
+    transformer: decimal,
+  })
+  initialBearing: number | null;
+
+  /** The alignment from the start: straights and circular arcs, then straight on (empty: one straight). */
+  @Column({ name: 'alignment_segments', type: 'json', nullable: true })
+  alignmentSegments: AlignmentSegmentRecord[] | null;
+
+  /** Top of the bench (floor of the top heading), metres above the invert; null: at the axis. */
+  @Column({
+    name: 'bench_height',
+    type: 'decimal',
+    precision: 6,
+    scale: 2,
+    nullable: true,
+    transformer: decimal,
+  })
+  benchHeight: number | null;
 
   @CreatedAt()
   createdAt: Date;

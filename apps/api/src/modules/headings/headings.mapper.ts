@@ -18,6 +18,10 @@ export const HEADING_FIELDS = [
   'startEasting',
   'startNorthing',
   'startElevation',
+  'chainageSense',
+  'initialBearing',
+  'alignmentSegments',
+  'benchHeight',
 ] as const satisfies ReadonlyArray<keyof Heading>;
 
 export function toHeadingDto(h: Heading): HeadingDto {
@@ -40,6 +44,10 @@ export function toHeadingDto(h: Heading): HeadingDto {
     startEasting: h.startEasting,
     startNorthing: h.startNorthing,
     startElevation: h.startElevation,
+    chainageSense: h.chainageSense ?? 'increasing',
+    initialBearing: h.initialBearing ?? null,
+    alignmentSegments: h.alignmentSegments ?? [],
+    benchHeight: h.benchHeight ?? null,
     version: h.version,
   };
 }

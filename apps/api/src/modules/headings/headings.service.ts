@@ -1,5 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
+import { alignmentErrors } from '@roundbook/domain';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
@@ -19,6 +20,10 @@ const GEOMETRY_FIELDS = [
   'profileWidth',
   'profileHeight',
   'axisHeight',
+  'chainageSense',
+  'initialBearing',
+  'alignmentSegments',
+  'benchHeight',
 ] as const;
 const GEOMETRY_WORDS: Record<(typeof GEOMETRY_FIELDS)[number], string> = {
   driveTrend: 'drive direction',
@@ -27,13 +32,20 @@ const GEOMETRY_WORDS: Record<(typeof GEOMETRY_FIELDS)[number], string> = {
   profileWidth: 'width',
   profileHeight: 'height',
   axisHeight: 'axis height',
+  chainageSense: 'chainage sense',
+  initialBearing: 'initial bearing',
+  alignmentSegments: 'alignment',
+  benchHeight: 'bench line',
 };
 
 /** Checks that involve more than one field; messages land on the field they concern. */
 function crossFieldErrors(
-  h: Pick<Heading, 'profileShape' | 'profileWidth' | 'profileHeight' | 'axisHeight'>,
+  h: Pick<Heading, 'profileShape' | 'profileWidth' | 'profileHeight' | 'axisHeight'> &
+    Partial<Pick<Heading, 'alignmentSegments' | 'benchHeight' | 'stages'>>,
 ): Record<string, string> {
-  const fields: Record<string, string> = {};
+  const fields: Record<string, string> = { ...alignmentErrors(h) };
+  if (h.benchHeight !== null && h.benchHeight !== undefined && h.benchHeight >= h.profileHeight)
+    fields.benchHeight = `The bench line (${h.benchHeight} m) must lie below the crown (${h.profileHeight} m above the invert).`;
   if (h.axisHeight > h.profileHeight)
     fields.axisHeight = `The axis (${h.axisHeight} m) must lie within the height (${h.profileHeight} m).`;
   if (h.profileShape === 'circular' && Math.abs(h.profileWidth - h.profileHeight) > 0.005) {
@@ -81,6 +93,10 @@ export class HeadingsService {
       startEasting: null,
       startNorthing: null,
       startElevation: null,
+      chainageSense: 'increasing' as const,
+      initialBearing: null,
+      alignmentSegments: [],
+      benchHeight: null,
       ...definedOnly(dto),
     } as CreateHeadingDto & Required<Pick<Heading, 'chainageStyle' | 'chainageDecimals'>>;
     const errors = crossFieldErrors(draft);

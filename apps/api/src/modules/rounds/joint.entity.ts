@@ -132,4 +132,8 @@ export class Joint {
 
   @Column({ type: 'varchar', length: 500 })
   notes: string;
+
+  /** Where the trace crosses the face, metres right of and above the axis (null: not recorded). */
+  @Column({ name: 'face_offset', type: 'json', nullable: true })
+  faceOffset: { right: number; up: number } | null;
 }

@@ -96,6 +96,13 @@ export class RoundAssessor {
             setLabel: j.setLabel,
             setOverride: j.setOverride,
             spacingM: j.spacingM,
+            faceOffset: j.faceOffset ?? null,
+            seq: j.seq,
+            jr: j.jr,
+            ja: j.ja,
+            apertureMm: j.apertureMm,
+            infill: j.infill,
+            thicknessM: j.thicknessM,
           })),
         qInput: round.qInput,
         rmrInput: round.rmrInput,
@@ -104,12 +111,13 @@ export class RoundAssessor {
         setParameters: parameters,
       },
       {
-        heading: headingGeometry(h, round.stage),
+        heading: headingGeometry(h, round.stage, round.faceChainage),
         supportClasses: classes,
         nearbyJoints: nearby,
         previousRound: previous ? { classId: previous.recommendedClassId } : null,
         rules,
         qTableEdition: project.qTableEdition,
+        groundScale: project.groundScale,
       },
     );
   }

@@ -1,7 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DEFAULT_SET_PARAMETERS, shiftOf, type RoundAssessment, type Stage } from '@roundbook/domain';
+import {
+  DEFAULT_SET_PARAMETERS,
+  groundErrors,
+  nextFaceChainage,
+  roundLengthOf,
+  shiftOf,
+  type RoundAssessment,
+  type Stage,
+} from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
@@ -70,6 +78,7 @@ const JOINT_FIELDS = [
   'water',
   'thicknessM',
   'notes',
+  'faceOffset',
 ] as const;
 const CREATE_SCOPE = 'round:create';
 
@@ -162,7 +171,7 @@ export class RoundsCommands {
         roundNumber: next.roundNumber,
         faceChainage: dto.faceChainage,
         previousChainage: next.previousChainage,
-        roundLength: Math.round((dto.faceChainage - next.previousChainage) * 1000) / 1000,
+        roundLength: roundLengthOf(dto.faceChainage, next.previousChainage, heading.chainageSense),
         ...shiftOf(now, project.timeZone),
         mappedBy: caller.id,
         mappedAt: now,
@@ -213,11 +222,17 @@ export class RoundsCommands {
       assertEditable(round.status);
       const project = await this.projects.findProject(access.projectId);
       if (dto.recommendedClassId) await this.supportClass(access, dto.recommendedClassId);
+      this.assertRecord(dto, project.groundScale);
+      const heading = await this.queries.heading(access, round.headingId, manager);
       const before = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
       Object.assign(round, {
         faceChainage: dto.faceChainage,
         previousChainage: dto.previousChainage ?? null,
-        roundLength: dto.roundLength ?? null,
+        // Positive in the drive direction, whichever way the heading's chainage runs.
+        roundLength:
+          dto.previousChainage !== null && dto.previousChainage !== undefined
+            ? roundLengthOf(dto.faceChainage, dto.previousChainage, heading.chainageSense)
+            : (dto.roundLength ?? null),
         shiftDate: dto.shiftDate,
         shift: dto.shift,
         distantParts: dto.distantParts,
@@ -407,8 +422,36 @@ export class RoundsCommands {
       roundNumber: (last?.roundNumber ?? 0) + 1,
       previousChainage,
       plannedRoundLength: heading.plannedRoundLength,
-      suggestedFaceChainage: Math.round((previousChainage + heading.plannedRoundLength) * 1000) / 1000,
+      suggestedFaceChainage: nextFaceChainage(
+        previousChainage,
+        heading.plannedRoundLength,
+        heading.chainageSense,
+      ),
     };
+  }
+
+  /**
+   * Refusals of a save that the DTO cannot see alone: grades of the project's scale and unit shares that
+   * make 100 % (packages/domain groundErrors), and a governing discontinuity that is a joint of this save.
+   */
+  private assertRecord(dto: SaveRoundDto, scale: 'isrm' | 'iso-14689'): void {
+    const fields = groundErrors(dto.ground, scale);
+    const q = dto.qInput as { governingJointId?: unknown; governingSetLabel?: unknown } | null;
+    if (q && q.governingJointId !== undefined && q.governingJointId !== null) {
+      const ids = dto.joints.map((j) => j.id).filter((id) => id !== undefined);
+      if (typeof q.governingJointId !== 'string' || !ids.includes(q.governingJointId))
+        fields['qInput.governingJointId'] =
+          'The governing discontinuity must be one of this round’s joints (by its id).';
+    }
+    if (
+      q &&
+      q.governingSetLabel !== undefined &&
+      q.governingSetLabel !== null &&
+      (typeof q.governingSetLabel !== 'string' || q.governingSetLabel.length > 20)
+    )
+      fields['qInput.governingSetLabel'] = 'The governing set is a set label such as S1.';
+    if (Object.keys(fields).length)
+      throw new DomainException(ErrorCode.ValidationFailed, Object.values(fields)[0], fields);
   }
 
   private async assertCurrent(manager: EntityManager, round: Round, version: number): Promise<void> {

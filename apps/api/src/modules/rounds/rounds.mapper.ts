@@ -33,6 +33,7 @@ export function toJointDto(j: Joint): JointDto {
     water: j.water,
     thicknessM: j.thicknessM,
     notes: j.notes,
+    faceOffset: j.faceOffset ?? null,
   };
 }
 

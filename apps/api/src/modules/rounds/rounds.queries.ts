@@ -99,10 +99,11 @@ export class RoundsQueries {
 
   /** A page of a heading's rounds; sorting and filters run in the database on indexed columns. */
   async list(access: ProjectAccess, headingId: string, query: RoundQueryDto): Promise<RoundPageDto> {
-    await this.heading(access, headingId);
+    const heading = await this.heading(access, headingId);
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 50;
-    const sort = query.sort ?? '-faceChainage';
+    // By default the furthest face along the drive comes first, whichever way the chainage runs.
+    const sort = query.sort ?? (heading.chainageSense === 'decreasing' ? 'faceChainage' : '-faceChainage');
     const column = {
       faceChainage: 'r.face_chainage',
       shiftDate: 'r.shift_date',

@@ -1,5 +1,9 @@
 import { ApiProperty, PartialType } from '@nestjs/swagger';
+import { ALIGNMENT_SIDES } from '@roundbook/domain';
+import { Type } from 'class-transformer';
 import {
+  ArrayMaxSize,
+  ValidateNested,
   ArrayMinSize,
   ArrayUnique,
   IsArray,
@@ -14,7 +18,30 @@ import {
   Max,
   Min,
 } from 'class-validator';
-import { CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '../heading.entity.js';
+import { CHAINAGE_SENSE_CODES, CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '../heading.entity.js';
+
+/** One segment of the alignment: a straight (no radius) or a circular arc turning left or right. */
+export class AlignmentSegmentDto {
+  /** Length along the alignment, metres */
+  @IsNumber()
+  @Min(0.1, { message: 'A segment is at least 0.1 m long.' })
+  @Max(100000)
+  length: number;
+
+  /** Radius of an arc, metres; null for a straight */
+  @IsOptional()
+  @IsNumber()
+  @Min(1, { message: 'An arc radius is at least 1 m.' })
+  @Max(1000000)
+  @ApiProperty({ type: Number, nullable: true })
+  radius: number | null;
+
+  /** Which side the arc turns to, looking in the drive direction; null for a straight */
+  @IsOptional()
+  @IsIn(ALIGNMENT_SIDES)
+  @ApiProperty({ enum: ALIGNMENT_SIDES, enumName: 'AlignmentSide', nullable: true })
+  side: (typeof ALIGNMENT_SIDES)[number] | null;
+}
 
 export class HeadingDto {
   id: string;
@@ -45,6 +72,20 @@ export class HeadingDto {
   startNorthing: number | null;
   @ApiProperty({ type: Number, nullable: true })
   startElevation: number | null;
+  /** Whether chainage increases or decreases in the drive direction */
+  // The four alignment fields are always sent; they are marked optional in the contract so that readers
+  // written before them keep compiling (absent reads as: increasing, drive trend, one straight, axis).
+  @ApiProperty({ enum: CHAINAGE_SENSE_CODES, enumName: 'ChainageSense', required: false })
+  chainageSense?: (typeof CHAINAGE_SENSE_CODES)[number];
+  /** Drive bearing at the start when a curve begins there; null: the drive trend */
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  initialBearing?: number | null;
+  /** Straights and arcs from the start, in the drive direction (empty: one straight) */
+  @ApiProperty({ type: [AlignmentSegmentDto], required: false })
+  alignmentSegments?: AlignmentSegmentDto[];
+  /** Top of the bench above the invert, metres (staged profiles); null: at the axis */
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  benchHeight?: number | null;
   version: number;
 }
 
@@ -128,6 +169,35 @@ export class CreateHeadingDto {
   @IsOptional()
   @IsNumber()
   startElevation?: number | null;
+
+  @IsOptional()
+  @IsIn(CHAINAGE_SENSE_CODES, {
+    message: 'Chainage sense is increasing or decreasing (in the drive direction).',
+  })
+  @ApiProperty({ enum: CHAINAGE_SENSE_CODES, enumName: 'ChainageSense', required: false })
+  chainageSense?: (typeof CHAINAGE_SENSE_CODES)[number];
+
+  @IsOptional()
+  @IsNumber({}, { message: 'Initial bearing is an azimuth in degrees, 0 to less than 360.' })
+  @Min(0, { message: 'Initial bearing is an azimuth in degrees, 0 to less than 360.' })
+  @Max(359.99, { message: 'Initial bearing is an azimuth in degrees, 0 to less than 360.' })
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  initialBearing?: number | null;
+
+  @IsOptional()
+  @IsArray()
+  @ArrayMaxSize(50)
+  @ValidateNested({ each: true })
+  @Type(() => AlignmentSegmentDto)
+  @ApiProperty({ type: [AlignmentSegmentDto], required: false })
+  alignmentSegments?: AlignmentSegmentDto[];
+
+  @IsOptional()
+  @IsNumber()
+  @Min(0.1, { message: 'The bench line lies above the invert.' })
+  @Max(40)
+  @ApiProperty({ type: Number, nullable: true, required: false })
+  benchHeight?: number | null;
 }
 
 export class UpdateHeadingDto extends PartialType(CreateHeadingDto) {

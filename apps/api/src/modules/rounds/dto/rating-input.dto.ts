@@ -17,6 +17,7 @@ import {
   IsNumber,
   IsOptional,
   IsString,
+  IsUUID,
   Max,
   MaxLength,
   Min,
@@ -89,6 +90,24 @@ export class QInputDto {
   @IsOptional()
   @IsBoolean()
   rqdFromJv?: boolean;
+
+  /** The joint (by id) whose Jr and Ja govern: the weakest significant discontinuity of the round */
+  @IsOptional()
+  @IsUUID()
+  @ApiProperty({ type: String, format: 'uuid', nullable: true, required: false })
+  governingJointId?: string | null;
+
+  /** Or the set (by label) whose Jr and Ja govern */
+  @IsOptional()
+  @IsString()
+  @MaxLength(20)
+  @ApiProperty({ type: String, nullable: true, required: false })
+  governingSetLabel?: string | null;
+
+  /** True when random joints are present besides the sets (Jn is checked against sets + random) */
+  @IsOptional()
+  @IsBoolean()
+  randomJoints?: boolean;
 }
 
 export class PointLoadStrengthDto {

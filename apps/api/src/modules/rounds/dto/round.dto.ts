@@ -89,6 +89,12 @@ export class GroundDto {
   @ApiProperty({ type: Number, nullable: true })
   inflowLengthM: number | null;
 
+  /** True when the inflow was measured at the face (a point inflow; no length of tunnel is needed) */
+  @IsOptional()
+  @IsBoolean()
+  @ApiProperty({ type: Boolean, nullable: true, required: false })
+  inflowAtFace?: boolean | null;
+
   @IsString()
   @MaxLength(2000)
   waterDescription: string;
@@ -103,6 +109,21 @@ export class GroundDto {
   @IsString()
   @MaxLength(8000)
   notes: string;
+}
+
+/** Where a feature's trace crosses the face, metres from the tunnel axis. */
+export class FaceOffsetDto {
+  /** Metres right of the axis, looking at the face (negative: left) */
+  @IsNumber()
+  @Min(-50)
+  @Max(50)
+  right: number;
+
+  /** Metres above the axis (negative: below) */
+  @IsNumber()
+  @Min(-50)
+  @Max(50)
+  up: number;
 }
 
 export class JointInputDto {
@@ -202,6 +223,13 @@ export class JointInputDto {
   @IsString()
   @MaxLength(500)
   notes: string;
+
+  /** Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
+  @IsOptional()
+  @ValidateNested()
+  @Type(() => FaceOffsetDto)
+  @ApiProperty({ type: FaceOffsetDto, nullable: true, required: false })
+  faceOffset?: FaceOffsetDto | null;
 }
 
 export class JointDto extends JointInputDto {
@@ -523,7 +551,7 @@ export class NextRoundDto {
   /** Face chainage of the last round of this heading and stage, or the heading's start */
   previousChainage: number;
   plannedRoundLength: number;
-  /** previousChainage + planned round length, as a starting value */
+  /** previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
   suggestedFaceChainage: number;
 }
 

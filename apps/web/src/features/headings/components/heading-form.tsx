@@ -8,6 +8,7 @@ import {
   Radio,
   RadioGroup,
   Subtitle2,
+  Textarea,
   tokens,
 } from '@fluentui/react-components';
 import { formatChainage, gradientDegreesToPercent, gradientPercentToDegrees } from '@roundbook/geomath';
@@ -139,6 +140,23 @@ function GradientField() {
         </RadioGroup>
       </Field>
     </>
+  );
+}
+
+/** A multi-line text field bound to the form (the alignment segments, one a line). */
+function FormikTextareaField({ name, label, hint }: { name: string; label: string; hint: string }) {
+  const [field, meta] = useField<string>(name);
+  const error = meta.touched && meta.error ? meta.error : undefined;
+  return (
+    <Field
+      label={label}
+      hint={hint}
+      size="large"
+      validationState={error ? 'error' : 'none'}
+      validationMessage={error}
+    >
+      <Textarea {...field} value={field.value} resize="vertical" rows={3} />
+    </Field>
   );
 }
 
@@ -346,6 +364,28 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   required
                 />
                 <GradientField />
+                <FormikSelectField
+                  name="chainageSense"
+                  label="Chainage in the drive direction"
+                  options={[
+                    { value: 'increasing', label: 'Increases (driven with the chainage)' },
+                    { value: 'decreasing', label: 'Decreases (driven against the chainage)' },
+                  ]}
+                />
+                <FormikInputField
+                  name="initialBearing"
+                  label="Bearing at the start (optional)"
+                  inputMode="decimal"
+                  contentAfter="°"
+                  hint="When a curve begins at the start; empty: the drive direction"
+                />
+                <div className={styles.wide}>
+                  <FormikTextareaField
+                    name="alignmentSegments"
+                    label="Alignment from the start (optional)"
+                    hint="One segment a line, in the drive direction: a straight is its length (120); an arc its length, radius and side (80 300 right). Straight on after the last."
+                  />
+                </div>
               </FormSection>
 
               <FormSection title="Excavation profile">
@@ -383,6 +423,13 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                 <div className={styles.wide}>
                   <StagesField />
                 </div>
+                <FormikInputField
+                  name="benchHeight"
+                  label="Bench line above invert (staged profiles)"
+                  inputMode="decimal"
+                  contentAfter="m"
+                  hint="Top heading above it, bench below; empty: at the axis"
+                />
                 <FormikInputField
                   name="plannedRoundLength"
                   label="Planned round length"

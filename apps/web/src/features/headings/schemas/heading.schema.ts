@@ -36,6 +36,46 @@ export interface HeadingFormValues {
   startEasting: string;
   startNorthing: string;
   startElevation: string;
+  chainageSense: ChainageSense;
+  initialBearing: string;
+  /** One segment a line: "120" (a straight of 120 m) or "80 300 right" (an arc of 80 m, radius 300 m, turning right). */
+  alignmentSegments: string;
+  benchHeight: string;
+}
+
+export type ChainageSense = 'increasing' | 'decreasing';
+export interface AlignmentSegmentInput {
+  length: number;
+  radius: number | null;
+  side: 'left' | 'right' | null;
+}
+
+/** Reads the segments text, one a line; throws an Error naming the line that cannot be read. */
+export function parseSegments(text: string): AlignmentSegmentInput[] {
+  return text
+    .split('\n')
+    .map((l) => l.trim())
+    .filter((l) => l !== '')
+    .map((line, i) => {
+      const parts = line.replace(/,/g, '.').split(/\s+/);
+      const length = Number(parts[0]);
+      if (!(length > 0)) throw new Error(`Line ${i + 1}: start with the length in metres, more than 0.`);
+      if (parts.length === 1) return { length, radius: null, side: null };
+      const radius = Number(parts[1]);
+      const side = parts[2]?.toLowerCase();
+      if (!(radius >= 1) || (side !== 'left' && side !== 'right') || parts.length > 3)
+        throw new Error(
+          `Line ${i + 1}: an arc is its length, radius (1 m or more) and left or right, e.g. 80 300 right.`,
+        );
+      return { length, radius, side };
+    });
+}
+
+/** The segments as text for the form, one a line. */
+export function segmentsText(segments: AlignmentSegmentInput[] | undefined): string {
+  return (segments ?? [])
+    .map((s) => (s.radius === null ? String(s.length) : `${s.length} ${s.radius} ${s.side ?? 'right'}`))
+    .join('\n');
 }
 
 /** The checked form: the API's heading with the gradient still in the unit it was typed in. */
@@ -166,6 +206,56 @@ export const headingSchema: ObjectSchema<HeadingInput> = object({
   startEasting: optionalCoordinate('Easting'),
   startNorthing: optionalCoordinate('Northing'),
   startElevation: optionalCoordinate('Elevation'),
+  chainageSense: mixed<ChainageSense>().oneOf(['increasing', 'decreasing']).required(),
+  initialBearing: decimalNumber('The initial bearing is an azimuth in degrees, 0 to less than 360.')
+    .nullable()
+    .transform((value: number | null | undefined) => (value === undefined ? null : value))
+    .min(0, 'The initial bearing is an azimuth in degrees, 0 to less than 360.')
+    .max(359.99, 'The initial bearing is an azimuth in degrees, 0 to less than 360.')
+    .default(null)
+    .defined(),
+  alignmentSegments: mixed<AlignmentSegmentInput[]>()
+    .transform((_value: unknown, original: unknown) => {
+      if (Array.isArray(original)) return original as AlignmentSegmentInput[];
+      try {
+        return parseSegments(typeof original === 'string' ? original : '');
+      } catch {
+        return undefined;
+      }
+    })
+    .test('segments', function check(value) {
+      const text = (this.originalValue as unknown) ?? '';
+      if (value !== undefined) return true;
+      try {
+        parseSegments(typeof text === 'string' ? text : '');
+        return true;
+      } catch (e) {
+        return this.createError({ message: (e as Error).message });
+      }
+    })
+    // Formik sends an empty text as undefined: no segments, one straight.
+    .default(() => [])
+    .defined(),
+  benchHeight: decimalNumber('The bench line is a height in metres above the invert.')
+    .nullable()
+    .transform((value: number | null | undefined) => (value === undefined ? null : value))
+    .min(0.1, 'The bench line lies above the invert.')
+    .test('below-crown', function check(bench) {
+      const height = typedNumber((this.parent as { profileHeight?: unknown }).profileHeight);
+      if (
+        bench === null ||
+        bench === undefined ||
+        height === undefined ||
+        Number.isNaN(height) ||
+        bench < height
+      )
+        return true;
+      return this.createError({
+        message: `The bench line (${bench} m) must lie below the crown (${height} m).`,
+      });
+    })
+    .default(null)
+    .defined(),
 });
 
 /** The checked form as the API's request body (gradient always in per cent). */
@@ -209,6 +299,10 @@ export const emptyHeadingValues: HeadingFormValues = {
   startEasting: '',
   startNorthing: '',
   startElevation: '',
+  chainageSense: 'increasing',
+  initialBearing: '',
+  alignmentSegments: '',
+  benchHeight: '',
 };
 
 const optional = (n: number | null) => (n === null ? '' : String(n));
@@ -239,6 +333,10 @@ export function headingToFormValues(h: Heading): HeadingFormValues {
     startEasting: optional(h.startEasting),
     startNorthing: optional(h.startNorthing),
     startElevation: optional(h.startElevation),
+    chainageSense: h.chainageSense ?? 'increasing',
+    initialBearing: optional(h.initialBearing ?? null),
+    alignmentSegments: segmentsText(h.alignmentSegments),
+    benchHeight: optional(h.benchHeight ?? null),
   };
 }
 
@@ -260,4 +358,8 @@ export const headingFieldLabels: Partial<Record<keyof HeadingFormValues, string>
   startEasting: 'Easting',
   startNorthing: 'Northing',
   startElevation: 'Elevation',
+  chainageSense: 'Chainage sense',
+  initialBearing: 'Initial bearing',
+  alignmentSegments: 'Alignment segments',
+  benchHeight: 'Bench line',
 };
