@@ -1,9 +1,9 @@
 import { applyDecorators, SetMetadata, UseGuards } from '@nestjs/common';
 import { ApiForbiddenResponse, ApiNotFoundResponse } from '@nestjs/swagger';
-import { ProjectAccessGuard } from '../../modules/projects/project-access.guard.js';
 import type { ProjectRole } from './auth-user.js';
+import { PROJECT_ROLES_KEY, ProjectAccessGuard } from './project-access.guard.js';
 
-export const PROJECT_ROLES_KEY = 'projectRoles';
+export { PROJECT_ROLES_KEY };
 
 /**
  * A project-scoped route (`:projectId` in its path) open to the listed roles. A non-member gets 404 (the

@@ -1,8 +1,8 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { ProjectAccessGuard } from '../../common/auth/project-access.guard.js';
 import { AuditModule } from '../audit/audit.module.js';
 import { Heading } from '../headings/heading.entity.js';
-import { ProjectAccessGuard } from './project-access.guard.js';
 import { ProjectMember } from './project-member.entity.js';
 import { Project } from './project.entity.js';
 import { ProjectsController } from './projects.controller.js';

@@ -2,14 +2,16 @@ import { Inject, Injectable, type CanActivate, type ExecutionContext } from '@ne
 import { Reflector } from '@nestjs/core';
 import { InjectRepository } from '@nestjs/typeorm';
 import type { Repository } from 'typeorm';
-import type { AuthUser, ProjectAccess, ProjectRole } from '../../common/auth/auth-user.js';
-import { PROJECT_ROLES_KEY } from '../../common/auth/project-roles.decorator.js';
-import { DomainException } from '../../common/errors/domain.exception.js';
-import { ProjectMember } from './project-member.entity.js';
+import { ProjectMember } from '../../modules/projects/project-member.entity.js';
+import { DomainException } from '../errors/domain.exception.js';
+import type { AuthUser, ProjectAccess, ProjectRole } from './auth-user.js';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** 404 to a non-member (the project's existence is not revealed), 403 to a member without the role. */
+/** Metadata key of the roles a project-scoped route is open to (set by @ProjectRoles). */
+export const PROJECT_ROLES_KEY = 'projectRoles';
+
 @Injectable()
 export class ProjectAccessGuard implements CanActivate {
   constructor(

@@ -2,9 +2,9 @@ import type { ExecutionContext } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { Test } from '@nestjs/testing';
 import { getRepositoryToken } from '@nestjs/typeorm';
-import { DomainException } from '../../common/errors/domain.exception';
+import { ProjectMember } from '../../modules/projects/project-member.entity';
+import { DomainException } from '../errors/domain.exception';
 import { ProjectAccessGuard } from './project-access.guard';
-import { ProjectMember } from './project-member.entity';
 
 const PROJECT = '3f1b2c4d-1111-4222-8333-944455556666';
 
