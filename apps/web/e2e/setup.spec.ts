@@ -61,7 +61,7 @@ test('the admin adds a heading with a horseshoe profile and sees it to scale', a
   await form.getByRole('textbox', { name: /^Height/ }).fill('5.8');
   await form.getByLabel('Axis above invert').fill('2.9');
   await form.getByLabel('Top heading').check();
-  await form.getByLabel('Bench').check();
+  await form.getByRole('checkbox', { name: 'Bench' }).check();
   await form.getByLabel('Full face').uncheck();
   await form.getByLabel('Planned round length').fill('2.5');
   await form.getByLabel('Easting').fill('612430.2');

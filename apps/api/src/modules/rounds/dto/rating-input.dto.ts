@@ -1,5 +1,5 @@
 // The Q and RMR89 inputs as typed, validated at the edge (issue 9 item 8): every key named, every number
-// bounded, each choice a discriminated union (oneOf in OpenAPI). Numbers may be null while a draft is being
+// bounded (loosely: a value outside the Q tables is kept and the assessment says why it cannot be rated), each choice a discriminated union (oneOf in OpenAPI). Numbers may be null while a draft is being
 // filled in; the assessment then says what is missing. Unknown keys are refused by the global pipe.
 import { ApiExtraModels, ApiProperty, getSchemaPath } from '@nestjs/swagger';
 import {
@@ -57,19 +57,23 @@ export class QInputDto {
   @OptionalNumber(0, 100, 'RQD is 0–100 %.')
   rqd: number | null;
 
-  @OptionalNumber(0.5, 20, 'Jn is 0.5–20 (table value).')
+  @OptionalNumber(0, 1000, 'Jn is a table value (0.5–20); Roundbook stores up to 1000.')
   jn: number | null;
 
-  @OptionalNumber(0.5, 5, 'Jr is 0.5–4 (table value, +1 for spacing over 3 m).')
+  @OptionalNumber(
+    0,
+    1000,
+    'Jr is a table value (0.5–4, +1 for spacing over 3 m); Roundbook stores up to 1000.',
+  )
   jr: number | null;
 
-  @OptionalNumber(0.75, 20, 'Ja is 0.75–20 (table value).')
+  @OptionalNumber(0, 1000, 'Ja is a table value (0.75–20); Roundbook stores up to 1000.')
   ja: number | null;
 
-  @OptionalNumber(0.05, 1, 'Jw is 0.05–1 (table value).')
+  @OptionalNumber(0, 1000, 'Jw is a table value (0.05–1); Roundbook stores up to 1000.')
   jw: number | null;
 
-  @OptionalNumber(0.5, 400, 'SRF is 0.5–400 (table value).')
+  @OptionalNumber(0, 1000, 'SRF is a table value (0.5–400); Roundbook stores up to 1000.')
   srf: number | null;
 
   @IsOptional()
