@@ -133,9 +133,16 @@ export class HeadingsService {
           { current: toHeadingDto(heading) },
         );
       }
+      // Segments compared in one shape (a straight has radius and side null), so an unchanged list is unchanged.
+      // (none stored and an empty list are the same straight alignment)
+      const segments = (list: Heading['alignmentSegments'] | undefined) =>
+        (list ?? []).map((x) => ({ length: x.length, radius: x.radius ?? null, side: x.side ?? null }));
+      heading.alignmentSegments = segments(heading.alignmentSegments);
       const before = { ...heading };
       const { version: _v, confirmRecompute: _c, ...changes } = definedOnly(dto);
       Object.assign(heading, changes);
+      if (changes.alignmentSegments !== undefined)
+        heading.alignmentSegments = segments(changes.alignmentSegments);
       const errors = crossFieldErrors(heading);
       if (Object.keys(errors).length)
         throw new DomainException(ErrorCode.ValidationFailed, Object.values(errors)[0], errors);

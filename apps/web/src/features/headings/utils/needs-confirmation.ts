@@ -17,6 +17,10 @@ const fieldWords: Record<string, string> = {
   profileWidth: 'profile width',
   profileHeight: 'profile height',
   axisHeight: 'axis height',
+  chainageSense: 'chainage sense',
+  initialBearing: 'start bearing',
+  alignmentSegments: 'alignment',
+  benchHeight: 'bench line',
 };
 
 export function recomputeQuestionOf(error: unknown): RecomputeQuestion | null {
