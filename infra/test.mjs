@@ -108,10 +108,13 @@ try {
     // A clean slate for every run: the test database, objects and mail are recreated.
     for (const d of ['s3', 'mail', 'logs']) rmSync(path.join(dataDir, d), { recursive: true, force: true });
     const db = await startMariadb({ dataDir, env });
-    const r = db.rootSql(
-      `DROP DATABASE IF EXISTS \`${env.DB_NAME}\`; CREATE DATABASE \`${env.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
-    );
-    if (r.status !== 0) throw new InfraError(`Could not recreate the test database: ${r.stderr}`);
+    const recreateDatabase = () => {
+      const r = db.rootSql(
+        `DROP DATABASE IF EXISTS \`${env.DB_NAME}\`; CREATE DATABASE \`${env.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
+      );
+      if (r.status !== 0) throw new InfraError(`Could not recreate the test database: ${r.stderr}`);
+    };
+    recreateDatabase();
     await startS3({ dataDir, env });
     await startSmtp({ dataDir, env });
     migrateAndSeed(env);
@@ -124,6 +127,12 @@ try {
         ...(process.env.RB_E2E_FILES ? [process.env.RB_E2E_FILES] : []),
       ]);
     if (want('browser')) {
+      if (want('e2e')) {
+        // The browser tests start from the freshly seeded demo, whatever the API tests left behind.
+        step('Recreating the test database for the browser tests');
+        recreateDatabase();
+        migrateAndSeed(env);
+      }
       await startApi({ dataDir, env });
       step('browser: Playwright in Chromium');
       const out = path.join(scratch, 'playwright.json');
