@@ -1,16 +1,25 @@
 // Issue 10, item 11: the demo as a practitioner would read it (the seeded invented scenario).
 import type { INestApplication } from '@nestjs/common';
 import { jvFromSpacings, qClass, rqdFromJv } from '@roundbook/geomath';
+import request from 'supertest';
+import type { App } from 'supertest/types';
 import { DataSource, LessThanOrEqual } from 'typeorm';
 import { Heading } from '../src/modules/headings/heading.entity';
 import { Project } from '../src/modules/projects/project.entity';
 import { Joint } from '../src/modules/rounds/joint.entity';
 import { Round } from '../src/modules/rounds/round.entity';
+import { signIn, type Role } from './factories';
 import { createTestApp } from './test-app';
+
+type Body = Record<string, any>;
 
 describe('The demo reads true (e2e, seeded scenario)', () => {
   let app: INestApplication;
   let ds: DataSource;
+  let http: App;
+  let base: string;
+  let tokens: Record<Role, string>;
+  const as = (role: Role) => ({ Authorization: `Bearer ${tokens[role]}` });
   const roundsOf = async (code: string, count: number) => {
     const project = await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' });
     const heading = await ds.getRepository(Heading).findOneByOrFail({ projectId: project.id, code });
@@ -24,6 +33,9 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
   beforeAll(async () => {
     app = await createTestApp();
     ds = app.get(DataSource);
+    http = app.getHttpServer() as App;
+    tokens = await signIn(http, ['admin', 'engineer', 'viewer', 'supervisor']);
+    base = `/api/projects/${(await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' })).id}`;
   });
 
   afterAll(async () => {
@@ -70,5 +82,67 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
     }
     const good = rounds.filter((r) => r.roundNumber < 13);
     expect(good.filter((r) => r.triggerLevel === 'green').length).toBeGreaterThan(good.length / 2);
+  });
+
+  it('seeds the headings with their alignment and profile, a library best ground first with no range warnings, and a distribution list', async () => {
+    const headings = (await request(http).get(`${base}/headings`).set(as('viewer')).expect(200))
+      .body as Body[];
+    expect(headings.map((h) => h.code)).toEqual(expect.arrayContaining(['HR-D', 'HR-U']));
+    expect(headings.find((h) => h.code === 'HR-U')).toMatchObject({
+      driveTrend: 312.5,
+      profileShape: 'horseshoe',
+      chainageStyle: 'km+m',
+      startEasting: 4120,
+    });
+    const library = (await request(http).get(`${base}/support-classes`).set(as('supervisor')).expect(200))
+      .body as Body;
+    expect((library.classes as Body[]).map((c) => c.code)).toEqual(['SC-A', 'SC-B', 'SC-C', 'SC-D', 'SC-E']);
+    expect(library.warnings).toEqual([]);
+    const project = (await request(http).get(base).set(as('admin')).expect(200)).body as Body;
+    expect(project.distributionList).toEqual(
+      expect.arrayContaining(['shift-office@brannoch-works.test', 'design-team@brannoch-works.test']),
+    );
+  });
+
+  it('seeds trigger rules on every watched quantity, red first, each with its summary', async () => {
+    const rules = (await request(http).get(`${base}/trigger-rules`).set(as('viewer')).expect(200))
+      .body as Body[];
+    expect(new Set(rules.map((r) => r.watch))).toEqual(
+      new Set([
+        'q',
+        'rmr89',
+        'inflow-per-10m',
+        'overbreak',
+        'adverse-orientation',
+        'crown-crossing-within',
+        'support-class-change',
+        'open-red-hazard',
+      ]),
+    );
+    expect(rules[0].level).toBe('red');
+    expect(rules.map((r) => r.summary)).toContain('Q < 0.1 → red');
+  });
+
+  it('previews rules over the demo rounds: Q < 1 fires on the fault zone of HR-U, the class changes where the ground changes', async () => {
+    const rule = { level: 'amber', action: 'Review.', ownerRole: 'engineer', timeAllowedHours: 4 };
+    const q = await request(http)
+      .post(`${base}/trigger-rules/preview`)
+      .set(as('engineer'))
+      .send({ ...rule, watch: 'q', comparison: '<', threshold: 1 })
+      .expect(200);
+    expect(q.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
+    expect((q.body.matches as Body[]).every((m) => m.value < 1)).toBe(true);
+    const demo = (q.body.matches as Body[]).filter((m) => ['HR-U', 'HR-D'].includes(m.headingCode as string));
+    expect(demo.map((m) => m.roundNumber).sort((a, b) => a - b)).toEqual([13, 14, 15, 16, 17, 18]); // the fault zone on HR-U
+    const change = await request(http)
+      .post(`${base}/trigger-rules/preview`)
+      .set(as('admin'))
+      .send({ ...rule, watch: 'support-class-change' })
+      .expect(200);
+    expect((change.body.matches as Body[]).map((m) => `${m.headingCode}#${m.roundNumber}`)).toEqual(
+      // Issue 10 demo: RQD follows the joint spacing (Jv) and the fault rounds take Jr/Ja from the fault,
+      // so the class changes fall on HR-U#12 (spacing closing), HR-U#13 (the fault) and HR-D#7.
+      expect.arrayContaining(['HR-U#12', 'HR-U#13', 'HR-D#7']),
+    );
   });
 });

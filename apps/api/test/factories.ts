@@ -127,3 +127,55 @@ export async function makeProject(
   }
   return { projectId, emailOf, base, headingId: heading.id as string, classes, as };
 }
+
+/** A complete ground record for a test round. */
+export const testGround = {
+  units: [{ name: 'Invented banded gneiss', sharePercent: 100, weatheringGrade: 'WII', strengthGrade: 'R4' }],
+  pointLoadIs50: 4,
+  pointLoadFactor: 22,
+  inflowLpm: 3,
+  inflowLengthM: 3,
+  waterDescription: '',
+  overbreakM3: 0.5,
+  notes: '',
+};
+/** A joint record for a test round, read from its orientation text. */
+export const testJoint = (orientationText: string, extra: Body = {}) => ({
+  kind: 'joint',
+  orientationText,
+  notation: 'dip-direction/dip',
+  setLabel: null,
+  spacingM: 0.5,
+  persistenceM: 3,
+  apertureMm: 0.5,
+  jr: 1.5,
+  jrc: null,
+  jrcMethod: null,
+  infill: '',
+  ja: 2,
+  water: 'damp',
+  thicknessM: null,
+  notes: '',
+  ...extra,
+});
+/** Q = 60/4 × 1.5/2 × 1/1 = 11.25 (Barton et al. 1974) [computed here]: inside C1 (Q ≥ 10). */
+export const testQInput = { rqd: 60, jn: 4, jr: 1.5, ja: 2, jw: 1, srf: 1 };
+/** The whole body of a save of round `r` (as the API returned it), with `extra` on top. */
+export const saveBody = (r: Body, extra: Body = {}) => ({
+  version: r.version,
+  faceChainage: r.faceChainage,
+  previousChainage: r.previousChainage,
+  roundLength: r.roundLength,
+  shiftDate: r.shiftDate,
+  shift: r.shift,
+  distantParts: '',
+  ground: testGround,
+  joints: [],
+  qInput: testQInput,
+  rmrInput: null,
+  gsiObserved: null,
+  recommendedClassId: null,
+  nextRoundLength: null,
+  recommendationReason: '',
+  ...extra,
+});

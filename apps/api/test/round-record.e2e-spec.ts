@@ -4,60 +4,14 @@ import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { Round } from '../src/modules/rounds/round.entity';
-import { makeProject, type TestProject } from './factories';
+import { makeProject, saveBody, testJoint, type TestProject } from './factories';
 import { createTestApp } from './test-app';
 
 type Body = Record<string, any>;
 const code = `RR${String(Date.now() % 1e6)}`;
 
-const ground = {
-  units: [{ name: 'Invented banded gneiss', sharePercent: 100, weatheringGrade: 'WII', strengthGrade: 'R4' }],
-  pointLoadIs50: 4,
-  pointLoadFactor: 22,
-  inflowLpm: 3,
-  inflowLengthM: 3,
-  waterDescription: '',
-  overbreakM3: 0.5,
-  notes: '',
-};
-const joint = (orientationText: string, extra: Body = {}) => ({
-  kind: 'joint',
-  orientationText,
-  notation: 'dip-direction/dip',
-  setLabel: null,
-  spacingM: 0.5,
-  persistenceM: 3,
-  apertureMm: 0.5,
-  jr: 1.5,
-  jrc: null,
-  jrcMethod: null,
-  infill: '',
-  ja: 2,
-  water: 'damp',
-  thicknessM: null,
-  notes: '',
-  ...extra,
-});
-// Q = 60/4 × 1.5/2 × 1/1 = 11.25 (Barton et al. 1974) [computed here]: inside C1 (Q ≥ 10).
-const qInput = { rqd: 60, jn: 4, jr: 1.5, ja: 2, jw: 1, srf: 1 };
-const body = (r: Body, extra: Body = {}) => ({
-  version: r.version,
-  faceChainage: r.faceChainage,
-  previousChainage: r.previousChainage,
-  roundLength: r.roundLength,
-  shiftDate: r.shiftDate,
-  shift: r.shift,
-  distantParts: '',
-  ground,
-  joints: [],
-  qInput,
-  rmrInput: null,
-  gsiObserved: null,
-  recommendedClassId: null,
-  nextRoundLength: null,
-  recommendationReason: '',
-  ...extra,
-});
+const joint = testJoint;
+const body = saveBody;
 
 describe('One round, one truth (e2e, real MariaDB)', () => {
   let app: INestApplication;
