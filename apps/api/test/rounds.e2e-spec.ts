@@ -5,8 +5,8 @@ import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { Heading } from '../src/modules/headings/heading.entity';
-import { Project } from '../src/modules/projects/project.entity';
-import { createTestApp, DEMO_PASSWORD } from './test-app';
+import { makeProject, type TestProject } from './factories';
+import { createTestApp } from './test-app';
 
 type Body = Record<string, any>;
 /** Codes and names of this run's own headings, unique so that screens listing them stay unambiguous. */
@@ -43,48 +43,66 @@ const joint = (orientationText: string, notation = 'dip-direction/dip', kind = '
 describe('Rounds (e2e, real MariaDB)', () => {
   let app: INestApplication;
   let http: App;
+  let p: TestProject;
   let projectId: string;
   let heading: Heading;
-  const tokens: Record<string, string> = {};
-  const as = (role: string) => ({ Authorization: `Bearer ${tokens[role]}` });
+  let as: TestProject['as'];
   let base: string;
 
   beforeAll(async () => {
     app = await createTestApp();
     http = app.getHttpServer() as App;
-    for (const role of ['geologist', 'engineer', 'viewer', 'admin']) {
-      tokens[role] = (
-        (
-          await request(http)
-            .post('/api/auth/login')
-            .send({ email: `${role}@roundbook.test`, password: DEMO_PASSWORD })
-            .expect(200)
-        ).body as Body
-      ).accessToken as string;
-    }
-    const ds = app.get(DataSource);
-    projectId = (await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' })).id;
-    // A heading of this run's own, so the tests can run again on the same database.
-    heading = await ds.getRepository(Heading).save({
-      projectId,
-      code: `T${stamp}`,
-      name: `Invented test heading T${stamp}`,
-      startChainage: 1000,
-      chainageStyle: 'km+m',
-      chainageDecimals: 1,
-      driveTrend: 60,
-      gradientPercent: 0,
-      profileShape: 'circular',
-      profileWidth: 5,
-      profileHeight: 5,
-      axisHeight: 2.5,
-      stages: ['full-face', 'top-heading'],
-      plannedRoundLength: 3,
-      startEasting: null,
-      startNorthing: null,
-      startElevation: null,
+    // A project of this file's own, with the demo's support classes and the trigger rules these tests read:
+    // Q < 0.1 is red, Q < 1 amber, inflow over 25 l/min per 10 m amber.
+    p = await makeProject(app, {
+      code: `RD${stamp}`,
+      heading: {
+        profileWidth: 5,
+        profileHeight: 5,
+        axisHeight: 2.5,
+        stages: ['full-face', 'top-heading'],
+      },
+      classes: [
+        { code: 'SC-A', name: 'Spot bolting', maxRoundLength: 4, qMin: 10, rmrMin: 65, rmrMax: 100 },
+        {
+          code: 'SC-B',
+          name: 'Systematic bolting',
+          maxRoundLength: 3.5,
+          qMin: 1,
+          qMax: 10,
+          rmrMin: 44,
+          rmrMax: 64,
+        },
+        {
+          code: 'SC-C',
+          name: 'Bolts and sprayed concrete',
+          maxRoundLength: 2.5,
+          qMin: 0.1,
+          qMax: 1,
+          rmrMin: 23,
+          rmrMax: 43,
+        },
+        {
+          code: 'SC-D',
+          name: 'Fibre sprayed concrete and spiles',
+          maxRoundLength: 1.5,
+          qMin: 0.01,
+          qMax: 0.1,
+          rmrMin: 0,
+          rmrMax: 22,
+        },
+        { code: 'SC-E', name: 'Steel sets', maxRoundLength: 1, qMin: 0.001, qMax: 0.01 },
+      ],
+      rules: [
+        { watch: 'q', comparison: '<', threshold: 0.1, level: 'red' },
+        { watch: 'q', comparison: '<', threshold: 1, level: 'amber' },
+        { watch: 'inflow-per-10m', comparison: '>', threshold: 25, level: 'amber' },
+      ],
     });
-    base = `/api/projects/${projectId}`;
+    projectId = p.projectId;
+    as = p.as;
+    base = p.base;
+    heading = await app.get(DataSource).getRepository(Heading).findOneByOrFail({ id: p.headingId });
   });
 
   afterAll(async () => {
@@ -136,7 +154,7 @@ describe('Rounds (e2e, real MariaDB)', () => {
       roundLength: 3.5,
       status: 'draft',
       version: 1,
-      mappedByName: 'Tobin Maelor',
+      mappedByName: `Test geologist RD${stamp}`,
     });
     expect(round.warnings).toEqual(['The round length 3.5 m is over the planned 3 m.']);
     expect(['day', 'night']).toContain(round.shift);
@@ -200,7 +218,7 @@ describe('Rounds (e2e, real MariaDB)', () => {
     expect(r.inflowPer10m).toBeCloseTo(20, 9); // 12 l/min over 6 m → 20 l/min per 10 m
     const all = await classes();
     expect(r.suggestedClassIds).toEqual([all.find((c) => c.code === 'SC-D')!.id]); // SC-D covers Q 0.01–0.1
-    // The demo's trigger rules: Q < 0.1 is red, Q < 1 amber, inflow over 25 l/min per 10 m amber.
+    // This project's trigger rules: Q < 0.1 is red, Q < 1 amber, inflow over 25 l/min per 10 m amber.
     expect(r.triggerLevel).toBe('red');
     expect((r.triggerFirings as Body[])[0]).toMatchObject({
       level: 'red',
@@ -410,7 +428,8 @@ describe('Rounds (e2e, real MariaDB)', () => {
 
   it("shows the heading's face chainage, last round and rounds waiting for review on the Board", async () => {
     const res = await request(http).get('/api/projects').set(as('engineer')).expect(200);
-    const card = ((res.body as Body[])[0].headings as Body[]).find((h) => h.id === heading.id)!;
+    const mine = (res.body as Body[]).find((x) => x.id === projectId)!;
+    const card = (mine.headings as Body[]).find((h) => h.id === heading.id)!;
     expect(card).toMatchObject({ faceChainage: 1003.5, roundsToConfirm: 1, triggerLevel: 'red' });
     expect(new Date(card.lastRoundAt as string).getTime()).toBeGreaterThan(Date.now() - 5 * 60_000);
   });
@@ -431,7 +450,7 @@ describe('Rounds (e2e, real MariaDB)', () => {
       .getRepository(Heading)
       .save({ ...shape, code: `B${stamp}`, name: `Invented 30,000-round heading B${stamp}` });
     const geologist = await ds.query<Array<{ id: string }>>('SELECT id FROM users WHERE email = ?', [
-      'geologist@roundbook.test',
+      p.emailOf('geologist'),
     ]);
     // 30,000 invented rounds in one statement (MariaDB's sequence engine).
     await ds.query(
@@ -468,7 +487,7 @@ describe('Rounds (e2e, real MariaDB)', () => {
       [big.id],
     );
     expect(plan[0].key).toBe('IDX_rounds_heading_chainage');
-    // Leave the demo project as the browser tests expect it: the 30,000 invented rounds go again.
+    // The 30,000 invented rounds go again, so a rerun on the same database starts small.
     await ds.query('DELETE FROM rounds WHERE heading_id = ?', [big.id]);
     await ds.getRepository(Heading).delete({ id: big.id });
   });
