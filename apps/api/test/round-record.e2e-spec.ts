@@ -82,8 +82,9 @@ describe('One round, one truth (e2e, real MariaDB)', () => {
       .body as Body;
     expect(frozen.suggestedClassIds).toEqual([classId('C2')]);
     expect(frozen.assessment).toEqual(submitted.assessment);
-    // Issue 10 changed the rules (water once, governing discontinuity, …): the version is now domain-2.
-    expect(frozen.assessmentVersion).toBe('domain-2');
+    // Issue 10 changed the rules (water once, governing discontinuity, …): domain-2; issue 19 added the
+    // suggestion with its reason: domain-3.
+    expect(frozen.assessmentVersion).toBe('domain-3');
 
     const revisions = (
       await request(http).get(`${p.base}/rounds/${r0.id}/revisions`).set(p.as('viewer')).expect(200)

@@ -18,7 +18,12 @@ import {
   type RoundRatings,
 } from './ratings.js';
 import { DEFAULT_SET_PARAMETERS, findRoundSets, type RoundSets, type SetParameters } from './sets.js';
-import { suggestClasses, type SupportClassInput } from './support.js';
+import {
+  explainSuggestion,
+  suggestClasses,
+  type SupportClassInput,
+  type SupportSuggestion,
+} from './support.js';
 import {
   assessTriggers,
   featureReaches,
@@ -33,7 +38,7 @@ import { SINGLE_FEATURE_KINDS, type JointKind } from './vocabulary.js';
 import { readWater, waterConditionWarning } from './water.js';
 
 /** The version of the rules that produced an assessment (stored with it; bump when a rule changes). */
-export const ASSESSMENT_VERSION = 'domain-2';
+export const ASSESSMENT_VERSION = 'domain-3';
 
 export interface GroundRecord {
   units: Array<{
@@ -123,6 +128,8 @@ export interface RoundAssessment {
   /** Fields the record should still give (e.g. the length the inflow comes from), by field path. */
   missing: Record<string, string>;
   suggestedClassIds: string[];
+  /** The class to suggest and why (the cautious one when Q and RMR89 point to different classes). */
+  suggestion: SupportSuggestion;
   warnings: string[];
   /** What the trigger rules read, as worked out here. */
   facts: RoundFacts;
@@ -295,6 +302,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     lookAhead: featureReaches(facts, context.heading),
     missing,
     suggestedClassIds: suggestClasses(context.supportClasses, ratings.q.value, ratings.rmr.value),
+    suggestion: explainSuggestion(context.supportClasses, ratings.q.value, ratings.rmr.value),
     warnings,
     facts,
     triggers: assessTriggers(context.rules, facts, context.heading),

@@ -5,8 +5,8 @@ import {
   DEFAULT_SET_PARAMETERS,
   driveTrendAt,
   nextFaceChainage,
+  explainSuggestion,
   shiftOf,
-  suggestClasses,
 } from '@roundbook/domain';
 import {
   driveOf,
@@ -184,20 +184,10 @@ export async function seedDemoRounds(
       orientation: { kind: 'assessment', assessment: worst },
     };
     const ratings = computeRatings({ qInput, rmrInput, gsiObserved: null });
-    const suggested = suggestClasses(classes, ratings.q.value, ratings.rmr.value);
-    // When Q and RMR89 point to different classes, the more cautious (heavier) one is recommended.
-    const byQ = classes.find((c) => c.id === suggestClasses(classes, ratings.q.value, null)[0]);
-    const byRmr = classes.find((c) => c.id === suggestClasses(classes, null, ratings.rmr.value)[0]);
-    const cautious = [byQ, byRmr]
-      .filter((c): c is SupportClass => c !== undefined)
-      .sort((a, b) => b.sortOrder - a.sortOrder)[0];
-    const recommended = classes.find((c) => c.id === suggested[0]) ?? cautious;
-    const reason =
-      suggested.length || !recommended
-        ? ''
-        : `Q ${ratings.q.value?.toPrecision(2)} points to ${byQ?.code ?? 'no class'} and RMR89 ${ratings.rmr.value} to ${
-            byRmr?.code ?? 'no class'
-          }: the more cautious ${recommended.code} is recommended.`;
+    // When Q and RMR89 point to different classes, the more cautious one is suggested (and recommended here).
+    const suggestion = explainSuggestion(classes, ratings.q.value, ratings.rmr.value);
+    const recommended = classes.find((c) => c.id === suggestion.suggested);
+    const reason = suggestion.fitting.length ? '' : suggestion.reason;
     const status =
       i === plan.count && plan.lastDraft ? 'draft' : i >= plan.count - 1 ? 'submitted' : 'confirmed';
     const saved = manager.create(Round, {

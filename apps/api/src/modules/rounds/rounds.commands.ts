@@ -355,7 +355,10 @@ export class RoundsCommands {
         if (round.nextRoundLength !== null && round.nextRoundLength > c.maxRoundLength) {
           fields.nextRoundLength = `${c.code} allows rounds of up to ${c.maxRoundLength} m.`;
         }
-        if (!assessment.suggestedClassIds.includes(c.id) && round.recommendationReason.trim().length < 5) {
+        // The suggestion is a class that fits both ratings, or (when none does) the more cautious one.
+        const suggested =
+          assessment.suggestedClassIds.includes(c.id) || assessment.suggestion.suggested === c.id;
+        if (!suggested && round.recommendationReason.trim().length < 5) {
           fields.recommendationReason = `${c.code} is outside the classes the ratings suggest: say why you recommend it.`;
         }
       }

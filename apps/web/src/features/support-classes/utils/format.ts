@@ -1,13 +1,11 @@
+import { qBandText } from '@roundbook/domain';
 import type { SupportClass } from '@/api/contract';
 
 const n = (v: number) => String(Number(v.toFixed(3)));
 
-/** Q range as [from, below): "0.1 ≤ Q < 1", "Q ≥ 10", "Q < 0.01". */
+/** Q range as it is applied, [from, below): "0.1 ≤ Q < 1", "Q ≥ 10", "Q < 0.01" (the domain's wording). */
 export function qRangeText(c: Pick<SupportClass, 'qMin' | 'qMax'>): string {
-  if (c.qMin === null && c.qMax === null) return '—';
-  if (c.qMin === null) return `Q < ${n(c.qMax ?? 0)}`;
-  if (c.qMax === null) return `Q ≥ ${n(c.qMin)}`;
-  return `${n(c.qMin)} ≤ Q < ${n(c.qMax)}`;
+  return qBandText(c) ?? '—';
 }
 
 /** RMR89 range, both ends included: "41–60", "≥ 81", "≤ 20". */
