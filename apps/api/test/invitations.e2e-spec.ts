@@ -132,6 +132,12 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
       const [message] = mailFor(email);
       expect(message.subject).toBe('You are invited to Brannoch Hydro — Headrace Tunnel in Roundbook');
       expect(message.text).toContain('Invented Newcomer');
+      // Issue 19, item 15: the role in the screens' words, the expiry in the project's time zone.
+      expect(message.text).toContain('as the role “Geologist” (records the rounds)');
+      expect(message.text).toMatch(
+        /valid until \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} \(Europe\/London time\)/,
+      );
+      expect(message.text).not.toMatch(/UTC/);
       const team0 = await request(http).get(`${base}/team`).set(as('admin')).expect(200);
       expect((team0.body.invitations as Body[]).find((i) => i.email === email)).toMatchObject({
         emailSent: true,

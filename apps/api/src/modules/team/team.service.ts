@@ -334,6 +334,7 @@ export class TeamService {
       role: invitation.role,
       link: `${this.config.appUrl}/invitation/${token}`,
       expiresAt: invitation.expiresAt,
+      timeZone: project.timeZone,
     });
     const notice = await this.notices.queue(manager, {
       kind: 'invitation',

@@ -1,3 +1,4 @@
+import { formatProjectTime, roleLabel } from '@roundbook/domain';
 import { escapeHtml } from './escape.js';
 
 export interface InvitationEmail {
@@ -7,20 +8,24 @@ export interface InvitationEmail {
   role: string;
   link: string;
   expiresAt: Date;
+  /** The project's time zone: the expiry is given in it, as on every screen. */
+  timeZone: string;
 }
 
-const ROLE_WORDS: Record<string, string> = {
-  admin: 'project admin (sets up headings, support classes, triggers and the team)',
-  geologist: 'geologist (records the rounds)',
-  engineer: 'engineer (reviews rounds and confirms support)',
-  supervisor: 'shift supervisor (sends and acknowledges handovers)',
-  viewer: 'viewer (reads the records)',
+/** What each role does, after the role's name as the screens show it (packages/domain roleLabels). */
+const ROLE_DUTIES: Record<string, string> = {
+  admin: 'sets up headings, support classes, triggers and the team',
+  geologist: 'records the rounds',
+  engineer: 'reviews rounds and confirms support',
+  supervisor: 'sends and acknowledges handovers',
+  viewer: 'reads the records',
 };
 
 /** The invitation e-mail: plain text and a simple HTML version with the same words. */
 export function invitationEmail(e: InvitationEmail): { subject: string; text: string; html: string } {
-  const role = ROLE_WORDS[e.role] ?? e.role;
-  const until = e.expiresAt.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
+  const duty = ROLE_DUTIES[e.role];
+  const role = `the role “${roleLabel(e.role)}”${duty ? ` (${duty})` : ''}`;
+  const until = `${formatProjectTime(e.expiresAt, e.timeZone)} (${e.timeZone} time)`;
   const greeting = e.inviteeName ? `Hello ${e.inviteeName},` : 'Hello,';
   const text = [
     greeting,
