@@ -432,6 +432,17 @@ describe('Rounds (e2e, real MariaDB)', () => {
     const card = (mine.headings as Body[]).find((h) => h.id === heading.id)!;
     expect(card).toMatchObject({ faceChainage: 1003.5, roundsToConfirm: 1, triggerLevel: 'red' });
     expect(new Date(card.lastRoundAt as string).getTime()).toBeGreaterThan(Date.now() - 5 * 60_000);
+    // Issue 19, item 13: a draft's face (a typo, say) does not move the heading's face; it is shown apart.
+    await request(http)
+      .post(`${base}/headings/${heading.id}/rounds`)
+      .set(as('geologist'))
+      .send({ stage: 'full-face', faceChainage: 1093.5 })
+      .expect(201);
+    const after = (await request(http).get('/api/projects').set(as('engineer')).expect(200)).body as Body[];
+    const card2 = (after.find((x) => x.id === projectId)!.headings as Body[]).find(
+      (h) => h.id === heading.id,
+    )!;
+    expect(card2).toMatchObject({ faceChainage: 1003.5, draftFaceChainage: 1093.5 });
   });
 
   it('finds readable joints of the heading over a chainage window', async () => {

@@ -5,7 +5,7 @@ import {
   rmrBandText,
   suggestClasses,
   type SupportClassInput,
-} from '../src/support';
+} from '../src/support.js';
 
 // An invented library, best ground first. Q bands are half-open [qMin, qMax), RMR89 bands whole numbers with
 // both ends included (the library's own rule, coverage.ts) [common practice for class tables].

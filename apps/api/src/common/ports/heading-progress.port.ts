@@ -4,7 +4,10 @@ export const HEADING_PROGRESS = Symbol('HEADING_PROGRESS');
 
 /** What the rounds of one heading say on the Board. */
 export interface HeadingProgress {
+  /** The face furthest along the drive among rounds handed in (submitted, confirmed or returned) */
   faceChainage: number | null;
+  /** A draft's face beyond that one (not yet handed in, so a typo there does not move the face); else null */
+  draftFaceChainage: number | null;
   lastRoundAt: string | null;
   roundsToConfirm: number;
   /** Worst trigger level among the latest evaluated round of each stage of the heading */

@@ -5,6 +5,21 @@ import { DataSource } from 'typeorm';
 import type { HeadingProgress, HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
 import { Round } from '../rounds/round.entity.js';
 
+const num = (v: string | null): number | null => (v === null ? null : Number(v));
+
+/** A draft's face, when it lies beyond the handed-in face along the drive (or there is none handed in). */
+function beyond(r: {
+  faceChainage: string | null;
+  draftFaceChainage: string | null;
+  chainageSense: 'increasing' | 'decreasing';
+}): number | null {
+  const face = num(r.faceChainage);
+  const draft = num(r.draftFaceChainage);
+  if (draft === null || face === null) return draft;
+  const ahead = r.chainageSense === 'decreasing' ? draft < face : draft > face;
+  return ahead ? draft : null;
+}
+
 /** The Board's read model: per-heading progress from the rounds, in two queries for any number of headings. */
 @Injectable()
 export class BoardService implements HeadingProgressPort {
@@ -17,11 +32,17 @@ export class BoardService implements HeadingProgressPort {
       .from(Round, 'r')
       .innerJoin('headings', 'h', 'h.id = r.heading_id')
       .select('r.heading_id', 'headingId')
-      // The face furthest along the drive: the lowest chainage on a heading driven against the chainage.
+      // The face furthest along the drive (the lowest chainage on a heading driven against the chainage),
+      // among rounds handed in; a draft's face apart, so a typo in a draft does not move the heading's face.
       .addSelect(
-        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(r.face_chainage) ELSE MAX(r.face_chainage) END",
+        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(IF(r.status <> 'draft', r.face_chainage, NULL)) ELSE MAX(IF(r.status <> 'draft', r.face_chainage, NULL)) END",
         'faceChainage',
       )
+      .addSelect(
+        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(IF(r.status = 'draft', r.face_chainage, NULL)) ELSE MAX(IF(r.status = 'draft', r.face_chainage, NULL)) END",
+        'draftFaceChainage',
+      )
+      .addSelect('h.chainage_sense', 'chainageSense')
       .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
       .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
       .where('r.heading_id IN (:...headingIds)', { headingIds })
@@ -29,7 +50,9 @@ export class BoardService implements HeadingProgressPort {
       .addGroupBy('h.chainage_sense')
       .getRawMany<{
         headingId: string;
-        faceChainage: string;
+        faceChainage: string | null;
+        draftFaceChainage: string | null;
+        chainageSense: 'increasing' | 'decreasing';
         lastRoundAt: Date | string;
         toConfirm: string;
       }>();
@@ -56,7 +79,8 @@ export class BoardService implements HeadingProgressPort {
       rows.map((r) => [
         r.headingId,
         {
-          faceChainage: Number(r.faceChainage),
+          faceChainage: num(r.faceChainage),
+          draftFaceChainage: beyond(r),
           lastRoundAt: new Date(r.lastRoundAt).toISOString(),
           roundsToConfirm: Number(r.toConfirm),
           triggerLevel: levelOf.get(r.headingId) ?? null,

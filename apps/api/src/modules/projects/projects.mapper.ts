@@ -8,6 +8,7 @@ export type { HeadingProgress };
 
 const NO_PROGRESS: HeadingProgress = {
   faceChainage: null,
+  draftFaceChainage: null,
   lastRoundAt: null,
   roundsToConfirm: 0,
   triggerLevel: null,
@@ -21,6 +22,8 @@ export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROG
     driveTrend: h.driveTrend,
     gradientPercent: h.gradientPercent,
     startChainage: h.startChainage,
+    chainageStyle: h.chainageStyle,
+    chainageDecimals: h.chainageDecimals,
     stages: h.stages,
     profileShape: h.profileShape,
     profileWidth: h.profileWidth,

@@ -657,6 +657,11 @@ export interface components {
          * @enum {string}
          */
         GroundScale: "isrm" | "iso-14689";
+        /**
+         * @description How the heading writes its chainages (every chainage on the Board is shown in it)
+         * @enum {string}
+         */
+        ChainageStyle: "km+m" | "metres";
         /** @enum {string} */
         Stage: "full-face" | "top-heading" | "bench" | "invert";
         /** @enum {string} */
@@ -668,10 +673,14 @@ export interface components {
             acknowledgedAt: string | null;
         };
         HeadingSummaryDto: {
+            /** @description How the heading writes its chainages (every chainage on the Board is shown in it) */
+            chainageStyle: components["schemas"]["ChainageStyle"];
             stages: components["schemas"]["Stage"][];
             profileShape: components["schemas"]["ProfileShape"];
-            /** @description Chainage of the latest mapped face, metres; null before the first round */
+            /** @description Chainage of the face furthest along the drive among rounds handed in (not drafts), metres; null before */
             faceChainage: number | null;
+            /** @description A draft round's face beyond the handed-in one, metres (shown marked as a draft); null if none */
+            draftFaceChainage: number | null;
             lastRoundAt: string | null;
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             lastHandover: components["schemas"]["LastHandoverDto"] | null;
@@ -684,6 +693,7 @@ export interface components {
             gradientPercent: number;
             /** @description Start chainage in metres */
             startChainage: number;
+            chainageDecimals: number;
             profileWidth: number;
             profileHeight: number;
             plannedRoundLength: number;
@@ -732,8 +742,6 @@ export interface components {
             /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
             version: number;
         };
-        /** @enum {string} */
-        ChainageStyle: "km+m" | "metres";
         /**
          * @description Whether chainage increases or decreases in the drive direction
          * @enum {string}

@@ -27,6 +27,8 @@ describe('Board', () => {
     const upstream = within(board).getByRole('article', { name: 'Upstream drive from Adit 2' });
     expect(upstream).toHaveTextContent('HR-U');
     expect(upstream).toHaveTextContent('1+250.0');
+    // A draft's face is shown apart, so a typo in a draft does not move the face (issue 19, item 13).
+    expect(upstream).toHaveTextContent('Draft at 1+253.5, not yet submitted');
     expect(upstream).toHaveTextContent('Trigger: Amber');
     expect(upstream).toHaveTextContent('047°, rising +0.40 %');
     expect(upstream).toHaveTextContent('Top heading');
@@ -37,7 +39,8 @@ describe('Board', () => {
     expect(upstream).toHaveTextContent('not acknowledged yet');
 
     const downstream = within(board).getByRole('article', { name: 'Downstream drive from Adit 2' });
-    expect(downstream).toHaveTextContent('no rounds yet (starts at 1+000.0)');
+    // Each heading's own chainage style (this one writes metres).
+    expect(downstream).toHaveTextContent('no rounds yet (starts at 1000.0)');
     expect(downstream).toHaveTextContent('No trigger level yet');
     expect(downstream).toHaveTextContent('227°, falling −0.40 %');
     expect(within(downstream).getAllByText('none yet')).toHaveLength(2);

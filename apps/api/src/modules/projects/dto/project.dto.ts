@@ -1,4 +1,5 @@
 import { ApiProperty } from '@nestjs/swagger';
+import { CHAINAGE_STYLES } from '@roundbook/domain';
 import {
   IsIn,
   IsInt,
@@ -33,6 +34,10 @@ export class HeadingSummaryDto {
   gradientPercent: number;
   /** Start chainage in metres */
   startChainage: number;
+  /** How the heading writes its chainages (every chainage on the Board is shown in it) */
+  @ApiProperty({ enum: CHAINAGE_STYLES, enumName: 'ChainageStyle' })
+  chainageStyle: (typeof CHAINAGE_STYLES)[number];
+  chainageDecimals: number;
   @ApiProperty({ enum: ['full-face', 'top-heading', 'bench', 'invert'], enumName: 'Stage', isArray: true })
   stages: Array<'full-face' | 'top-heading' | 'bench' | 'invert'>;
   @ApiProperty({ enum: ['circular', 'horseshoe', 'd-shaped', 'rectangular'], enumName: 'ProfileShape' })
@@ -40,9 +45,12 @@ export class HeadingSummaryDto {
   profileWidth: number;
   profileHeight: number;
   plannedRoundLength: number;
-  /** Chainage of the latest mapped face, metres; null before the first round */
+  /** Chainage of the face furthest along the drive among rounds handed in (not drafts), metres; null before */
   @ApiProperty({ type: Number, nullable: true })
   faceChainage: number | null;
+  /** A draft round's face beyond the handed-in one, metres (shown marked as a draft); null if none */
+  @ApiProperty({ type: Number, nullable: true })
+  draftFaceChainage: number | null;
   @ApiProperty({ type: String, nullable: true })
   lastRoundAt: string | null;
   /** Rounds submitted and waiting for the engineer's review */

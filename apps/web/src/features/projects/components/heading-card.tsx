@@ -1,11 +1,10 @@
 import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
 import { TriggerLevelBadge } from '@roundbook/ui';
+import { formatAzimuth, formatChainageFor } from '@roundbook/domain';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { HeadingSummary } from '@/api/contract';
 import {
-  formatAzimuth,
-  formatChainage,
   formatGradient,
   formatProjectTime,
   handoverState,
@@ -54,6 +53,11 @@ const useStyles = makeStyles({
     lineHeight: tokens.lineHeightHero800,
     fontWeight: tokens.fontWeightBold,
     fontVariantNumeric: 'tabular-nums',
+  },
+  faceDraft: {
+    fontSize: tokens.fontSizeBase300,
+    color: tokens.colorNeutralForeground2,
+    fontStyle: 'italic',
   },
   faceEmpty: {
     fontSize: tokens.fontSizeBase500,
@@ -117,17 +121,24 @@ export function HeadingCard({ heading, timeZone, to }: HeadingCardProps) {
       <div className={styles.face}>
         <Text className={styles.faceLabel}>Face chainage</Text>
         {heading.faceChainage === null ? (
-          <Text
-            className={styles.faceEmpty}
-          >{`no rounds yet (starts at ${formatChainage(heading.startChainage)})`}</Text>
+          <Text className={styles.faceEmpty}>
+            {heading.draftFaceChainage === null
+              ? `no rounds yet (starts at ${formatChainageFor(heading.startChainage, heading)})`
+              : `none handed in yet (starts at ${formatChainageFor(heading.startChainage, heading)})`}
+          </Text>
         ) : (
-          <Text className={styles.faceValue}>{formatChainage(heading.faceChainage)}</Text>
+          <Text className={styles.faceValue}>{formatChainageFor(heading.faceChainage, heading)}</Text>
+        )}
+        {heading.draftFaceChainage !== null && (
+          <Text className={styles.faceDraft}>
+            {`Draft at ${formatChainageFor(heading.draftFaceChainage, heading)}, not yet submitted`}
+          </Text>
         )}
       </div>
 
       <dl className={styles.facts}>
         <Fact term="Drive direction">
-          {`${formatAzimuth(heading.driveTrend)}, ${formatGradient(heading.gradientPercent)}`}
+          {`${formatAzimuth(heading.driveTrend, 1)}, ${formatGradient(heading.gradientPercent)}`}
         </Fact>
         <Fact term="Stages">
           {heading.stages.length === 0 ? (
