@@ -1,6 +1,6 @@
 import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
-import { TriggerLevelBadge } from '@roundbook/ui';
 import { formatAzimuth, formatChainageFor } from '@roundbook/domain';
+import { TriggerLevelBadge } from '@roundbook/ui';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { HeadingSummary } from '@/api/contract';
