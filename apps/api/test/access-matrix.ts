@@ -1,0 +1,98 @@
+// Who may call each route of the API: the expected access table that access-matrix.e2e-spec.ts checks
+// against the OpenAPI document. A route the document has and this table does not (or the other way round)
+// fails the test, so every new route gets its row here, decided on purpose.
+//
+// Actors: anonymous (no token), outsider (signed in, member of nothing, not operator), operator (runs the
+// instance, member of nothing), and the five project roles of one project.
+
+export const ACTORS = [
+  'anonymous',
+  'outsider',
+  'operator',
+  'admin',
+  'geologist',
+  'engineer',
+  'supervisor',
+  'viewer',
+] as const;
+export type Actor = (typeof ACTORS)[number];
+
+const ANYONE: readonly Actor[] = ACTORS;
+const SIGNED_IN: readonly Actor[] = ACTORS.filter((a) => a !== 'anonymous');
+const MEMBERS: readonly Actor[] = ['admin', 'geologist', 'engineer', 'supervisor', 'viewer'];
+const ADMIN: readonly Actor[] = ['admin'];
+const GEOLOGIST_OR_ADMIN: readonly Actor[] = ['admin', 'geologist'];
+const ENGINEER_OR_ADMIN: readonly Actor[] = ['admin', 'engineer'];
+const GEOLOGIST: readonly Actor[] = ['geologist'];
+const OPERATOR: readonly Actor[] = ['operator'];
+
+/** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
+export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
+  'GET /api/config': ANYONE,
+  'GET /api/health': ANYONE,
+  'POST /api/auth/login': ANYONE,
+  'GET /api/auth/me': SIGNED_IN,
+
+  'GET /api/projects': SIGNED_IN,
+  // PROJECT_CREATION=operators (the API's default; `npm start` sets anyone for the demo).
+  'POST /api/projects': OPERATOR,
+  'GET /api/projects/{projectId}': MEMBERS,
+  'PATCH /api/projects/{projectId}': ADMIN,
+  'GET /api/projects/{projectId}/audit': MEMBERS,
+
+  'GET /api/projects/{projectId}/headings': MEMBERS,
+  'POST /api/projects/{projectId}/headings': ADMIN,
+  'GET /api/projects/{projectId}/headings/{headingId}': MEMBERS,
+  'PATCH /api/projects/{projectId}/headings/{headingId}': ADMIN,
+
+  'GET /api/projects/{projectId}/support-classes': MEMBERS,
+  'POST /api/projects/{projectId}/support-classes': ADMIN,
+  'PUT /api/projects/{projectId}/support-classes/order': ADMIN,
+  'PATCH /api/projects/{projectId}/support-classes/{classId}': ADMIN,
+  'DELETE /api/projects/{projectId}/support-classes/{classId}': ADMIN,
+
+  'GET /api/projects/{projectId}/trigger-rules': MEMBERS,
+  'POST /api/projects/{projectId}/trigger-rules': ENGINEER_OR_ADMIN,
+  'POST /api/projects/{projectId}/trigger-rules/preview': ENGINEER_OR_ADMIN,
+  'PATCH /api/projects/{projectId}/trigger-rules/{ruleId}': ENGINEER_OR_ADMIN,
+  'DELETE /api/projects/{projectId}/trigger-rules/{ruleId}': ENGINEER_OR_ADMIN,
+
+  'GET /api/projects/{projectId}/team': MEMBERS,
+  'POST /api/projects/{projectId}/invitations': ADMIN,
+  'POST /api/projects/{projectId}/invitations/{invitationId}/resend': ADMIN,
+  'DELETE /api/projects/{projectId}/invitations/{invitationId}': ADMIN,
+  'PATCH /api/projects/{projectId}/members/{memberId}': ADMIN,
+  'DELETE /api/projects/{projectId}/members/{memberId}': ADMIN,
+  // The invitation's token is the permission: anyone holding the link may read it and accept it (as the
+  // invited address only; invitations.e2e-spec.ts checks that).
+  'GET /api/invitations/{token}': ANYONE,
+  'POST /api/invitations/{token}/accept': ANYONE,
+
+  'GET /api/projects/{projectId}/headings/{headingId}/rounds': MEMBERS,
+  'POST /api/projects/{projectId}/headings/{headingId}/rounds': GEOLOGIST,
+  'GET /api/projects/{projectId}/headings/{headingId}/rounds/next': GEOLOGIST,
+  'GET /api/projects/{projectId}/headings/{headingId}/joints': MEMBERS,
+  'GET /api/projects/{projectId}/rounds/{roundId}': MEMBERS,
+  'GET /api/projects/{projectId}/rounds/{roundId}/revisions': MEMBERS,
+  'PUT /api/projects/{projectId}/rounds/{roundId}': GEOLOGIST,
+  'POST /api/projects/{projectId}/rounds/{roundId}/submit': GEOLOGIST,
+
+  // Local mode only (the test app runs in it); the instance operator alone.
+  'GET /api/local/access': SIGNED_IN,
+  'GET /api/local/mail': OPERATOR,
+  'GET /api/local/mail/{id}/attachments/{index}': OPERATOR,
+  'GET /api/local/jobs': OPERATOR,
+  'POST /api/local/jobs/{jobId}/retry': OPERATOR,
+};
+
+// Kept for routes whose rule is "geologist or admin" (none today); exported so a new row can use it.
+export const ROLE_SETS = {
+  ANYONE,
+  SIGNED_IN,
+  MEMBERS,
+  ADMIN,
+  GEOLOGIST_OR_ADMIN,
+  ENGINEER_OR_ADMIN,
+  GEOLOGIST,
+  OPERATOR,
+};
