@@ -7,6 +7,7 @@ import {
   type ExceptionFilter,
 } from '@nestjs/common';
 import type { Response } from 'express';
+import { databaseFailure } from './database-errors.js';
 import { DomainException, ErrorCode } from './domain.exception.js';
 
 export interface ErrorBody {
@@ -47,6 +48,7 @@ export class DomainExceptionFilter implements ExceptionFilter {
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
       );
+    if (status === 503) res.setHeader('Retry-After', '5');
     res.status(status).json(body);
   }
 
@@ -76,6 +78,28 @@ export class DomainExceptionFilter implements ExceptionFilter {
         status: HttpStatus.PAYLOAD_TOO_LARGE,
         body: { code: ErrorCode.PayloadTooLarge, message: friendly[413]! },
       };
+    }
+    if (typeOf === 'entity.too.deep') {
+      return {
+        status: HttpStatus.BAD_REQUEST,
+        body: { code: ErrorCode.ValidationFailed, message: 'The request body is nested too deeply.' },
+      };
+    }
+    const db = databaseFailure(exception);
+    if (db !== null) {
+      const status =
+        db.kind === 'conflict'
+          ? HttpStatus.CONFLICT
+          : db.kind === 'bad-value'
+            ? HttpStatus.BAD_REQUEST
+            : HttpStatus.SERVICE_UNAVAILABLE;
+      const code =
+        db.kind === 'conflict'
+          ? ErrorCode.Conflict
+          : db.kind === 'bad-value'
+            ? ErrorCode.ValidationFailed
+            : ErrorCode.ServiceUnavailable;
+      return { status, body: { code, message: db.message } };
     }
     if (typeOf === 'entity.parse.failed') {
       return {

@@ -1,6 +1,7 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsInt, IsOptional, IsString, IsUUID, Max, Min } from 'class-validator';
+import { IsInt, IsString, IsUUID, Max, Min } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 
 export class AuditEventDto {
   id: string;
@@ -19,15 +20,15 @@ export class AuditEventDto {
 }
 
 export class AuditQueryDto {
-  @IsOptional()
+  @Optional()
   @IsString()
   entityType?: string;
 
-  @IsOptional()
+  @Optional()
   @IsUUID()
   entityId?: string;
 
-  @IsOptional()
+  @Optional()
   @Type(() => Number)
   @IsInt()
   @Min(1)

@@ -17,7 +17,9 @@ import {
   Matches,
   Max,
   Min,
+  IsObject,
 } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 import { CHAINAGE_SENSE_CODES, CHAINAGE_STYLES, PROFILE_SHAPES, STAGES } from '../heading.entity.js';
 
 /** One segment of the alignment: a straight (no radius) or a circular arc turning left or right. */
@@ -105,12 +107,12 @@ export class CreateHeadingDto {
   @Max(999999)
   startChainage: number;
 
-  @IsOptional()
+  @Optional()
   @IsIn(CHAINAGE_STYLES)
   @ApiProperty({ enum: CHAINAGE_STYLES, enumName: 'ChainageStyle', required: false })
   chainageStyle?: (typeof CHAINAGE_STYLES)[number];
 
-  @IsOptional()
+  @Optional()
   @IsInt()
   @Min(0)
   @Max(3)
@@ -170,7 +172,7 @@ export class CreateHeadingDto {
   @IsNumber()
   startElevation?: number | null;
 
-  @IsOptional()
+  @Optional()
   @IsIn(CHAINAGE_SENSE_CODES, {
     message: 'Chainage sense is increasing or decreasing (in the drive direction).',
   })
@@ -184,9 +186,10 @@ export class CreateHeadingDto {
   @ApiProperty({ type: Number, nullable: true, required: false })
   initialBearing?: number | null;
 
-  @IsOptional()
+  @Optional()
   @IsArray()
   @ArrayMaxSize(50)
+  @IsObject({ each: true, message: 'Give each item as an object.' })
   @ValidateNested({ each: true })
   @Type(() => AlignmentSegmentDto)
   @ApiProperty({ type: [AlignmentSegmentDto], required: false })
@@ -200,14 +203,14 @@ export class CreateHeadingDto {
   benchHeight?: number | null;
 }
 
-export class UpdateHeadingDto extends PartialType(CreateHeadingDto) {
+export class UpdateHeadingDto extends PartialType(CreateHeadingDto, { skipNullProperties: false }) {
   /** The version you last read; a stale version is refused with 409 STALE_VERSION */
   @IsInt()
   @Min(1)
   version: number;
 
   /** Required when the drive or profile changes after rounds exist (they are recomputed) */
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   confirmRecompute?: boolean;
 }

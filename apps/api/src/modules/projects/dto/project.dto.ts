@@ -3,7 +3,6 @@ import { CHAINAGE_STYLES } from '@roundbook/domain';
 import {
   IsIn,
   IsInt,
-  IsOptional,
   IsString,
   Length,
   Min,
@@ -16,6 +15,7 @@ import {
   IsEmail,
   Matches,
 } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 import { ROLE_ENUM } from '../../auth/dto/token-response.dto.js';
 import { PLANE_NOTATIONS, Q_TABLE_EDITIONS } from '../project.entity.js';
 
@@ -104,44 +104,44 @@ class IsTimeZone implements ValidatorConstraintInterface {
 }
 
 export class UpdateProjectDto {
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(1, 160)
   name?: string;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 160)
   client?: string;
 
-  @IsOptional()
+  @Optional()
   @Validate(IsTimeZone)
   timeZone?: string;
 
-  @IsOptional()
+  @Optional()
   @IsIn(PLANE_NOTATIONS)
   @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation', required: false })
   defaultNotation?: (typeof PLANE_NOTATIONS)[number];
 
-  @IsOptional()
+  @Optional()
   @IsIn(Q_TABLE_EDITIONS)
   @ApiProperty({ enum: Q_TABLE_EDITIONS, enumName: 'QTableEdition', required: false })
   qTableEdition?: (typeof Q_TABLE_EDITIONS)[number];
 
-  @IsOptional()
+  @Optional()
   @IsIn(['isrm', 'iso-14689'])
   @ApiProperty({ enum: ['isrm', 'iso-14689'], enumName: 'GroundScale', required: false })
   groundScale?: 'isrm' | 'iso-14689';
 
   /** Addresses that receive every handover */
-  @IsOptional()
+  @Optional()
   @IsArray()
   @ArrayMaxSize(50)
   @ArrayUnique()
   @IsEmail({}, { each: true, message: 'Each entry must be an e-mail address such as name@example.org.' })
   distributionList?: string[];
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 120)
   coordinateGrid?: string;
@@ -163,7 +163,7 @@ export class CreateProjectDto {
   @Length(1, 160, { message: 'Give the project a name (up to 160 characters).' })
   name: string;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 160)
   client?: string;
@@ -171,12 +171,12 @@ export class CreateProjectDto {
   @Validate(IsTimeZone)
   timeZone: string;
 
-  @IsOptional()
+  @Optional()
   @IsIn(PLANE_NOTATIONS)
   @ApiProperty({ enum: PLANE_NOTATIONS, enumName: 'PlaneNotation', required: false })
   defaultNotation?: (typeof PLANE_NOTATIONS)[number];
 
-  @IsOptional()
+  @Optional()
   @IsIn(['isrm', 'iso-14689'])
   @ApiProperty({ enum: ['isrm', 'iso-14689'], enumName: 'GroundScale', required: false })
   groundScale?: 'isrm' | 'iso-14689';

@@ -22,7 +22,9 @@ import {
   MaxLength,
   Min,
   ValidateNested,
+  IsObject,
 } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 
 const SIMPLE_CONDITIONS = RMR89_CONDITION_SIMPLE.map((c) => c.id);
 const ROUGHNESS = Object.keys(RMR89_ROUGHNESS);
@@ -76,22 +78,23 @@ export class QInputDto {
   @OptionalNumber(0, 1000, 'SRF is a table value (0.5–400); Roundbook stores up to 1000.')
   srf: number | null;
 
-  @IsOptional()
+  @Optional()
   @IsIn(Q_LOCATIONS)
   @ApiProperty({ enum: Q_LOCATIONS, enumName: 'QLocation', required: false })
   location?: (typeof Q_LOCATIONS)[number];
 
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   jrSpacingOver3m?: boolean;
 
-  @IsOptional()
+  @Optional()
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => QRowsDto)
   rows?: QRowsDto;
 
   /** True when the RQD came from Jv (a correlation) rather than a measurement */
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   rqdFromJv?: boolean;
 
@@ -109,7 +112,7 @@ export class QInputDto {
   governingSetLabel?: string | null;
 
   /** True when random joints are present besides the sets (Jn is checked against sets + random) */
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   randomJoints?: boolean;
 }
@@ -166,6 +169,7 @@ export class DetailedConditionDto {
   @IsIn(ROUGHNESS)
   @ApiProperty({ enum: ROUGHNESS, enumName: 'Rmr89Roughness', nullable: true })
   roughness: string | null;
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => NoInfillingDto, {
     discriminator: {
@@ -240,6 +244,7 @@ export class NotAssessedOrientationDto {
   NotAssessedOrientationDto,
 )
 export class RmrInputDto {
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => PointLoadStrengthDto, {
     discriminator: {
@@ -263,6 +268,7 @@ export class RmrInputDto {
   @OptionalNumber(0, 100)
   spacingM: number | null;
 
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => SimpleConditionDto, {
     discriminator: {
@@ -279,6 +285,7 @@ export class RmrInputDto {
   })
   condition: SimpleConditionDto | DetailedConditionDto;
 
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => InflowGroundwaterDto, {
     discriminator: {
@@ -300,6 +307,7 @@ export class RmrInputDto {
   })
   groundwater: InflowGroundwaterDto | PressureGroundwaterDto | ConditionGroundwaterDto;
 
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => AssessedOrientationDto, {
     discriminator: {

@@ -17,6 +17,7 @@ import {
   IsIn,
   IsInt,
   IsNumber,
+  IsObject,
   IsOptional,
   IsString,
   IsUUID,
@@ -27,6 +28,8 @@ import {
   Min,
   ValidateNested,
 } from 'class-validator';
+import { IsCalendarDate } from '../../../common/dto/calendar-date.js';
+import { Optional } from '../../../common/dto/optional.js';
 import { QInputDto, RmrInputDto } from './rating-input.dto.js';
 
 export class RockUnitDto {
@@ -53,6 +56,7 @@ export class RockUnitDto {
 export class GroundDto {
   @IsArray()
   @ArrayMaxSize(12)
+  @IsObject({ each: true, message: 'Give each item as an object.' })
   @ValidateNested({ each: true })
   @Type(() => RockUnitDto)
   units: RockUnitDto[];
@@ -128,7 +132,7 @@ export class FaceOffsetDto {
 
 export class JointInputDto {
   /** The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it. */
-  @IsOptional()
+  @Optional()
   @IsUUID()
   @ApiProperty({ type: String, required: false, format: 'uuid' })
   id?: string;
@@ -152,7 +156,7 @@ export class JointInputDto {
   @ApiProperty({ type: String, nullable: true })
   setLabel: string | null;
 
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   setOverride?: boolean;
 
@@ -226,6 +230,7 @@ export class JointInputDto {
 
   /** Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
   @IsOptional()
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => FaceOffsetDto)
   @ApiProperty({ type: FaceOffsetDto, nullable: true, required: false })
@@ -282,6 +287,7 @@ export class RoundInputDto {
   roundLength: number | null;
 
   @Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'Shift date is a date such as 2026-11-30.' })
+  @IsCalendarDate({ message: 'Shift date is a real date such as 2026-11-30.' })
   shiftDate: string;
 
   @IsIn(SHIFTS)
@@ -292,18 +298,21 @@ export class RoundInputDto {
   @MaxLength(2000)
   distantParts: string;
 
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => GroundDto)
   ground: GroundDto;
 
   @IsArray()
   @ArrayMaxSize(500)
+  @IsObject({ each: true, message: 'Give each item as an object.' })
   @ValidateNested({ each: true })
   @Type(() => JointInputDto)
   joints: JointInputDto[];
 
   /** Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
   @IsOptional()
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => QInputDto)
   @ApiProperty({ type: () => QInputDto, nullable: true })
@@ -311,6 +320,7 @@ export class RoundInputDto {
 
   /** RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
   @IsOptional()
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => RmrInputDto)
   @ApiProperty({ type: () => RmrInputDto, nullable: true })
@@ -340,7 +350,8 @@ export class RoundInputDto {
   recommendationReason: string;
 
   /** How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
-  @IsOptional()
+  @Optional()
+  @IsObject({ message: 'Give an object here.' })
   @ValidateNested()
   @Type(() => SetParametersDto)
   setParameters?: SetParametersDto;
@@ -355,7 +366,7 @@ export class SaveRoundDto extends RoundInputDto {
 
 export class CreateRoundDto {
   /** The round's id, a UUID made by the client (so a retried create finds the same round); made here when absent */
-  @IsOptional()
+  @Optional()
   @IsUUID()
   @ApiProperty({ type: String, required: false, format: 'uuid' })
   id?: string;
@@ -505,40 +516,40 @@ export const ROUND_SORTS = [
 ] as const;
 
 export class RoundQueryDto {
-  @IsOptional()
+  @Optional()
   @Type(() => Number)
   @IsInt()
   @Min(1)
   page?: number;
 
-  @IsOptional()
+  @Optional()
   @Type(() => Number)
   @IsInt()
   @Min(1)
   @Max(200)
   pageSize?: number;
 
-  @IsOptional()
+  @Optional()
   @IsIn(ROUND_SORTS)
   @ApiProperty({ enum: ROUND_SORTS, enumName: 'RoundSort', required: false })
   sort?: (typeof ROUND_SORTS)[number];
 
-  @IsOptional()
+  @Optional()
   @IsIn(ROUND_STATUSES)
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus', required: false })
   status?: (typeof ROUND_STATUSES)[number];
 
-  @IsOptional()
+  @Optional()
   @IsIn(STAGES)
   @ApiProperty({ enum: STAGES, enumName: 'Stage', required: false })
   stage?: (typeof STAGES)[number];
 
-  @IsOptional()
+  @Optional()
   @Type(() => Number)
   @IsNumber()
   fromChainage?: number;
 
-  @IsOptional()
+  @Optional()
   @Type(() => Number)
   @IsNumber()
   toChainage?: number;
@@ -577,7 +588,7 @@ export class NearbyJointsQueryDto {
   @IsNumber()
   toChainage: number;
 
-  @IsOptional()
+  @Optional()
   @IsUUID()
   excludeRoundId?: string;
 }

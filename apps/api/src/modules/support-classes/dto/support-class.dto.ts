@@ -13,6 +13,7 @@ import {
   Max,
   Min,
 } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 
 export class SupportClassDto {
   id: string;
@@ -99,7 +100,7 @@ export class CreateSupportClassDto {
   @Max(8, { message: 'Maximum round length is 0.3 to 8 m.' })
   maxRoundLength: number;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 120)
   boltType?: string;
@@ -110,34 +111,34 @@ export class CreateSupportClassDto {
   @Max(20)
   boltLength?: number | null;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 120)
   boltPattern?: string;
 
-  @IsOptional()
+  @Optional()
   @IsInt()
   @Min(0)
   @Max(1000)
   shotcreteMm?: number;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 160)
   steelSupport?: string;
 
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   probingRequired?: boolean;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 4000)
   notes?: string;
 }
 
-export class UpdateSupportClassDto extends PartialType(CreateSupportClassDto) {
-  @IsOptional()
+export class UpdateSupportClassDto extends PartialType(CreateSupportClassDto, { skipNullProperties: false }) {
+  @Optional()
   @IsBoolean()
   retired?: boolean;
 

@@ -1,7 +1,8 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { IsEmail, IsIn, IsOptional, IsString, Length, MaxLength, MinLength } from 'class-validator';
+import { IsEmail, IsIn, IsString, Length, MaxLength, MinLength } from 'class-validator';
 import { PROJECT_ROLES } from '../../../common/auth/auth-user.js';
+import { Optional } from '../../../common/dto/optional.js';
 import { TokenResponseDto } from '../../auth/dto/token-response.dto.js';
 
 export class MemberDto {
@@ -45,7 +46,7 @@ export class InviteDto {
   @MaxLength(254)
   email: string;
 
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(0, 120)
   name?: string;
@@ -72,13 +73,13 @@ export class InvitationInfoDto {
 
 export class AcceptInvitationDto {
   /** Your name as colleagues know it (new accounts) */
-  @IsOptional()
+  @Optional()
   @IsString()
   @Length(1, 120)
   name?: string;
 
   /** The new account's password (at least 10 characters); not needed when signed in as the invited address */
-  @IsOptional()
+  @Optional()
   @IsString()
   @MinLength(10, { message: 'Use at least 10 characters.' })
   @MaxLength(200)

@@ -1,6 +1,7 @@
 import { ApiProperty, PartialType } from '@nestjs/swagger';
 import { IsBoolean, IsIn, IsInt, IsNumber, IsOptional, IsString, Length, Max, Min } from 'class-validator';
 import { PROJECT_ROLES } from '../../../common/auth/auth-user.js';
+import { Optional } from '../../../common/dto/optional.js';
 import { COMPARISONS, LEVELS, WATCHED } from '../trigger-rule.entity.js';
 
 export class TriggerRuleDto {
@@ -57,12 +58,12 @@ export class CreateTriggerRuleDto {
   @Max(720, { message: 'Time allowed is 0 to 720 hours.' })
   timeAllowedHours: number;
 
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   enabled?: boolean;
 }
 
-export class UpdateTriggerRuleDto extends PartialType(CreateTriggerRuleDto) {
+export class UpdateTriggerRuleDto extends PartialType(CreateTriggerRuleDto, { skipNullProperties: false }) {
   @IsInt()
   @Min(1)
   version: number;
