@@ -62,6 +62,9 @@ function render(node: SceneNode, key: string, clip: string): ReactNode {
           fill={node.fill}
           textAnchor={node.anchor}
           fontWeight={node.weight}
+          stroke={node.halo}
+          strokeWidth={node.halo ? node.size / 5 : undefined}
+          paintOrder={node.halo ? 'stroke' : undefined}
         >
           {node.text}
         </text>

@@ -25,7 +25,7 @@ function node(x: SceneNode, clipId: string): string {
     case 'path':
       return x.d ? `<path data-role="${esc(x.role)}" d="${esc(x.d)}" ${styleAttrs(x)}/>` : '';
     case 'text':
-      return `<text data-role="${esc(x.role)}" x="${n(x.x)}" y="${n(x.y)}" font-size="${n(x.size)}" fill="${esc(x.fill)}" text-anchor="${x.anchor}"${x.weight ? ` font-weight="${x.weight}"` : ''}>${esc(x.text)}</text>`;
+      return `<text data-role="${esc(x.role)}" x="${n(x.x)}" y="${n(x.y)}" font-size="${n(x.size)}" fill="${esc(x.fill)}" text-anchor="${x.anchor}"${x.weight ? ` font-weight="${x.weight}"` : ''}${x.halo ? ` stroke="${esc(x.halo)}" stroke-width="${n(x.size / 5)}" paint-order="stroke"` : ''}>${esc(x.text)}</text>`;
     case 'group':
       return `<g data-role="${esc(x.role)}"${x.clip ? ` clip-path="url(#${clipId})"` : ''}>${x.children.map((c) => node(c, clipId)).join('')}</g>`;
   }

@@ -43,6 +43,8 @@ export type SceneNode =
       fill: string;
       anchor: 'start' | 'middle' | 'end';
       weight?: number;
+      /** Outline in this colour behind the letters, so a label stays legible over poles and contours. */
+      halo?: string;
     }
   | { type: 'group'; role: string; clip?: 'primitive'; children: SceneNode[] };
 
@@ -266,7 +268,8 @@ export function buildStereonetScene(
           )
           .join(' '),
         fill: palette.contourFill,
-        fillOpacity: Math.min(0.6, 0.1 + 0.07 * i),
+        // Light fills that deepen by level, so the poles on top stay readable (lines carry the levels).
+        fillOpacity: Math.min(0.32, 0.06 + 0.035 * i),
         fillRule: 'evenodd' as const,
         stroke: palette.contourLine,
         width: line * 0.8,
@@ -403,6 +406,16 @@ export function buildStereonetScene(
     s.mark += markPath(KIND_STYLES[j.kind].mark, p.x, p.y, r) + ' ';
   });
   const poleNodes: SceneNode[] = [];
+  // A paper-coloured outline under every pole keeps it apart from contours, circles and its neighbours.
+  for (const [key, s] of styles) {
+    poleNodes.push({
+      type: 'path',
+      role: `pole-halos-${key}`,
+      d: s.body.trim(),
+      stroke: palette.paper,
+      width: line * 3,
+    });
+  }
   for (const [key, s] of styles) {
     const style = KIND_STYLES[s.kind];
     const solid = style.fill === 'solid';
@@ -470,6 +483,7 @@ export function buildStereonetScene(
       fill: colour,
       anchor: 'middle',
       weight: 700,
+      halo: palette.paper,
     });
   }
   nodes.push({ type: 'group', role: 'set-means', children: means });
