@@ -192,7 +192,7 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
           if (from !== null && to !== null) choose({ fromChainage: from, toChainage: to });
         }}
       >
-        <Field className={styles.field} label="From chainage" validationMessage={undefined}>
+        <Field className={styles.field} label="From chainage">
           <Input
             className={styles.input}
             inputMode="decimal"
