@@ -22,7 +22,8 @@ export interface RoundListFilters {
 export interface JointWindow {
   fromChainage: number;
   toChainage: number;
-  excludeRoundId: string;
+  /** Leave this round out (a round's own set analysis); absent on the heading's Orientation tab. */
+  excludeRoundId?: string;
 }
 
 export const resourceKeys = {

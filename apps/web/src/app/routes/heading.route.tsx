@@ -2,11 +2,14 @@ import { Button, makeStyles, Tab, TabList, tokens } from '@fluentui/react-compon
 import { ArrowLeftRegular } from '@fluentui/react-icons';
 import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
+import { useThemePreference } from '@/app/theme-preference';
+import { HeadingOrientation } from '@/features/orientation/components/heading-orientation';
 import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
 import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
 import { RoundsTable } from '@/features/rounds/components/rounds-table';
@@ -37,6 +40,8 @@ export function HeadingRoute() {
   const { projectId = '', headingId = '' } = useParams();
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, headingId);
+  const [tab, setTab] = useState('rounds');
+  const { mode } = useThemePreference();
   const drive = `${String(Math.round(heading.driveTrend)).padStart(3, '0')}°`;
   return (
     <>
@@ -60,15 +65,21 @@ export function HeadingRoute() {
           </>
         }
       />
-      <TabList className={styles.tabs} size="large" selectedValue="rounds" aria-label="Heading views">
+      <TabList
+        className={styles.tabs}
+        size="large"
+        selectedValue={tab}
+        onTabSelect={(_, d) => setTab(String(d.value))}
+        aria-label="Heading views"
+      >
         <Tab className={styles.tab} value="rounds">
           Rounds
         </Tab>
         <Tab className={styles.tab} value="long-section" disabled>
           Long section (coming)
         </Tab>
-        <Tab className={styles.tab} value="orientation" disabled>
-          Orientation (coming)
+        <Tab className={styles.tab} value="orientation">
+          Orientation
         </Tab>
         <Tab className={styles.tab} value="hazards" disabled>
           Hazards (coming)
@@ -77,7 +88,11 @@ export function HeadingRoute() {
           Handovers (coming)
         </Tab>
       </TabList>
-      <RoundsTable projectId={projectId} heading={heading} />
+      {tab === 'orientation' ? (
+        <HeadingOrientation projectId={projectId} heading={heading} highContrast={mode === 'high-contrast'} />
+      ) : (
+        <RoundsTable projectId={projectId} heading={heading} />
+      )}
     </>
   );
 }
