@@ -57,7 +57,11 @@ export function BoardRoute() {
         <NewProjectButton />
       </div>
       {projects.map((project) => (
-        <ProjectBoard key={project.id} project={project} />
+        <ProjectBoard
+          key={project.id}
+          project={project}
+          reviewHref={(headingId) => `/to-confirm?heading=${encodeURIComponent(headingId)}`}
+        />
       ))}
     </>
   );
