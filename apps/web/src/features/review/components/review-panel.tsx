@@ -198,7 +198,7 @@ function ConfirmForm({
         />
       </Field>
       {failure ? (
-        <MessageBar intent="error">
+        <MessageBar intent="error" layout="multiline">
           <MessageBarBody>{failure.message}</MessageBarBody>
         </MessageBar>
       ) : null}
@@ -241,7 +241,7 @@ function ReturnForm({ projectId, review }: { projectId: string; review: RoundRev
         </Field>
       ))}
       {failure ? (
-        <MessageBar intent="error">
+        <MessageBar intent="error" layout="multiline">
           <MessageBarBody>{failure.message}</MessageBarBody>
         </MessageBar>
       ) : null}
@@ -364,7 +364,7 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
   if (isPending) return <Spinner label="Reading the review…" />;
   if (error)
     return (
-      <MessageBar intent="error">
+      <MessageBar intent="error" layout="multiline">
         <MessageBarBody>{`The review could not be read: ${error.message}`}</MessageBarBody>
       </MessageBar>
     );
@@ -405,7 +405,7 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
             review.canConfirm.allowed ? (
               <ConfirmForm projectId={projectId} review={review} classes={supportClasses} />
             ) : (
-              <MessageBar intent="warning">
+              <MessageBar intent="warning" layout="multiline">
                 <MessageBarBody>{review.canConfirm.reason}</MessageBarBody>
               </MessageBar>
             )
