@@ -317,6 +317,20 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       });
       const res = await confirm(own, { classId: classId('C1'), roundLength: 2 }, 'geologist').expect(403);
       expect(res.body.message).toMatch(/separation of duties/);
+      // With the project's setting turned off (by its admin), the same person may confirm.
+      const project = (await request(http).get(p.base).set(p.as('admin')).expect(200)).body as Body;
+      await request(http)
+        .patch(p.base)
+        .set(p.as('admin'))
+        .send({ version: project.version, separationOfDuties: false })
+        .expect(200);
+      expect((await getReview(own.id, 'geologist')).canConfirm.allowed).toBe(true);
+      const back = (await request(http).get(p.base).set(p.as('admin')).expect(200)).body as Body;
+      await request(http)
+        .patch(p.base)
+        .set(p.as('admin'))
+        .send({ version: back.version, separationOfDuties: true })
+        .expect(200);
     } finally {
       await members.update({ projectId: p.projectId, userId: geologist.id }, { role: 'geologist' });
     }
@@ -385,5 +399,51 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
     expect(overdue.minutesLeft).toBeLessThan(-55);
     expect(item(older.id).minutesWaiting).toBeGreaterThanOrEqual(299);
     expect(queue.caution).toBe(CAUTION);
+  });
+
+  it('a fired rule is acknowledged by the role that owns it, once per revision, and is then not overdue', async () => {
+    const r = await mapRound(1024, fairQ, 'C1');
+    await ds.getRepository(Round).update({ id: r.id }, { submittedAt: new Date(Date.now() - 5 * 3_600_000) });
+    const before = await getReview(r.id);
+    const amber = before.rules.find((x: Body) => x.timeAllowedHours === 4);
+    expect(amber).toMatchObject({ overdue: true, acknowledgement: null, canAcknowledge: true });
+    expect((await getReview(r.id, 'geologist')).rules[0].canAcknowledge).toBe(false);
+
+    const url = `${p.base}/rounds/${r.id}/triggers/${amber.ruleId}/acknowledge`;
+    await request(http)
+      .post(url)
+      .set(p.as('geologist'))
+      .send({ actionTaken: 'Told the engineer', note: '' })
+      .expect(403);
+    await request(http).post(url).set(p.as('engineer')).send({ actionTaken: '', note: '' }).expect(400);
+    const after = (
+      await request(http)
+        .post(url)
+        .set(p.as('engineer'))
+        .send({ actionTaken: 'Looked at the face; bolting pattern kept', note: 'Re-rate at the next round' })
+        .expect(200)
+    ).body as Body;
+    expect(after.rules.find((x: Body) => x.ruleId === amber.ruleId)).toMatchObject({
+      overdue: false,
+      canAcknowledge: false,
+      acknowledgement: {
+        actionTaken: 'Looked at the face; bolting pattern kept',
+        note: 'Re-rate at the next round',
+        byName: `Test engineer ${code}`,
+        role: 'engineer',
+      },
+    });
+    await request(http).post(url).set(p.as('engineer')).send({ actionTaken: 'Again', note: '' }).expect(409);
+    const queue = (
+      await request(http).get(`/api/review/queue?headingId=${p.headingId}`).set(p.as('engineer')).expect(200)
+    ).body as Body;
+    const clock = queue.items
+      .find((i: Body) => i.roundId === r.id)
+      .rules.find((x: Body) => x.ruleId === amber.ruleId);
+    expect(clock).toMatchObject({ overdue: false, acknowledgedAt: expect.any(String) });
+    const audit = await ds
+      .getRepository(AuditEvent)
+      .findOneByOrFail({ entityId: r.id, action: 'acknowledge-trigger' });
+    expect(audit.after).toMatchObject({ ruleId: amber.ruleId, level: 'amber' });
   });
 });

@@ -3,7 +3,8 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
 /**
  * Review (issue 11): the engineer's confirmed class and next round length kept apart from the geologist's
  * recommendation; every review decision with its sign-off; the comments of a return, per section, until
- * resolved; and the project's separation-of-duties setting (on by default).
+ * resolved; the acknowledgements of fired trigger rules by their owners; and the project's
+ * separation-of-duties setting (on by default).
  */
 export class Review1796200000000 implements MigrationInterface {
   name = 'Review1796200000000';
@@ -56,9 +57,29 @@ export class Review1796200000000 implements MigrationInterface {
         CONSTRAINT \`FK_round_comments_round\` FOREIGN KEY (\`round_id\`) REFERENCES \`rounds\`(\`id\`) ON DELETE CASCADE
       ) ENGINE=InnoDB`,
     );
+    await queryRunner.query(
+      `CREATE TABLE \`trigger_acknowledgements\` (
+        \`id\` uuid NOT NULL,
+        \`round_id\` uuid NOT NULL,
+        \`project_id\` uuid NOT NULL,
+        \`rule_id\` uuid NOT NULL,
+        \`revision\` int NOT NULL,
+        \`level\` enum ('green', 'amber', 'red') NOT NULL,
+        \`action_taken\` text NOT NULL,
+        \`note\` text NOT NULL,
+        \`acknowledged_by\` uuid NOT NULL,
+        \`acknowledged_name\` varchar(120) NOT NULL,
+        \`acknowledged_role\` varchar(20) NOT NULL,
+        \`acknowledged_at\` datetime(3) NOT NULL,
+        UNIQUE INDEX \`UQ_trigger_ack_round_rule_revision\` (\`round_id\`, \`rule_id\`, \`revision\`),
+        PRIMARY KEY (\`id\`),
+        CONSTRAINT \`FK_trigger_ack_round\` FOREIGN KEY (\`round_id\`) REFERENCES \`rounds\`(\`id\`) ON DELETE CASCADE
+      ) ENGINE=InnoDB`,
+    );
   }
 
   public async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`DROP TABLE \`trigger_acknowledgements\``);
     await queryRunner.query(`DROP TABLE \`round_comments\``);
     await queryRunner.query(`DROP TABLE \`round_decisions\``);
     await queryRunner.query(`ALTER TABLE \`projects\` DROP COLUMN \`separation_of_duties\``);

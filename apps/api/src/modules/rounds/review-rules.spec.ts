@@ -50,6 +50,15 @@ describe('rule clocks against their timeframes', () => {
     expect(four).toMatchObject({ dueAt: '2026-03-01T12:00:00.000Z', minutesLeft: 90, overdue: false });
     expect(two).toMatchObject({ dueAt: '2026-03-01T10:00:00.000Z', minutesLeft: -30, overdue: true });
   });
+  it('is never overdue once its owner acknowledged it', () => {
+    const acked = new Map([['r2', new Date('2026-03-01T09:30:00Z')]]);
+    const [two] = ruleClocks([firing(2)], submitted, new Date('2026-03-01T11:00:00Z'), acked);
+    expect(two).toMatchObject({
+      overdue: false,
+      minutesLeft: -60,
+      acknowledgedAt: '2026-03-01T09:30:00.000Z',
+    });
+  });
   it('is overdue exactly at the due time', () => {
     expect(ruleClocks([firing(1)], submitted, new Date('2026-03-01T09:00:00Z'))[0].overdue).toBe(true);
   });

@@ -56,14 +56,26 @@ export interface RuleClock {
   dueAt: string;
   /** Minutes left (negative once overdue). */
   minutesLeft: number;
+  /** Past its time without an acknowledgement by its owner. */
   overdue: boolean;
+  /** When its owner acknowledged it (null: not yet). */
+  acknowledgedAt: string | null;
 }
 
-/** Each fired rule's clock, counted from the submit (when the rule's owner could first see it). */
-export function ruleClocks(firings: TriggerFiring[], submittedAt: Date, now: Date): RuleClock[] {
+/**
+ * Each fired rule's clock, counted from the submit (when the rule's owner could first see it). A rule its
+ * owner has acknowledged is never overdue.
+ */
+export function ruleClocks(
+  firings: TriggerFiring[],
+  submittedAt: Date,
+  now: Date,
+  acknowledged: ReadonlyMap<string, Date> = new Map(),
+): RuleClock[] {
   return firings.map((f) => {
     const due = new Date(submittedAt.getTime() + f.timeAllowedHours * 3_600_000);
     const minutesLeft = Math.floor((due.getTime() - now.getTime()) / 60_000);
+    const ack = acknowledged.get(f.ruleId) ?? null;
     return {
       ruleId: f.ruleId,
       level: f.level,
@@ -73,7 +85,8 @@ export function ruleClocks(firings: TriggerFiring[], submittedAt: Date, now: Dat
       timeAllowedHours: f.timeAllowedHours,
       dueAt: due.toISOString(),
       minutesLeft,
-      overdue: due.getTime() <= now.getTime(),
+      overdue: ack === null && due.getTime() <= now.getTime(),
+      acknowledgedAt: ack?.toISOString() ?? null,
     };
   });
 }

@@ -12,6 +12,7 @@ import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decor
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
 import {
+  AcknowledgeRuleDto,
   ConfirmRoundDto,
   CorrectRoundDto,
   ReturnRoundDto,
@@ -94,6 +95,27 @@ export class RoundReviewController {
     @Body() body: CorrectRoundDto,
   ): Promise<RoundReviewDto> {
     return this.review.correct(user, access, roundId, body);
+  }
+
+  /** Acknowledges a fired trigger rule of a submitted or confirmed round, with what was done (the rule's owner role) */
+  @Post('triggers/:ruleId/acknowledge')
+  @HttpCode(200)
+  @ProjectRoles()
+  @ApiOkResponse({ type: RoundReviewDto })
+  @ApiForbiddenResponse({ type: ErrorResponseDto, description: 'The rule is owned by another role' })
+  @ApiConflictResponse({
+    type: ErrorResponseDto,
+    description: 'Already acknowledged, or the round is not submitted',
+  })
+  acknowledge(
+    @Param('projectId') _p: string,
+    @Param('roundId', ParseUUIDPipe) roundId: string,
+    @Param('ruleId', ParseUUIDPipe) ruleId: string,
+    @CurrentUser() user: AuthUser,
+    @CurrentAccess() access: ProjectAccess,
+    @Body() body: AcknowledgeRuleDto,
+  ): Promise<RoundReviewDto> {
+    return this.review.acknowledge(user, access, roundId, ruleId, body);
   }
 
   /** Marks a return comment resolved (geologists, engineers); the next submit resolves the rest */

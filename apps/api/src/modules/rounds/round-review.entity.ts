@@ -114,3 +114,45 @@ export class RoundComment {
   @Column({ name: 'resolved_by', type: 'uuid', nullable: true })
   resolvedBy: string | null;
 }
+
+/** A fired trigger rule of a round, acknowledged by the role that owns it: what was done, and a note. */
+@Entity('trigger_acknowledgements')
+@Index('UQ_trigger_ack_round_rule_revision', ['roundId', 'ruleId', 'revision'], { unique: true })
+export class TriggerAcknowledgement {
+  @PrimaryColumn('uuid')
+  id: string;
+
+  @Column({ name: 'round_id', type: 'uuid' })
+  roundId: string;
+
+  @Column({ name: 'project_id', type: 'uuid' })
+  projectId: string;
+
+  @Column({ name: 'rule_id', type: 'uuid' })
+  ruleId: string;
+
+  /** The revision whose firing was acknowledged (a new revision fires afresh). */
+  @Column({ type: 'int' })
+  revision: number;
+
+  @Column({ type: 'enum', enum: ['green', 'amber', 'red'] })
+  level: 'green' | 'amber' | 'red';
+
+  @Column({ name: 'action_taken', type: 'text' })
+  actionTaken: string;
+
+  @Column({ type: 'text' })
+  note: string;
+
+  @Column({ name: 'acknowledged_by', type: 'uuid' })
+  acknowledgedBy: string;
+
+  @Column({ name: 'acknowledged_name', type: 'varchar', length: 120 })
+  acknowledgedName: string;
+
+  @Column({ name: 'acknowledged_role', type: 'varchar', length: 20 })
+  acknowledgedRole: string;
+
+  @Column({ name: 'acknowledged_at', type: 'datetime', precision: 3 })
+  acknowledgedAt: Date;
+}

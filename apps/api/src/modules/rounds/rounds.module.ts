@@ -11,7 +11,7 @@ import { TriggerRulesModule } from '../trigger-rules/trigger-rules.module.js';
 import { Joint } from './joint.entity.js';
 import { ReviewQueueController, RoundReviewController } from './review.controller.js';
 import { RoundAssessor } from './round-assessor.service.js';
-import { RoundComment, RoundDecision } from './round-review.entity.js';
+import { RoundComment, RoundDecision, TriggerAcknowledgement } from './round-review.entity.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
 import { RoundsReadAdapter } from './rounds-read.adapter.js';
@@ -33,6 +33,7 @@ import { RoundsReview } from './rounds.review.js';
       RoundRevision,
       RoundDecision,
       RoundComment,
+      TriggerAcknowledgement,
       IdempotencyKey,
       ProjectMember,
     ]),

@@ -4,6 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { formatChainageFor, type TriggerFiring } from '@roundbook/domain';
 import { DataSource, In, IsNull, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
+import { isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { NoticesService } from '../../infrastructure/mail/notices.service.js';
@@ -16,6 +17,7 @@ import { SupportClass } from '../support-classes/support-class.entity.js';
 import { verifyPassword } from '../users/password.js';
 import { User } from '../users/user.entity.js';
 import type {
+  AcknowledgeRuleDto,
   ConfirmRoundDto,
   CorrectRoundDto,
   ReturnRoundDto,
@@ -33,7 +35,13 @@ import {
   REVIEW_CAUTION,
   ruleClocks,
 } from './review-rules.js';
-import { RoundComment, RoundDecision, type ReviewDecision } from './round-review.entity.js';
+import {
+  RoundComment,
+  RoundDecision,
+  REVIEW_SECTIONS,
+  TriggerAcknowledgement,
+  type ReviewDecision,
+} from './round-review.entity.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { applyTransition, canTransition, type RoundEvent } from './round-status.js';
 import { Round } from './round.entity.js';
@@ -62,7 +70,7 @@ export class RoundsReview {
   async review(caller: AuthUser, access: ProjectAccess, roundId: string): Promise<RoundReviewDto> {
     const manager = this.dataSource.manager;
     const round = await this.queries.find(manager, access, roundId);
-    const [project, decisions, comments, authors] = await Promise.all([
+    const [project, decisions, comments, authors, acks] = await Promise.all([
       manager.findOneByOrFail(Project, { id: access.projectId }),
       manager.find(RoundDecision, { where: { roundId }, order: { signedAt: 'ASC' } }),
       manager.find(RoundComment, {
@@ -70,7 +78,19 @@ export class RoundsReview {
         order: { createdAt: 'ASC' },
       }),
       this.authorsOf(manager, round),
+      manager.find(TriggerAcknowledgement, { where: { roundId, revision: round.revision } }),
     ]);
+    const acked = new Map(acks.map((a) => [a.ruleId, a]));
+    const firings = round.triggerFirings ?? [];
+    const reviewable = round.status === 'submitted' || round.status === 'confirmed';
+    const clocks = round.submittedAt
+      ? ruleClocks(
+          firings,
+          round.submittedAt,
+          new Date(),
+          new Map(acks.map((a) => [a.ruleId, a.acknowledgedAt])),
+        )
+      : [];
     const classes = await manager.find(SupportClass, { where: { projectId: access.projectId } });
     const codeOf = (id: string | null) => classes.find((c) => c.id === id)?.code ?? null;
     const toDecision = (d: RoundDecision): ReviewDecisionDto => ({
@@ -103,15 +123,23 @@ export class RoundsReview {
       confirmedAt: round.confirmedAt?.toISOString() ?? null,
       confirmation: round.status === 'confirmed' && lastConfirm ? toDecision(lastConfirm) : null,
       decisions: decisions.map(toDecision),
-      openComments: comments.map((c) => ({
-        id: c.id,
-        section: c.section,
-        text: c.text,
-        revision: c.revision,
-        authorName: c.authorName,
-        createdAt: c.createdAt.toISOString(),
-        resolvedAt: null,
-      })),
+      // In the order of the round's sections, as the screen shows them.
+      openComments: [...comments]
+        .sort(
+          (a, b) =>
+            a.revision - b.revision ||
+            REVIEW_SECTIONS.indexOf(a.section) - REVIEW_SECTIONS.indexOf(b.section) ||
+            a.createdAt.getTime() - b.createdAt.getTime(),
+        )
+        .map((c) => ({
+          id: c.id,
+          section: c.section,
+          text: c.text,
+          revision: c.revision,
+          authorName: c.authorName,
+          createdAt: c.createdAt.toISOString(),
+          resolvedAt: null,
+        })),
       canConfirm: !engineer
         ? notEngineer
         : !canTransition(round.status, 'confirm')
@@ -131,6 +159,25 @@ export class RoundsReview {
             ? refused('Only a confirmed round is corrected.')
             : allowed,
       canResolve: access.role === 'geologist' || access.role === 'engineer',
+      rules: reviewable
+        ? clocks.map((c) => {
+            const a = acked.get(c.ruleId);
+            return {
+              ...c,
+              detail: firings.find((f) => f.ruleId === c.ruleId)?.detail ?? '',
+              acknowledgement: a
+                ? {
+                    actionTaken: a.actionTaken,
+                    note: a.note,
+                    byName: a.acknowledgedName,
+                    role: a.acknowledgedRole,
+                    at: a.acknowledgedAt.toISOString(),
+                  }
+                : null,
+              canAcknowledge: !a && access.role === c.ownerRole,
+            };
+          })
+        : [],
       separationOfDuties: project.separationOfDuties,
       caution: REVIEW_CAUTION,
     };
@@ -334,6 +381,67 @@ export class RoundsReview {
     return this.review(caller, access, roundId);
   }
 
+  /** A fired rule of a submitted or confirmed round, acknowledged by the role that owns it (audited). */
+  async acknowledge(
+    caller: AuthUser,
+    access: ProjectAccess,
+    roundId: string,
+    ruleId: string,
+    dto: AcknowledgeRuleDto,
+  ): Promise<RoundReviewDto> {
+    try {
+      await this.dataSource.transaction(async (manager) => {
+        const round = await this.queries.find(manager, access, roundId, true);
+        if (round.status !== 'submitted' && round.status !== 'confirmed')
+          throw new DomainException(
+            ErrorCode.Conflict,
+            `The rules of a ${round.status} round are acknowledged once it is submitted.`,
+          );
+        const firing = (round.triggerFirings ?? []).find((f) => f.ruleId === ruleId);
+        if (!firing) throw DomainException.notFound('A fired rule with that id on this round');
+        if (access.role !== firing.ownerRole)
+          throw DomainException.forbidden(
+            `This rule is owned by the ${firing.ownerRole}; they acknowledge it.`,
+          );
+        const now = new Date();
+        await manager.insert(TriggerAcknowledgement, {
+          id: randomUUID(),
+          roundId,
+          projectId: access.projectId,
+          ruleId,
+          revision: round.revision,
+          level: firing.level,
+          actionTaken: dto.actionTaken.trim(),
+          note: dto.note.trim(),
+          acknowledgedBy: caller.id,
+          acknowledgedName: caller.name,
+          acknowledgedRole: access.role,
+          acknowledgedAt: now,
+        });
+        await this.audit.record(manager, {
+          projectId: access.projectId,
+          actorId: caller.id,
+          entityType: 'round',
+          entityId: roundId,
+          action: 'acknowledge-trigger',
+          after: {
+            ruleId,
+            revision: round.revision,
+            level: firing.level,
+            summary: firing.summary,
+            actionTaken: dto.actionTaken.trim(),
+            note: dto.note.trim(),
+          },
+        });
+      });
+    } catch (error) {
+      if (isDuplicateKey(error))
+        throw new DomainException(ErrorCode.Conflict, 'This rule was already acknowledged on this revision.');
+      throw error;
+    }
+    return this.review(caller, access, roundId);
+  }
+
   /**
    * Called by submit inside its transaction: the comments of the last return are resolved by the new
    * submit, and the project's engineers are told a round waits for them.
@@ -415,6 +523,12 @@ export class RoundsReview {
         select: { id: true, code: true },
       }),
     ]);
+    const acks = rounds.length
+      ? await manager.find(TriggerAcknowledgement, {
+          where: { roundId: In(rounds.map((r) => r.id)) },
+          select: { roundId: true, ruleId: true, revision: true, acknowledgedAt: true },
+        })
+      : [];
     const items: ReviewQueueItemDto[] = rounds.map((r) => {
       const p = projects.find((x) => x.id === r.projectId)!;
       const h = headings.find((x) => x.id === r.headingId)!;
@@ -434,7 +548,16 @@ export class RoundsReview {
         submittedAt: submittedAt.toISOString(),
         minutesWaiting: Math.max(0, Math.floor((now.getTime() - submittedAt.getTime()) / 60_000)),
         triggerLevel: r.triggerLevel,
-        rules: ruleClocks(r.triggerFirings ?? [], submittedAt, now),
+        rules: ruleClocks(
+          r.triggerFirings ?? [],
+          submittedAt,
+          now,
+          new Map(
+            acks
+              .filter((a) => a.roundId === r.id && a.revision === r.revision)
+              .map((a) => [a.ruleId, a.acknowledgedAt]),
+          ),
+        ),
         recommendedClassCode: classes.find((c) => c.id === r.recommendedClassId)?.code ?? null,
         revision: r.revision,
       };

@@ -546,6 +546,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Acknowledges a fired trigger rule of a submitted or confirmed round, with what was done (the rule's owner role) */
+        post: operations["RoundReviewController_acknowledge"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve": {
         parameters: {
             query?: never;
@@ -831,6 +848,8 @@ export interface components {
             /** @description Addresses that receive every handover */
             distributionList?: string[];
             coordinateGrid?: string;
+            /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+            separationOfDuties?: boolean;
             /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
             version: number;
         };
@@ -1568,6 +1587,32 @@ export interface components {
             authorName: string;
             createdAt: string;
         };
+        RuleAcknowledgementDto: {
+            actionTaken: string;
+            note: string;
+            byName: string;
+            role: string;
+            at: string;
+        };
+        RoundRuleDto: {
+            level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
+            acknowledgement: components["schemas"]["RuleAcknowledgementDto"] | null;
+            /** @description Why it fires, in words */
+            detail: string;
+            /** @description The caller owns this rule and may acknowledge it now */
+            canAcknowledge: boolean;
+            ruleId: string;
+            summary: string;
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+            dueAt: string;
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
+            minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
+            overdue: boolean;
+        };
         ReviewPermissionDto: {
             allowed: boolean;
             /** @description Why not, in words (empty when allowed) */
@@ -1589,6 +1634,8 @@ export interface components {
             decisions: components["schemas"]["ReviewDecisionDto"][];
             /** @description Return comments not yet resolved */
             openComments: components["schemas"]["ReviewCommentDto"][];
+            /** @description The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
+            rules: components["schemas"]["RoundRuleDto"][];
             canConfirm: components["schemas"]["ReviewPermissionDto"];
             canReturn: components["schemas"]["ReviewPermissionDto"];
             canCorrect: components["schemas"]["ReviewPermissionDto"];
@@ -1627,16 +1674,23 @@ export interface components {
             /** @description Why the confirmed round is corrected */
             reason: string;
         };
+        AcknowledgeRuleDto: {
+            /** @description What was done about it (e.g. "Probe holes drilled, no water") */
+            actionTaken: string;
+            note: string;
+        };
         RuleClockDto: {
             level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
             ruleId: string;
             summary: string;
             action: string;
             ownerRole: string;
             timeAllowedHours: number;
             dueAt: string;
-            /** @description Minutes left against the rule's timeframe (negative once overdue) */
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
             minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
             overdue: boolean;
         };
         ReviewQueueItemDto: {
@@ -3384,6 +3438,60 @@ export interface operations {
                 content?: never;
             };
             /** @description Not confirmed, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_acknowledge: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcknowledgeRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /**
+             * @description The rule is owned by another role
+             *
+             *     Member without one of the roles: any
+             */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already acknowledged, or the round is not submitted */
             409: {
                 headers: {
                     [name: string]: unknown;

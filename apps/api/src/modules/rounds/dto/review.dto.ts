@@ -148,6 +148,8 @@ export class RoundReviewDto {
   decisions: ReviewDecisionDto[];
   /** Return comments not yet resolved */
   openComments: ReviewCommentDto[];
+  /** The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
+  rules: RoundRuleDto[];
   canConfirm: ReviewPermissionDto;
   canReturn: ReviewPermissionDto;
   canCorrect: ReviewPermissionDto;
@@ -172,9 +174,41 @@ export class RuleClockDto {
   ownerRole: string;
   timeAllowedHours: number;
   dueAt: string;
-  /** Minutes left against the rule's timeframe (negative once overdue) */
+  /** Minutes left against the rule's timeframe (negative once past it) */
   minutesLeft: number;
+  /** Past its time without its owner's acknowledgement */
   overdue: boolean;
+  @ApiProperty({ type: String, nullable: true })
+  acknowledgedAt: string | null;
+}
+
+export class AcknowledgeRuleDto {
+  /** What was done about it (e.g. "Probe holes drilled, no water") */
+  @IsString()
+  @Length(1, 2000, { message: 'Say what was done (up to 2000 characters).' })
+  actionTaken: string;
+
+  @IsString()
+  @MaxLength(2000)
+  note: string;
+}
+
+export class RuleAcknowledgementDto {
+  actionTaken: string;
+  note: string;
+  byName: string;
+  role: string;
+  at: string;
+}
+
+/** One fired rule of the round, its clock and its acknowledgement. */
+export class RoundRuleDto extends RuleClockDto {
+  /** Why it fires, in words */
+  detail: string;
+  @ApiProperty({ type: RuleAcknowledgementDto, nullable: true })
+  acknowledgement: RuleAcknowledgementDto | null;
+  /** The caller owns this rule and may acknowledge it now */
+  canAcknowledge: boolean;
 }
 
 export class ReviewQueueItemDto {
