@@ -6,7 +6,7 @@ import { resourceKeys } from '@/api/resources/keys';
 import { apiClient, unwrap } from '@/lib/api-client';
 
 // GET /review/queue; GET /projects/{projectId}/rounds/{roundId}/review; POST …/confirm, …/return,
-// …/correct, …/review/comments/{commentId}/resolve.
+// …/correct, …/review/comments/{commentId}/resolve, …/triggers/{ruleId}/acknowledge.
 
 type Schemas = components['schemas'];
 export type RoundReview = Schemas['RoundReviewDto'];
@@ -81,6 +81,21 @@ export function resolveComment(projectId: string, roundId: string, commentId: st
   return unwrap(
     apiClient.POST('/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve', {
       params: { path: { projectId, roundId, commentId } },
+    }),
+  );
+}
+
+/** A fired rule acknowledged by its owner role, with what was done. */
+export function acknowledgeRule(
+  projectId: string,
+  roundId: string,
+  ruleId: string,
+  body: Schemas['AcknowledgeRuleDto'],
+): Promise<RoundReview> {
+  return unwrap(
+    apiClient.POST('/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge', {
+      params: { path: { projectId, roundId, ruleId } },
+      body,
     }),
   );
 }

@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { components } from '@/api/generated/schema';
 import { resourceKeys } from '@/api/resources/keys';
 import {
+  acknowledgeRule,
   confirmRound,
   correctRound,
   resolveComment,
@@ -17,6 +18,7 @@ export type ReviewQueueItem = Schemas['ReviewQueueItemDto'];
 export type RuleClock = Schemas['RuleClockDto'];
 export type ReviewSection = Schemas['ReviewSection'];
 export type ReviewDecision = Schemas['ReviewDecisionDto'];
+export type RoundRule = Schemas['RoundRuleDto'];
 export type SupportClassOption = Pick<
   Schemas['SupportClassDto'],
   'id' | 'code' | 'name' | 'maxRoundLength' | 'retired'
@@ -34,7 +36,8 @@ export type ReviewAction =
   | { kind: 'confirm'; body: Schemas['ConfirmRoundDto'] }
   | { kind: 'return'; body: Schemas['ReturnRoundDto'] }
   | { kind: 'correct'; body: Schemas['CorrectRoundDto'] }
-  | { kind: 'resolve'; commentId: string };
+  | { kind: 'resolve'; commentId: string }
+  | { kind: 'acknowledge'; ruleId: string; body: Schemas['AcknowledgeRuleDto'] };
 
 function run(projectId: string, roundId: string, action: ReviewAction) {
   switch (action.kind) {
@@ -46,6 +49,8 @@ function run(projectId: string, roundId: string, action: ReviewAction) {
       return correctRound(projectId, roundId, action.body);
     case 'resolve':
       return resolveComment(projectId, roundId, action.commentId);
+    case 'acknowledge':
+      return acknowledgeRule(projectId, roundId, action.ruleId, action.body);
   }
 }
 

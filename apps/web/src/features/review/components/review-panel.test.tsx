@@ -138,4 +138,58 @@ describe('ReviewPanel', () => {
     expect(screen.queryByRole('form', { name: 'Confirm the round' })).not.toBeInTheDocument();
     expect(screen.getByRole('tab', { name: 'Return with comments' })).toBeInTheDocument();
   });
+
+  it('lets the owner acknowledge a fired rule with what was done; overdue shows in words', async () => {
+    const rule = {
+      ruleId: 'rule-1',
+      level: 'amber' as const,
+      summary: 'Q < 1 → amber',
+      detail: 'Q 0.62 is below 1.',
+      action: 'Tell the engineer.',
+      ownerRole: 'engineer',
+      timeAllowedHours: 4,
+      dueAt: '2026-11-30T12:00:00.000Z',
+      minutesLeft: -30,
+      overdue: true,
+      acknowledgedAt: null,
+      acknowledgement: null,
+      canAcknowledge: true,
+    };
+    const acknowledged = submittedReview({
+      rules: [
+        {
+          ...rule,
+          overdue: false,
+          acknowledgedAt: '2026-11-30T12:30:00.000Z',
+          canAcknowledge: false,
+          acknowledgement: {
+            actionTaken: 'Probe holes drilled',
+            note: '',
+            byName: 'Edda Ravenshaw',
+            role: 'engineer',
+            at: '2026-11-30T12:30:00.000Z',
+          },
+        },
+      ],
+    });
+    const api = mockApi({
+      [REVIEW]: submittedReview({ rules: [rule] }),
+      'POST /api/projects/p-1/rounds/r-1/triggers/rule-1/acknowledge': () => jsonResponse(acknowledged),
+    });
+    panel();
+    const user = userEvent.setup();
+    const item = await screen.findByTestId('round-rule');
+    expect(item).toHaveTextContent('Overdue by 30 min');
+    const form = within(item).getByRole('form', { name: 'Acknowledge: Q < 1 → amber' });
+    await user.type(within(form).getByRole('textbox', { name: /What was done/ }), 'Probe holes drilled');
+    await user.click(within(form).getByRole('button', { name: 'Acknowledge' }));
+    await waitFor(() =>
+      expect(screen.getByTestId('round-rule')).toHaveTextContent(
+        'Acknowledged by Edda Ravenshaw (engineer), 30 Nov 2026, 12:30: Probe holes drilled',
+      ),
+    );
+    expect(await bodiesOf(api, '/api/projects/p-1/rounds/r-1/triggers/rule-1/acknowledge')).toEqual([
+      { actionTaken: 'Probe holes drilled', note: '' },
+    ]);
+  });
 });

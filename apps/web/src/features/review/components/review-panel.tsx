@@ -28,6 +28,7 @@ import type {
 } from '@/features/review/api/review';
 import { useReviewAction, useRoundReview } from '@/features/review/api/review';
 import { ReviewCaution } from '@/features/review/components/review-caution';
+import { TriggerPlan } from '@/features/review/components/trigger-plan';
 import { needsReason, SECTIONS, sectionLabels } from '@/features/review/utils/format';
 import { isApiError } from '@/lib/api-client';
 
@@ -374,6 +375,12 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
       <Subtitle1 as="h2">Review</Subtitle1>
       <ReviewCaution text={review.caution} />
       <OpenComments projectId={projectId} review={review} />
+      <TriggerPlan
+        projectId={projectId}
+        roundId={roundId}
+        rules={review.rules}
+        when={(iso) => when(iso, timeZone)}
+      />
       {review.confirmation ? (
         <section aria-label="Confirmation">
           <Subtitle2 as="h3">{`Confirmed (revision ${review.confirmation.revision})`}</Subtitle2>

@@ -1,5 +1,5 @@
 import { makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
-import { ClockRegular, ErrorCircleFilled } from '@fluentui/react-icons';
+import { CheckmarkCircleRegular, ClockRegular, ErrorCircleFilled } from '@fluentui/react-icons';
 import { TriggerLevelBadge } from '@roundbook/ui';
 import type { RuleClock } from '@/features/review/api/review';
 import { formatTimeLeft } from '@/features/review/utils/format';
@@ -21,8 +21,16 @@ export function RuleClockLine({ rule }: { rule: RuleClock }) {
         className={mergeClasses(styles.clock, rule.overdue && styles.overdue)}
         data-overdue={rule.overdue ? 'true' : 'false'}
       >
-        {rule.overdue ? <ErrorCircleFilled aria-hidden /> : <ClockRegular aria-hidden />}
-        {`${formatTimeLeft(rule.minutesLeft, rule.overdue)} (${rule.ownerRole}, ${rule.timeAllowedHours} h)`}
+        {rule.acknowledgedAt ? (
+          <CheckmarkCircleRegular aria-hidden />
+        ) : rule.overdue ? (
+          <ErrorCircleFilled aria-hidden />
+        ) : (
+          <ClockRegular aria-hidden />
+        )}
+        {rule.acknowledgedAt
+          ? `Acknowledged (${rule.ownerRole})`
+          : `${formatTimeLeft(rule.minutesLeft, rule.overdue)} (${rule.ownerRole}, ${rule.timeAllowedHours} h)`}
       </span>
     </li>
   );

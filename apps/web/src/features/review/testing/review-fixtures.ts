@@ -29,6 +29,7 @@ export function submittedReview(extra: Partial<RoundReview> = {}): RoundReview {
     confirmation: null,
     decisions: [],
     openComments: [],
+    rules: [],
     canConfirm: allowed,
     canReturn: allowed,
     canCorrect: refused('Only a confirmed round is corrected.'),
