@@ -376,6 +376,12 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       .get('/api/review/queue')
       .set(p.as('geologist'))
       .expect(200, { items: [], caution: CAUTION });
+    // An engineer with nothing waiting on that heading: an empty queue, not an error.
+    await request(http)
+      .get('/api/review/queue?headingId=00000000-0000-4000-8000-000000000000')
+      .set(p.as('engineer'))
+      .expect(200, { items: [], caution: CAUTION });
+    await request(http).get('/api/review/queue?headingId=nope').set(p.as('engineer')).expect(400);
     const queue = (
       await request(http).get(`/api/review/queue?headingId=${p.headingId}`).set(p.as('engineer')).expect(200)
     ).body as Body;

@@ -80,6 +80,7 @@ test('the engineer confirms one round with another class and returns another; th
   await engineer.getByRole('link', { name: 'To confirm' }).first().click();
   await expect(queue).toBeVisible();
   await queue.getByTestId('queue-item').first().getByRole('link').first().click();
+  await expect(engineer).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
   const returnedUrl = engineer.url();
   expect(returnedUrl).not.toBe(confirmedUrl);
   await panel.getByRole('tab', { name: 'Return with comments' }).click();

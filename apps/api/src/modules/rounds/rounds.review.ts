@@ -510,25 +510,23 @@ export class RoundsReview {
       },
       take: 1000,
     });
-    const ids = <K extends keyof Round>(k: K) => [...new Set(rounds.map((r) => r[k] as string))];
-    const [projects, headings, users, classes] = await Promise.all([
-      manager.find(Project, { where: { id: In(ids('projectId').concat([''])) } }),
-      manager.find(Heading, { where: { id: In(ids('headingId').concat([''])) } }),
-      manager.find(User, {
-        where: { id: In(ids('mappedBy').concat([''])) },
-        select: { id: true, name: true },
-      }),
-      manager.find(SupportClass, {
-        where: { id: In(rounds.map((r) => r.recommendedClassId ?? '').concat([''])) },
-        select: { id: true, code: true },
+    if (rounds.length === 0) return { items: [], caution: REVIEW_CAUTION };
+    const ids = (pick: (r: Round) => string | null) => [
+      ...new Set(rounds.map(pick).filter((id): id is string => id !== null)),
+    ];
+    const classIds = ids((r) => r.recommendedClassId);
+    const [projects, headings, users, classes, acks] = await Promise.all([
+      manager.find(Project, { where: { id: In(ids((r) => r.projectId)) } }),
+      manager.find(Heading, { where: { id: In(ids((r) => r.headingId)) } }),
+      manager.find(User, { where: { id: In(ids((r) => r.mappedBy)) }, select: { id: true, name: true } }),
+      classIds.length
+        ? manager.find(SupportClass, { where: { id: In(classIds) }, select: { id: true, code: true } })
+        : Promise.resolve([]),
+      manager.find(TriggerAcknowledgement, {
+        where: { roundId: In(rounds.map((r) => r.id)) },
+        select: { roundId: true, ruleId: true, revision: true, acknowledgedAt: true },
       }),
     ]);
-    const acks = rounds.length
-      ? await manager.find(TriggerAcknowledgement, {
-          where: { roundId: In(rounds.map((r) => r.id)) },
-          select: { roundId: true, ruleId: true, revision: true, acknowledgedAt: true },
-        })
-      : [];
     const items: ReviewQueueItemDto[] = rounds.map((r) => {
       const p = projects.find((x) => x.id === r.projectId)!;
       const h = headings.find((x) => x.id === r.headingId)!;

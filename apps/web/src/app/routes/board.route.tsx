@@ -60,7 +60,12 @@ export function BoardRoute() {
         <ProjectBoard
           key={project.id}
           project={project}
-          reviewHref={(headingId) => `/to-confirm?heading=${encodeURIComponent(headingId)}`}
+          // The engineer's count leads to their queue, filtered to the heading.
+          reviewHref={
+            project.role === 'engineer'
+              ? (headingId) => `/to-confirm?heading=${encodeURIComponent(headingId)}`
+              : undefined
+          }
         />
       ))}
     </>

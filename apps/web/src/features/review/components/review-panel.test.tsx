@@ -180,6 +180,7 @@ describe('ReviewPanel', () => {
     const user = userEvent.setup();
     const item = await screen.findByTestId('round-rule');
     expect(item).toHaveTextContent('Overdue by 30 min');
+    await user.click(within(item).getByRole('button', { name: 'Acknowledge…' }));
     const form = within(item).getByRole('form', { name: 'Acknowledge: Q < 1 → amber' });
     await user.type(within(form).getByRole('textbox', { name: /What was done/ }), 'Probe holes drilled');
     await user.click(within(form).getByRole('button', { name: 'Acknowledge' }));

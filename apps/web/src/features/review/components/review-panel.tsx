@@ -292,8 +292,17 @@ function CorrectForm({ projectId, review }: { projectId: string; review: RoundRe
   );
 }
 
-function Decision({ decision, timeZone }: { decision: ReviewDecision; timeZone: string }) {
+function Decision({
+  decision,
+  timeZone,
+  classes,
+}: {
+  decision: ReviewDecision;
+  timeZone: string;
+  classes: SupportClassOption[];
+}) {
   const styles = useStyles();
+  const recommended = classes.find((c) => c.id === decision.recommendedClassId);
   return (
     <dl className={styles.facts} data-testid="confirmation">
       <dt className={styles.term}>Class to build</dt>
@@ -303,7 +312,9 @@ function Decision({ decision, timeZone }: { decision: ReviewDecision; timeZone: 
       {decision.classId !== decision.recommendedClassId ? (
         <>
           <dt className={styles.term}>Recommended</dt>
-          <dd className={styles.detail}>Another class was recommended</dd>
+          <dd
+            className={styles.detail}
+          >{`${recommended?.code ?? 'none'} (the geologist's recommendation)`}</dd>
         </>
       ) : null}
       {decision.reason ? (
@@ -374,19 +385,13 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
     <Card className={styles.root} aria-label="Review" data-testid="review-panel">
       <Subtitle1 as="h2">Review</Subtitle1>
       <ReviewCaution text={review.caution} />
-      <OpenComments projectId={projectId} review={review} />
-      <TriggerPlan
-        projectId={projectId}
-        roundId={roundId}
-        rules={review.rules}
-        when={(iso) => when(iso, timeZone)}
-      />
       {review.confirmation ? (
         <section aria-label="Confirmation">
           <Subtitle2 as="h3">{`Confirmed (revision ${review.confirmation.revision})`}</Subtitle2>
-          <Decision decision={review.confirmation} timeZone={timeZone} />
+          <Decision decision={review.confirmation} timeZone={timeZone} classes={supportClasses} />
         </section>
       ) : null}
+      <OpenComments projectId={projectId} review={review} />
       {review.status === 'submitted' && !decides ? (
         <Text>
           {review.canConfirm.reason.startsWith('Only an engineer')
@@ -421,6 +426,12 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
           )}
         </>
       ) : null}
+      <TriggerPlan
+        projectId={projectId}
+        roundId={roundId}
+        rules={review.rules}
+        when={(iso) => when(iso, timeZone)}
+      />
       {review.canCorrect.allowed ? <CorrectForm projectId={projectId} review={review} /> : null}
       {review.decisions.length > 0 ? (
         <section aria-label="Review history">

@@ -94,6 +94,7 @@ function AcknowledgeForm({
 /** The trigger plan of the round: each fired rule, its clock, and its owner's acknowledgement. */
 export function TriggerPlan({ projectId, roundId, rules, when }: TriggerPlanProps) {
   const styles = useStyles();
+  const [open, setOpen] = useState<string[]>([]);
   if (rules.length === 0) return null;
   return (
     <section aria-label="Trigger plan">
@@ -111,7 +112,17 @@ export function TriggerPlan({ projectId, roundId, rules, when }: TriggerPlanProp
                   (rule.acknowledgement.note ? ` — ${rule.acknowledgement.note}` : '')}
               </Text>
             ) : rule.canAcknowledge ? (
-              <AcknowledgeForm projectId={projectId} roundId={roundId} rule={rule} />
+              open.includes(rule.ruleId) ? (
+                <AcknowledgeForm projectId={projectId} roundId={roundId} rule={rule} />
+              ) : (
+                <Button
+                  className={styles.button}
+                  size="large"
+                  onClick={() => setOpen((o) => [...o, rule.ruleId])}
+                >
+                  Acknowledge…
+                </Button>
+              )
             ) : (
               <Text className={styles.muted}>{`Waiting for the ${rule.ownerRole} to acknowledge it.`}</Text>
             )}
