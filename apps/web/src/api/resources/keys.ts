@@ -49,6 +49,9 @@ export const resourceKeys = {
   /** The round's review (GET /projects/{id}/rounds/{roundId}/review): below the round, so it goes with it. */
   roundReview: (projectId: string, roundId: string) =>
     [...resourceKeys.round(projectId, roundId), 'review'] as const,
+  /** Every frozen revision of a round (GET /projects/{id}/rounds/{roundId}/revisions). */
+  roundRevisions: (projectId: string, roundId: string) =>
+    [...resourceKeys.round(projectId, roundId), 'revisions'] as const,
   /** The engineer's queue across projects (GET /review/queue), optionally one heading's. */
   reviewQueueAll: () => ['review', 'queue'] as const,
   reviewQueue: (headingId: string | null) => [...resourceKeys.reviewQueueAll(), { headingId }] as const,

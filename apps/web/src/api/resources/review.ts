@@ -5,7 +5,7 @@ import { invalidateResource } from '@/api/resources/invalidate';
 import { resourceKeys } from '@/api/resources/keys';
 import { apiClient, unwrap } from '@/lib/api-client';
 
-// GET /review/queue; GET /projects/{projectId}/rounds/{roundId}/review; POST …/confirm, …/return,
+// GET /review/queue; GET /projects/{projectId}/rounds/{roundId}/review and …/revisions; POST …/confirm, …/return,
 // …/correct, …/review/comments/{commentId}/resolve, …/triggers/{ruleId}/acknowledge.
 
 type Schemas = components['schemas'];
@@ -36,6 +36,23 @@ export const roundReviewQueryOptions = (projectId: string, roundId: string) =>
   queryOptions({
     queryKey: resourceKeys.roundReview(projectId, roundId),
     queryFn: () => getRoundReview(projectId, roundId),
+  });
+
+export type RoundRevision = Schemas['RoundRevisionDto'];
+
+export function getRoundRevisions(projectId: string, roundId: string): Promise<RoundRevision[]> {
+  return unwrap(
+    apiClient.GET('/api/projects/{projectId}/rounds/{roundId}/revisions', {
+      params: { path: { projectId, roundId } },
+    }),
+  );
+}
+
+/** Revisions never change once written; new ones come with a decision (the round's key is invalidated). */
+export const roundRevisionsQueryOptions = (projectId: string, roundId: string) =>
+  queryOptions({
+    queryKey: resourceKeys.roundRevisions(projectId, roundId),
+    queryFn: () => getRoundRevisions(projectId, roundId),
   });
 
 export function confirmRound(
@@ -112,6 +129,7 @@ export async function reviewChanged(
   queryClient.setQueryData(resourceKeys.roundReview(projectId, review.roundId), review);
   await Promise.all([
     invalidateResource(queryClient, resourceKeys.round(projectId, review.roundId), { exact: true }),
+    invalidateResource(queryClient, resourceKeys.roundRevisions(projectId, review.roundId)),
     invalidateResource(queryClient, resourceKeys.reviewQueueAll()),
     invalidateResource(queryClient, resourceKeys.projects(), { exact: true }),
   ]);

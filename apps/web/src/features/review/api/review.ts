@@ -7,6 +7,7 @@ import {
   correctRound,
   resolveComment,
   returnRound,
+  roundRevisionsQueryOptions,
   reviewChanged,
   reviewQueueQueryOptions,
   roundReviewQueryOptions,
@@ -19,6 +20,7 @@ export type RuleClock = Schemas['RuleClockDto'];
 export type ReviewSection = Schemas['ReviewSection'];
 export type ReviewDecision = Schemas['ReviewDecisionDto'];
 export type RoundRule = Schemas['RoundRuleDto'];
+export type RoundRevision = Schemas['RoundRevisionDto'];
 export type SupportClassOption = Pick<
   Schemas['SupportClassDto'],
   'id' | 'code' | 'name' | 'maxRoundLength' | 'retired'
@@ -26,6 +28,10 @@ export type SupportClassOption = Pick<
 
 export function useReviewQueue(headingId: string | null) {
   return useQuery(reviewQueueQueryOptions(headingId));
+}
+
+export function useRoundRevisions(projectId: string, roundId: string, enabled: boolean) {
+  return useQuery({ ...roundRevisionsQueryOptions(projectId, roundId), enabled });
 }
 
 export function useRoundReview(projectId: string, roundId: string) {

@@ -193,4 +193,37 @@ describe('ReviewPanel', () => {
       { actionTaken: 'Probe holes drilled', note: '' },
     ]);
   });
+
+  it('compares any two revisions field by field', async () => {
+    const revision = (n: number, event: string, water: string, id: string) => ({
+      id,
+      revision: n,
+      event,
+      status: event === 'confirm' ? 'confirmed' : 'submitted',
+      createdBy: 'u-geo',
+      createdAt: '2026-11-30T09:00:00.000Z',
+      record: { faceChainage: 1003, ground: { waterDescription: water }, joints: [] },
+      assessment: {},
+      assessmentVersion: 'test',
+    });
+    mockApi({
+      [REVIEW]: confirmedReview(),
+      'GET /api/projects/p-1/rounds/r-1/revisions': [
+        revision(1, 'submit', '', 'v-1'),
+        revision(1, 'return', '', 'v-2'),
+        revision(2, 'submit', 'Drips from the crown joint', 'v-3'),
+      ],
+    });
+    panel();
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole('button', { name: 'Compare revisions' }));
+    const table = await screen.findByRole('table', { name: 'Fields that differ' });
+    expect(
+      within(table)
+        .getAllByTestId('revision-change')
+        .map((r) => r.textContent),
+    ).toEqual(['ground › waterDescription—Drips from the crown joint']);
+    await user.selectOptions(screen.getByRole('combobox', { name: 'From' }), 'v-3');
+    expect(await screen.findByText('No field differs between these two.')).toBeInTheDocument();
+  });
 });

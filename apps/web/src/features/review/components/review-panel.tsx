@@ -28,6 +28,7 @@ import type {
 } from '@/features/review/api/review';
 import { useReviewAction, useRoundReview } from '@/features/review/api/review';
 import { ReviewCaution } from '@/features/review/components/review-caution';
+import { RevisionCompare } from '@/features/review/components/revision-compare';
 import { TriggerPlan } from '@/features/review/components/trigger-plan';
 import { needsReason, SECTIONS, sectionLabels } from '@/features/review/utils/format';
 import { isApiError } from '@/lib/api-client';
@@ -433,6 +434,9 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
         when={(iso) => when(iso, timeZone)}
       />
       {review.canCorrect.allowed ? <CorrectForm projectId={projectId} review={review} /> : null}
+      {review.decisions.length > 0 ? (
+        <RevisionCompare projectId={projectId} roundId={roundId} when={(iso) => when(iso, timeZone)} />
+      ) : null}
       {review.decisions.length > 0 ? (
         <section aria-label="Review history">
           <Subtitle2 as="h3">History</Subtitle2>
