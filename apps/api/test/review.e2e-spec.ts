@@ -452,4 +452,27 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       .findOneByOrFail({ entityId: r.id, action: 'acknowledge-trigger' });
     expect(audit.after).toMatchObject({ ruleId: amber.ruleId, level: 'amber' });
   });
+
+  it('tells the engineers when a fired rule runs past its time unacknowledged (red first in the subject)', async () => {
+    const main = p;
+    p = await makeProject(app, {
+      code: `${code}B`,
+      rules: [{ watch: 'q', comparison: '<', threshold: 20, level: 'red', timeAllowedHours: 0 }],
+    });
+    try {
+      const r = await mapRound(1003, fairQ, 'C1');
+      expect(r.triggerLevel).toBe('red');
+      const submitted = await mailWith(p.emailOf('engineer'), /^Red — To confirm: TH round 1/);
+      expect(submitted[0].text).toContain('Red trigger level.');
+      // No time allowed: the check runs at once, finds no acknowledgement and tells the engineers.
+      const overdue = await mailWith(p.emailOf('engineer'), /^Red — Overdue: TH round 1/);
+      expect(overdue).toHaveLength(1);
+      expect(overdue[0].text).toContain('Rule: Q');
+      expect(overdue[0].text).toContain(`/projects/${p.projectId}/rounds/${r.id}`);
+      expect(overdue[0].text).toContain(CAUTION);
+      expect(overdue[0].html).toContain('Open the round');
+    } finally {
+      p = main;
+    }
+  });
 });

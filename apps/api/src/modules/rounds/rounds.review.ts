@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { formatChainageFor, type TriggerFiring } from '@roundbook/domain';
 import { DataSource, In, IsNull, type EntityManager } from 'typeorm';
@@ -7,6 +7,8 @@ import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
+import { JobHandlers } from '../../infrastructure/jobs/job-handlers.js';
+import { JobsService } from '../../infrastructure/jobs/jobs.service.js';
 import { NoticesService } from '../../infrastructure/mail/notices.service.js';
 import { reviewEmail, type ReviewEmail } from '../../infrastructure/mail/templates/review.email.js';
 import { AuditService } from '../audit/audit.service.js';
@@ -48,6 +50,9 @@ import { Round } from './round.entity.js';
 import { recordOf } from './rounds.mapper.js';
 import { RoundsQueries } from './rounds.queries.js';
 
+/** The job that checks, when a fired rule's timeframe runs out, whether its owner acknowledged it. */
+export const RULE_DUE_JOB = 'review.rule-due';
+
 const allowed: ReviewPermissionDto = { allowed: true, reason: '' };
 const refused = (reason: string): ReviewPermissionDto => ({ allowed: false, reason });
 
@@ -57,14 +62,22 @@ const refused = (reason: string): ReviewPermissionDto => ({ allowed: false, reas
  * decision sends. Nothing here confirms anything by itself: every change is one person's signed request.
  */
 @Injectable()
-export class RoundsReview {
+export class RoundsReview implements OnModuleInit {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
     @Inject(RoundsQueries) private readonly queries: RoundsQueries,
     @Inject(NoticesService) private readonly notices: NoticesService,
+    @Inject(JobsService) private readonly jobs: JobsService,
+    @Inject(JobHandlers) private readonly handlers: JobHandlers,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
+
+  onModuleInit(): void {
+    this.handlers.register(RULE_DUE_JOB, (payload) =>
+      this.ruleDue(String(payload.roundId), String(payload.ruleId), Number(payload.revision)),
+    );
+  }
 
   /** The review of one round as the caller sees it (any member). */
   async review(caller: AuthUser, access: ProjectAccess, roundId: string): Promise<RoundReviewDto> {
@@ -459,6 +472,16 @@ export class RoundsReview {
       .where('m.project_id = :projectId', { projectId: round.projectId })
       .andWhere("m.role = 'engineer'")
       .getRawMany<{ email: string }>();
+    // Each fired rule's timeframe is checked when it runs out (a job per rule and revision).
+    const submittedAt = round.submittedAt ?? new Date();
+    for (const f of round.triggerFirings ?? []) {
+      await this.jobs.enqueue(manager, {
+        kind: RULE_DUE_JOB,
+        payload: { roundId: round.id, ruleId: f.ruleId, revision: round.revision },
+        runAt: new Date(submittedAt.getTime() + f.timeAllowedHours * 3_600_000),
+        dedupeKey: `rule-due:${round.id}:${round.revision}:${f.ruleId}`,
+      });
+    }
     if (engineers.length === 0) return;
     const ctx = await this.context(manager, round);
     const cls = round.recommendedClassId
@@ -478,6 +501,44 @@ export class RoundsReview {
         `Revision ${round.revision}.`,
       ],
     );
+  }
+
+  /**
+   * The RULE_DUE_JOB handler: when a fired rule's time is up and its owner has not acknowledged it on that
+   * revision (and the round was not returned or corrected since), the project's engineers and the members
+   * of the owning role are told.
+   */
+  async ruleDue(roundId: string, ruleId: string, revision: number): Promise<void> {
+    await this.dataSource.transaction(async (manager) => {
+      const round = await manager.findOne(Round, { where: { id: roundId } });
+      if (!round || round.revision !== revision) return;
+      if (round.status !== 'submitted' && round.status !== 'confirmed') return;
+      const firing = (round.triggerFirings ?? []).find((f) => f.ruleId === ruleId);
+      if (!firing) return;
+      const acked = await manager.count(TriggerAcknowledgement, { where: { roundId, ruleId, revision } });
+      if (acked > 0) return;
+      const people = await manager
+        .createQueryBuilder(ProjectMember, 'm')
+        .innerJoin(User, 'u', 'u.id = m.user_id')
+        .select(['u.email AS email'])
+        .where('m.project_id = :projectId', { projectId: round.projectId })
+        .andWhere('m.role IN (:...roles)', { roles: [...new Set(['engineer', firing.ownerRole])] })
+        .getRawMany<{ email: string }>();
+      if (people.length === 0) return;
+      await this.send(
+        manager,
+        round,
+        await this.context(manager, round),
+        'rule-overdue',
+        '',
+        [...new Set(people.map((p) => p.email))],
+        [
+          `Rule: ${firing.summary} (${firing.level}).`,
+          `What to do: ${firing.action}`,
+          `Owner: ${firing.ownerRole}; time allowed: ${firing.timeAllowedHours} h from the submit.`,
+        ],
+      );
+    });
   }
 
   /** Submitted rounds of every project where the caller is an engineer: red first, then oldest. */
@@ -706,6 +767,7 @@ export class RoundsReview {
       actorName,
       link: `${this.config.appUrl}/projects/${round.projectId}/rounds/${round.id}`,
       lines,
+      red: round.triggerLevel === 'red' && (kind === 'submitted' || kind === 'rule-overdue'),
     });
     await this.notices.queue(manager, { kind: `round-${kind}`, projectId: round.projectId, to, ...message });
   }

@@ -22,4 +22,9 @@ describe('review e-mails', () => {
     expect(mail.html).not.toContain('<Headrace>');
     expect(mail.text).toContain('Test engineer submitted TH round 3');
   });
+  it('puts a red level first, in the subject and the headline', () => {
+    const mail = reviewEmail({ ...base, kind: 'submitted', red: true });
+    expect(mail.subject).toMatch(/^Red — To confirm: TH round 3/);
+    expect(mail.text.startsWith('Red trigger level. Test engineer submitted')).toBe(true);
+  });
 });
