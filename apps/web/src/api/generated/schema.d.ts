@@ -4,3786 +4,3758 @@
  */
 
 export interface paths {
-  '/api/config': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/config": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** What the web app needs to know before sign-in */
+        get: operations["AppInfoController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** What the web app needs to know before sign-in */
-    get: operations['AppInfoController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/audit': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/audit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's audit trail, newest first (any member) */
+        get: operations["AuditController_list"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The project's audit trail, newest first (any member) */
-    get: operations['AuditController_list'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/auth/login': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/auth/login": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Signs in with e-mail and password; returns a bearer token. Rate-limited per address. */
+        post: operations["AuthController_login"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Signs in with e-mail and password; returns a bearer token. Rate-limited per address. */
-    post: operations['AuthController_login'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/auth/me': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/auth/me": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The signed-in user and their project memberships */
+        get: operations["AuthController_me"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The signed-in user and their project memberships */
-    get: operations['AuthController_me'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The caller's projects with their headings and the caller's role in each */
+        get: operations["ProjectsController_list"];
+        put?: never;
+        /** Creates a project; the caller becomes its admin (PROJECT_CREATION: anyone, or operators only) */
+        post: operations["ProjectsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The caller's projects with their headings and the caller's role in each */
-    get: operations['ProjectsController_list'];
-    put?: never;
-    /** Creates a project; the caller becomes its admin (PROJECT_CREATION: anyone, or operators only) */
-    post: operations['ProjectsController_create'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One project (members only) */
+        get: operations["ProjectsController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /** Changes the project's settings (project admins) */
+        patch: operations["ProjectsController_update"];
+        trace?: never;
     };
-    /** One project (members only) */
-    get: operations['ProjectsController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    /** Changes the project's settings (project admins) */
-    patch: operations['ProjectsController_update'];
-    trace?: never;
-  };
-  '/api/projects/{projectId}/headings': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/headings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's headings (any member) */
+        get: operations["HeadingsController_list"];
+        put?: never;
+        /** Adds a heading (project admins) */
+        post: operations["HeadingsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The project's headings (any member) */
-    get: operations['HeadingsController_list'];
-    put?: never;
-    /** Adds a heading (project admins) */
-    post: operations['HeadingsController_create'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/headings/{headingId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/headings/{headingId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One heading with its alignment and profile (any member) */
+        get: operations["HeadingsController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /** Changes a heading (project admins); optimistic locking by version */
+        patch: operations["HeadingsController_update"];
+        trace?: never;
     };
-    /** One heading with its alignment and profile (any member) */
-    get: operations['HeadingsController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    /** Changes a heading (project admins); optimistic locking by version */
-    patch: operations['HeadingsController_update'];
-    trace?: never;
-  };
-  '/api/projects/{projectId}/support-classes': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/support-classes": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's support classes, best ground first, with range warnings (any member) */
+        get: operations["SupportClassesController_list"];
+        put?: never;
+        /** Adds a class at the end of the list (project admins) */
+        post: operations["SupportClassesController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The project's support classes, best ground first, with range warnings (any member) */
-    get: operations['SupportClassesController_list'];
-    put?: never;
-    /** Adds a class at the end of the list (project admins) */
-    post: operations['SupportClassesController_create'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/support-classes/order': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/support-classes/order": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /** Sets the order of the whole library, best ground first (project admins) */
+        put: operations["SupportClassesController_reorder"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    /** Sets the order of the whole library, best ground first (project admins) */
-    put: operations['SupportClassesController_reorder'];
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/support-classes/{classId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/support-classes/{classId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Deletes a class no record uses (project admins); a class in use can only be retired */
+        delete: operations["SupportClassesController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes or retires a class (project admins) */
+        patch: operations["SupportClassesController_update"];
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    post?: never;
-    /** Deletes a class no record uses (project admins); a class in use can only be retired */
-    delete: operations['SupportClassesController_remove'];
-    options?: never;
-    head?: never;
-    /** Changes or retires a class (project admins) */
-    patch: operations['SupportClassesController_update'];
-    trace?: never;
-  };
-  '/api/projects/{projectId}/trigger-rules': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/trigger-rules": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The project's trigger rules, red first (any member) */
+        get: operations["TriggerRulesController_list"];
+        put?: never;
+        /** Adds a rule (admins and engineers) */
+        post: operations["TriggerRulesController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The project's trigger rules, red first (any member) */
-    get: operations['TriggerRulesController_list'];
-    put?: never;
-    /** Adds a rule (admins and engineers) */
-    post: operations['TriggerRulesController_create'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/trigger-rules/preview': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/trigger-rules/preview": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** How a rule (saved or not) would fire on the project's latest rounds (admins and engineers) */
+        post: operations["TriggerRulesController_preview"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** How a rule (saved or not) would fire on the project's latest rounds (admins and engineers) */
-    post: operations['TriggerRulesController_preview'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/trigger-rules/{ruleId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/trigger-rules/{ruleId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Deletes a rule (admins and engineers) */
+        delete: operations["TriggerRulesController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes a rule (admins and engineers) */
+        patch: operations["TriggerRulesController_update"];
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    post?: never;
-    /** Deletes a rule (admins and engineers) */
-    delete: operations['TriggerRulesController_remove'];
-    options?: never;
-    head?: never;
-    /** Changes a rule (admins and engineers) */
-    patch: operations['TriggerRulesController_update'];
-    trace?: never;
-  };
-  '/api/projects/{projectId}/team': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/team": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Members and open invitations (any member) */
+        get: operations["TeamController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Members and open invitations (any member) */
-    get: operations['TeamController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/invitations': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/invitations": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Invites someone by e-mail with a role (project admins). The link expires after 7 days. */
+        post: operations["TeamController_invite"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Invites someone by e-mail with a role (project admins). The link expires after 7 days. */
-    post: operations['TeamController_invite'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/invitations/{invitationId}/resend': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/invitations/{invitationId}/resend": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Sends a fresh link for an open invitation (project admins) */
+        post: operations["TeamController_resend"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Sends a fresh link for an open invitation (project admins) */
-    post: operations['TeamController_resend'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/invitations/{invitationId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/invitations/{invitationId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Withdraws an open invitation (project admins) */
+        delete: operations["TeamController_revoke"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    post?: never;
-    /** Withdraws an open invitation (project admins) */
-    delete: operations['TeamController_revoke'];
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/members/{memberId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/members/{memberId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Removes a member (project admins); their records stay, attributed to them */
+        delete: operations["TeamController_remove"];
+        options?: never;
+        head?: never;
+        /** Changes a member's role (project admins); the last admin cannot be demoted */
+        patch: operations["TeamController_changeRole"];
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    post?: never;
-    /** Removes a member (project admins); their records stay, attributed to them */
-    delete: operations['TeamController_remove'];
-    options?: never;
-    head?: never;
-    /** Changes a member's role (project admins); the last admin cannot be demoted */
-    patch: operations['TeamController_changeRole'];
-    trace?: never;
-  };
-  '/api/invitations/{token}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/invitations/{token}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** What an invitation link is for (public; the token is the secret) */
+        get: operations["InvitationsController_info"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** What an invitation link is for (public; the token is the secret) */
-    get: operations['InvitationsController_info'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/invitations/{token}/accept': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/invitations/{token}/accept": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Accepts an invitation, once, for the invited address only: signed in as that address, joins with the
+         *     account; not signed in, creates the account for it (refused if one exists: sign in first). Signed in
+         *     as anyone else: 403.
+         */
+        post: operations["InvitationsController_accept"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /**
-     * Accepts an invitation, once, for the invited address only: signed in as that address, joins with the
-     *     account; not signed in, creates the account for it (refused if one exists: sign in first). Signed in
-     *     as anyone else: 403.
-     */
-    post: operations['InvitationsController_accept'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/headings/{headingId}/rounds': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/headings/{headingId}/rounds": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** A page of the heading's rounds, sorted and filtered in the database (any member) */
+        get: operations["RoundsController_list"];
+        put?: never;
+        /** Opens a new round (draft) on the heading (geologists). A retry with the same Idempotency-Key (or round id) returns the first result. */
+        post: operations["RoundsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** A page of the heading's rounds, sorted and filtered in the database (any member) */
-    get: operations['RoundsController_list'];
-    put?: never;
-    /** Opens a new round (draft) on the heading (geologists). A retry with the same Idempotency-Key (or round id) returns the first result. */
-    post: operations['RoundsController_create'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/headings/{headingId}/rounds/next': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/headings/{headingId}/rounds/next": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The number and previous chainage a new round of this stage would get (geologists) */
+        get: operations["RoundsController_next"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The number and previous chainage a new round of this stage would get (geologists) */
-    get: operations['RoundsController_next'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/revisions': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/revisions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Every frozen revision of the round (at each submit, and later confirm or return), oldest first (any member) */
+        get: operations["RoundsController_revisions"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Every frozen revision of the round (at each submit, and later confirm or return), oldest first (any member) */
-    get: operations['RoundsController_revisions'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/headings/{headingId}/joints': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/headings/{headingId}/joints": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Readable joints of the heading over a chainage window, for finding sets (any member) */
+        get: operations["RoundsController_joints"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Readable joints of the heading over a chainage window, for finding sets (any member) */
-    get: operations['RoundsController_joints'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One round with joints, computed ratings, suggested classes and warnings (any member) */
+        get: operations["RoundsController_get"];
+        /** Saves the round as a whole (geologists; drafts and returned rounds). 409 STALE_VERSION carries the current version. */
+        put: operations["RoundsController_save"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** One round with joints, computed ratings, suggested classes and warnings (any member) */
-    get: operations['RoundsController_get'];
-    /** Saves the round as a whole (geologists; drafts and returned rounds). 409 STALE_VERSION carries the current version. */
-    put: operations['RoundsController_save'];
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/submit': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/submit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Submits the round for review (geologists): draft → submitted */
+        post: operations["RoundsController_submit"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Submits the round for review (geologists): draft → submitted */
-    post: operations['RoundsController_submit'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/review': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/review": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The round's review: confirmation, decisions, open return comments and what the caller may do (any member) */
+        get: operations["RoundReviewController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The round's review: confirmation, decisions, open return comments and what the caller may do (any member) */
-    get: operations['RoundReviewController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/confirm': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/confirm": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Confirms a submitted round with the class and next round length to build, signed with the password (engineers) */
+        post: operations["RoundReviewController_confirm"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Confirms a submitted round with the class and next round length to build, signed with the password (engineers) */
-    post: operations['RoundReviewController_confirm'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/return': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/return": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Returns a submitted round to the geologist with comments per section: a draft of a new revision (engineers) */
+        post: operations["RoundReviewController_return"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Returns a submitted round to the geologist with comments per section: a draft of a new revision (engineers) */
-    post: operations['RoundReviewController_return'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/correct': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/correct": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Opens a new revision of a confirmed round, with the reason; it is reviewed again (engineers, geologists) */
+        post: operations["RoundReviewController_correct"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Opens a new revision of a confirmed round, with the reason; it is reviewed again (engineers, geologists) */
-    post: operations['RoundReviewController_correct'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Acknowledges a fired trigger rule of a submitted or confirmed round, with what was done (the rule's owner role) */
+        post: operations["RoundReviewController_acknowledge"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Acknowledges a fired trigger rule of a submitted or confirmed round, with what was done (the rule's owner role) */
-    post: operations['RoundReviewController_acknowledge'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Marks a return comment resolved (geologists, engineers); the next submit resolves the rest */
+        post: operations["RoundReviewController_resolve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Marks a return comment resolved (geologists, engineers); the next submit resolves the rest */
-    post: operations['RoundReviewController_resolve'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/review/queue': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/review/queue": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The caller's queue: submitted rounds of every project where they are an engineer, red first, then oldest */
+        get: operations["ReviewQueueController_queue"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** The caller's queue: submitted rounds of every project where they are an engineer, red first, then oldest */
-    get: operations['ReviewQueueController_queue'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/health': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/health": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Database, object storage and mail transport; 503 when any of them fails */
+        get: operations["HealthController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Database, object storage and mail transport; 503 when any of them fails */
-    get: operations['HealthController_get'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/local/access': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/local/access": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Whether the caller may open the local mail and jobs view (local mode and instance operator) */
+        get: operations["LocalAccessController_access"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Whether the caller may open the local mail and jobs view (local mode and instance operator) */
-    get: operations['LocalAccessController_access'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/local/mail': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/local/mail": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** E-mails received by the local SMTP fake, newest first (local mode, the instance operator) */
+        get: operations["LocalMailController_list"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** E-mails received by the local SMTP fake, newest first (local mode, the instance operator) */
-    get: operations['LocalMailController_list'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/local/mail/{id}/attachments/{index}': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/local/mail/{id}/attachments/{index}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One attachment of a received e-mail */
+        get: operations["LocalMailController_attachment"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** One attachment of a received e-mail */
-    get: operations['LocalMailController_attachment'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/local/jobs': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/local/jobs": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Background jobs not done yet: waiting, running and failed (with their last error), and counts */
+        get: operations["LocalMailController_jobs"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    /** Background jobs not done yet: waiting, running and failed (with their last error), and counts */
-    get: operations['LocalMailController_jobs'];
-    put?: never;
-    post?: never;
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
-  '/api/local/jobs/{jobId}/retry': {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
+    "/api/local/jobs/{jobId}/retry": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Runs a waiting job now, or starts a failed one over */
+        post: operations["LocalMailController_retry"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
     };
-    get?: never;
-    put?: never;
-    /** Runs a waiting job now, or starts a failed one over */
-    post: operations['LocalMailController_retry'];
-    delete?: never;
-    options?: never;
-    head?: never;
-    patch?: never;
-    trace?: never;
-  };
 }
 export type webhooks = Record<string, never>;
 export interface components {
-  schemas: {
-    AppInfoDto: {
-      /** @description Local mode: the SMTP fake's inbox is available to admins */
-      localMode: boolean;
-      version: string;
-    };
-    AuditEventDto: {
-      before: {
-        [key: string]: unknown;
-      } | null;
-      after: {
-        [key: string]: unknown;
-      } | null;
-      actorId: string | null;
-      id: string;
-      entityType: string;
-      entityId: string;
-      action: string;
-      /** @description The person's name, kept even after they left the project */
-      actorName: string;
-      at: string;
-    };
-    LoginDto: {
-      /**
-       * Format: email
-       * @description The e-mail address the account was created with
-       */
-      email: string;
-      password: string;
-    };
-    UserDto: {
-      id: string;
-      email: string;
-      name: string;
-    };
-    TokenResponseDto: {
-      /** @description Bearer token for the Authorization header */
-      accessToken: string;
-      /** @description When the token expires (ISO 8601) */
-      expiresAt: string;
-      user: components['schemas']['UserDto'];
-    };
-    ErrorResponseDto: {
-      /** @description Machine-readable code, e.g. VALIDATION_FAILED, INVALID_CREDENTIALS, NOT_FOUND, STALE_VERSION */
-      code: string;
-      /** @description A sentence for people */
-      message: string;
-      /** @description Per-field messages for validation errors, keyed by field path */
-      fields?: {
-        [key: string]: string;
-      };
-    };
-    /** @enum {string} */
-    ProjectRole: 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';
-    MembershipDto: {
-      role: components['schemas']['ProjectRole'];
-      projectId: string;
-      projectName: string;
-    };
-    MeDto: {
-      id: string;
-      email: string;
-      name: string;
-      memberships: components['schemas']['MembershipDto'][];
-    };
-    /** @enum {string} */
-    QTableEdition: '2015';
-    /** @enum {string} */
-    PlaneNotation: 'dip-direction/dip' | 'dip/dip-direction' | 'strike/dip-rhr';
-    /**
-     * @description Scale of weathering and strength grades (one per project)
-     * @enum {string}
-     */
-    GroundScale: 'isrm' | 'iso-14689';
-    /** @enum {string} */
-    Stage: 'full-face' | 'top-heading' | 'bench' | 'invert';
-    /** @enum {string} */
-    ProfileShape: 'circular' | 'horseshoe' | 'd-shaped' | 'rectangular';
-    /** @enum {string} */
-    TriggerLevel: 'green' | 'amber' | 'red';
-    LastHandoverDto: {
-      sentAt: string;
-      acknowledgedAt: string | null;
-    };
-    HeadingSummaryDto: {
-      stages: components['schemas']['Stage'][];
-      profileShape: components['schemas']['ProfileShape'];
-      /** @description Chainage of the latest mapped face, metres; null before the first round */
-      faceChainage: number | null;
-      lastRoundAt: string | null;
-      triggerLevel: components['schemas']['TriggerLevel'] | null;
-      lastHandover: components['schemas']['LastHandoverDto'] | null;
-      id: string;
-      code: string;
-      name: string;
-      /** @description Drive direction, degrees clockwise from north */
-      driveTrend: number;
-      /** @description Gradient in per cent, positive rising in the direction of advance */
-      gradientPercent: number;
-      /** @description Start chainage in metres */
-      startChainage: number;
-      profileWidth: number;
-      profileHeight: number;
-      plannedRoundLength: number;
-      /** @description Rounds submitted and waiting for the engineer's review */
-      roundsToConfirm: number;
-    };
-    ProjectSummaryDto: {
-      qTableEdition: components['schemas']['QTableEdition'];
-      defaultNotation: components['schemas']['PlaneNotation'];
-      /** @description Scale of weathering and strength grades (one per project) */
-      groundScale: components['schemas']['GroundScale'];
-      /** @description The caller's role in this project */
-      role: components['schemas']['ProjectRole'];
-      id: string;
-      code: string;
-      name: string;
-      client: string;
-      /** @description IANA time zone; shift dates follow it */
-      timeZone: string;
-      /** @description Addresses that receive every handover */
-      distributionList: string[];
-      /** @description Name of the project's coordinate grid */
-      coordinateGrid: string;
-      /** @description Optimistic-locking version; send it back when changing the project */
-      version: number;
-      headings: components['schemas']['HeadingSummaryDto'][];
-    };
-    CreateProjectDto: {
-      defaultNotation?: components['schemas']['PlaneNotation'];
-      groundScale?: components['schemas']['GroundScale'];
-      code: string;
-      name: string;
-      client?: string;
-      timeZone: string;
-    };
-    UpdateProjectDto: {
-      defaultNotation?: components['schemas']['PlaneNotation'];
-      qTableEdition?: components['schemas']['QTableEdition'];
-      groundScale?: components['schemas']['GroundScale'];
-      name?: string;
-      client?: string;
-      timeZone?: string;
-      /** @description Addresses that receive every handover */
-      distributionList?: string[];
-      coordinateGrid?: string;
-      /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
-      separationOfDuties?: boolean;
-      /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
-      version: number;
-    };
-    /** @enum {string} */
-    ChainageStyle: 'km+m' | 'metres';
-    /**
-     * @description Whether chainage increases or decreases in the drive direction
-     * @enum {string}
-     */
-    ChainageSense: 'increasing' | 'decreasing';
-    /**
-     * @description Which side the arc turns to, looking in the drive direction; null for a straight
-     * @enum {string}
-     */
-    AlignmentSide: 'left' | 'right';
-    AlignmentSegmentDto: {
-      /** @description Radius of an arc, metres; null for a straight */
-      radius: number | null;
-      /** @description Which side the arc turns to, looking in the drive direction; null for a straight */
-      side: components['schemas']['AlignmentSide'] | null;
-      /** @description Length along the alignment, metres */
-      length: number;
-    };
-    HeadingDto: {
-      chainageStyle: components['schemas']['ChainageStyle'];
-      profileShape: components['schemas']['ProfileShape'];
-      stages: components['schemas']['Stage'][];
-      startEasting: number | null;
-      startNorthing: number | null;
-      startElevation: number | null;
-      /** @description Whether chainage increases or decreases in the drive direction */
-      chainageSense?: components['schemas']['ChainageSense'];
-      /** @description Drive bearing at the start when a curve begins there; null: the drive trend */
-      initialBearing?: number | null;
-      /** @description Straights and arcs from the start, in the drive direction (empty: one straight) */
-      alignmentSegments?: components['schemas']['AlignmentSegmentDto'][];
-      /** @description Top of the bench above the invert, metres (staged profiles); null: at the axis */
-      benchHeight?: number | null;
-      id: string;
-      projectId: string;
-      code: string;
-      name: string;
-      /** @description Start chainage, metres */
-      startChainage: number;
-      chainageDecimals: number;
-      /** @description Drive direction, degrees clockwise from north */
-      driveTrend: number;
-      /** @description Gradient in per cent, positive rising in the direction of advance */
-      gradientPercent: number;
-      profileWidth: number;
-      profileHeight: number;
-      /** @description Height of the tunnel axis above the invert, metres */
-      axisHeight: number;
-      plannedRoundLength: number;
-      version: number;
-    };
-    CreateHeadingDto: {
-      chainageStyle?: components['schemas']['ChainageStyle'];
-      profileShape: components['schemas']['ProfileShape'];
-      stages: components['schemas']['Stage'][];
-      chainageSense?: components['schemas']['ChainageSense'];
-      initialBearing?: number | null;
-      alignmentSegments?: components['schemas']['AlignmentSegmentDto'][];
-      benchHeight?: number | null;
-      code: string;
-      name: string;
-      startChainage: number;
-      chainageDecimals?: number;
-      driveTrend: number;
-      /** @description Per cent; −30 to 30 */
-      gradientPercent: number;
-      profileWidth: number;
-      profileHeight: number;
-      axisHeight: number;
-      plannedRoundLength: number;
-      startEasting?: number | null;
-      startNorthing?: number | null;
-      startElevation?: number | null;
-    };
-    UpdateHeadingDto: {
-      chainageStyle?: components['schemas']['ChainageStyle'];
-      profileShape?: components['schemas']['ProfileShape'];
-      stages?: components['schemas']['Stage'][];
-      chainageSense?: components['schemas']['ChainageSense'];
-      initialBearing?: number | null;
-      alignmentSegments?: components['schemas']['AlignmentSegmentDto'][];
-      benchHeight?: number | null;
-      code?: string;
-      name?: string;
-      startChainage?: number;
-      chainageDecimals?: number;
-      driveTrend?: number;
-      /** @description Per cent; −30 to 30 */
-      gradientPercent?: number;
-      profileWidth?: number;
-      profileHeight?: number;
-      axisHeight?: number;
-      plannedRoundLength?: number;
-      startEasting?: number | null;
-      startNorthing?: number | null;
-      startElevation?: number | null;
-      /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
-      version: number;
-      /** @description Required when the drive or profile changes after rounds exist (they are recomputed) */
-      confirmRecompute?: boolean;
-    };
-    SupportClassDto: {
-      /** @description Q range [qMin, qMax); null = open */
-      qMin: number | null;
-      qMax: number | null;
-      /** @description RMR89 range [rmrMin, rmrMax], whole numbers; null = open */
-      rmrMin: number | null;
-      rmrMax: number | null;
-      boltLength: number | null;
-      id: string;
-      code: string;
-      name: string;
-      /** @description 1 = best ground */
-      sortOrder: number;
-      maxRoundLength: number;
-      boltType: string;
-      boltPattern: string;
-      /** @description Sprayed concrete, mm (0 = none) */
-      shotcreteMm: number;
-      steelSupport: string;
-      probingRequired: boolean;
-      notes: string;
-      retired: boolean;
-      version: number;
-    };
-    /** @enum {string} */
-    RangeWarningKind: 'overlap' | 'gap' | 'order';
-    /** @enum {string} */
-    RatingSystem: 'Q' | 'RMR89';
-    RangeWarningDto: {
-      kind: components['schemas']['RangeWarningKind'];
-      system: components['schemas']['RatingSystem'];
-      classes: string[];
-      message: string;
-    };
-    SupportClassLibraryDto: {
-      classes: components['schemas']['SupportClassDto'][];
-      /** @description Overlaps, gaps and order problems in the active classes' ranges */
-      warnings: components['schemas']['RangeWarningDto'][];
-    };
-    CreateSupportClassDto: {
-      code: string;
-      name: string;
-      qMin?: number | null;
-      qMax?: number | null;
-      rmrMin?: number | null;
-      rmrMax?: number | null;
-      maxRoundLength: number;
-      boltType?: string;
-      boltLength?: number | null;
-      boltPattern?: string;
-      shotcreteMm?: number;
-      steelSupport?: string;
-      probingRequired?: boolean;
-      notes?: string;
-    };
-    ReorderSupportClassesDto: {
-      /** @description Every class id of the project, best ground first */
-      ids: string[];
-    };
-    UpdateSupportClassDto: {
-      code?: string;
-      name?: string;
-      qMin?: number | null;
-      qMax?: number | null;
-      rmrMin?: number | null;
-      rmrMax?: number | null;
-      maxRoundLength?: number;
-      boltType?: string;
-      boltLength?: number | null;
-      boltPattern?: string;
-      shotcreteMm?: number;
-      steelSupport?: string;
-      probingRequired?: boolean;
-      notes?: string;
-      retired?: boolean;
-      /** @description The version you last read */
-      version: number;
-    };
-    /** @enum {string} */
-    WatchedQuantity:
-      | 'q'
-      | 'rmr89'
-      | 'inflow-per-10m'
-      | 'overbreak'
-      | 'adverse-orientation'
-      | 'crown-crossing-within'
-      | 'support-class-change'
-      | 'open-red-hazard';
-    /** @enum {string} */
-    Comparison: '<' | '<=' | '>' | '>=' | '=';
-    TriggerRuleDto: {
-      watch: components['schemas']['WatchedQuantity'];
-      comparison: components['schemas']['Comparison'] | null;
-      threshold: number | null;
-      level: components['schemas']['TriggerLevel'];
-      ownerRole: components['schemas']['ProjectRole'];
-      id: string;
-      action: string;
-      /** @description Time allowed to act, hours */
-      timeAllowedHours: number;
-      enabled: boolean;
-      /** @description The rule in words, e.g. "Q < 0.1 → red" */
-      summary: string;
-      version: number;
-    };
-    CreateTriggerRuleDto: {
-      watch: components['schemas']['WatchedQuantity'];
-      comparison?: components['schemas']['Comparison'] | null;
-      level: components['schemas']['TriggerLevel'];
-      ownerRole: components['schemas']['ProjectRole'];
-      threshold?: number | null;
-      action: string;
-      timeAllowedHours: number;
-      enabled?: boolean;
-    };
-    TriggerPreviewMatchDto: {
-      value: number | null;
-      roundId: string;
-      headingCode: string;
-      roundNumber: number;
-      stage: string;
-      faceChainage: number;
-      shiftDate: string;
-      /** @description Why the rule fires on this round, in words */
-      detail: string;
-    };
-    TriggerPreviewDto: {
-      /** @description Set when the rule cannot be checked against records yet, with the reason */
-      notEvaluated: string | null;
-      /** @description How many of the project's latest rounds were checked */
-      evaluatedRounds: number;
-      matches: components['schemas']['TriggerPreviewMatchDto'][];
-    };
-    UpdateTriggerRuleDto: {
-      watch?: components['schemas']['WatchedQuantity'];
-      comparison?: components['schemas']['Comparison'] | null;
-      level?: components['schemas']['TriggerLevel'];
-      ownerRole?: components['schemas']['ProjectRole'];
-      threshold?: number | null;
-      action?: string;
-      timeAllowedHours?: number;
-      enabled?: boolean;
-      version: number;
-    };
-    MemberDto: {
-      role: components['schemas']['ProjectRole'];
-      memberId: string;
-      userId: string;
-      name: string;
-      email: string;
-      /** @description When they joined the project */
-      since: string;
-    };
-    /**
-     * @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it
-     * @enum {string}
-     */
-    InvitationEmailStatus: 'queued' | 'sent' | 'failed';
-    InvitationDto: {
-      role: components['schemas']['ProjectRole'];
-      /** @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it */
-      emailStatus: components['schemas']['InvitationEmailStatus'];
-      id: string;
-      email: string;
-      name: string;
-      expiresAt: string;
-      invitedBy: string;
-      /** @description Whether the e-mail reached the mail server */
-      emailSent: boolean;
-    };
-    TeamDto: {
-      members: components['schemas']['MemberDto'][];
-      /** @description Invitations not yet accepted and not expired */
-      invitations: components['schemas']['InvitationDto'][];
-    };
-    InviteDto: {
-      role: components['schemas']['ProjectRole'];
-      /** Format: email */
-      email: string;
-      name?: string;
-    };
-    ChangeRoleDto: {
-      role: components['schemas']['ProjectRole'];
-    };
-    InvitationInfoDto: {
-      role: components['schemas']['ProjectRole'];
-      projectName: string;
-      email: string;
-      name: string;
-      expiresAt: string;
-    };
-    AcceptInvitationDto: {
-      /** @description Your name as colleagues know it (new accounts) */
-      name?: string;
-      /** @description The new account's password (at least 10 characters); not needed when signed in as the invited address */
-      password?: string;
-    };
-    AcceptedInvitationDto: {
-      projectId: string;
-      /** @description True when accepting created the account */
-      newAccount: boolean;
-      /** @description A session for the new account (absent when the caller was already signed in) */
-      session?: components['schemas']['TokenResponseDto'];
-    };
-    /** @enum {string} */
-    RoundSort:
-      | 'faceChainage'
-      | '-faceChainage'
-      | 'shiftDate'
-      | '-shiftDate'
-      | 'q'
-      | '-q'
-      | 'rmr'
-      | '-rmr'
-      | 'roundNumber'
-      | '-roundNumber';
-    /** @enum {string} */
-    RoundStatus: 'draft' | 'submitted' | 'confirmed' | 'returned';
-    /** @enum {string} */
-    Shift: 'day' | 'night';
-    RoundSummaryDto: {
-      stage: components['schemas']['Stage'];
-      shift: components['schemas']['Shift'];
-      q: number | null;
-      rmr: number | null;
-      recommendedClassCode: string | null;
-      status: components['schemas']['RoundStatus'];
-      triggerLevel: components['schemas']['TriggerLevel'] | null;
-      id: string;
-      roundNumber: number;
-      faceChainage: number;
-      shiftDate: string;
-      mapperName: string;
-      /** @description How many of the project's rules this round lacks the data for */
-      triggersNotEvaluated: number;
-    };
-    RoundPageDto: {
-      items: components['schemas']['RoundSummaryDto'][];
-      total: number;
-      page: number;
-      pageSize: number;
-    };
-    NextRoundDto: {
-      stage: components['schemas']['Stage'];
-      roundNumber: number;
-      /** @description Face chainage of the last round of this heading and stage, or the heading's start */
-      previousChainage: number;
-      plannedRoundLength: number;
-      /** @description previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
-      suggestedFaceChainage: number;
-    };
-    CreateRoundDto: {
-      /**
-       * Format: uuid
-       * @description The round's id, a UUID made by the client (so a retried create finds the same round); made here when absent
-       */
-      id?: string;
-      stage: components['schemas']['Stage'];
-      faceChainage: number;
-    };
-    /** @enum {string} */
-    QLocation: 'tunnel' | 'intersection' | 'portal';
-    QRowsDto: {
-      rqd?: string;
-      jn?: string;
-      jr?: string;
-      ja?: string;
-      jw?: string;
-      srf?: string;
-    };
-    QInputDto: {
-      rqd: number | null;
-      jn: number | null;
-      jr: number | null;
-      ja: number | null;
-      jw: number | null;
-      srf: number | null;
-      location?: components['schemas']['QLocation'];
-      /**
-       * Format: uuid
-       * @description The joint (by id) whose Jr and Ja govern: the weakest significant discontinuity of the round
-       */
-      governingJointId?: string | null;
-      /** @description Or the set (by label) whose Jr and Ja govern */
-      governingSetLabel?: string | null;
-      jrSpacingOver3m?: boolean;
-      rows?: components['schemas']['QRowsDto'];
-      /** @description True when the RQD came from Jv (a correlation) rather than a measurement */
-      rqdFromJv?: boolean;
-      /** @description True when random joints are present besides the sets (Jn is checked against sets + random) */
-      randomJoints?: boolean;
-    };
-    PointLoadStrengthDto: {
-      /** @enum {string} */
-      kind: 'point-load';
-      /** @description Point-load index Is50, MPa */
-      is50: number | null;
-    };
-    UcsStrengthDto: {
-      /** @enum {string} */
-      kind: 'ucs';
-      /** @description Uniaxial compressive strength, MPa */
-      ucs: number | null;
-    };
-    /** @enum {string} */
-    Rmr89SimpleCondition:
-      | 'very-rough-tight'
-      | 'slightly-rough-slightly-weathered'
-      | 'slightly-rough-highly-weathered'
-      | 'slickensided-or-thin-gouge'
-      | 'soft-gouge-or-wide-open';
-    SimpleConditionDto: {
-      /** @enum {string} */
-      kind: 'simple';
-      condition: components['schemas']['Rmr89SimpleCondition'] | null;
-    };
-    /** @enum {string} */
-    Rmr89Roughness: 'very rough' | 'rough' | 'slightly rough' | 'smooth' | 'slickensided';
-    /** @enum {string} */
-    Rmr89Weathering: 'unweathered' | 'slightly' | 'moderately' | 'highly' | 'decomposed';
-    DetailedConditionDto: {
-      /** @enum {string} */
-      kind: 'detailed';
-      persistenceM: number | null;
-      separationMm: number | null;
-      roughness: components['schemas']['Rmr89Roughness'] | null;
-      infilling: components['schemas']['NoInfillingDto'] | components['schemas']['InfillingDto'];
-      weathering: components['schemas']['Rmr89Weathering'] | null;
-    };
-    NoInfillingDto: {
-      /** @enum {string} */
-      kind: 'none';
-    };
-    InfillingDto: {
-      /** @enum {string} */
-      kind: 'hard' | 'soft';
-      thicknessMm: number | null;
-    };
-    InflowGroundwaterDto: {
-      /** @enum {string} */
-      kind: 'inflow';
-      /** @description Inflow per 10 m of tunnel, l/min */
-      litresPerMinutePer10m: number | null;
-    };
-    PressureGroundwaterDto: {
-      /** @enum {string} */
-      kind: 'pressure-ratio';
-      ratio: number | null;
-    };
-    /** @enum {string} */
-    Rmr89WaterCondition: 'completely dry' | 'damp' | 'wet' | 'dripping' | 'flowing';
-    ConditionGroundwaterDto: {
-      /** @enum {string} */
-      kind: 'condition';
-      condition: components['schemas']['Rmr89WaterCondition'] | null;
-    };
-    /** @enum {string} */
-    RmrOrientationAssessment:
-      'very favourable' | 'favourable' | 'fair' | 'unfavourable' | 'very unfavourable';
-    AssessedOrientationDto: {
-      /** @enum {string} */
-      kind: 'assessment';
-      assessment: components['schemas']['RmrOrientationAssessment'];
-    };
-    NotAssessedOrientationDto: {
-      /** @enum {string} */
-      kind: 'not assessed';
-    };
-    RmrInputDto: {
-      strength: components['schemas']['PointLoadStrengthDto'] | components['schemas']['UcsStrengthDto'];
-      rqd: number | null;
-      /** @description Mean spacing of the discontinuities, m */
-      spacingM: number | null;
-      condition: components['schemas']['SimpleConditionDto'] | components['schemas']['DetailedConditionDto'];
-      groundwater:
-        | components['schemas']['InflowGroundwaterDto']
-        | components['schemas']['PressureGroundwaterDto']
-        | components['schemas']['ConditionGroundwaterDto'];
-      orientation:
-        components['schemas']['AssessedOrientationDto'] | components['schemas']['NotAssessedOrientationDto'];
-    };
-    SetParametersDto: {
-      /**
-       * @description Metres either side of the face (0, 10, 25, 50 or 100)
-       * @enum {number}
-       */
-      windowM: 0 | 10 | 25 | 50 | 100;
-      /** @description Number of sets to look for; null lets Roundbook decide from the density */
-      count: number | null;
-    };
-    RuleNotEvaluatedDto: {
-      ruleId: string;
-      summary: string;
-      /** @description Why it could not be evaluated, or why it waits */
-      detail: string;
-    };
-    TriggerFiringDto: {
-      level: components['schemas']['TriggerLevel'];
-      ruleId: string;
-      /** @description The rule in words, e.g. "Q < 0.1 → red" */
-      summary: string;
-      /** @description Why it fires on this round */
-      detail: string;
-      /** @description What the project's rule says to do */
-      action: string;
-      ownerRole: string;
-      timeAllowedHours: number;
-    };
-    /** @enum {string} */
-    JointKind: 'joint' | 'bedding' | 'foliation' | 'fault' | 'shear-zone' | 'vein' | 'contact';
-    /** @enum {string} */
-    JrcMethod: 'profile-comb' | 'tilt-test' | 'visual';
-    /** @enum {string} */
-    JointWater: 'dry' | 'damp' | 'wet' | 'dripping' | 'flowing';
-    FaceOffsetDto: {
-      /** @description Metres right of the axis, looking at the face (negative: left) */
-      right: number;
-      /** @description Metres above the axis (negative: below) */
-      up: number;
-    };
-    JointDto: {
-      /**
-       * Format: uuid
-       * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
-       */
-      id: string;
-      kind: components['schemas']['JointKind'];
-      notation: components['schemas']['PlaneNotation'];
-      setLabel: string | null;
-      spacingM: number | null;
-      persistenceM: number | null;
-      apertureMm: number | null;
-      jr: number | null;
-      jrc: number | null;
-      jrcMethod: components['schemas']['JrcMethod'] | null;
-      ja: number | null;
-      water: components['schemas']['JointWater'] | null;
-      /** @description Thickness of a fault or shear zone, m */
-      thicknessM: number | null;
-      /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
-      faceOffset?: components['schemas']['FaceOffsetDto'] | null;
-      /** @description Canonical dip direction, null while the typed text cannot be read */
-      dipDirection: number | null;
-      dip: number | null;
-      /** @description Why the typed orientation could not be read */
-      orientationError: string | null;
-      seq: number;
-      /** @description The orientation exactly as typed (kept even when it cannot be read) */
-      orientationText: string;
-      setOverride?: boolean;
-      infill: string;
-      notes: string;
-    };
-    RatingOutcomeDto: {
-      value: number | null;
-      /** @description Class or band in words */
-      label: string | null;
-      /** @description Why it could not be computed from the inputs, if so */
-      error: string | null;
-      /** @description Intermediate values and ratings, for showing the inputs beside the result */
-      parts: {
-        [key: string]: number;
-      };
-    };
-    RoundRatingsDto: {
-      q: components['schemas']['RatingOutcomeDto'];
-      rmr: components['schemas']['RatingOutcomeDto'];
-      gsi: components['schemas']['RatingOutcomeDto'];
-    };
-    RockUnitDto: {
-      weatheringGrade: string | null;
-      strengthGrade: string | null;
-      name: string;
-      sharePercent: number;
-    };
-    GroundDto: {
-      /** @description Point-load index Is50, MPa */
-      pointLoadIs50: number | null;
-      /** @description Factor used to estimate UCS from Is50 (UCS ≈ factor × Is50) */
-      pointLoadFactor: number | null;
-      /** @description Water inflow at the face, l/min */
-      inflowLpm: number | null;
-      /** @description Tunnel length the inflow comes from, m (for inflow per 10 m) */
-      inflowLengthM: number | null;
-      /** @description True when the inflow was measured at the face (a point inflow; no length of tunnel is needed) */
-      inflowAtFace?: boolean | null;
-      overbreakM3: number | null;
-      units: components['schemas']['RockUnitDto'][];
-      waterDescription: string;
-      notes: string;
-    };
-    RoundDto: {
-      previousChainage: number | null;
-      roundLength: number | null;
-      shift: components['schemas']['Shift'];
-      /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
-      qInput: components['schemas']['QInputDto'] | null;
-      /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
-      rmrInput: components['schemas']['RmrInputDto'] | null;
-      gsiObserved: number | null;
-      /** Format: uuid */
-      recommendedClassId: string | null;
-      nextRoundLength: number | null;
-      /** @description The whole assessment (packages/domain RoundAssessment): saved with a draft, frozen at submit */
-      assessment: {
-        [key: string]: unknown;
-      };
-      stage: components['schemas']['Stage'];
-      status: components['schemas']['RoundStatus'];
-      /** @description Highest level among the project's trigger rules that fire on this round; green only when every rule could be evaluated; null when it has no rules or some lack their data */
-      triggerLevel: components['schemas']['TriggerLevel'] | null;
-      submittedAt: string | null;
-      /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
-      inflowPer10m: number | null;
-      id: string;
-      /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
-      setParameters: components['schemas']['SetParametersDto'];
-      /** @description Rules whose input this round lacks (its level is not green until they are in) */
-      triggersNotEvaluated: components['schemas']['RuleNotEvaluatedDto'][];
-      /** @description Rules that cannot fire yet (what they watch is not recorded by Roundbook yet) */
-      triggersWaiting: components['schemas']['RuleNotEvaluatedDto'][];
-      /** @description The rules version that produced the assessment */
-      assessmentVersion: string;
-      headingId: string;
-      roundNumber: number;
-      mappedBy: string;
-      mappedByName: string;
-      mappedAt: string;
-      revision: number;
-      /** @description The rules that fire, red first (as worked out at the last save) */
-      triggerFirings: components['schemas']['TriggerFiringDto'][];
-      joints: components['schemas']['JointDto'][];
-      ratings: components['schemas']['RoundRatingsDto'];
-      /** @description Support classes whose ranges fit the ratings, best ground first */
-      suggestedClassIds: string[];
-      /** @description Things worth a second look that do not stop saving (e.g. round length over the planned maximum) */
-      warnings: string[];
-      /** @description The planned round length of the heading, m */
-      plannedRoundLength: number;
-      version: number;
-      faceChainage: number;
-      shiftDate: string;
-      distantParts: string;
-      ground: components['schemas']['GroundDto'];
-      recommendationReason: string;
-    };
-    /**
-     * @description What froze it: submit (later also confirm, return, correct)
-     * @enum {string}
-     */
-    RoundEvent: 'submit' | 'confirm' | 'return' | 'correct';
-    RoundRevisionDto: {
-      /** @description What froze it: submit (later also confirm, return, correct) */
-      event: components['schemas']['RoundEvent'];
-      status: components['schemas']['RoundStatus'];
-      /** @description The record as it was */
-      record: {
-        [key: string]: unknown;
-      };
-      /** @description The assessment as it was (packages/domain RoundAssessment) */
-      assessment: {
-        [key: string]: unknown;
-      };
-      id: string;
-      revision: number;
-      createdBy: string;
-      createdAt: string;
-      assessmentVersion: string;
-    };
-    NearbyJointDto: {
-      kind: components['schemas']['JointKind'];
-      setLabel: string | null;
-      id: string;
-      roundId: string;
-      roundNumber: number;
-      faceChainage: number;
-      dipDirection: number;
-      dip: number;
-    };
-    JointInputDto: {
-      /**
-       * Format: uuid
-       * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
-       */
-      id?: string;
-      kind: components['schemas']['JointKind'];
-      notation: components['schemas']['PlaneNotation'];
-      setLabel: string | null;
-      spacingM: number | null;
-      persistenceM: number | null;
-      apertureMm: number | null;
-      jr: number | null;
-      jrc: number | null;
-      jrcMethod: components['schemas']['JrcMethod'] | null;
-      ja: number | null;
-      water: components['schemas']['JointWater'] | null;
-      /** @description Thickness of a fault or shear zone, m */
-      thicknessM: number | null;
-      /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
-      faceOffset?: components['schemas']['FaceOffsetDto'] | null;
-      /** @description The orientation exactly as typed (kept even when it cannot be read) */
-      orientationText: string;
-      setOverride?: boolean;
-      infill: string;
-      notes: string;
-    };
-    SaveRoundDto: {
-      previousChainage: number | null;
-      roundLength: number | null;
-      shift: components['schemas']['Shift'];
-      /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
-      qInput: components['schemas']['QInputDto'] | null;
-      /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
-      rmrInput: components['schemas']['RmrInputDto'] | null;
-      gsiObserved: number | null;
-      /** Format: uuid */
-      recommendedClassId: string | null;
-      nextRoundLength: number | null;
-      /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
-      version: number;
-      faceChainage: number;
-      shiftDate: string;
-      distantParts: string;
-      ground: components['schemas']['GroundDto'];
-      joints: components['schemas']['JointInputDto'][];
-      recommendationReason: string;
-      /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
-      setParameters?: components['schemas']['SetParametersDto'];
-    };
-    SubmitRoundDto: {
-      version: number;
-    };
-    /** @enum {string} */
-    ReviewDecision: 'confirm' | 'return' | 'correct';
-    ReviewDecisionDto: {
-      decision: components['schemas']['ReviewDecision'];
-      classId: string | null;
-      classCode: string | null;
-      roundLength: number | null;
-      recommendedClassId: string | null;
-      id: string;
-      revision: number;
-      reason: string;
-      comments: string;
-      signedByName: string;
-      signedRole: string;
-      signedAt: string;
-    };
-    /** @enum {string} */
-    ReviewSection: 'position' | 'ground' | 'joints' | 'ratings' | 'support' | 'triggers' | 'general';
-    ReviewCommentDto: {
-      section: components['schemas']['ReviewSection'];
-      resolvedAt: string | null;
-      id: string;
-      text: string;
-      revision: number;
-      authorName: string;
-      createdAt: string;
-    };
-    RuleAcknowledgementDto: {
-      actionTaken: string;
-      note: string;
-      byName: string;
-      role: string;
-      at: string;
-    };
-    RoundRuleDto: {
-      level: components['schemas']['TriggerLevel'];
-      acknowledgedAt: string | null;
-      acknowledgement: components['schemas']['RuleAcknowledgementDto'] | null;
-      /** @description Why it fires, in words */
-      detail: string;
-      /** @description The caller owns this rule and may acknowledge it now */
-      canAcknowledge: boolean;
-      ruleId: string;
-      summary: string;
-      action: string;
-      ownerRole: string;
-      timeAllowedHours: number;
-      dueAt: string;
-      /** @description Minutes left against the rule's timeframe (negative once past it) */
-      minutesLeft: number;
-      /** @description Past its time without its owner's acknowledgement */
-      overdue: boolean;
-    };
-    ReviewPermissionDto: {
-      allowed: boolean;
-      /** @description Why not, in words (empty when allowed) */
-      reason: string;
-    };
-    RoundReviewDto: {
-      status: components['schemas']['RoundStatus'];
-      recommendedClassId: string | null;
-      recommendedRoundLength: number | null;
-      confirmedClassId: string | null;
-      confirmedRoundLength: number | null;
-      confirmedAt: string | null;
-      /** @description The last confirmation, if the round is confirmed */
-      confirmation: components['schemas']['ReviewDecisionDto'] | null;
-      roundId: string;
-      revision: number;
-      version: number;
-      /** @description Every decision, oldest first */
-      decisions: components['schemas']['ReviewDecisionDto'][];
-      /** @description Return comments not yet resolved */
-      openComments: components['schemas']['ReviewCommentDto'][];
-      /** @description The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
-      rules: components['schemas']['RoundRuleDto'][];
-      canConfirm: components['schemas']['ReviewPermissionDto'];
-      canReturn: components['schemas']['ReviewPermissionDto'];
-      canCorrect: components['schemas']['ReviewPermissionDto'];
-      /** @description The geologist may mark return comments resolved */
-      canResolve: boolean;
-      separationOfDuties: boolean;
-      caution: string;
-    };
-    ConfirmRoundDto: {
-      /** @description The round's version as the engineer read it (409 STALE_VERSION if it changed) */
-      version: number;
-      /**
-       * Format: uuid
-       * @description The support class to build
-       */
-      classId: string;
-      /** @description The next round length to build, m */
-      roundLength: number;
-      /** @description Needed when the class is not the recommended one, or the length is over the class's maximum */
-      reason: string;
-      comments: string;
-      /** @description The engineer's password, asked again for the sign-off */
-      password: string;
-    };
-    ReturnCommentInputDto: {
-      section: components['schemas']['ReviewSection'];
-      text: string;
-    };
-    ReturnRoundDto: {
-      version: number;
-      /** @description At least one comment, each on a section of the round */
-      comments: components['schemas']['ReturnCommentInputDto'][];
-    };
-    CorrectRoundDto: {
-      version: number;
-      /** @description Why the confirmed round is corrected */
-      reason: string;
-    };
-    AcknowledgeRuleDto: {
-      /** @description What was done about it (e.g. "Probe holes drilled, no water") */
-      actionTaken: string;
-      note: string;
-    };
-    RuleClockDto: {
-      level: components['schemas']['TriggerLevel'];
-      acknowledgedAt: string | null;
-      ruleId: string;
-      summary: string;
-      action: string;
-      ownerRole: string;
-      timeAllowedHours: number;
-      dueAt: string;
-      /** @description Minutes left against the rule's timeframe (negative once past it) */
-      minutesLeft: number;
-      /** @description Past its time without its owner's acknowledgement */
-      overdue: boolean;
-    };
-    ReviewQueueItemDto: {
-      stage: components['schemas']['Stage'];
-      triggerLevel: components['schemas']['TriggerLevel'] | null;
-      recommendedClassCode: string | null;
-      roundId: string;
-      projectId: string;
-      projectCode: string;
-      projectName: string;
-      headingId: string;
-      headingCode: string;
-      roundNumber: number;
-      faceChainage: number;
-      /** @description The chainage as the heading prints it (e.g. 1+015.0) */
-      chainageText: string;
-      geologistName: string;
-      submittedAt: string;
-      minutesWaiting: number;
-      rules: components['schemas']['RuleClockDto'][];
-      revision: number;
-    };
-    ReviewQueueDto: {
-      items: components['schemas']['ReviewQueueItemDto'][];
-      caution: string;
-    };
-    /** @enum {string} */
-    HealthStatus: 'ok' | 'degraded';
-    ComponentHealthDto: {
-      ok: boolean;
-      /** @description What was checked, or why it failed */
-      detail: string;
-    };
-    HealthDto: {
-      status: components['schemas']['HealthStatus'];
-      database: components['schemas']['ComponentHealthDto'];
-      storage: components['schemas']['ComponentHealthDto'];
-      mail: components['schemas']['ComponentHealthDto'];
-    };
-    LocalAccessDto: {
-      /** @description LOCAL_MODE=true and a local inbox folder: the local mail view exists */
-      localMode: boolean;
-      /** @description The caller is an operator of this instance (not a project role) */
-      operator: boolean;
-    };
-    MailAttachmentDto: {
-      index: number;
-      filename: string;
-      contentType: string;
-      size: number;
-    };
-    MailMessageDto: {
-      html: string | null;
-      id: string;
-      from: string;
-      to: string[];
-      subject: string;
-      /** @description When the message was sent (ISO 8601) */
-      date: string;
-      text: string;
-      attachments: components['schemas']['MailAttachmentDto'][];
-    };
-    JobCountsDto: {
-      pending: number;
-      running: number;
-      done: number;
-      dead: number;
-    };
-    /** @enum {string} */
-    JobState: 'pending' | 'running' | 'done' | 'dead';
-    JobDto: {
-      state: components['schemas']['JobState'];
-      lastError: string | null;
-      /** @description For e-mails: to whom and about what */
-      summary: string | null;
-      id: string;
-      /** @description The handler, e.g. mail.send */
-      kind: string;
-      attempts: number;
-      maxAttempts: number;
-      nextAttemptAt: string;
-      createdAt: string;
-      updatedAt: string;
-    };
-    JobsOverviewDto: {
-      counts: components['schemas']['JobCountsDto'];
-      /** @description Jobs not done, most recently changed first */
-      jobs: components['schemas']['JobDto'][];
-    };
-  };
-  responses: never;
-  parameters: never;
-  requestBodies: never;
-  headers: never;
-  pathItems: never;
+    schemas: {
+        AppInfoDto: {
+            /** @description Local mode: the SMTP fake's inbox is available to admins */
+            localMode: boolean;
+            version: string;
+        };
+        AuditEventDto: {
+            before: {
+                [key: string]: unknown;
+            } | null;
+            after: {
+                [key: string]: unknown;
+            } | null;
+            actorId: string | null;
+            id: string;
+            entityType: string;
+            entityId: string;
+            action: string;
+            /** @description The person's name, kept even after they left the project */
+            actorName: string;
+            at: string;
+        };
+        LoginDto: {
+            /**
+             * Format: email
+             * @description The e-mail address the account was created with
+             */
+            email: string;
+            password: string;
+        };
+        UserDto: {
+            id: string;
+            email: string;
+            name: string;
+        };
+        TokenResponseDto: {
+            /** @description Bearer token for the Authorization header */
+            accessToken: string;
+            /** @description When the token expires (ISO 8601) */
+            expiresAt: string;
+            user: components["schemas"]["UserDto"];
+        };
+        ErrorResponseDto: {
+            /** @description Machine-readable code, e.g. VALIDATION_FAILED, INVALID_CREDENTIALS, NOT_FOUND, STALE_VERSION */
+            code: string;
+            /** @description A sentence for people */
+            message: string;
+            /** @description Per-field messages for validation errors, keyed by field path */
+            fields?: {
+                [key: string]: string;
+            };
+        };
+        /** @enum {string} */
+        ProjectRole: "admin" | "geologist" | "engineer" | "supervisor" | "viewer";
+        MembershipDto: {
+            role: components["schemas"]["ProjectRole"];
+            projectId: string;
+            projectName: string;
+        };
+        MeDto: {
+            id: string;
+            email: string;
+            name: string;
+            memberships: components["schemas"]["MembershipDto"][];
+        };
+        /** @enum {string} */
+        QTableEdition: "2015";
+        /** @enum {string} */
+        PlaneNotation: "dip-direction/dip" | "dip/dip-direction" | "strike/dip-rhr";
+        /**
+         * @description Scale of weathering and strength grades (one per project)
+         * @enum {string}
+         */
+        GroundScale: "isrm" | "iso-14689";
+        /** @enum {string} */
+        Stage: "full-face" | "top-heading" | "bench" | "invert";
+        /** @enum {string} */
+        ProfileShape: "circular" | "horseshoe" | "d-shaped" | "rectangular";
+        /** @enum {string} */
+        TriggerLevel: "green" | "amber" | "red";
+        LastHandoverDto: {
+            sentAt: string;
+            acknowledgedAt: string | null;
+        };
+        HeadingSummaryDto: {
+            stages: components["schemas"]["Stage"][];
+            profileShape: components["schemas"]["ProfileShape"];
+            /** @description Chainage of the latest mapped face, metres; null before the first round */
+            faceChainage: number | null;
+            lastRoundAt: string | null;
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            lastHandover: components["schemas"]["LastHandoverDto"] | null;
+            id: string;
+            code: string;
+            name: string;
+            /** @description Drive direction, degrees clockwise from north */
+            driveTrend: number;
+            /** @description Gradient in per cent, positive rising in the direction of advance */
+            gradientPercent: number;
+            /** @description Start chainage in metres */
+            startChainage: number;
+            profileWidth: number;
+            profileHeight: number;
+            plannedRoundLength: number;
+            /** @description Rounds submitted and waiting for the engineer's review */
+            roundsToConfirm: number;
+        };
+        ProjectSummaryDto: {
+            qTableEdition: components["schemas"]["QTableEdition"];
+            defaultNotation: components["schemas"]["PlaneNotation"];
+            /** @description Scale of weathering and strength grades (one per project) */
+            groundScale: components["schemas"]["GroundScale"];
+            /** @description The caller's role in this project */
+            role: components["schemas"]["ProjectRole"];
+            id: string;
+            code: string;
+            name: string;
+            client: string;
+            /** @description IANA time zone; shift dates follow it */
+            timeZone: string;
+            /** @description Addresses that receive every handover */
+            distributionList: string[];
+            /** @description Name of the project's coordinate grid */
+            coordinateGrid: string;
+            /** @description Optimistic-locking version; send it back when changing the project */
+            version: number;
+            headings: components["schemas"]["HeadingSummaryDto"][];
+        };
+        CreateProjectDto: {
+            defaultNotation?: components["schemas"]["PlaneNotation"];
+            groundScale?: components["schemas"]["GroundScale"];
+            code: string;
+            name: string;
+            client?: string;
+            timeZone: string;
+        };
+        UpdateProjectDto: {
+            defaultNotation?: components["schemas"]["PlaneNotation"];
+            qTableEdition?: components["schemas"]["QTableEdition"];
+            groundScale?: components["schemas"]["GroundScale"];
+            name?: string;
+            client?: string;
+            timeZone?: string;
+            /** @description Addresses that receive every handover */
+            distributionList?: string[];
+            coordinateGrid?: string;
+            /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+            separationOfDuties?: boolean;
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
+        };
+        /** @enum {string} */
+        ChainageStyle: "km+m" | "metres";
+        /**
+         * @description Whether chainage increases or decreases in the drive direction
+         * @enum {string}
+         */
+        ChainageSense: "increasing" | "decreasing";
+        /**
+         * @description Which side the arc turns to, looking in the drive direction; null for a straight
+         * @enum {string}
+         */
+        AlignmentSide: "left" | "right";
+        AlignmentSegmentDto: {
+            /** @description Radius of an arc, metres; null for a straight */
+            radius: number | null;
+            /** @description Which side the arc turns to, looking in the drive direction; null for a straight */
+            side: components["schemas"]["AlignmentSide"] | null;
+            /** @description Length along the alignment, metres */
+            length: number;
+        };
+        HeadingDto: {
+            chainageStyle: components["schemas"]["ChainageStyle"];
+            profileShape: components["schemas"]["ProfileShape"];
+            stages: components["schemas"]["Stage"][];
+            startEasting: number | null;
+            startNorthing: number | null;
+            startElevation: number | null;
+            /** @description Whether chainage increases or decreases in the drive direction */
+            chainageSense?: components["schemas"]["ChainageSense"];
+            /** @description Drive bearing at the start when a curve begins there; null: the drive trend */
+            initialBearing?: number | null;
+            /** @description Straights and arcs from the start, in the drive direction (empty: one straight) */
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
+            /** @description Top of the bench above the invert, metres (staged profiles); null: at the axis */
+            benchHeight?: number | null;
+            id: string;
+            projectId: string;
+            code: string;
+            name: string;
+            /** @description Start chainage, metres */
+            startChainage: number;
+            chainageDecimals: number;
+            /** @description Drive direction, degrees clockwise from north */
+            driveTrend: number;
+            /** @description Gradient in per cent, positive rising in the direction of advance */
+            gradientPercent: number;
+            profileWidth: number;
+            profileHeight: number;
+            /** @description Height of the tunnel axis above the invert, metres */
+            axisHeight: number;
+            plannedRoundLength: number;
+            version: number;
+        };
+        CreateHeadingDto: {
+            chainageStyle?: components["schemas"]["ChainageStyle"];
+            profileShape: components["schemas"]["ProfileShape"];
+            stages: components["schemas"]["Stage"][];
+            chainageSense?: components["schemas"]["ChainageSense"];
+            initialBearing?: number | null;
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
+            benchHeight?: number | null;
+            code: string;
+            name: string;
+            startChainage: number;
+            chainageDecimals?: number;
+            driveTrend: number;
+            /** @description Per cent; −30 to 30 */
+            gradientPercent: number;
+            profileWidth: number;
+            profileHeight: number;
+            axisHeight: number;
+            plannedRoundLength: number;
+            startEasting?: number | null;
+            startNorthing?: number | null;
+            startElevation?: number | null;
+        };
+        UpdateHeadingDto: {
+            chainageStyle?: components["schemas"]["ChainageStyle"];
+            profileShape?: components["schemas"]["ProfileShape"];
+            stages?: components["schemas"]["Stage"][];
+            chainageSense?: components["schemas"]["ChainageSense"];
+            initialBearing?: number | null;
+            alignmentSegments?: components["schemas"]["AlignmentSegmentDto"][];
+            benchHeight?: number | null;
+            code?: string;
+            name?: string;
+            startChainage?: number;
+            chainageDecimals?: number;
+            driveTrend?: number;
+            /** @description Per cent; −30 to 30 */
+            gradientPercent?: number;
+            profileWidth?: number;
+            profileHeight?: number;
+            axisHeight?: number;
+            plannedRoundLength?: number;
+            startEasting?: number | null;
+            startNorthing?: number | null;
+            startElevation?: number | null;
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
+            /** @description Required when the drive or profile changes after rounds exist (they are recomputed) */
+            confirmRecompute?: boolean;
+        };
+        SupportClassDto: {
+            /** @description Q range [qMin, qMax); null = open */
+            qMin: number | null;
+            qMax: number | null;
+            /** @description RMR89 range [rmrMin, rmrMax], whole numbers; null = open */
+            rmrMin: number | null;
+            rmrMax: number | null;
+            boltLength: number | null;
+            id: string;
+            code: string;
+            name: string;
+            /** @description 1 = best ground */
+            sortOrder: number;
+            maxRoundLength: number;
+            boltType: string;
+            boltPattern: string;
+            /** @description Sprayed concrete, mm (0 = none) */
+            shotcreteMm: number;
+            steelSupport: string;
+            probingRequired: boolean;
+            notes: string;
+            retired: boolean;
+            version: number;
+        };
+        /** @enum {string} */
+        RangeWarningKind: "overlap" | "gap" | "order";
+        /** @enum {string} */
+        RatingSystem: "Q" | "RMR89";
+        RangeWarningDto: {
+            kind: components["schemas"]["RangeWarningKind"];
+            system: components["schemas"]["RatingSystem"];
+            classes: string[];
+            message: string;
+        };
+        SupportClassLibraryDto: {
+            classes: components["schemas"]["SupportClassDto"][];
+            /** @description Overlaps, gaps and order problems in the active classes' ranges */
+            warnings: components["schemas"]["RangeWarningDto"][];
+        };
+        CreateSupportClassDto: {
+            code: string;
+            name: string;
+            qMin?: number | null;
+            qMax?: number | null;
+            rmrMin?: number | null;
+            rmrMax?: number | null;
+            maxRoundLength: number;
+            boltType?: string;
+            boltLength?: number | null;
+            boltPattern?: string;
+            shotcreteMm?: number;
+            steelSupport?: string;
+            probingRequired?: boolean;
+            notes?: string;
+        };
+        ReorderSupportClassesDto: {
+            /** @description Every class id of the project, best ground first */
+            ids: string[];
+        };
+        UpdateSupportClassDto: {
+            code?: string;
+            name?: string;
+            qMin?: number | null;
+            qMax?: number | null;
+            rmrMin?: number | null;
+            rmrMax?: number | null;
+            maxRoundLength?: number;
+            boltType?: string;
+            boltLength?: number | null;
+            boltPattern?: string;
+            shotcreteMm?: number;
+            steelSupport?: string;
+            probingRequired?: boolean;
+            notes?: string;
+            retired?: boolean;
+            /** @description The version you last read */
+            version: number;
+        };
+        /** @enum {string} */
+        WatchedQuantity: "q" | "rmr89" | "inflow-per-10m" | "overbreak" | "adverse-orientation" | "crown-crossing-within" | "support-class-change" | "open-red-hazard";
+        /** @enum {string} */
+        Comparison: "<" | "<=" | ">" | ">=" | "=";
+        TriggerRuleDto: {
+            watch: components["schemas"]["WatchedQuantity"];
+            comparison: components["schemas"]["Comparison"] | null;
+            threshold: number | null;
+            level: components["schemas"]["TriggerLevel"];
+            ownerRole: components["schemas"]["ProjectRole"];
+            id: string;
+            action: string;
+            /** @description Time allowed to act, hours */
+            timeAllowedHours: number;
+            enabled: boolean;
+            /** @description The rule in words, e.g. "Q < 0.1 → red" */
+            summary: string;
+            version: number;
+        };
+        CreateTriggerRuleDto: {
+            watch: components["schemas"]["WatchedQuantity"];
+            comparison?: components["schemas"]["Comparison"] | null;
+            level: components["schemas"]["TriggerLevel"];
+            ownerRole: components["schemas"]["ProjectRole"];
+            threshold?: number | null;
+            action: string;
+            timeAllowedHours: number;
+            enabled?: boolean;
+        };
+        TriggerPreviewMatchDto: {
+            value: number | null;
+            roundId: string;
+            headingCode: string;
+            roundNumber: number;
+            stage: string;
+            faceChainage: number;
+            shiftDate: string;
+            /** @description Why the rule fires on this round, in words */
+            detail: string;
+        };
+        TriggerPreviewDto: {
+            /** @description Set when the rule cannot be checked against records yet, with the reason */
+            notEvaluated: string | null;
+            /** @description How many of the project's latest rounds were checked */
+            evaluatedRounds: number;
+            matches: components["schemas"]["TriggerPreviewMatchDto"][];
+        };
+        UpdateTriggerRuleDto: {
+            watch?: components["schemas"]["WatchedQuantity"];
+            comparison?: components["schemas"]["Comparison"] | null;
+            level?: components["schemas"]["TriggerLevel"];
+            ownerRole?: components["schemas"]["ProjectRole"];
+            threshold?: number | null;
+            action?: string;
+            timeAllowedHours?: number;
+            enabled?: boolean;
+            version: number;
+        };
+        MemberDto: {
+            role: components["schemas"]["ProjectRole"];
+            memberId: string;
+            userId: string;
+            name: string;
+            email: string;
+            /** @description When they joined the project */
+            since: string;
+        };
+        /**
+         * @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it
+         * @enum {string}
+         */
+        InvitationEmailStatus: "queued" | "sent" | "failed";
+        InvitationDto: {
+            role: components["schemas"]["ProjectRole"];
+            /** @description queued: waiting for the worker (or retrying while the mail server is away); sent; failed: resend it */
+            emailStatus: components["schemas"]["InvitationEmailStatus"];
+            id: string;
+            email: string;
+            name: string;
+            expiresAt: string;
+            invitedBy: string;
+            /** @description Whether the e-mail reached the mail server */
+            emailSent: boolean;
+        };
+        TeamDto: {
+            members: components["schemas"]["MemberDto"][];
+            /** @description Invitations not yet accepted and not expired */
+            invitations: components["schemas"]["InvitationDto"][];
+        };
+        InviteDto: {
+            role: components["schemas"]["ProjectRole"];
+            /** Format: email */
+            email: string;
+            name?: string;
+        };
+        ChangeRoleDto: {
+            role: components["schemas"]["ProjectRole"];
+        };
+        InvitationInfoDto: {
+            role: components["schemas"]["ProjectRole"];
+            projectName: string;
+            email: string;
+            name: string;
+            expiresAt: string;
+        };
+        AcceptInvitationDto: {
+            /** @description Your name as colleagues know it (new accounts) */
+            name?: string;
+            /** @description The new account's password (at least 10 characters); not needed when signed in as the invited address */
+            password?: string;
+        };
+        AcceptedInvitationDto: {
+            projectId: string;
+            /** @description True when accepting created the account */
+            newAccount: boolean;
+            /** @description A session for the new account (absent when the caller was already signed in) */
+            session?: components["schemas"]["TokenResponseDto"];
+        };
+        /** @enum {string} */
+        RoundSort: "faceChainage" | "-faceChainage" | "shiftDate" | "-shiftDate" | "q" | "-q" | "rmr" | "-rmr" | "roundNumber" | "-roundNumber";
+        /** @enum {string} */
+        RoundStatus: "draft" | "submitted" | "confirmed" | "returned";
+        /** @enum {string} */
+        Shift: "day" | "night";
+        RoundSummaryDto: {
+            stage: components["schemas"]["Stage"];
+            shift: components["schemas"]["Shift"];
+            q: number | null;
+            rmr: number | null;
+            recommendedClassCode: string | null;
+            status: components["schemas"]["RoundStatus"];
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            id: string;
+            roundNumber: number;
+            faceChainage: number;
+            shiftDate: string;
+            mapperName: string;
+            /** @description How many of the project's rules this round lacks the data for */
+            triggersNotEvaluated: number;
+        };
+        RoundPageDto: {
+            items: components["schemas"]["RoundSummaryDto"][];
+            total: number;
+            page: number;
+            pageSize: number;
+        };
+        NextRoundDto: {
+            stage: components["schemas"]["Stage"];
+            roundNumber: number;
+            /** @description Face chainage of the last round of this heading and stage, or the heading's start */
+            previousChainage: number;
+            plannedRoundLength: number;
+            /** @description previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
+            suggestedFaceChainage: number;
+        };
+        CreateRoundDto: {
+            /**
+             * Format: uuid
+             * @description The round's id, a UUID made by the client (so a retried create finds the same round); made here when absent
+             */
+            id?: string;
+            stage: components["schemas"]["Stage"];
+            faceChainage: number;
+        };
+        /** @enum {string} */
+        QLocation: "tunnel" | "intersection" | "portal";
+        QRowsDto: {
+            rqd?: string;
+            jn?: string;
+            jr?: string;
+            ja?: string;
+            jw?: string;
+            srf?: string;
+        };
+        QInputDto: {
+            rqd: number | null;
+            jn: number | null;
+            jr: number | null;
+            ja: number | null;
+            jw: number | null;
+            srf: number | null;
+            location?: components["schemas"]["QLocation"];
+            /**
+             * Format: uuid
+             * @description The joint (by id) whose Jr and Ja govern: the weakest significant discontinuity of the round
+             */
+            governingJointId?: string | null;
+            /** @description Or the set (by label) whose Jr and Ja govern */
+            governingSetLabel?: string | null;
+            jrSpacingOver3m?: boolean;
+            rows?: components["schemas"]["QRowsDto"];
+            /** @description True when the RQD came from Jv (a correlation) rather than a measurement */
+            rqdFromJv?: boolean;
+            /** @description True when random joints are present besides the sets (Jn is checked against sets + random) */
+            randomJoints?: boolean;
+        };
+        PointLoadStrengthDto: {
+            /** @enum {string} */
+            kind: "point-load";
+            /** @description Point-load index Is50, MPa */
+            is50: number | null;
+        };
+        UcsStrengthDto: {
+            /** @enum {string} */
+            kind: "ucs";
+            /** @description Uniaxial compressive strength, MPa */
+            ucs: number | null;
+        };
+        /** @enum {string} */
+        Rmr89SimpleCondition: "very-rough-tight" | "slightly-rough-slightly-weathered" | "slightly-rough-highly-weathered" | "slickensided-or-thin-gouge" | "soft-gouge-or-wide-open";
+        SimpleConditionDto: {
+            /** @enum {string} */
+            kind: "simple";
+            condition: components["schemas"]["Rmr89SimpleCondition"] | null;
+        };
+        /** @enum {string} */
+        Rmr89Roughness: "very rough" | "rough" | "slightly rough" | "smooth" | "slickensided";
+        /** @enum {string} */
+        Rmr89Weathering: "unweathered" | "slightly" | "moderately" | "highly" | "decomposed";
+        DetailedConditionDto: {
+            /** @enum {string} */
+            kind: "detailed";
+            persistenceM: number | null;
+            separationMm: number | null;
+            roughness: components["schemas"]["Rmr89Roughness"] | null;
+            infilling: components["schemas"]["NoInfillingDto"] | components["schemas"]["InfillingDto"];
+            weathering: components["schemas"]["Rmr89Weathering"] | null;
+        };
+        NoInfillingDto: {
+            /** @enum {string} */
+            kind: "none";
+        };
+        InfillingDto: {
+            /** @enum {string} */
+            kind: "hard" | "soft";
+            thicknessMm: number | null;
+        };
+        InflowGroundwaterDto: {
+            /** @enum {string} */
+            kind: "inflow";
+            /** @description Inflow per 10 m of tunnel, l/min */
+            litresPerMinutePer10m: number | null;
+        };
+        PressureGroundwaterDto: {
+            /** @enum {string} */
+            kind: "pressure-ratio";
+            ratio: number | null;
+        };
+        /** @enum {string} */
+        Rmr89WaterCondition: "completely dry" | "damp" | "wet" | "dripping" | "flowing";
+        ConditionGroundwaterDto: {
+            /** @enum {string} */
+            kind: "condition";
+            condition: components["schemas"]["Rmr89WaterCondition"] | null;
+        };
+        /** @enum {string} */
+        RmrOrientationAssessment: "very favourable" | "favourable" | "fair" | "unfavourable" | "very unfavourable";
+        AssessedOrientationDto: {
+            /** @enum {string} */
+            kind: "assessment";
+            assessment: components["schemas"]["RmrOrientationAssessment"];
+        };
+        NotAssessedOrientationDto: {
+            /** @enum {string} */
+            kind: "not assessed";
+        };
+        RmrInputDto: {
+            strength: components["schemas"]["PointLoadStrengthDto"] | components["schemas"]["UcsStrengthDto"];
+            rqd: number | null;
+            /** @description Mean spacing of the discontinuities, m */
+            spacingM: number | null;
+            condition: components["schemas"]["SimpleConditionDto"] | components["schemas"]["DetailedConditionDto"];
+            groundwater: components["schemas"]["InflowGroundwaterDto"] | components["schemas"]["PressureGroundwaterDto"] | components["schemas"]["ConditionGroundwaterDto"];
+            orientation: components["schemas"]["AssessedOrientationDto"] | components["schemas"]["NotAssessedOrientationDto"];
+        };
+        SetParametersDto: {
+            /**
+             * @description Metres either side of the face (0, 10, 25, 50 or 100)
+             * @enum {number}
+             */
+            windowM: 0 | 10 | 25 | 50 | 100;
+            /** @description Number of sets to look for; null lets Roundbook decide from the density */
+            count: number | null;
+        };
+        RuleNotEvaluatedDto: {
+            ruleId: string;
+            summary: string;
+            /** @description Why it could not be evaluated, or why it waits */
+            detail: string;
+        };
+        TriggerFiringDto: {
+            level: components["schemas"]["TriggerLevel"];
+            ruleId: string;
+            /** @description The rule in words, e.g. "Q < 0.1 → red" */
+            summary: string;
+            /** @description Why it fires on this round */
+            detail: string;
+            /** @description What the project's rule says to do */
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+        };
+        /** @enum {string} */
+        JointKind: "joint" | "bedding" | "foliation" | "fault" | "shear-zone" | "vein" | "contact";
+        /** @enum {string} */
+        JrcMethod: "profile-comb" | "tilt-test" | "visual";
+        /** @enum {string} */
+        JointWater: "dry" | "damp" | "wet" | "dripping" | "flowing";
+        FaceOffsetDto: {
+            /** @description Metres right of the axis, looking at the face (negative: left) */
+            right: number;
+            /** @description Metres above the axis (negative: below) */
+            up: number;
+        };
+        JointDto: {
+            /**
+             * Format: uuid
+             * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
+             */
+            id: string;
+            kind: components["schemas"]["JointKind"];
+            notation: components["schemas"]["PlaneNotation"];
+            setLabel: string | null;
+            spacingM: number | null;
+            persistenceM: number | null;
+            apertureMm: number | null;
+            jr: number | null;
+            jrc: number | null;
+            jrcMethod: components["schemas"]["JrcMethod"] | null;
+            ja: number | null;
+            water: components["schemas"]["JointWater"] | null;
+            /** @description Thickness of a fault or shear zone, m */
+            thicknessM: number | null;
+            /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
+            faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
+            /** @description Canonical dip direction, null while the typed text cannot be read */
+            dipDirection: number | null;
+            dip: number | null;
+            /** @description Why the typed orientation could not be read */
+            orientationError: string | null;
+            seq: number;
+            /** @description The orientation exactly as typed (kept even when it cannot be read) */
+            orientationText: string;
+            setOverride?: boolean;
+            infill: string;
+            notes: string;
+        };
+        RatingOutcomeDto: {
+            value: number | null;
+            /** @description Class or band in words */
+            label: string | null;
+            /** @description Why it could not be computed from the inputs, if so */
+            error: string | null;
+            /** @description Intermediate values and ratings, for showing the inputs beside the result */
+            parts: {
+                [key: string]: number;
+            };
+        };
+        RoundRatingsDto: {
+            q: components["schemas"]["RatingOutcomeDto"];
+            rmr: components["schemas"]["RatingOutcomeDto"];
+            gsi: components["schemas"]["RatingOutcomeDto"];
+        };
+        RockUnitDto: {
+            weatheringGrade: string | null;
+            strengthGrade: string | null;
+            name: string;
+            sharePercent: number;
+        };
+        GroundDto: {
+            /** @description Point-load index Is50, MPa */
+            pointLoadIs50: number | null;
+            /** @description Factor used to estimate UCS from Is50 (UCS ≈ factor × Is50) */
+            pointLoadFactor: number | null;
+            /** @description Water inflow at the face, l/min */
+            inflowLpm: number | null;
+            /** @description Tunnel length the inflow comes from, m (for inflow per 10 m) */
+            inflowLengthM: number | null;
+            /** @description True when the inflow was measured at the face (a point inflow; no length of tunnel is needed) */
+            inflowAtFace?: boolean | null;
+            overbreakM3: number | null;
+            units: components["schemas"]["RockUnitDto"][];
+            waterDescription: string;
+            notes: string;
+        };
+        RoundDto: {
+            previousChainage: number | null;
+            roundLength: number | null;
+            shift: components["schemas"]["Shift"];
+            /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
+            qInput: components["schemas"]["QInputDto"] | null;
+            /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
+            rmrInput: components["schemas"]["RmrInputDto"] | null;
+            gsiObserved: number | null;
+            /** Format: uuid */
+            recommendedClassId: string | null;
+            nextRoundLength: number | null;
+            /** @description The whole assessment (packages/domain RoundAssessment): saved with a draft, frozen at submit */
+            assessment: {
+                [key: string]: unknown;
+            };
+            stage: components["schemas"]["Stage"];
+            status: components["schemas"]["RoundStatus"];
+            /** @description Highest level among the project's trigger rules that fire on this round; green only when every rule could be evaluated; null when it has no rules or some lack their data */
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            submittedAt: string | null;
+            /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
+            inflowPer10m: number | null;
+            id: string;
+            /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
+            setParameters: components["schemas"]["SetParametersDto"];
+            /** @description Rules whose input this round lacks (its level is not green until they are in) */
+            triggersNotEvaluated: components["schemas"]["RuleNotEvaluatedDto"][];
+            /** @description Rules that cannot fire yet (what they watch is not recorded by Roundbook yet) */
+            triggersWaiting: components["schemas"]["RuleNotEvaluatedDto"][];
+            /** @description The rules version that produced the assessment */
+            assessmentVersion: string;
+            headingId: string;
+            roundNumber: number;
+            mappedBy: string;
+            mappedByName: string;
+            mappedAt: string;
+            revision: number;
+            /** @description The rules that fire, red first (as worked out at the last save) */
+            triggerFirings: components["schemas"]["TriggerFiringDto"][];
+            joints: components["schemas"]["JointDto"][];
+            ratings: components["schemas"]["RoundRatingsDto"];
+            /** @description Support classes whose ranges fit the ratings, best ground first */
+            suggestedClassIds: string[];
+            /** @description Things worth a second look that do not stop saving (e.g. round length over the planned maximum) */
+            warnings: string[];
+            /** @description The planned round length of the heading, m */
+            plannedRoundLength: number;
+            version: number;
+            faceChainage: number;
+            shiftDate: string;
+            distantParts: string;
+            ground: components["schemas"]["GroundDto"];
+            recommendationReason: string;
+        };
+        /**
+         * @description What froze it: submit (later also confirm, return, correct)
+         * @enum {string}
+         */
+        RoundEvent: "submit" | "confirm" | "return" | "correct";
+        RoundRevisionDto: {
+            /** @description What froze it: submit (later also confirm, return, correct) */
+            event: components["schemas"]["RoundEvent"];
+            status: components["schemas"]["RoundStatus"];
+            /** @description The record as it was */
+            record: {
+                [key: string]: unknown;
+            };
+            /** @description The assessment as it was (packages/domain RoundAssessment) */
+            assessment: {
+                [key: string]: unknown;
+            };
+            id: string;
+            revision: number;
+            createdBy: string;
+            createdAt: string;
+            assessmentVersion: string;
+        };
+        NearbyJointDto: {
+            kind: components["schemas"]["JointKind"];
+            setLabel: string | null;
+            id: string;
+            roundId: string;
+            roundNumber: number;
+            faceChainage: number;
+            dipDirection: number;
+            dip: number;
+        };
+        JointInputDto: {
+            /**
+             * Format: uuid
+             * @description The joint's stable id (a UUID the client makes); a new one is made when absent. Joints are kept by it.
+             */
+            id?: string;
+            kind: components["schemas"]["JointKind"];
+            notation: components["schemas"]["PlaneNotation"];
+            setLabel: string | null;
+            spacingM: number | null;
+            persistenceM: number | null;
+            apertureMm: number | null;
+            jr: number | null;
+            jrc: number | null;
+            jrcMethod: components["schemas"]["JrcMethod"] | null;
+            ja: number | null;
+            water: components["schemas"]["JointWater"] | null;
+            /** @description Thickness of a fault or shear zone, m */
+            thicknessM: number | null;
+            /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
+            faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
+            /** @description The orientation exactly as typed (kept even when it cannot be read) */
+            orientationText: string;
+            setOverride?: boolean;
+            infill: string;
+            notes: string;
+        };
+        SaveRoundDto: {
+            previousChainage: number | null;
+            roundLength: number | null;
+            shift: components["schemas"]["Shift"];
+            /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
+            qInput: components["schemas"]["QInputDto"] | null;
+            /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
+            rmrInput: components["schemas"]["RmrInputDto"] | null;
+            gsiObserved: number | null;
+            /** Format: uuid */
+            recommendedClassId: string | null;
+            nextRoundLength: number | null;
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
+            faceChainage: number;
+            shiftDate: string;
+            distantParts: string;
+            ground: components["schemas"]["GroundDto"];
+            joints: components["schemas"]["JointInputDto"][];
+            recommendationReason: string;
+            /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
+            setParameters?: components["schemas"]["SetParametersDto"];
+        };
+        SubmitRoundDto: {
+            version: number;
+        };
+        /** @enum {string} */
+        ReviewDecision: "confirm" | "return" | "correct";
+        ReviewDecisionDto: {
+            decision: components["schemas"]["ReviewDecision"];
+            classId: string | null;
+            classCode: string | null;
+            roundLength: number | null;
+            recommendedClassId: string | null;
+            id: string;
+            revision: number;
+            reason: string;
+            comments: string;
+            signedByName: string;
+            signedRole: string;
+            signedAt: string;
+        };
+        /** @enum {string} */
+        ReviewSection: "position" | "ground" | "joints" | "ratings" | "support" | "triggers" | "general";
+        ReviewCommentDto: {
+            section: components["schemas"]["ReviewSection"];
+            resolvedAt: string | null;
+            id: string;
+            text: string;
+            revision: number;
+            authorName: string;
+            createdAt: string;
+        };
+        RuleAcknowledgementDto: {
+            actionTaken: string;
+            note: string;
+            byName: string;
+            role: string;
+            at: string;
+        };
+        RoundRuleDto: {
+            level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
+            acknowledgement: components["schemas"]["RuleAcknowledgementDto"] | null;
+            /** @description Why it fires, in words */
+            detail: string;
+            /** @description The caller owns this rule and may acknowledge it now */
+            canAcknowledge: boolean;
+            ruleId: string;
+            summary: string;
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+            dueAt: string;
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
+            minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
+            overdue: boolean;
+        };
+        ReviewPermissionDto: {
+            allowed: boolean;
+            /** @description Why not, in words (empty when allowed) */
+            reason: string;
+        };
+        RoundReviewDto: {
+            status: components["schemas"]["RoundStatus"];
+            recommendedClassId: string | null;
+            recommendedRoundLength: number | null;
+            confirmedClassId: string | null;
+            confirmedRoundLength: number | null;
+            confirmedAt: string | null;
+            /** @description The last confirmation, if the round is confirmed */
+            confirmation: components["schemas"]["ReviewDecisionDto"] | null;
+            roundId: string;
+            revision: number;
+            version: number;
+            /** @description Every decision, oldest first */
+            decisions: components["schemas"]["ReviewDecisionDto"][];
+            /** @description Return comments not yet resolved */
+            openComments: components["schemas"]["ReviewCommentDto"][];
+            /** @description The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
+            rules: components["schemas"]["RoundRuleDto"][];
+            canConfirm: components["schemas"]["ReviewPermissionDto"];
+            canReturn: components["schemas"]["ReviewPermissionDto"];
+            canCorrect: components["schemas"]["ReviewPermissionDto"];
+            /** @description The geologist may mark return comments resolved */
+            canResolve: boolean;
+            separationOfDuties: boolean;
+            caution: string;
+        };
+        ConfirmRoundDto: {
+            /** @description The round's version as the engineer read it (409 STALE_VERSION if it changed) */
+            version: number;
+            /**
+             * Format: uuid
+             * @description The support class to build
+             */
+            classId: string;
+            /** @description The next round length to build, m */
+            roundLength: number;
+            /** @description Needed when the class is not the recommended one, or the length is over the class's maximum */
+            reason: string;
+            comments: string;
+            /** @description The engineer's password, asked again for the sign-off */
+            password: string;
+        };
+        ReturnCommentInputDto: {
+            section: components["schemas"]["ReviewSection"];
+            text: string;
+        };
+        ReturnRoundDto: {
+            version: number;
+            /** @description At least one comment, each on a section of the round */
+            comments: components["schemas"]["ReturnCommentInputDto"][];
+        };
+        CorrectRoundDto: {
+            version: number;
+            /** @description Why the confirmed round is corrected */
+            reason: string;
+        };
+        AcknowledgeRuleDto: {
+            /** @description What was done about it (e.g. "Probe holes drilled, no water") */
+            actionTaken: string;
+            note: string;
+        };
+        RuleClockDto: {
+            level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
+            ruleId: string;
+            summary: string;
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+            dueAt: string;
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
+            minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
+            overdue: boolean;
+        };
+        ReviewQueueItemDto: {
+            stage: components["schemas"]["Stage"];
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            recommendedClassCode: string | null;
+            roundId: string;
+            projectId: string;
+            projectCode: string;
+            projectName: string;
+            headingId: string;
+            headingCode: string;
+            roundNumber: number;
+            faceChainage: number;
+            /** @description The chainage as the heading prints it (e.g. 1+015.0) */
+            chainageText: string;
+            geologistName: string;
+            submittedAt: string;
+            minutesWaiting: number;
+            rules: components["schemas"]["RuleClockDto"][];
+            revision: number;
+        };
+        ReviewQueueDto: {
+            items: components["schemas"]["ReviewQueueItemDto"][];
+            caution: string;
+        };
+        /** @enum {string} */
+        HealthStatus: "ok" | "degraded";
+        ComponentHealthDto: {
+            ok: boolean;
+            /** @description What was checked, or why it failed */
+            detail: string;
+        };
+        HealthDto: {
+            status: components["schemas"]["HealthStatus"];
+            database: components["schemas"]["ComponentHealthDto"];
+            storage: components["schemas"]["ComponentHealthDto"];
+            mail: components["schemas"]["ComponentHealthDto"];
+        };
+        LocalAccessDto: {
+            /** @description LOCAL_MODE=true and a local inbox folder: the local mail view exists */
+            localMode: boolean;
+            /** @description The caller is an operator of this instance (not a project role) */
+            operator: boolean;
+        };
+        MailAttachmentDto: {
+            index: number;
+            filename: string;
+            contentType: string;
+            size: number;
+        };
+        MailMessageDto: {
+            html: string | null;
+            id: string;
+            from: string;
+            to: string[];
+            subject: string;
+            /** @description When the message was sent (ISO 8601) */
+            date: string;
+            text: string;
+            attachments: components["schemas"]["MailAttachmentDto"][];
+        };
+        JobCountsDto: {
+            pending: number;
+            running: number;
+            done: number;
+            dead: number;
+        };
+        /** @enum {string} */
+        JobState: "pending" | "running" | "done" | "dead";
+        JobDto: {
+            state: components["schemas"]["JobState"];
+            lastError: string | null;
+            /** @description For e-mails: to whom and about what */
+            summary: string | null;
+            id: string;
+            /** @description The handler, e.g. mail.send */
+            kind: string;
+            attempts: number;
+            maxAttempts: number;
+            nextAttemptAt: string;
+            createdAt: string;
+            updatedAt: string;
+        };
+        JobsOverviewDto: {
+            counts: components["schemas"]["JobCountsDto"];
+            /** @description Jobs not done, most recently changed first */
+            jobs: components["schemas"]["JobDto"][];
+        };
+    };
+    responses: never;
+    parameters: never;
+    requestBodies: never;
+    headers: never;
+    pathItems: never;
 }
 export type $defs = Record<string, never>;
 export interface operations {
-  AppInfoController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['AppInfoDto'];
-        };
-      };
-    };
-  };
-  AuditController_list: {
-    parameters: {
-      query?: {
-        entityType?: string;
-        entityId?: string;
-        limit?: number;
-      };
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['AuditEventDto'][];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  AuthController_login: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['LoginDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TokenResponseDto'];
-        };
-      };
-      /** @description INVALID_CREDENTIALS */
-      401: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description TOO_MANY_REQUESTS */
-      429: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  AuthController_me: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['MeDto'];
-        };
-      };
-    };
-  };
-  ProjectsController_list: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ProjectSummaryDto'][];
-        };
-      };
-    };
-  };
-  ProjectsController_create: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateProjectDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ProjectSummaryDto'];
-        };
-      };
-      /** @description CONFLICT: the code is taken */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  ProjectsController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ProjectSummaryDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  ProjectsController_update: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['UpdateProjectDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ProjectSummaryDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description STALE_VERSION: someone else changed it first */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  HeadingsController_list: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HeadingDto'][];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  HeadingsController_create: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateHeadingDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HeadingDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description CONFLICT: the code is taken */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  HeadingsController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HeadingDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  HeadingsController_update: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['UpdateHeadingDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HeadingDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description STALE_VERSION or CONFLICT */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  SupportClassesController_list: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['SupportClassLibraryDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  SupportClassesController_create: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateSupportClassDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['SupportClassLibraryDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  SupportClassesController_reorder: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['ReorderSupportClassesDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['SupportClassLibraryDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  SupportClassesController_remove: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        classId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['SupportClassLibraryDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  SupportClassesController_update: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        classId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['UpdateSupportClassDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['SupportClassLibraryDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  TriggerRulesController_list: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TriggerRuleDto'][];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TriggerRulesController_create: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateTriggerRuleDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TriggerRuleDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin, engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TriggerRulesController_preview: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateTriggerRuleDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TriggerPreviewDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin, engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TriggerRulesController_remove: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        ruleId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      204: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Member without one of the roles: admin, engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TriggerRulesController_update: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        ruleId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['UpdateTriggerRuleDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TriggerRuleDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin, engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TeamController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TeamDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TeamController_invite: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['InviteDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['InvitationDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Already a member */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  TeamController_resend: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        invitationId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['InvitationDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TeamController_revoke: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        invitationId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      204: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  TeamController_remove: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        memberId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TeamDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  TeamController_changeRole: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        memberId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['ChangeRoleDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['TeamDto'];
-        };
-      };
-      /** @description Member without one of the roles: admin */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  InvitationsController_info: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        token: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['InvitationInfoDto'];
-        };
-      };
-    };
-  };
-  InvitationsController_accept: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        token: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['AcceptInvitationDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['AcceptedInvitationDto'];
-        };
-      };
-      /** @description Signed in as another address */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description The address has an account: sign in first */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundsController_list: {
-    parameters: {
-      query?: {
-        sort?: components['schemas']['RoundSort'];
-        status?: components['schemas']['RoundStatus'];
-        stage?: components['schemas']['Stage'];
-        page?: number;
-        pageSize?: number;
-        fromChainage?: number;
-        toChainage?: number;
-      };
-      header?: never;
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundPageDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_create: {
-    parameters: {
-      query?: never;
-      header?: {
-        /** @description A key (e.g. a UUID) the client keeps for this create; a retried request returns the round the first one made */
-        'Idempotency-Key'?: string;
-      };
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CreateRoundDto'];
-      };
-    };
-    responses: {
-      201: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundDto'];
-        };
-      };
-      /** @description Member without one of the roles: geologist */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_next: {
-    parameters: {
-      query: {
-        stage: components['schemas']['Stage'];
-      };
-      header?: never;
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['NextRoundDto'];
-        };
-      };
-      /** @description Member without one of the roles: geologist */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_revisions: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundRevisionDto'][];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_joints: {
-    parameters: {
-      query: {
-        fromChainage: number;
-        toChainage: number;
-        excludeRoundId?: string;
-      };
-      header?: never;
-      path: {
-        projectId: string;
-        headingId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['NearbyJointDto'][];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundsController_save: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['SaveRoundDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundDto'];
-        };
-      };
-      /** @description Member without one of the roles: geologist */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description STALE_VERSION (details.current) or not editable */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundsController_submit: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['SubmitRoundDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundDto'];
-        };
-      };
-      /** @description Member without one of the roles: geologist */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundReviewController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /** @description Member without one of the roles: any */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  RoundReviewController_confirm: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['ConfirmRoundDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /** @description A reason is needed, or the class is not usable */
-      400: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /**
-       * @description Wrong password, or the caller mapped the round (separation of duties)
-       *
-       *     Member without one of the roles: engineer
-       */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not submitted, or STALE_VERSION */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundReviewController_return: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['ReturnRoundDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /** @description Member without one of the roles: engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not submitted, or STALE_VERSION */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundReviewController_correct: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['CorrectRoundDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /** @description Member without one of the roles: engineer, geologist */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not confirmed, or STALE_VERSION */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundReviewController_acknowledge: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-        ruleId: string;
-      };
-      cookie?: never;
-    };
-    requestBody: {
-      content: {
-        'application/json': components['schemas']['AcknowledgeRuleDto'];
-      };
-    };
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /**
-       * @description The rule is owned by another role
-       *
-       *     Member without one of the roles: any
-       */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Already acknowledged, or the round is not submitted */
-      409: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  RoundReviewController_resolve: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        projectId: string;
-        roundId: string;
-        commentId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['RoundReviewDto'];
-        };
-      };
-      /** @description Member without one of the roles: geologist, engineer */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not a member of this project, or no such project */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-    };
-  };
-  ReviewQueueController_queue: {
-    parameters: {
-      query?: {
-        headingId?: string;
-      };
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ReviewQueueDto'];
-        };
-      };
-    };
-  };
-  HealthController_get: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HealthDto'];
-        };
-      };
-      503: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['HealthDto'];
-        };
-      };
-    };
-  };
-  LocalAccessController_access: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['LocalAccessDto'];
-        };
-      };
-    };
-  };
-  LocalMailController_list: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['MailMessageDto'][];
-        };
-      };
-      /** @description Not the instance operator */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description Not in local mode (LOCAL_MODE=true) */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  LocalMailController_attachment: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        id: string;
-        index: number;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      /** @description The attachment file */
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content?: never;
-      };
-      /** @description Not the instance operator */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description Not in local mode (LOCAL_MODE=true) */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  LocalMailController_jobs: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path?: never;
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['JobsOverviewDto'];
-        };
-      };
-      /** @description Not the instance operator */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description Not in local mode (LOCAL_MODE=true) */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
-  LocalMailController_retry: {
-    parameters: {
-      query?: never;
-      header?: never;
-      path: {
-        jobId: string;
-      };
-      cookie?: never;
-    };
-    requestBody?: never;
-    responses: {
-      200: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['JobDto'];
-        };
-      };
-      /** @description Not the instance operator */
-      403: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-      /** @description Not in local mode (LOCAL_MODE=true) */
-      404: {
-        headers: {
-          [name: string]: unknown;
-        };
-        content: {
-          'application/json': components['schemas']['ErrorResponseDto'];
-        };
-      };
-    };
-  };
+    AppInfoController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AppInfoDto"];
+                };
+            };
+        };
+    };
+    AuditController_list: {
+        parameters: {
+            query?: {
+                entityType?: string;
+                entityId?: string;
+                limit?: number;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AuditEventDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    AuthController_login: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["LoginDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TokenResponseDto"];
+                };
+            };
+            /** @description INVALID_CREDENTIALS */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description TOO_MANY_REQUESTS */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    AuthController_me: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["MeDto"];
+                };
+            };
+        };
+    };
+    ProjectsController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProjectSummaryDto"][];
+                };
+            };
+        };
+    };
+    ProjectsController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateProjectDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProjectSummaryDto"];
+                };
+            };
+            /** @description CONFLICT: the code is taken */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    ProjectsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProjectSummaryDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    ProjectsController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateProjectDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProjectSummaryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description STALE_VERSION: someone else changed it first */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HeadingsController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HeadingsController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateHeadingDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description CONFLICT: the code is taken */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HeadingsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HeadingsController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateHeadingDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HeadingDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description STALE_VERSION or CONFLICT */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    SupportClassesController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateSupportClassDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_reorder: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReorderSupportClassesDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    SupportClassesController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                classId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportClassesController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                classId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateSupportClassDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportClassLibraryDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TriggerRulesController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_preview: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerPreviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TriggerRulesController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateTriggerRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TriggerRuleDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_invite: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["InviteDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already a member */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TeamController_resend: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                invitationId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_revoke: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                invitationId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    TeamController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                memberId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    TeamController_changeRole: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                memberId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ChangeRoleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TeamDto"];
+                };
+            };
+            /** @description Member without one of the roles: admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    InvitationsController_info: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InvitationInfoDto"];
+                };
+            };
+        };
+    };
+    InvitationsController_accept: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcceptInvitationDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AcceptedInvitationDto"];
+                };
+            };
+            /** @description Signed in as another address */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description The address has an account: sign in first */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundsController_list: {
+        parameters: {
+            query?: {
+                sort?: components["schemas"]["RoundSort"];
+                status?: components["schemas"]["RoundStatus"];
+                stage?: components["schemas"]["Stage"];
+                page?: number;
+                pageSize?: number;
+                fromChainage?: number;
+                toChainage?: number;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundPageDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_create: {
+        parameters: {
+            query?: never;
+            header?: {
+                /** @description A key (e.g. a UUID) the client keeps for this create; a retried request returns the round the first one made */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateRoundDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_next: {
+        parameters: {
+            query: {
+                stage: components["schemas"]["Stage"];
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NextRoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_revisions: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundRevisionDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_joints: {
+        parameters: {
+            query: {
+                fromChainage: number;
+                toChainage: number;
+                excludeRoundId?: string;
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NearbyJointDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundsController_save: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SaveRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description STALE_VERSION (details.current) or not editable */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundsController_submit: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SubmitRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundReviewController_confirm: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ConfirmRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description A reason is needed, or the class is not usable */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /**
+             * @description Wrong password, or the caller mapped the round (separation of duties)
+             *
+             *     Member without one of the roles: engineer
+             */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not submitted, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_return: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReturnRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not submitted, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_correct: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CorrectRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer, geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not confirmed, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_acknowledge: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcknowledgeRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /**
+             * @description The rule is owned by another role
+             *
+             *     Member without one of the roles: any
+             */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already acknowledged, or the round is not submitted */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_resolve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                commentId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    ReviewQueueController_queue: {
+        parameters: {
+            query?: {
+                headingId?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReviewQueueDto"];
+                };
+            };
+        };
+    };
+    HealthController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HealthDto"];
+                };
+            };
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HealthDto"];
+                };
+            };
+        };
+    };
+    LocalAccessController_access: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LocalAccessDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["MailMessageDto"][];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_attachment: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+                index: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The attachment file */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_jobs: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["JobsOverviewDto"];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    LocalMailController_retry: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                jobId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["JobDto"];
+                };
+            };
+            /** @description Not the instance operator */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not in local mode (LOCAL_MODE=true) */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
 }
