@@ -8,6 +8,11 @@ import { Heading } from '../modules/headings/heading.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
 import { Joint } from '../modules/rounds/joint.entity.js';
+import {
+  RoundComment,
+  RoundDecision,
+  TriggerAcknowledgement,
+} from '../modules/rounds/round-review.entity.js';
 import { RoundRevision } from '../modules/rounds/round-revision.entity.js';
 import { Round } from '../modules/rounds/round.entity.js';
 import { SupportClass } from '../modules/support-classes/support-class.entity.js';
@@ -28,6 +33,9 @@ export const entities = [
   Round,
   Joint,
   RoundRevision,
+  RoundDecision,
+  RoundComment,
+  TriggerAcknowledgement,
   IdempotencyKey,
   Job,
   Notice,

@@ -59,7 +59,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 {
                   path: 'to-confirm',
                   lazy: async () => ({
-                    Component: (await import('@/app/routes/later.route')).ToConfirmRoute,
+                    Component: (await import('@/app/routes/to-confirm.route')).ToConfirmRoute,
                   }),
                 },
                 {

@@ -25,6 +25,7 @@ import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
 import { Project } from '../../modules/projects/project.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
 import { readOrientation } from '../../modules/rounds/orientation-reading.js';
+import { RoundDecision } from '../../modules/rounds/round-review.entity.js';
 import { RoundRevision } from '../../modules/rounds/round-revision.entity.js';
 import { Round, type QRecord, type RmrRecord } from '../../modules/rounds/round.entity.js';
 import { recordOf } from '../../modules/rounds/rounds.mapper.js';
@@ -84,6 +85,8 @@ export async function seedDemoRounds(
   heading: Heading,
   classes: SupportClass[],
   mappedBy: string,
+  /** The demo engineer, who signed the confirmations of the past rounds (invented history). */
+  engineer?: { id: string; name: string },
 ): Promise<void> {
   const random = rng(plan.heading.split('').reduce((s, c) => s * 31 + c.charCodeAt(0), 7));
   const project = await manager.findOneByOrFail(Project, { id: heading.projectId });
@@ -246,6 +249,12 @@ export async function seedDemoRounds(
       revision: 1,
       submittedAt: status === 'draft' ? null : new Date(Math.min(mappedAt.getTime() + 3600_000, Date.now())),
     });
+    if (status === 'confirmed' && engineer) {
+      // The past rounds of the scenario were confirmed by the demo engineer, as recommended.
+      saved.confirmedClassId = saved.recommendedClassId;
+      saved.confirmedRoundLength = saved.nextRoundLength;
+      saved.confirmedAt = new Date(Math.min(mappedAt.getTime() + 2 * 3600_000, Date.now()));
+    }
     const jointRows = entries.map((e, seq) => {
       const text = formatPlane(e.plane, e.notation);
       const reading = readOrientation(text, 'dip-direction/dip');
@@ -345,6 +354,43 @@ export async function seedDemoRounds(
           assessment,
           assessmentVersion: assessment.version,
           createdBy: mappedBy,
+        }),
+      );
+    }
+    if (status === 'confirmed' && engineer && saved.confirmedAt) {
+      await manager.save(
+        manager.create(RoundRevision, {
+          id: randomUUID(),
+          roundId: saved.id,
+          revision: 1,
+          event: 'confirm',
+          status: 'confirmed',
+          record: {
+            ...recordOf(saved, jointRows),
+            confirmedClassId: saved.confirmedClassId,
+            confirmedRoundLength: saved.confirmedRoundLength,
+          },
+          assessment,
+          assessmentVersion: assessment.version,
+          createdBy: engineer.id,
+        }),
+      );
+      await manager.save(
+        manager.create(RoundDecision, {
+          id: randomUUID(),
+          roundId: saved.id,
+          projectId: saved.projectId,
+          revision: 1,
+          decision: 'confirm',
+          classId: saved.confirmedClassId,
+          roundLength: saved.confirmedRoundLength,
+          recommendedClassId: saved.recommendedClassId,
+          reason: '',
+          comments: '',
+          signedBy: engineer.id,
+          signedName: engineer.name,
+          signedRole: 'engineer',
+          signedAt: saved.confirmedAt,
         }),
       );
     }

@@ -86,9 +86,15 @@ export async function seedDemo(
     const geologist = await manager.findOneByOrFail(User, {
       email: scenario.users.find((u) => u.role === 'geologist')!.email,
     });
+    const engineer = await manager.findOneByOrFail(User, {
+      email: scenario.users.find((u) => u.role === 'engineer')!.email,
+    });
     for (const plan of scenario.rounds) {
       const heading = await manager.findOneByOrFail(Heading, { projectId: project.id, code: plan.heading });
-      await seedDemoRounds(manager, plan, heading, classes, geologist.id);
+      await seedDemoRounds(manager, plan, heading, classes, geologist.id, {
+        id: engineer.id,
+        name: engineer.name,
+      });
     }
     return true;
   });

@@ -47,6 +47,10 @@ export class Project {
   @Column({ name: 'coordinate_grid', type: 'varchar', length: 120, default: '' })
   coordinateGrid: string;
 
+  /** Separation of duties: whoever mapped a round may not confirm it, even as an engineer (on by default). */
+  @Column({ name: 'separation_of_duties', type: 'boolean', default: true })
+  separationOfDuties: boolean;
+
   @OneToMany('Heading', (h: Heading) => h.project)
   headings: Heading[];
 

@@ -112,6 +112,7 @@ export class ProjectsService {
         'groundScale',
         'distributionList',
         'coordinateGrid',
+        'separationOfDuties',
       ] as const;
       const before: Record<string, unknown> = {};
       const after: Record<string, unknown> = {};

@@ -9,6 +9,7 @@ import { ProjectsService } from '../projects/projects.service.js';
 import { SupportClassesService } from '../support-classes/support-classes.service.js';
 import { TriggerRulesService } from '../trigger-rules/trigger-rules.service.js';
 import { Joint } from './joint.entity.js';
+import { classOfRound } from './review-rules.js';
 import { Round } from './round.entity.js';
 
 /** The stored joints of the heading's other rounds within a window of the face: what set finding pools. */
@@ -75,7 +76,7 @@ export class RoundAssessor {
       round.roundNumber > 1
         ? manager.findOne(Round, {
             where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
-            select: { id: true, recommendedClassId: true },
+            select: { id: true, recommendedClassId: true, confirmedClassId: true },
           })
         : Promise.resolve(null),
       nearbyPlanes(manager, round, parameters.windowM),
@@ -114,7 +115,8 @@ export class RoundAssessor {
         heading: headingGeometry(h, round.stage, round.faceChainage),
         supportClasses: classes,
         nearbyJoints: nearby,
-        previousRound: previous ? { classId: previous.recommendedClassId } : null,
+        // The class-change rule compares confirmed classes once the previous round is confirmed.
+        previousRound: previous ? { classId: classOfRound(previous) } : null,
         rules,
         qTableEdition: project.qTableEdition,
         groundScale: project.groundScale,

@@ -148,6 +148,24 @@ export class Round {
   })
   nextRoundLength: number | null;
 
+  /** The class the engineer confirmed (kept apart from the geologist's recommendation); null until confirmed. */
+  @Column({ name: 'confirmed_class_id', type: 'uuid', nullable: true })
+  confirmedClassId: string | null;
+
+  /** The next round length the engineer confirmed, m. */
+  @Column({
+    name: 'confirmed_round_length',
+    type: 'decimal',
+    precision: 5,
+    scale: 2,
+    nullable: true,
+    transformer: decimal,
+  })
+  confirmedRoundLength: number | null;
+
+  @Column({ name: 'confirmed_at', type: 'datetime', precision: 3, nullable: true })
+  confirmedAt: Date | null;
+
   @Column({ name: 'recommendation_reason', type: 'text' })
   recommendationReason: string;
 

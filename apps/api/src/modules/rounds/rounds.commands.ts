@@ -34,6 +34,7 @@ import { applyTransition, assertEditable, type RoundEvent } from './round-status
 import { Round, type GroundRecord } from './round.entity.js';
 import { recordOf } from './rounds.mapper.js';
 import { RoundsQueries } from './rounds.queries.js';
+import { RoundsReview } from './rounds.review.js';
 
 const emptyGround = (): GroundRecord => ({
   units: [],
@@ -104,6 +105,7 @@ export class RoundsCommands {
     @Inject(RoundAssessor) private readonly assessor: RoundAssessor,
     @Inject(ProjectsService) private readonly projects: ProjectsService,
     @Inject(SupportClassesService) private readonly supportClasses: SupportClassesService,
+    @Inject(RoundsReview) private readonly review: RoundsReview,
   ) {}
 
   async next(access: ProjectAccess, headingId: string, stage: Stage): Promise<NextRoundDto> {
@@ -387,6 +389,8 @@ export class RoundsCommands {
           nextRoundLength: round.nextRoundLength,
         },
       });
+      // Resolves the last return's comments and tells the project's engineers (review notices).
+      await this.review.onSubmitted(manager, round, caller);
     });
     return this.queries.get(access, roundId);
   }

@@ -9,13 +9,16 @@ import { ProjectsModule } from '../projects/projects.module.js';
 import { SupportClassesModule } from '../support-classes/support-classes.module.js';
 import { TriggerRulesModule } from '../trigger-rules/trigger-rules.module.js';
 import { Joint } from './joint.entity.js';
+import { ReviewQueueController, RoundReviewController } from './review.controller.js';
 import { RoundAssessor } from './round-assessor.service.js';
+import { RoundComment, RoundDecision, TriggerAcknowledgement } from './round-review.entity.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
 import { RoundsReadAdapter } from './rounds-read.adapter.js';
 import { RoundsCommands } from './rounds.commands.js';
 import { RoundsController } from './rounds.controller.js';
 import { RoundsQueries } from './rounds.queries.js';
+import { RoundsReview } from './rounds.review.js';
 
 /**
  * Rounds, their joints, sets (in the assessment) and revisions. Depends on the setup modules through their
@@ -24,18 +27,28 @@ import { RoundsQueries } from './rounds.queries.js';
 @Global()
 @Module({
   imports: [
-    TypeOrmModule.forFeature([Round, Joint, RoundRevision, IdempotencyKey, ProjectMember]),
+    TypeOrmModule.forFeature([
+      Round,
+      Joint,
+      RoundRevision,
+      RoundDecision,
+      RoundComment,
+      TriggerAcknowledgement,
+      IdempotencyKey,
+      ProjectMember,
+    ]),
     AuditModule,
     ProjectsModule,
     HeadingsModule,
     SupportClassesModule,
     TriggerRulesModule,
   ],
-  controllers: [RoundsController],
+  controllers: [RoundsController, RoundReviewController, ReviewQueueController],
   providers: [
     RoundAssessor,
     RoundsQueries,
     RoundsCommands,
+    RoundsReview,
     RoundsReadAdapter,
     { provide: ROUNDS_READ, useExisting: RoundsReadAdapter },
   ],

@@ -478,6 +478,125 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/review": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The round's review: confirmation, decisions, open return comments and what the caller may do (any member) */
+        get: operations["RoundReviewController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/confirm": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Confirms a submitted round with the class and next round length to build, signed with the password (engineers) */
+        post: operations["RoundReviewController_confirm"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/return": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Returns a submitted round to the geologist with comments per section: a draft of a new revision (engineers) */
+        post: operations["RoundReviewController_return"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/correct": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Opens a new revision of a confirmed round, with the reason; it is reviewed again (engineers, geologists) */
+        post: operations["RoundReviewController_correct"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Acknowledges a fired trigger rule of a submitted or confirmed round, with what was done (the rule's owner role) */
+        post: operations["RoundReviewController_acknowledge"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Marks a return comment resolved (geologists, engineers); the next submit resolves the rest */
+        post: operations["RoundReviewController_resolve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/review/queue": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The caller's queue: submitted rounds of every project where they are an engineer, red first, then oldest */
+        get: operations["ReviewQueueController_queue"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -739,6 +858,8 @@ export interface components {
             /** @description Addresses that receive every handover */
             distributionList?: string[];
             coordinateGrid?: string;
+            /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+            separationOfDuties?: boolean;
             /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
             version: number;
         };
@@ -1446,6 +1567,163 @@ export interface components {
         };
         SubmitRoundDto: {
             version: number;
+        };
+        /** @enum {string} */
+        ReviewDecision: "confirm" | "return" | "correct";
+        ReviewDecisionDto: {
+            decision: components["schemas"]["ReviewDecision"];
+            classId: string | null;
+            classCode: string | null;
+            roundLength: number | null;
+            recommendedClassId: string | null;
+            id: string;
+            revision: number;
+            reason: string;
+            comments: string;
+            signedByName: string;
+            signedRole: string;
+            signedAt: string;
+        };
+        /** @enum {string} */
+        ReviewSection: "position" | "ground" | "joints" | "ratings" | "support" | "triggers" | "general";
+        ReviewCommentDto: {
+            section: components["schemas"]["ReviewSection"];
+            resolvedAt: string | null;
+            id: string;
+            text: string;
+            revision: number;
+            authorName: string;
+            createdAt: string;
+        };
+        RuleAcknowledgementDto: {
+            actionTaken: string;
+            note: string;
+            byName: string;
+            role: string;
+            at: string;
+        };
+        RoundRuleDto: {
+            level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
+            acknowledgement: components["schemas"]["RuleAcknowledgementDto"] | null;
+            /** @description Why it fires, in words */
+            detail: string;
+            /** @description The caller owns this rule and may acknowledge it now */
+            canAcknowledge: boolean;
+            ruleId: string;
+            summary: string;
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+            dueAt: string;
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
+            minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
+            overdue: boolean;
+        };
+        ReviewPermissionDto: {
+            allowed: boolean;
+            /** @description Why not, in words (empty when allowed) */
+            reason: string;
+        };
+        RoundReviewDto: {
+            status: components["schemas"]["RoundStatus"];
+            recommendedClassId: string | null;
+            recommendedRoundLength: number | null;
+            confirmedClassId: string | null;
+            confirmedRoundLength: number | null;
+            confirmedAt: string | null;
+            /** @description The last confirmation, if the round is confirmed */
+            confirmation: components["schemas"]["ReviewDecisionDto"] | null;
+            roundId: string;
+            revision: number;
+            version: number;
+            /** @description Every decision, oldest first */
+            decisions: components["schemas"]["ReviewDecisionDto"][];
+            /** @description Return comments not yet resolved */
+            openComments: components["schemas"]["ReviewCommentDto"][];
+            /** @description The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
+            rules: components["schemas"]["RoundRuleDto"][];
+            canConfirm: components["schemas"]["ReviewPermissionDto"];
+            canReturn: components["schemas"]["ReviewPermissionDto"];
+            canCorrect: components["schemas"]["ReviewPermissionDto"];
+            /** @description The geologist may mark return comments resolved */
+            canResolve: boolean;
+            separationOfDuties: boolean;
+            caution: string;
+        };
+        ConfirmRoundDto: {
+            /** @description The round's version as the engineer read it (409 STALE_VERSION if it changed) */
+            version: number;
+            /**
+             * Format: uuid
+             * @description The support class to build
+             */
+            classId: string;
+            /** @description The next round length to build, m */
+            roundLength: number;
+            /** @description Needed when the class is not the recommended one, or the length is over the class's maximum */
+            reason: string;
+            comments: string;
+            /** @description The engineer's password, asked again for the sign-off */
+            password: string;
+        };
+        ReturnCommentInputDto: {
+            section: components["schemas"]["ReviewSection"];
+            text: string;
+        };
+        ReturnRoundDto: {
+            version: number;
+            /** @description At least one comment, each on a section of the round */
+            comments: components["schemas"]["ReturnCommentInputDto"][];
+        };
+        CorrectRoundDto: {
+            version: number;
+            /** @description Why the confirmed round is corrected */
+            reason: string;
+        };
+        AcknowledgeRuleDto: {
+            /** @description What was done about it (e.g. "Probe holes drilled, no water") */
+            actionTaken: string;
+            note: string;
+        };
+        RuleClockDto: {
+            level: components["schemas"]["TriggerLevel"];
+            acknowledgedAt: string | null;
+            ruleId: string;
+            summary: string;
+            action: string;
+            ownerRole: string;
+            timeAllowedHours: number;
+            dueAt: string;
+            /** @description Minutes left against the rule's timeframe (negative once past it) */
+            minutesLeft: number;
+            /** @description Past its time without its owner's acknowledgement */
+            overdue: boolean;
+        };
+        ReviewQueueItemDto: {
+            stage: components["schemas"]["Stage"];
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            recommendedClassCode: string | null;
+            roundId: string;
+            projectId: string;
+            projectCode: string;
+            projectName: string;
+            headingId: string;
+            headingCode: string;
+            roundNumber: number;
+            faceChainage: number;
+            /** @description The chainage as the heading prints it (e.g. 1+015.0) */
+            chainageText: string;
+            geologistName: string;
+            submittedAt: string;
+            minutesWaiting: number;
+            rules: components["schemas"]["RuleClockDto"][];
+            revision: number;
+        };
+        ReviewQueueDto: {
+            items: components["schemas"]["ReviewQueueItemDto"][];
+            caution: string;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -2978,6 +3256,314 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    RoundReviewController_confirm: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ConfirmRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description A reason is needed, or the class is not usable */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /**
+             * @description Wrong password, or the caller mapped the round (separation of duties)
+             *
+             *     Member without one of the roles: engineer
+             */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not submitted, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_return: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReturnRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not submitted, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_correct: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CorrectRoundDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer, geologist */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not confirmed, or STALE_VERSION */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_acknowledge: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcknowledgeRuleDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /**
+             * @description The rule is owned by another role
+             *
+             *     Member without one of the roles: any
+             */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already acknowledged, or the round is not submitted */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_resolve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                commentId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    ReviewQueueController_queue: {
+        parameters: {
+            query?: {
+                headingId?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReviewQueueDto"];
                 };
             };
         };

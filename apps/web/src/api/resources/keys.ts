@@ -47,6 +47,15 @@ export const resourceKeys = {
   /** Parent of every round of the project (GET /projects/{id}/rounds/{roundId}). */
   rounds: (projectId: string) => [...resourceKeys.project(projectId), 'rounds'] as const,
   round: (projectId: string, roundId: string) => [...resourceKeys.rounds(projectId), roundId] as const,
+  /** The round's review (GET /projects/{id}/rounds/{roundId}/review): below the round, so it goes with it. */
+  roundReview: (projectId: string, roundId: string) =>
+    [...resourceKeys.round(projectId, roundId), 'review'] as const,
+  /** Every frozen revision of a round (GET /projects/{id}/rounds/{roundId}/revisions). */
+  roundRevisions: (projectId: string, roundId: string) =>
+    [...resourceKeys.round(projectId, roundId), 'revisions'] as const,
+  /** The engineer's queue across projects (GET /review/queue), optionally one heading's. */
+  reviewQueueAll: () => ['review', 'queue'] as const,
+  reviewQueue: (headingId: string | null) => [...resourceKeys.reviewQueueAll(), { headingId }] as const,
   supportClasses: (projectId: string) => [...resourceKeys.project(projectId), 'support-classes'] as const,
   triggerRules: (projectId: string) => [...resourceKeys.project(projectId), 'trigger-rules'] as const,
   team: (projectId: string) => [...resourceKeys.project(projectId), 'team'] as const,

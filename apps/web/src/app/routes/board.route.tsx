@@ -57,7 +57,16 @@ export function BoardRoute() {
         <NewProjectButton />
       </div>
       {projects.map((project) => (
-        <ProjectBoard key={project.id} project={project} />
+        <ProjectBoard
+          key={project.id}
+          project={project}
+          // The engineer's count leads to their queue, filtered to the heading.
+          reviewHref={
+            project.role === 'engineer'
+              ? (headingId) => `/to-confirm?heading=${encodeURIComponent(headingId)}`
+              : undefined
+          }
+        />
       ))}
     </>
   );

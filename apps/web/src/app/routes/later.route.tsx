@@ -15,15 +15,6 @@ export function LaterPage({ title, purpose }: LaterPageProps) {
   );
 }
 
-export function ToConfirmRoute() {
-  return (
-    <LaterPage
-      title="To confirm"
-      purpose="Submitted rounds will queue here for the engineer to confirm or return with comments."
-    />
-  );
-}
-
 export function ReceivedRoute() {
   return (
     <LaterPage

@@ -9,6 +9,7 @@ import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
+import { ReviewPanel } from '@/features/review/components/review-panel';
 import {
   useRound,
   useRoundHeading,
@@ -58,6 +59,14 @@ export function RoundRoute() {
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
       />
+      {round.status === 'draft' && round.revision === 1 ? null : (
+        <ReviewPanel
+          projectId={projectId}
+          roundId={round.id}
+          supportClasses={library.classes}
+          timeZone={project.timeZone}
+        />
+      )}
     </>
   );
 }

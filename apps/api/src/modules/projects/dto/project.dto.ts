@@ -12,6 +12,7 @@ import {
   ArrayMaxSize,
   ArrayUnique,
   IsArray,
+  IsBoolean,
   IsEmail,
   Matches,
 } from 'class-validator';
@@ -145,6 +146,11 @@ export class UpdateProjectDto {
   @IsString()
   @Length(0, 120)
   coordinateGrid?: string;
+
+  /** Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+  @IsOptional()
+  @IsBoolean()
+  separationOfDuties?: boolean;
 
   /** The version you last read; a stale version is refused with 409 STALE_VERSION */
   @IsInt()

@@ -1,4 +1,4 @@
-import { Badge, Card, makeStyles, Subtitle2, Text, tokens } from '@fluentui/react-components';
+import { Badge, Card, makeStyles, mergeClasses, Subtitle2, Text, tokens } from '@fluentui/react-components';
 import { formatAzimuth, formatChainageFor } from '@roundbook/domain';
 import { TriggerLevelBadge } from '@roundbook/ui';
 import type { ReactNode } from 'react';
@@ -17,6 +17,8 @@ export interface HeadingCardProps {
   timeZone: string;
   /** Where the card's title leads (the heading's screen). */
   to?: string;
+  /** Where the "waiting for review" count leads (the queue, filtered to this heading). */
+  reviewTo?: string;
 }
 
 const useStyles = makeStyles({
@@ -89,7 +91,7 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 }
 
 /** One heading on the Board: where the face is and what is waiting on it. */
-export function HeadingCard({ heading, timeZone, to }: HeadingCardProps) {
+export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProps) {
   const styles = useStyles();
   const handover = heading.lastHandover;
   const handoverStatus = handoverState(handover);
@@ -157,11 +159,17 @@ export function HeadingCard({ heading, timeZone, to }: HeadingCardProps) {
           {heading.lastRoundAt === null ? 'none yet' : formatProjectTime(heading.lastRoundAt, timeZone)}
         </Fact>
         <Fact term="Waiting for review">
-          <span className={heading.roundsToConfirm > 0 ? styles.attention : undefined}>
-            {heading.roundsToConfirm === 0
-              ? 'none'
-              : `${heading.roundsToConfirm} ${heading.roundsToConfirm === 1 ? 'round' : 'rounds'}`}
-          </span>
+          {heading.roundsToConfirm > 0 && reviewTo ? (
+            <Link className={mergeClasses(styles.attention, styles.link)} to={reviewTo}>
+              {`${heading.roundsToConfirm} ${heading.roundsToConfirm === 1 ? 'round' : 'rounds'}`}
+            </Link>
+          ) : (
+            <span className={heading.roundsToConfirm > 0 ? styles.attention : undefined}>
+              {heading.roundsToConfirm === 0
+                ? 'none'
+                : `${heading.roundsToConfirm} ${heading.roundsToConfirm === 1 ? 'round' : 'rounds'}`}
+            </span>
+          )}
         </Fact>
         <Fact term="Last handover">
           {handover === null || handoverStatus === 'none' ? (

@@ -5,6 +5,8 @@ import { HeadingCard } from '@/features/projects/components/heading-card';
 
 export interface ProjectBoardProps {
   project: ProjectSummary;
+  /** Where a heading's "waiting for review" count leads (composed by the app: the To confirm queue). */
+  reviewHref?: (headingId: string) => string;
 }
 
 const useStyles = makeStyles({
@@ -17,7 +19,7 @@ const useStyles = makeStyles({
 });
 
 /** The Board for one project: a header and one card per heading. */
-export function ProjectBoard({ project }: ProjectBoardProps) {
+export function ProjectBoard({ project, reviewHref }: ProjectBoardProps) {
   const styles = useStyles();
   return (
     <section className={styles.section} aria-label={project.name} data-testid="project-board">
@@ -39,6 +41,7 @@ export function ProjectBoard({ project }: ProjectBoardProps) {
               heading={heading}
               timeZone={project.timeZone}
               to={`/projects/${project.id}/headings/${heading.id}`}
+              reviewTo={reviewHref?.(heading.id)}
             />
           ))}
         </div>

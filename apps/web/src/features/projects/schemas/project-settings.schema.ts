@@ -8,7 +8,8 @@ import type {
   UpdateProjectRequest,
 } from '@/api/contract';
 
-export type ProjectSettingsValues = Required<Omit<UpdateProjectRequest, 'version'>>;
+/** The settings this form edits (separation of duties is set through the API, not on this form yet). */
+export type ProjectSettingsValues = Required<Omit<UpdateProjectRequest, 'version' | 'separationOfDuties'>>;
 
 export const PLANE_NOTATIONS: PlaneNotation[] = ['dip-direction/dip', 'dip/dip-direction', 'strike/dip-rhr'];
 export const notationLabels: Record<PlaneNotation, string> = {
