@@ -24,6 +24,8 @@ const ADMIN: readonly Actor[] = ['admin'];
 const GEOLOGIST_OR_ADMIN: readonly Actor[] = ['admin', 'geologist'];
 const ENGINEER_OR_ADMIN: readonly Actor[] = ['admin', 'engineer'];
 const GEOLOGIST: readonly Actor[] = ['geologist'];
+const ENGINEER: readonly Actor[] = ['engineer'];
+const GEOLOGIST_OR_ENGINEER: readonly Actor[] = ['geologist', 'engineer'];
 const OPERATOR: readonly Actor[] = ['operator'];
 
 /** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
@@ -76,6 +78,18 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'GET /api/projects/{projectId}/rounds/{roundId}/revisions': MEMBERS,
   'PUT /api/projects/{projectId}/rounds/{roundId}': GEOLOGIST,
   'POST /api/projects/{projectId}/rounds/{roundId}/submit': GEOLOGIST,
+
+  // Review (issue 11): the engineer decides; a correction may be asked by the geologist or the engineer; the
+  // owning role of a fired rule acknowledges it (checked on the rule: every member passes the guard).
+  'GET /api/projects/{projectId}/rounds/{roundId}/review': MEMBERS,
+  'POST /api/projects/{projectId}/rounds/{roundId}/confirm': ENGINEER,
+  'POST /api/projects/{projectId}/rounds/{roundId}/return': ENGINEER,
+  'POST /api/projects/{projectId}/rounds/{roundId}/correct': GEOLOGIST_OR_ENGINEER,
+  'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge': MEMBERS,
+  'POST /api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve':
+    GEOLOGIST_OR_ENGINEER,
+  // The queue lists what the caller reviews as an engineer, across projects; empty for everyone else.
+  'GET /api/review/queue': SIGNED_IN,
 
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,

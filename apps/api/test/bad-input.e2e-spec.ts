@@ -297,6 +297,38 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         as: p.as('geologist'),
         body: { version: round.version },
       },
+      // Review (issue 11): the body is checked before the round's state, so a draft serves.
+      {
+        key: 'POST /api/projects/{projectId}/rounds/{roundId}/confirm',
+        url: `${p.base}/rounds/${round.id}/confirm`,
+        as: p.as('engineer'),
+        body: {
+          version: round.version,
+          classId: classes[0].id,
+          roundLength: 3,
+          reason: 'Because.',
+          comments: '',
+          password: 'rb-test-2026-pw',
+        },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/rounds/{roundId}/return',
+        url: `${p.base}/rounds/${round.id}/return`,
+        as: p.as('engineer'),
+        body: { version: round.version, comments: [{ section: 'ground', text: 'Check the inflow.' }] },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/rounds/{roundId}/correct',
+        url: `${p.base}/rounds/${round.id}/correct`,
+        as: p.as('engineer'),
+        body: { version: round.version, reason: 'The face chainage was mistyped.' },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge',
+        url: `${p.base}/rounds/${round.id}/triggers/${rule.id}/acknowledge`,
+        as: p.as('engineer'),
+        body: { actionTaken: 'Probed ahead.', note: '' },
+      },
     ];
     const bodyRoutes = Object.entries(document.paths).flatMap(([route, ops]) =>
       Object.entries(ops)

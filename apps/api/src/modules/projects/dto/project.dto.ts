@@ -148,7 +148,7 @@ export class UpdateProjectDto {
   coordinateGrid?: string;
 
   /** Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
-  @IsOptional()
+  @Optional()
   @IsBoolean()
   separationOfDuties?: boolean;
 

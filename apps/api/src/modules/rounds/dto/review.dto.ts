@@ -8,7 +8,6 @@ import {
   IsIn,
   IsInt,
   IsNumber,
-  IsOptional,
   IsString,
   IsUUID,
   Length,
@@ -16,7 +15,9 @@ import {
   MaxLength,
   Min,
   ValidateNested,
+  IsObject,
 } from 'class-validator';
+import { Optional } from '../../../common/dto/optional.js';
 import { REVIEW_DECISIONS, REVIEW_SECTIONS, type ReviewSection } from '../round-review.entity.js';
 
 export class ConfirmRoundDto {
@@ -69,6 +70,7 @@ export class ReturnRoundDto {
   @IsArray()
   @ArrayMinSize(1, { message: 'Say what needs another look: at least one comment.' })
   @ArrayMaxSize(50)
+  @IsObject({ each: true, message: 'Give each item as an object.' })
   @ValidateNested({ each: true })
   @Type(() => ReturnCommentInputDto)
   comments: ReturnCommentInputDto[];
@@ -160,7 +162,7 @@ export class RoundReviewDto {
 }
 
 export class ReviewQueueQueryDto {
-  @IsOptional()
+  @Optional()
   @IsUUID()
   headingId?: string;
 }
