@@ -25,6 +25,7 @@ import {
   rqdEstimateFromJv,
 } from '@roundbook/geomath';
 import type { JvEdition, QLocation, QParameterTable, RmrOrientationAssessment } from '@roundbook/geomath';
+import { jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
 import { useState } from 'react';
@@ -39,14 +40,13 @@ import {
   rmrWeatheringOptions,
   sentence,
 } from '@/features/rounds/utils/labels';
-import type { ComputedSet } from '@/features/rounds/utils/sets';
-import { jvOfSets, worstOrientation } from '@/features/rounds/utils/sets';
 
 export interface RatingSectionProps {
   live: RoundRatings;
   saved: RoundRatings;
-  sets: ComputedSet[];
-  /** Inflow per 10 m of tunnel as last saved (for the RMR89 groundwater rating). */
+  /** The sets of the round's assessment. */
+  sets: RoundSet[];
+  /** Inflow per 10 m of tunnel from the Ground record as typed (for the RMR89 groundwater rating). */
   inflowPer10m: number | null;
   driveTrend: number;
 }
