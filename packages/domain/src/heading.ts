@@ -180,7 +180,11 @@ export function assessedHeading(
     axisHeight: heading.axisHeight,
     chainageSense: senseSign(heading.chainageSense),
     ...(part
-      ? { stageCrownHeight: part.crownHeight, stageInvertDepth: part.invertDepth, stageHalfWidth: part.halfWidth }
+      ? {
+          stageCrownHeight: part.crownHeight,
+          stageInvertDepth: part.invertDepth,
+          stageHalfWidth: part.halfWidth,
+        }
       : {}),
     plannedRoundLength: heading.plannedRoundLength,
   };

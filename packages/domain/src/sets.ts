@@ -1,4 +1,11 @@
-import { findSets, fisherStatistics, jvFromSpacings, planeOfPole, poleOf, rmrOrientationInTunnel } from '@roundbook/geomath';
+import {
+  findSets,
+  fisherStatistics,
+  jvFromSpacings,
+  planeOfPole,
+  poleOf,
+  rmrOrientationInTunnel,
+} from '@roundbook/geomath';
 import type { Drive, Plane, RmrOrientationResult } from '@roundbook/geomath';
 
 /** How the sets of a round are found; stored with the round so that a re-read finds the same sets. */

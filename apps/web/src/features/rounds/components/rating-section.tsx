@@ -13,6 +13,7 @@ import {
   Text,
   tokens,
 } from '@fluentui/react-components';
+import { jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import {
   formatPlane,
   Q_EDITION,
@@ -25,7 +26,6 @@ import {
   rqdEstimateFromJv,
 } from '@roundbook/geomath';
 import type { JvEdition, QLocation, QParameterTable, RmrOrientationAssessment } from '@roundbook/geomath';
-import { jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
 import { useState } from 'react';

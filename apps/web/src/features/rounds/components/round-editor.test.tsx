@@ -280,3 +280,106 @@ describe('Round editor: a draft from this device that the server has moved past'
     expect(saves).toHaveLength(0);
   });
 });
+
+describe('Round editor: one assessment for the sets and the trigger level', () => {
+  const RULES = 'GET /api/projects/p-1/trigger-rules';
+  const joint = (id: string, text: string, extra: Partial<Round['joints'][number]> = {}) => ({
+    id,
+    kind: 'joint' as const,
+    notation: 'dip-direction/dip' as const,
+    orientationText: text,
+    setLabel: null,
+    setOverride: false,
+    spacingM: 0.4,
+    persistenceM: null,
+    apertureMm: null,
+    jr: null,
+    jrc: null,
+    jrcMethod: null,
+    ja: null,
+    water: null,
+    thicknessM: null,
+    dipDirection: null,
+    dip: null,
+    orientationError: null,
+    seq: 1,
+    infill: '',
+    notes: '',
+    ...extra,
+  });
+  // Steep joints striking along the 047° drive: very unfavourable for the drive (RMR89 Table 4.1, note 6).
+  const round: Round = {
+    ...draftRound,
+    setParameters: { windowM: 25, count: 1 },
+    joints: [
+      joint('11111111-1111-4111-8111-111111111111', '137/70'),
+      joint('22222222-2222-4222-8222-222222222222', '139/72'),
+      joint('33333333-3333-4333-8333-333333333333', '020/30', { setLabel: 'S7', setOverride: true }),
+    ],
+  };
+  const nearby = [
+    {
+      id: 'n-1',
+      roundId: 'r-0',
+      roundNumber: 41,
+      faceChainage: 1250,
+      kind: 'joint',
+      setLabel: 'S1',
+      dipDirection: 135,
+      dip: 69,
+    },
+    {
+      id: 'n-2',
+      roundId: 'r-0',
+      roundNumber: 41,
+      faceChainage: 1250,
+      kind: 'joint',
+      setLabel: 'S1',
+      dipDirection: 138,
+      dip: 71,
+    },
+  ];
+  const rule = {
+    id: 'tr-1',
+    watch: 'adverse-orientation',
+    comparison: null,
+    threshold: null,
+    level: 'amber',
+    ownerRole: 'engineer',
+    action: 'Check the bolting against the set.',
+    timeAllowedHours: 4,
+    enabled: true,
+    summary: 'A set or feature adverse to the drive → amber',
+    version: 1,
+  };
+
+  it('shows the sets found with the earlier round and the trigger that fires on the same set, live', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round);
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    const table = await screen.findByTestId('sets-table');
+    const cellsOf = (row: number) =>
+      [...within(table).getAllByRole('row')[row].querySelectorAll('th, td')].map((c) => c.textContent);
+    // Two joints here and two of the earlier round within 25 m: one set of four.
+    await waitFor(() => expect(cellsOf(1).slice(0, 3)).toEqual(['S1', expect.any(String), '4 (2)']));
+    // The geologist's own set is kept, marked as such; the others follow the assessment.
+    expect(screen.getByLabelText('Set of joint 1')).toHaveValue('S1');
+    expect(screen.getByLabelText('Set of joint 2')).toHaveValue('S1');
+    expect(screen.getByLabelText('Set of joint 3')).toHaveValue('S7');
+    expect(screen.getByText('yours')).toBeInTheDocument();
+    expect(within(table).getByRole('rowheader', { name: 'S7' })).toBeInTheDocument();
+
+    const panel = screen.getByTestId('trigger-panel');
+    expect(panel).toHaveTextContent('As typed; saved with the round.');
+    const firing = within(panel).getByTestId('trigger-firing');
+    // The same set S1, by the same mean the sets table shows.
+    const [dipDirection, dip] = (cellsOf(1)[1] ?? '').split('/').map(Number);
+    const said = /S1 \((\d{3})\/(\d{2})\) is very unfavourable for the drive/.exec(firing.textContent ?? '');
+    expect(said).not.toBeNull();
+    expect(Math.abs(Number(said?.[1]) - dipDirection)).toBeLessThanOrEqual(0.5);
+    expect(Math.abs(Number(said?.[2]) - dip)).toBeLessThanOrEqual(0.5);
+    // Nothing is written back into the record by the screen: the only save is the one the typing makes.
+    expect(saves).toHaveLength(0);
+  });
+});

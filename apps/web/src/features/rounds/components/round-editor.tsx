@@ -29,8 +29,8 @@ import type { RoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { chainageOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
-import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 import { liveAssessment } from '@/features/rounds/utils/assessment';
+import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 import { isApiError } from '@/lib/api-client';
 
 export const ROUND_SECTIONS = ['position', 'ground', 'joints', 'rating', 'support'] as const;
