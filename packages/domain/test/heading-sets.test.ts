@@ -1,5 +1,5 @@
 import { jvFromSpacings } from '@roundbook/geomath';
-import { assessedHeading, jvOfSets, type RoundSet } from '../src/index.js';
+import { assessedHeading, emptyGround, jvOfSets, type RoundSet } from '../src/index.js';
 
 const heading = {
   startChainage: 1000,
@@ -56,5 +56,23 @@ describe('jvOfSets', () => {
   it('is null when no set has a spacing', () => {
     expect(jvOfSets([set(null)])).toBeNull();
     expect(jvOfSets([])).toBeNull();
+  });
+});
+
+describe('emptyGround', () => {
+  it('records nothing, and each call is a record of its own', () => {
+    const a = emptyGround();
+    expect(a).toEqual({
+      units: [],
+      pointLoadIs50: null,
+      pointLoadFactor: null,
+      inflowLpm: null,
+      inflowLengthM: null,
+      waterDescription: '',
+      overbreakM3: null,
+      notes: '',
+    });
+    a.units.push({ name: 'Granite', sharePercent: 100, weatheringGrade: null, strengthGrade: null });
+    expect(emptyGround().units).toEqual([]);
   });
 });

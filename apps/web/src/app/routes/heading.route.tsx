@@ -1,5 +1,6 @@
 import { Button, makeStyles, Tab, TabList, tokens } from '@fluentui/react-components';
 import { ArrowLeftRegular } from '@fluentui/react-icons';
+import { formatAzimuth } from '@roundbook/domain';
 import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
@@ -37,7 +38,7 @@ export function HeadingRoute() {
   const { projectId = '', headingId = '' } = useParams();
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, headingId);
-  const drive = `${String(Math.round(heading.driveTrend)).padStart(3, '0')}°`;
+  const drive = formatAzimuth(heading.driveTrend);
   return (
     <>
       <PageHeader

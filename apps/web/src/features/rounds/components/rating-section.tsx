@@ -13,7 +13,7 @@ import {
   Text,
   tokens,
 } from '@fluentui/react-components';
-import { jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
+import { formatAzimuth, jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import {
   formatPlane,
   Q_EDITION,
@@ -381,12 +381,12 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
           />
           {worst === null ? (
             <Caption1 className={styles.muted}>
-              {`No set to compare with the drive (${String(Math.round(driveTrend)).padStart(3, '0')}°) yet.`}
+              {`No set to compare with the drive (${formatAzimuth(driveTrend)}) yet.`}
             </Caption1>
           ) : (
             <div className={styles.row}>
               <Text className={styles.suggestion}>
-                {`Suggested: ${worst.result.assessment} (${worst.result.adjustment}) from set ${worst.set.label} ${formatPlane(worst.set.mean, 'dip-direction/dip')} against the drive ${String(Math.round(driveTrend)).padStart(3, '0')}°`}
+                {`Suggested: ${worst.result.assessment} (${worst.result.adjustment}) from set ${worst.set.label} ${formatPlane(worst.set.mean, 'dip-direction/dip')} against the drive ${formatAzimuth(driveTrend)}`}
               </Text>
               {!readOnly && values.rmr.orientation !== worst.result.assessment && (
                 <Button

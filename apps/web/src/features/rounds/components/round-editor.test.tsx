@@ -24,7 +24,17 @@ const writeLocalDraft = ({
 }: Omit<LocalDraft<RoundFormValues>, 'key'> & { roundId: string }) =>
   roundDrafts.write({ key: roundId, ...draft });
 
-afterEach(restoreFetch);
+// The autosave pause (1.5 s) and its retries run on Jest's fake clock: no test waits in real time.
+beforeEach(() => jest.useFakeTimers());
+afterEach(() => {
+  jest.clearAllTimers();
+  jest.useRealTimers();
+  restoreFetch();
+});
+/** user-event on the fake clock (its typing delays advance it). */
+const setupUser = () => userEvent.setup({ advanceTimers: jest.advanceTimersByTime });
+/** Lets fake time pass, with React's updates flushed. */
+const pass = (ms: number) => act(() => jest.advanceTimersByTimeAsync(ms));
 
 const PUT = 'PUT /api/projects/p-1/rounds/r-1';
 const JOINTS = 'GET /api/projects/p-1/headings/h-1/joints';
@@ -77,7 +87,7 @@ describe('Round editor: nothing lost', () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
-    await userEvent.setup().type(distantField(), 'Crown behind the jumbo');
+    await setupUser().type(distantField(), 'Crown behind the jumbo');
 
     expect(screen.getByTestId('save-state')).toHaveTextContent('Not saved yet');
     expect(readLocalDraft('r-1')?.values.distantParts).toBe('Crown behind the jumbo');
@@ -116,7 +126,7 @@ describe('Round editor: nothing lost', () => {
   it('shows "not saved yet — will retry" when the server cannot be reached, and keeps the typing', async () => {
     mockApi({ [JOINTS]: [], [PUT]: () => Promise.reject(new TypeError('Failed to fetch')) });
     renderEditor();
-    await userEvent.setup().type(distantField(), 'Invert under water');
+    await setupUser().type(distantField(), 'Invert under water');
     expect(await screen.findByTestId('offline-note', {}, { timeout: 4000 })).toHaveTextContent(
       'Not saved yet — will retry',
     );
@@ -148,7 +158,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
       }),
     });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.type(distantField(), 'Crown only');
     const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
     expect(notice).toHaveTextContent('Someone saved this round first.');
@@ -172,7 +182,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
   it('puts their version in the form on "load their version", without saving over it', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler(stale) });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.type(distantField(), 'Crown only');
     const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
     await user.click(within(notice).getByRole('button', { name: 'Load their version' }));
@@ -180,7 +190,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
     expect(readLocalDraft('r-1')).toBeNull();
-    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    await pass(1800);
     expect(saves).toHaveLength(1);
   });
 });
@@ -189,7 +199,7 @@ describe('Round editor: rating and submit', () => {
   it('shows Q from geomath with its inputs, the edition and the orientation rule', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Rating' }));
     expect(screen.getByText(`Tables: ${Q_EDITION.name}.`)).toBeInTheDocument();
     await user.selectOptions(screen.getByLabelText('RQD from the table'), 'rqd-fair');
@@ -232,7 +242,7 @@ describe('Round editor: rating and submit', () => {
         ),
     });
     renderEditor({ ...draftRound, suggestedClassIds: ['c-B'] });
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Support' }));
     expect(screen.getByTestId('support-caution')).toHaveTextContent('Nobody enters unsupported ground.');
     const classes = screen.getAllByTestId('support-class');
@@ -276,7 +286,7 @@ describe('Round editor: a draft from this device that the server has moved past'
     const notice = screen.getByTestId('stale-version-notice');
     expect(notice).toHaveTextContent('Typed offline yesterday');
     expect(distantField()).toHaveValue('Typed offline yesterday');
-    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    await pass(1800);
     expect(saves).toHaveLength(0);
   });
 });
@@ -356,7 +366,7 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
   it('shows the sets found with the earlier round and the trigger that fires on the same set, live', async () => {
     mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
     renderEditor(round);
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Joints' }));
     const table = await screen.findByTestId('sets-table');
     const cellsOf = (row: number) =>
