@@ -14,7 +14,7 @@ import {
   supportClasses,
 } from '@/features/rounds/testing/round-fixtures';
 import type { LocalDraft } from '@/lib/sync/local-draft';
-import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
+import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/mock-api';
 
 const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
 const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
@@ -391,5 +391,20 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     expect(Math.abs(Number(said?.[2]) - dip)).toBeLessThanOrEqual(0.5);
     // Nothing is written back into the record by the screen: the only save is the one the typing makes.
     expect(saves).toHaveLength(0);
+  });
+
+  it('keeps the set parameters with the round: a new window is saved and the sets follow it', async () => {
+    const api = mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round);
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    const table = await screen.findByTestId('sets-table');
+    await waitFor(() => expect(within(table).getAllByRole('row')[1]).toHaveTextContent('4 (2)'));
+    await user.selectOptions(screen.getByLabelText('Earlier rounds within'), '0');
+    // This round only: the two joints here make the set, and no earlier round is read for it.
+    expect(within(screen.getByTestId('sets-table')).getAllByRole('row')[1]).toHaveTextContent('2 (2)');
+    await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
+    expect(saves[0].setParameters).toEqual({ windowM: 0, count: 1 });
+    expect(requestedRoutes(api).filter((r) => r === JOINTS)).toHaveLength(1);
   });
 });
