@@ -1,14 +1,4 @@
-import {
-  JOINT_KINDS,
-  PLANE_NOTATIONS,
-  jointKindLabels,
-  jrcMethodLabels,
-  notationLabels,
-  shiftLabels,
-  stageLabels,
-  statusLabels,
-  waterLabels,
-} from '@roundbook/domain';
+import { JOINT_KINDS, PLANE_NOTATIONS } from '@roundbook/domain';
 import type { QLocation, Rmr89Roughness, Rmr89WaterCondition, Rmr89Weathering } from '@roundbook/geomath';
 import type { JointKind, PlaneNotation } from '@/features/rounds/api/types';
 
@@ -22,7 +12,7 @@ export {
   stageLabels,
   statusLabels,
   waterLabels,
-};
+} from '@roundbook/domain';
 
 export const jointKinds: JointKind[] = [...JOINT_KINDS];
 export const notations: PlaneNotation[] = [...PLANE_NOTATIONS];
