@@ -296,7 +296,7 @@ function RoundEditorBody({
           <PositionSection round={server} chainage={chainageStyle} timeZone={project.timeZone} />
         )}
         {section === 'ground' && (
-          <GroundSection groundScale={project.groundScale} inflowPer10m={server.inflowPer10m} />
+          <GroundSection groundScale={project.groundScale} inflowPer10m={assessment.inflowPer10m} />
         )}
         {section === 'joints' && (
           <JointsSection
