@@ -413,6 +413,20 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
         const member = await makeUser('member');
         const operator = await makeUser('operator', true);
         const body = (code: string) => ({ code, name: `Invented ${code}`, timeZone: 'Europe/Oslo' });
+        // /api/auth/me says so beforehand, so the web offers New project only to those it lets through.
+        const meOf = async (token: string) =>
+          (await request(h).get('/api/auth/me').set(bearer(token)).expect(200)).body as {
+            canCreateProjects: boolean;
+          };
+        expect((await meOf(member.token)).canCreateProjects).toBe(false);
+        expect((await meOf(operator.token)).canCreateProjects).toBe(true);
+        expect(
+          (
+            (await request(http).get('/api/auth/me').set(bearer(member.token)).expect(200)).body as {
+              canCreateProjects: boolean;
+            }
+          ).canCreateProjects,
+        ).toBe(true);
         const refused = await request(h)
           .post('/api/projects')
           .set(bearer(member.token))

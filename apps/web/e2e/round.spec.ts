@@ -224,9 +224,10 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await waitSaved(page);
   await shot(page, 'round-support');
 
-  // The trigger level, worked out by the server at the last save, is in sight from every section.
+  // The trigger level, worked out from the round as typed (the assessment the server saves), is in sight
+  // from every section.
   const triggers = page.getByRole('region', { name: 'Trigger level' });
-  await expect(triggers).toContainText('As of the last save.');
+  await expect(triggers).toContainText('As typed; saved with the round.');
   await expect(triggers.locator('[data-level]').first()).toHaveText(/^(Amber|Red)$/);
   await expect(triggers.getByTestId('trigger-firing').first()).toBeVisible();
   await expect(triggers).toContainText(/overbreak/i);

@@ -308,3 +308,17 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     triggers: assessTriggers(context.rules, facts, context.heading),
   };
 }
+
+/** A ground record with nothing recorded yet (a new round, a test's starting point). */
+export function emptyGround(): GroundRecord {
+  return {
+    units: [],
+    pointLoadIs50: null,
+    pointLoadFactor: null,
+    inflowLpm: null,
+    inflowLengthM: null,
+    waterDescription: '',
+    overbreakM3: null,
+    notes: '',
+  };
+}

@@ -8,6 +8,7 @@ import {
   type AlignmentSegment,
   type HeadingAlignment,
 } from '@roundbook/geomath';
+import type { HeadingGeometry } from './triggers.js';
 import type { Stage } from './vocabulary.js';
 
 export const CHAINAGE_SENSE_CODES = ['increasing', 'decreasing'] as const;
@@ -145,4 +146,46 @@ export function stageGeometry(
   } catch {
     return null;
   }
+}
+
+/** A heading record as the assessment reads it: its alignment, its profile and its planned round length. */
+export type AssessedHeadingRecord = HeadingAlignmentRecord &
+  Parameters<typeof stageGeometry>[0] & { plannedRoundLength: number };
+
+/**
+ * What the assessment and the trigger rules read of a heading, for one stage of its profile and, when
+ * given, at one face chainage: the drive there is the tangent of the alignment (straights and arcs), the
+ * chainage sense says which way chainage runs, and the stage's own part of the profile (top heading above
+ * the bench line, bench below it) gives the crown, invert and walls of the crown-reach rule.
+ */
+export function assessedHeading(
+  heading: AssessedHeadingRecord,
+  stage: Stage,
+  faceChainage?: number,
+): HeadingGeometry & { plannedRoundLength: number } {
+  let driveTrend = heading.driveTrend;
+  if (faceChainage !== undefined) {
+    try {
+      driveTrend = driveTrendAt(heading, faceChainage);
+    } catch {
+      driveTrend = heading.initialBearing ?? heading.driveTrend;
+    }
+  }
+  const part = stageGeometry(heading, stage);
+  return {
+    driveTrend,
+    gradientPercent: heading.gradientPercent,
+    profileHeight: heading.profileHeight,
+    profileWidth: heading.profileWidth,
+    axisHeight: heading.axisHeight,
+    chainageSense: senseSign(heading.chainageSense),
+    ...(part
+      ? {
+          stageCrownHeight: part.crownHeight,
+          stageInvertDepth: part.invertDepth,
+          stageHalfWidth: part.halfWidth,
+        }
+      : {}),
+    plannedRoundLength: heading.plannedRoundLength,
+  };
 }

@@ -1,4 +1,11 @@
-import { findSets, fisherStatistics, planeOfPole, poleOf, rmrOrientationInTunnel } from '@roundbook/geomath';
+import {
+  findSets,
+  fisherStatistics,
+  jvFromSpacings,
+  planeOfPole,
+  poleOf,
+  rmrOrientationInTunnel,
+} from '@roundbook/geomath';
 import type { Drive, Plane, RmrOrientationResult } from '@roundbook/geomath';
 
 /** How the sets of a round are found; stored with the round so that a re-read finds the same sets. */
@@ -181,4 +188,11 @@ export function worstOrientation(sets: RoundSet[]): { set: RoundSet; result: Rmr
       worst = { set, result: set.orientation };
   }
   return worst;
+}
+
+/** Jv from the mean spacing of each set of the round (geomath jvFromSpacings); null when no set has a spacing. */
+export function jvOfSets(sets: RoundSet[]): { jv: number; spacings: number[] } | null {
+  const spacings = sets.map((s) => s.meanSpacingM).filter((s): s is number => s !== null);
+  if (spacings.length === 0) return null;
+  return { jv: jvFromSpacings(spacings), spacings };
 }

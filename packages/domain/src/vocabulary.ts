@@ -74,10 +74,10 @@ export const notationLabels: Record<PlaneNotationCode, string> = {
 export const PROJECT_ROLES = ['admin', 'geologist', 'engineer', 'supervisor', 'viewer'] as const;
 export type ProjectRole = (typeof PROJECT_ROLES)[number];
 export const roleLabels: Record<ProjectRole, string> = {
-  admin: 'Admin',
+  admin: 'Project admin',
   geologist: 'Geologist',
   engineer: 'Engineer',
-  supervisor: 'Supervisor',
+  supervisor: 'Shift supervisor',
   viewer: 'Read only',
 };
 /** A role code in words; unknown codes are shown as they are. */

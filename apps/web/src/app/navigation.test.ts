@@ -11,40 +11,32 @@ const labels = (ctx: Parameters<typeof navigationFor>[0]) => navigationFor(ctx).
 
 describe('navigationFor', () => {
   it('gives every role the Board, its own page and Setup (read-only for all but admins)', () => {
-    expect(labels({ role: 'viewer', localMode: true, memberships: [member('a', 'viewer')] })).toEqual([
+    expect(labels({ role: 'viewer', localAccess: { localMode: true, operator: false } })).toEqual([
       'Board',
       'Setup',
     ]);
-    expect(labels({ role: 'geologist', localMode: false, memberships: [member('a', 'geologist')] })).toEqual([
-      'Board',
-      'Setup',
-    ]);
-    expect(labels({ role: 'engineer', localMode: false, memberships: [member('a', 'engineer')] })).toEqual([
-      'Board',
-      'To confirm',
-      'Setup',
-    ]);
-    expect(
-      labels({ role: 'supervisor', localMode: false, memberships: [member('a', 'supervisor')] }),
-    ).toEqual(['Board', 'Received', 'Setup']);
-    expect(labels({ role: 'admin', localMode: false, memberships: [member('a', 'admin')] })).toEqual([
-      'Board',
-      'Setup',
-    ]);
+    expect(labels({ role: 'geologist', localAccess: null })).toEqual(['Board', 'Setup']);
+    expect(labels({ role: 'engineer', localAccess: null })).toEqual(['Board', 'To confirm', 'Setup']);
+    expect(labels({ role: 'supervisor', localAccess: null })).toEqual(['Board', 'Received', 'Setup']);
+    expect(labels({ role: 'admin', localAccess: null })).toEqual(['Board', 'Setup']);
   });
 
-  it('shows Local mail only in local mode and only to someone who is admin somewhere', () => {
-    const adminElsewhere = [member('a', 'viewer'), member('b', 'admin')];
-    expect(labels({ role: 'viewer', localMode: true, memberships: adminElsewhere })).toEqual([
+  it('shows Local mail only in local mode and only to an operator of this instance', () => {
+    expect(labels({ role: 'viewer', localAccess: { localMode: true, operator: true } })).toEqual([
       'Board',
       'Setup',
       'Local mail',
     ]);
-    expect(labels({ role: 'viewer', localMode: false, memberships: adminElsewhere })).toEqual([
+    expect(labels({ role: 'viewer', localAccess: { localMode: false, operator: true } })).toEqual([
       'Board',
       'Setup',
     ]);
-    expect(labels({ role: null, localMode: false, memberships: [] })).toEqual(['Board']);
+    // A project admin who does not run the instance is not shown it (the API refuses them too).
+    expect(labels({ role: 'admin', localAccess: { localMode: true, operator: false } })).toEqual([
+      'Board',
+      'Setup',
+    ]);
+    expect(labels({ role: null, localAccess: null })).toEqual(['Board']);
   });
 });
 

@@ -10,18 +10,22 @@ export interface NavItem {
 export interface NavContext {
   /** The person's role in the project they are looking at (null: no project). */
   role: ProjectRole | null;
-  localMode: boolean;
-  memberships: Membership[];
+  /**
+   * GET /api/local/access: local mode is on and the person is an operator of this instance (not a
+   * project role). Absent or null while it is being read, or when it could not be read.
+   */
+  localAccess?: { localMode: boolean; operator: boolean } | null;
 }
 
 /** The pages each role works from (product design, "People and roles" and "Screens"). */
-export function navigationFor({ role, localMode, memberships }: NavContext): NavItem[] {
+export function navigationFor({ role, localAccess = null }: NavContext): NavItem[] {
   const items: NavItem[] = [{ to: '/', label: 'Board', icon: 'board' }];
   if (role === 'engineer') items.push({ to: '/to-confirm', label: 'To confirm', icon: 'confirm' });
   if (role === 'supervisor') items.push({ to: '/received', label: 'Received', icon: 'received' });
   // Everyone in a project may read its setup; only admins (and engineers, for triggers) change it.
   if (role !== null) items.push({ to: '/setup', label: 'Setup', icon: 'setup' });
-  if (localMode && memberships.some((m) => m.role === 'admin')) {
+  // The local mail and jobs view is the instance operator's, as the API decides (OperatorGuard).
+  if (localAccess?.localMode === true && localAccess.operator) {
     items.push({ to: '/mail', label: 'Local mail', icon: 'mail' });
   }
   return items;

@@ -10,6 +10,7 @@ export const adminUser: CurrentUser = {
   email: 'admin@roundbook.test',
   name: 'Ada Quarrington',
   memberships: [{ projectId: 'p-1', projectName: 'Harrowdale Headrace', role: 'admin' }],
+  canCreateProjects: true,
 };
 
 export const viewerUser: CurrentUser = {
@@ -17,6 +18,7 @@ export const viewerUser: CurrentUser = {
   email: 'viewer@roundbook.test',
   name: 'Vic Stonebridge',
   memberships: [{ projectId: 'p-1', projectName: 'Harrowdale Headrace', role: 'viewer' }],
+  canCreateProjects: true,
 };
 
 export const loginAnswer: LoginResponse = {

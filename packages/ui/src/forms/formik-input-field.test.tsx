@@ -47,3 +47,57 @@ describe('FormikInputField', () => {
     expect(onSubmit).toHaveBeenCalledWith({ chainage: '1250.5' }, expect.anything());
   });
 });
+
+describe('FormikInputField: read only, outside messages, value changes, several lines', () => {
+  function renderWith(props: Partial<Parameters<typeof FormikInputField>[0]>, initial = 'Crown only') {
+    render(
+      <FluentProvider theme={roundbookLightTheme}>
+        <Formik initialValues={{ notes: initial }} onSubmit={jest.fn()}>
+          <Form>
+            <FormikInputField name="notes" label="Notes" {...props} />
+          </Form>
+        </Formik>
+      </FluentProvider>,
+    );
+    return screen.getByLabelText('Notes');
+  }
+
+  it('shows a read-only value that cannot be typed over', async () => {
+    const user = userEvent.setup();
+    const input = renderWith({ readOnly: true });
+    expect(input).toHaveAttribute('readonly');
+    await user.type(input, ' and walls');
+    expect(input).toHaveValue('Crown only');
+  });
+
+  it('shows a message from outside the schema at once, as the field error', () => {
+    const input = renderWith({ message: 'Give the length of the next round.' });
+    expect(screen.getByText('Give the length of the next round.')).toBeInTheDocument();
+    expect(input).toHaveAttribute('aria-invalid', 'true');
+  });
+
+  it('shows a warning while there is no error, and the error over it', () => {
+    renderWith({ warning: 'Over the planned round length.' });
+    expect(screen.getByText('Over the planned round length.')).toBeInTheDocument();
+    expect(screen.getByLabelText('Notes')).not.toHaveAttribute('aria-invalid', 'true');
+  });
+
+  it('tells the caller each new value after Formik has it', async () => {
+    const user = userEvent.setup();
+    const onValueChange = jest.fn();
+    const input = renderWith({ onValueChange }, '');
+    await user.type(input, 'ab');
+    expect(onValueChange).toHaveBeenLastCalledWith('ab');
+    expect(onValueChange).toHaveBeenCalledTimes(2);
+    expect(input).toHaveValue('ab');
+  });
+
+  it('is a text area of the given rows when multiline', async () => {
+    const user = userEvent.setup();
+    const input = renderWith({ multiline: 4 }, '');
+    expect(input.tagName).toBe('TEXTAREA');
+    expect(input).toHaveAttribute('rows', '4');
+    await user.type(input, 'Line one{Enter}Line two');
+    expect(input).toHaveValue('Line one\nLine two');
+  });
+});

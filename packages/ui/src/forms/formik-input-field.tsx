@@ -1,7 +1,7 @@
-import { Field, Input, makeStyles } from '@fluentui/react-components';
+import { Field, Input, makeStyles, Textarea } from '@fluentui/react-components';
 import type { InputProps } from '@fluentui/react-components';
 import { useField } from 'formik';
-import type { ReactElement } from 'react';
+import type { ChangeEvent, ReactElement } from 'react';
 import { TOUCH_TARGET_PX } from '../theme/touch';
 
 export interface FormikInputFieldProps {
@@ -15,8 +15,21 @@ export interface FormikInputFieldProps {
   inputMode?: InputProps['inputMode'];
   placeholder?: string;
   disabled?: boolean;
-  /** A unit or short note shown inside the input, after the value (m, °, %). */
+  /** Shown and focusable but not editable (a record that is no longer a draft, a person who only reads). */
+  readOnly?: boolean;
+  /** A unit or short note shown inside the input, after the value (m, °, %). Not with multiline. */
   contentAfter?: string | ReactElement;
+  /**
+   * A message from outside the form's schema (the server's answer to a save or submit). Shown as the
+   * field's error at once, touched or not; the schema's own error wins once the field is touched.
+   */
+  message?: string;
+  /** A warning shown under the field while it has no error (worth a look, does not stop saving). */
+  warning?: string | null;
+  /** Called with the new text after Formik has it (to clear or set a field that depends on this one). */
+  onValueChange?: (value: string) => void;
+  /** A text area of this many rows instead of a one-line input. */
+  multiline?: boolean | number;
 }
 
 const useStyles = makeStyles({
@@ -24,8 +37,8 @@ const useStyles = makeStyles({
 });
 
 /**
- * A Fluent `Field` + `Input` bound to a Formik field: value, change and blur go to Formik, and
- * the field's error is shown once the field has been touched (or the form submitted).
+ * A Fluent `Field` + `Input` (or `Textarea`) bound to a Formik field: value, change and blur go to
+ * Formik, and the field's error is shown once the field has been touched (or the form submitted).
  */
 export function FormikInputField({
   name,
@@ -37,34 +50,47 @@ export function FormikInputField({
   inputMode,
   placeholder,
   disabled,
+  readOnly,
   contentAfter,
+  message,
+  warning,
+  onValueChange,
+  multiline,
 }: FormikInputFieldProps) {
   const styles = useStyles();
   const [field, meta] = useField<string>(name);
-  const showError = meta.touched && meta.error !== undefined;
+  const schemaError = meta.touched && meta.error !== undefined ? meta.error : undefined;
+  const error = schemaError ?? message;
+  const onChange = (event: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => {
+    field.onChange(event);
+    onValueChange?.(event.target.value);
+  };
+  const common = {
+    className: styles.input,
+    name: field.name,
+    value: field.value ?? '',
+    onChange,
+    onBlur: field.onBlur,
+    autoComplete,
+    placeholder,
+    disabled,
+    readOnly,
+    size: 'large' as const,
+  };
   return (
     <Field
       label={label}
       hint={hint}
       required={required}
-      validationState={showError ? 'error' : 'none'}
-      validationMessage={showError ? meta.error : undefined}
+      validationState={error !== undefined ? 'error' : warning ? 'warning' : 'none'}
+      validationMessage={error ?? (warning || undefined)}
       size="large"
     >
-      <Input
-        className={styles.input}
-        name={field.name}
-        value={field.value ?? ''}
-        onChange={field.onChange}
-        onBlur={field.onBlur}
-        type={type}
-        autoComplete={autoComplete}
-        inputMode={inputMode}
-        placeholder={placeholder}
-        disabled={disabled}
-        contentAfter={contentAfter}
-        size="large"
-      />
+      {multiline ? (
+        <Textarea {...common} rows={typeof multiline === 'number' ? multiline : 3} resize="vertical" />
+      ) : (
+        <Input {...common} type={type} inputMode={inputMode} contentAfter={contentAfter} />
+      )}
     </Field>
   );
 }

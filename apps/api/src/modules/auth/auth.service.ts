@@ -5,6 +5,7 @@ import { InjectRepository } from '@nestjs/typeorm';
 import type { Repository } from 'typeorm';
 import type { AuthUser } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
+import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { hashPassword, verifyPassword } from '../users/password.js';
 import { User } from '../users/user.entity.js';
@@ -23,6 +24,7 @@ export class AuthService {
     @InjectRepository(User) private readonly users: Repository<User>,
     @InjectRepository(ProjectMember) private readonly members: Repository<ProjectMember>,
     @Inject(JwtService) private readonly jwt: JwtService,
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
   async login(email: string, password: string): Promise<TokenResponseDto> {
@@ -52,13 +54,18 @@ export class AuthService {
   }
 
   async me(caller: AuthUser): Promise<MeDto> {
-    const memberships = await this.members.find({
-      where: { userId: caller.id },
-      relations: { project: true },
-      order: { project: { name: 'ASC' } },
-    });
+    const [memberships, user] = await Promise.all([
+      this.members.find({
+        where: { userId: caller.id },
+        relations: { project: true },
+        order: { project: { name: 'ASC' } },
+      }),
+      this.users.findOne({ where: { id: caller.id }, select: { id: true, isOperator: true } }),
+    ]);
     return {
       ...caller,
+      // The same rule as ProjectCreationGuard (PROJECT_CREATION: anyone, or the instance operators only).
+      canCreateProjects: this.config.projectCreation === 'anyone' || user?.isOperator === true,
       memberships: memberships.map((m) => ({
         projectId: m.projectId,
         projectName: m.project.name,

@@ -766,6 +766,8 @@ export interface components {
             email: string;
             name: string;
             memberships: components["schemas"]["MembershipDto"][];
+            /** @description The caller may create projects here (PROJECT_CREATION=anyone, or an operator of this instance) */
+            canCreateProjects: boolean;
         };
         /** @enum {string} */
         QTableEdition: "2015";

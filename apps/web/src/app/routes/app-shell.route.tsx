@@ -9,7 +9,7 @@ import {
 } from '@fluentui/react-icons';
 import { RoleBadge, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
-import { useQueryClient } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { Suspense, useCallback, useState } from 'react';
 import type { ReactElement } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
@@ -24,6 +24,7 @@ import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import type { ShellContext } from '@/app/shell-context';
 import { useCurrentUser } from '@/features/auth/api/get-current-user';
+import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
 import { useConfig } from '@/features/system/api/get-config';
 import { clearSession } from '@/lib/session';
 
@@ -135,10 +136,11 @@ export function AppShellRoute() {
   const [chosenId, setChosenId] = useState(() => pickCurrentProject(me.memberships)?.projectId ?? null);
   // Derived on every render, so a project that joins the memberships later (a new one) can be current.
   const current = me.memberships.find((m) => m.projectId === chosenId) ?? pickCurrentProject(me.memberships);
+  // Asked only in local mode (elsewhere there is no local mail to show).
+  const localAccess = useQuery({ ...localAccessQueryOptions(), enabled: config.localMode });
   const navItems = navigationFor({
     role: current?.role ?? null,
-    localMode: config.localMode,
-    memberships: me.memberships,
+    localAccess: config.localMode ? (localAccess.data ?? null) : null,
   });
 
   const signOut = async () => {

@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { saveSession } from '@/lib/session';
 import { adminSession, adminUser, harrowdale, localConfig, viewerUser } from '@/testing/fixtures';
 import { mockApi, restoreFetch } from '@/testing/mock-api';
@@ -50,17 +50,60 @@ describe('Board', () => {
     mockApi({
       'GET /api/auth/me': adminUser,
       'GET /api/config': localConfig,
+      'GET /api/local/access': { localMode: true, operator: true },
       'GET /api/projects': [harrowdale],
     });
     renderApp('/');
     const nav = await screen.findByRole('navigation', { name: 'Main' });
+    await waitFor(() =>
+      expect(
+        within(nav)
+          .getAllByRole('link')
+          .map((l) => l.textContent),
+      ).toEqual(['Board', 'Setup', 'Local mail']),
+    );
+    expect(screen.getByTestId('caution-note')).toHaveTextContent('Nobody goes under unsupported ground.');
+    expect(screen.getAllByText('Project admin')).toHaveLength(2);
+  });
+
+  it('does not offer Local mail to a project admin who does not run this instance', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/local/access': { localMode: true, operator: false },
+      'GET /api/projects': [harrowdale],
+    });
+    renderApp('/');
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    await screen.findByRole('button', { name: 'New project' });
     expect(
       within(nav)
         .getAllByRole('link')
         .map((l) => l.textContent),
-    ).toEqual(['Board', 'Setup', 'Local mail']);
-    expect(screen.getByTestId('caution-note')).toHaveTextContent('Nobody goes under unsupported ground.');
-    expect(screen.getAllByText('Project admin')).toHaveLength(2);
+    ).toEqual(['Board', 'Setup']);
+  });
+
+  it('hides New project where only the people who run Roundbook create projects', async () => {
+    mockApi({
+      'GET /api/auth/me': { ...adminUser, canCreateProjects: false },
+      'GET /api/config': localConfig,
+      'GET /api/projects': [harrowdale],
+    });
+    renderApp('/');
+    expect(await screen.findByRole('article', { name: 'Upstream drive from Adit 2' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'New project' })).not.toBeInTheDocument();
+  });
+
+  it('says who creates projects when the person has none and may not create one', async () => {
+    mockApi({
+      'GET /api/auth/me': { ...adminUser, memberships: [], canCreateProjects: false },
+      'GET /api/config': localConfig,
+      'GET /api/projects': [],
+    });
+    renderApp('/');
+    const empty = await screen.findByRole('region', { name: 'You are not on a project yet' });
+    expect(empty).toHaveTextContent('the people who run it create projects');
+    expect(screen.queryByRole('button', { name: 'New project' })).not.toBeInTheDocument();
   });
 
   it('offers a viewer the Board and a read-only Setup', async () => {

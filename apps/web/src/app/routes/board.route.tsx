@@ -6,6 +6,7 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 import { useNavigate } from 'react-router-dom';
 import { projectsQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
+import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { useProjects } from '@/features/projects/api/get-project';
 import { ProjectBoard } from '@/features/projects/components/project-board';
 
@@ -38,24 +39,35 @@ function NewProjectButton() {
   );
 }
 
-/** Board: every project the person belongs to, one card per heading; anyone may start a project. */
+/**
+ * Board: every project the person belongs to, one card per heading. New project is offered to those the
+ * instance lets create one (PROJECT_CREATION: anyone, or its operators only; /api/auth/me says which).
+ */
 export function BoardRoute() {
   const styles = useStyles();
   const { data: projects } = useProjects();
+  const { data: me } = useCurrentUser();
+  const canCreate = me.canCreateProjects;
   if (projects.length === 0) {
     return (
       <EmptyState
         title="You are not on a project yet"
-        message="A project admin adds people to a project with a role. Once you are added, the project's headings show here. Or start a project of your own and set it up."
-        action={<NewProjectButton />}
+        message={
+          canCreate
+            ? "A project admin adds people to a project with a role. Once you are added, the project's headings show here. Or start a project of your own and set it up."
+            : "A project admin adds people to a project with a role. Once you are added, the project's headings show here. On this Roundbook the people who run it create projects."
+        }
+        action={canCreate ? <NewProjectButton /> : undefined}
       />
     );
   }
   return (
     <>
-      <div className={styles.toolbar}>
-        <NewProjectButton />
-      </div>
+      {canCreate && (
+        <div className={styles.toolbar}>
+          <NewProjectButton />
+        </div>
+      )}
       {projects.map((project) => (
         <ProjectBoard
           key={project.id}

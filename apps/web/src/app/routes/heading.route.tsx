@@ -1,5 +1,6 @@
 import { Button, makeStyles, Tab, TabList, tokens } from '@fluentui/react-components';
 import { ArrowLeftRegular } from '@fluentui/react-icons';
+import { formatAzimuth } from '@roundbook/domain';
 import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -42,7 +43,7 @@ export function HeadingRoute() {
   const { data: heading } = useRoundHeading(projectId, headingId);
   const [tab, setTab] = useState('rounds');
   const { mode } = useThemePreference();
-  const drive = `${String(Math.round(heading.driveTrend)).padStart(3, '0')}°`;
+  const drive = formatAzimuth(heading.driveTrend, 1);
   return (
     <>
       <PageHeader

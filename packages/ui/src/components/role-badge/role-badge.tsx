@@ -1,16 +1,9 @@
 import { Badge } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
+import { roleLabels, type ProjectRole } from '@roundbook/domain';
 
-export type ProjectRole = 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';
-
-/** How each project role is named on screen. */
-export const roleLabels: Record<ProjectRole, string> = {
-  admin: 'Project admin',
-  geologist: 'Geologist',
-  engineer: 'Engineer',
-  supervisor: 'Shift supervisor',
-  viewer: 'Read only',
-};
+// How each project role is named: packages/domain's vocabulary (the same words in e-mails and reports).
+export { roleLabels, type ProjectRole };
 
 const roleColours: Record<ProjectRole, BadgeProps['color']> = {
   admin: 'brand',

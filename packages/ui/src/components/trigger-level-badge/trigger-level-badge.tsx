@@ -1,14 +1,10 @@
 import { Badge } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
+import { levelLabels, type TriggerLevel } from '@roundbook/domain';
 
-export type TriggerLevel = 'green' | 'amber' | 'red';
-
-/** How each trigger level is named on screen: always with its colour, never colour alone. */
-export const triggerLevelLabels: Record<TriggerLevel, string> = {
-  green: 'Green',
-  amber: 'Amber',
-  red: 'Red',
-};
+/** How each trigger level is named on screen (packages/domain): always with its colour, never colour alone. */
+export const triggerLevelLabels: Record<TriggerLevel, string> = levelLabels;
+export type { TriggerLevel };
 
 const levelColours: Record<TriggerLevel, BadgeProps['color']> = {
   green: 'success',

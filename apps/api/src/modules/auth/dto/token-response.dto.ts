@@ -25,4 +25,6 @@ export class MembershipDto {
 
 export class MeDto extends UserDto {
   memberships: MembershipDto[];
+  /** The caller may create projects here (PROJECT_CREATION=anyone, or an operator of this instance) */
+  canCreateProjects: boolean;
 }

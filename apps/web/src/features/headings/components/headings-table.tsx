@@ -11,7 +11,8 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { EditRegular } from '@fluentui/react-icons';
-import { formatChainage, gradientPercentToDegrees, normalizeAzimuth } from '@roundbook/geomath';
+import { formatAzimuth } from '@roundbook/domain';
+import { formatChainage, gradientPercentToDegrees } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { Heading } from '@/api/contract';
 import { trimmed } from '@/features/headings/schemas/heading.schema';
@@ -63,7 +64,7 @@ export function HeadingsTable({ headings, onEdit }: HeadingsTableProps) {
               <TableCell>
                 {formatChainage(h.startChainage, { style: h.chainageStyle, decimals: h.chainageDecimals })}
               </TableCell>
-              <TableCell>{`${String(trimmed(normalizeAzimuth(h.driveTrend), 1)).padStart(3, '0')}°`}</TableCell>
+              <TableCell>{formatAzimuth(h.driveTrend, 1)}</TableCell>
               <TableCell>{gradientText(h.gradientPercent)}</TableCell>
               <TableCell>
                 {`${profileShapeLabels[h.profileShape]} ${trimmed(h.profileWidth, 2)} × ${trimmed(h.profileHeight, 2)} m`}

@@ -4,6 +4,7 @@ import type { RoundListFilters } from '@/api/resources/keys';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { nearbyJointsQueryOptions, roundQueryOptions, roundsQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
+import { triggerRulesQueryOptions } from '@/api/resources/trigger-rules';
 
 // What the Round screens read. Each is the one entry of its resource (the same cache entry Setup and
 // the Board use), so a change made elsewhere shows here.
@@ -39,4 +40,9 @@ export function useNearbyJoints(
   enabled: boolean,
 ) {
   return useQuery({ ...nearbyJointsQueryOptions(projectId, headingId, window), enabled });
+}
+
+/** The project's trigger rules, for the trigger level worked out live (the last save's level until read). */
+export function useRoundTriggerRules(projectId: string) {
+  return useQuery(triggerRulesQueryOptions(projectId));
 }

@@ -22,7 +22,7 @@ import { newKey, valueOf } from '@/features/rounds/schemas/round-form';
 
 export interface GroundSectionProps {
   groundScale: GroundScale;
-  /** The server's inflow per 10 m of tunnel, as last saved. */
+  /** Inflow per 10 m of tunnel from the record as typed (the round's assessment). */
   inflowPer10m: number | null;
 }
 
@@ -201,7 +201,7 @@ export function GroundSection({ groundScale, inflowPer10m }: GroundSectionProps)
           apiName="ground.inflowLengthM"
         />
         <div className={styles.per10} data-testid="inflow-per-10m">
-          <Text className={styles.muted}>Inflow per 10 m (as saved)</Text>
+          <Text className={styles.muted}>Inflow per 10 m</Text>
           <Text className={styles.per10Value}>
             {inflowPer10m === null ? '—' : `${Math.round(inflowPer10m * 10) / 10} l/min`}
           </Text>

@@ -12,6 +12,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { AddRegular, ArrowResetRegular, ClipboardPasteRegular, DeleteRegular } from '@fluentui/react-icons';
+import { SET_WINDOWS, type RoundSets } from '@roundbook/domain';
 import { formatPlane } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
@@ -24,13 +25,11 @@ import { useRoundEdit } from '@/features/rounds/components/round-fields';
 import type { JointRow, RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { emptyJoint, numberOf } from '@/features/rounds/schemas/round-form';
 import { jointKindLabels, jointKinds, jrcMethodLabels, waterLabels } from '@/features/rounds/utils/labels';
-import type { SetsResult } from '@/features/rounds/utils/sets';
-
-export const SET_DISTANCES = [0, 10, 25, 50, 100] as const;
 
 export interface JointsSectionProps {
   defaultNotation: PlaneNotation;
-  sets: SetsResult;
+  /** The sets of the round's assessment (packages/domain), overrides included. */
+  sets: RoundSets;
   /** Metres either side of the face within which earlier rounds' joints join the set analysis. */
   distance: number;
   onDistanceChange: (metres: number) => void;
@@ -95,7 +94,8 @@ const useStyles = makeStyles({
   muted: { color: tokens.colorNeutralForeground2 },
 });
 
-const fmt = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : '∞');
+const fmt = (value: number | null, digits: number) =>
+  value === null ? '—' : Number.isFinite(value) ? value.toFixed(digits) : '∞';
 
 /** The joints of the face: a fast table (Enter moves on, a new row at the end), import, and the sets. */
 export function JointsSection({
@@ -115,16 +115,6 @@ export function JointsSection({
   const orientationInputs = useRef(new Map<string, HTMLInputElement>());
   const focusKey = useRef<string | null>(null);
   const joints = values.joints;
-
-  // Joints without an override follow the computed set label.
-  useEffect(() => {
-    if (readOnly) return;
-    joints.forEach((j, i) => {
-      const computed = sets.labelOf[j.key] ?? '';
-      if (!j.setOverride && j.setLabel !== computed)
-        void setFieldValue(`joints.${i}.setLabel`, computed, false);
-    });
-  }, [joints, readOnly, setFieldValue, sets.labelOf]);
 
   useEffect(() => {
     if (focusKey.current === null) return;
@@ -273,7 +263,7 @@ export function JointsSection({
                 <Input
                   className={styles.input}
                   aria-label={`Set of joint ${i + 1}`}
-                  value={j.setLabel}
+                  value={j.setOverride ? j.setLabel : (sets.membership[j.key] ?? '')}
                   size="large"
                   readOnly={readOnly}
                   onChange={(_e, data) => {
@@ -290,7 +280,7 @@ export function JointsSection({
                     disabled={readOnly}
                     onClick={() => {
                       set(i, 'setOverride', false);
-                      set(i, 'setLabel', sets.labelOf[j.key] ?? '');
+                      set(i, 'setLabel', '');
                     }}
                   >
                     <span className={styles.override}>yours</span>
@@ -415,7 +405,7 @@ export function JointsSection({
               size="large"
               onChange={(_e, data) => onDistanceChange(Number(data.value))}
             >
-              {SET_DISTANCES.map((d) => (
+              {SET_WINDOWS.map((d) => (
                 <option key={d} value={d}>
                   {d === 0 ? 'none (this round only)' : `${d} m of the face`}
                 </option>

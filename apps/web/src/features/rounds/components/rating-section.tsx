@@ -13,6 +13,7 @@ import {
   Text,
   tokens,
 } from '@fluentui/react-components';
+import { formatAzimuth, jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import {
   formatPlane,
   Q_EDITION,
@@ -39,14 +40,13 @@ import {
   rmrWeatheringOptions,
   sentence,
 } from '@/features/rounds/utils/labels';
-import type { ComputedSet } from '@/features/rounds/utils/sets';
-import { jvOfSets, worstOrientation } from '@/features/rounds/utils/sets';
 
 export interface RatingSectionProps {
   live: RoundRatings;
   saved: RoundRatings;
-  sets: ComputedSet[];
-  /** Inflow per 10 m of tunnel as last saved (for the RMR89 groundwater rating). */
+  /** The sets of the round's assessment. */
+  sets: RoundSet[];
+  /** Inflow per 10 m of tunnel from the Ground record as typed (for the RMR89 groundwater rating). */
   inflowPer10m: number | null;
   driveTrend: number;
 }
@@ -381,12 +381,12 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
           />
           {worst === null ? (
             <Caption1 className={styles.muted}>
-              {`No set to compare with the drive (${String(Math.round(driveTrend)).padStart(3, '0')}°) yet.`}
+              {`No set to compare with the drive (${formatAzimuth(driveTrend)}) yet.`}
             </Caption1>
           ) : (
             <div className={styles.row}>
               <Text className={styles.suggestion}>
-                {`Suggested: ${worst.result.assessment} (${worst.result.adjustment}) from set ${worst.set.label} ${formatPlane(worst.set.mean, 'dip-direction/dip')} against the drive ${String(Math.round(driveTrend)).padStart(3, '0')}°`}
+                {`Suggested: ${worst.result.assessment} (${worst.result.adjustment}) from set ${worst.set.label} ${formatPlane(worst.set.mean, 'dip-direction/dip')} against the drive ${formatAzimuth(driveTrend)}`}
               </Text>
               {!readOnly && values.rmr.orientation !== worst.result.assessment && (
                 <Button

@@ -14,7 +14,7 @@ import {
   supportClasses,
 } from '@/features/rounds/testing/round-fixtures';
 import type { LocalDraft } from '@/lib/sync/local-draft';
-import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
+import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/mock-api';
 
 const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
 const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
@@ -24,7 +24,17 @@ const writeLocalDraft = ({
 }: Omit<LocalDraft<RoundFormValues>, 'key'> & { roundId: string }) =>
   roundDrafts.write({ key: roundId, ...draft });
 
-afterEach(restoreFetch);
+// The autosave pause (1.5 s) and its retries run on Jest's fake clock: no test waits in real time.
+beforeEach(() => jest.useFakeTimers());
+afterEach(() => {
+  jest.clearAllTimers();
+  jest.useRealTimers();
+  restoreFetch();
+});
+/** user-event on the fake clock (its typing delays advance it). */
+const setupUser = () => userEvent.setup({ advanceTimers: jest.advanceTimersByTime });
+/** Lets fake time pass, with React's updates flushed. */
+const pass = (ms: number) => act(() => jest.advanceTimersByTimeAsync(ms));
 
 const PUT = 'PUT /api/projects/p-1/rounds/r-1';
 const JOINTS = 'GET /api/projects/p-1/headings/h-1/joints';
@@ -77,7 +87,7 @@ describe('Round editor: nothing lost', () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
-    await userEvent.setup().type(distantField(), 'Crown behind the jumbo');
+    await setupUser().type(distantField(), 'Crown behind the jumbo');
 
     expect(screen.getByTestId('save-state')).toHaveTextContent('Not saved yet');
     expect(readLocalDraft('r-1')?.values.distantParts).toBe('Crown behind the jumbo');
@@ -116,7 +126,7 @@ describe('Round editor: nothing lost', () => {
   it('shows "not saved yet — will retry" when the server cannot be reached, and keeps the typing', async () => {
     mockApi({ [JOINTS]: [], [PUT]: () => Promise.reject(new TypeError('Failed to fetch')) });
     renderEditor();
-    await userEvent.setup().type(distantField(), 'Invert under water');
+    await setupUser().type(distantField(), 'Invert under water');
     expect(await screen.findByTestId('offline-note', {}, { timeout: 4000 })).toHaveTextContent(
       'Not saved yet — will retry',
     );
@@ -148,7 +158,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
       }),
     });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.type(distantField(), 'Crown only');
     const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
     expect(notice).toHaveTextContent('Someone saved this round first.');
@@ -172,7 +182,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
   it('puts their version in the form on "load their version", without saving over it', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler(stale) });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.type(distantField(), 'Crown only');
     const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
     await user.click(within(notice).getByRole('button', { name: 'Load their version' }));
@@ -180,7 +190,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
     expect(readLocalDraft('r-1')).toBeNull();
-    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    await pass(1800);
     expect(saves).toHaveLength(1);
   });
 });
@@ -189,7 +199,7 @@ describe('Round editor: rating and submit', () => {
   it('shows Q from geomath with its inputs, the edition and the orientation rule', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Rating' }));
     expect(screen.getByText(`Tables: ${Q_EDITION.name}.`)).toBeInTheDocument();
     await user.selectOptions(screen.getByLabelText('RQD from the table'), 'rqd-fair');
@@ -232,7 +242,7 @@ describe('Round editor: rating and submit', () => {
         ),
     });
     renderEditor({ ...draftRound, suggestedClassIds: ['c-B'] });
-    const user = userEvent.setup();
+    const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Support' }));
     expect(screen.getByTestId('support-caution')).toHaveTextContent('Nobody enters unsupported ground.');
     const classes = screen.getAllByTestId('support-class');
@@ -276,7 +286,125 @@ describe('Round editor: a draft from this device that the server has moved past'
     const notice = screen.getByTestId('stale-version-notice');
     expect(notice).toHaveTextContent('Typed offline yesterday');
     expect(distantField()).toHaveValue('Typed offline yesterday');
-    await act(() => new Promise((r) => setTimeout(r, 1800)));
+    await pass(1800);
     expect(saves).toHaveLength(0);
+  });
+});
+
+describe('Round editor: one assessment for the sets and the trigger level', () => {
+  const RULES = 'GET /api/projects/p-1/trigger-rules';
+  const joint = (id: string, text: string, extra: Partial<Round['joints'][number]> = {}) => ({
+    id,
+    kind: 'joint' as const,
+    notation: 'dip-direction/dip' as const,
+    orientationText: text,
+    setLabel: null,
+    setOverride: false,
+    spacingM: 0.4,
+    persistenceM: null,
+    apertureMm: null,
+    jr: null,
+    jrc: null,
+    jrcMethod: null,
+    ja: null,
+    water: null,
+    thicknessM: null,
+    dipDirection: null,
+    dip: null,
+    orientationError: null,
+    seq: 1,
+    infill: '',
+    notes: '',
+    ...extra,
+  });
+  // Steep joints striking along the 047° drive: very unfavourable for the drive (RMR89 Table 4.1, note 6).
+  const round: Round = {
+    ...draftRound,
+    setParameters: { windowM: 25, count: 1 },
+    joints: [
+      joint('11111111-1111-4111-8111-111111111111', '137/70'),
+      joint('22222222-2222-4222-8222-222222222222', '139/72'),
+      joint('33333333-3333-4333-8333-333333333333', '020/30', { setLabel: 'S7', setOverride: true }),
+    ],
+  };
+  const nearby = [
+    {
+      id: 'n-1',
+      roundId: 'r-0',
+      roundNumber: 41,
+      faceChainage: 1250,
+      kind: 'joint',
+      setLabel: 'S1',
+      dipDirection: 135,
+      dip: 69,
+    },
+    {
+      id: 'n-2',
+      roundId: 'r-0',
+      roundNumber: 41,
+      faceChainage: 1250,
+      kind: 'joint',
+      setLabel: 'S1',
+      dipDirection: 138,
+      dip: 71,
+    },
+  ];
+  const rule = {
+    id: 'tr-1',
+    watch: 'adverse-orientation',
+    comparison: null,
+    threshold: null,
+    level: 'amber',
+    ownerRole: 'engineer',
+    action: 'Check the bolting against the set.',
+    timeAllowedHours: 4,
+    enabled: true,
+    summary: 'A set or feature adverse to the drive → amber',
+    version: 1,
+  };
+
+  it('shows the sets found with the earlier round and the trigger that fires on the same set, live', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round);
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    const table = await screen.findByTestId('sets-table');
+    const cellsOf = (row: number) =>
+      [...within(table).getAllByRole('row')[row].querySelectorAll('th, td')].map((c) => c.textContent);
+    // Two joints here and two of the earlier round within 25 m: one set of four.
+    await waitFor(() => expect(cellsOf(1).slice(0, 3)).toEqual(['S1', expect.any(String), '4 (2)']));
+    // The geologist's own set is kept, marked as such; the others follow the assessment.
+    expect(screen.getByLabelText('Set of joint 1')).toHaveValue('S1');
+    expect(screen.getByLabelText('Set of joint 2')).toHaveValue('S1');
+    expect(screen.getByLabelText('Set of joint 3')).toHaveValue('S7');
+    expect(screen.getByText('yours')).toBeInTheDocument();
+    expect(within(table).getByRole('rowheader', { name: 'S7' })).toBeInTheDocument();
+
+    const panel = screen.getByTestId('trigger-panel');
+    expect(panel).toHaveTextContent('As typed; saved with the round.');
+    const firing = within(panel).getByTestId('trigger-firing');
+    // The same set S1, by the same mean the sets table shows.
+    const [dipDirection, dip] = (cellsOf(1)[1] ?? '').split('/').map(Number);
+    const said = /S1 \((\d{3})\/(\d{2})\) is very unfavourable for the drive/.exec(firing.textContent ?? '');
+    expect(said).not.toBeNull();
+    expect(Math.abs(Number(said?.[1]) - dipDirection)).toBeLessThanOrEqual(0.5);
+    expect(Math.abs(Number(said?.[2]) - dip)).toBeLessThanOrEqual(0.5);
+    // Nothing is written back into the record by the screen: the only save is the one the typing makes.
+    expect(saves).toHaveLength(0);
+  });
+
+  it('keeps the set parameters with the round: a new window is saved and the sets follow it', async () => {
+    const api = mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round);
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    const table = await screen.findByTestId('sets-table');
+    await waitFor(() => expect(within(table).getAllByRole('row')[1]).toHaveTextContent('4 (2)'));
+    await user.selectOptions(screen.getByLabelText('Earlier rounds within'), '0');
+    // This round only: the two joints here make the set, and no earlier round is read for it.
+    expect(within(screen.getByTestId('sets-table')).getAllByRole('row')[1]).toHaveTextContent('2 (2)');
+    await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
+    expect(saves[0].setParameters).toEqual({ windowM: 0, count: 1 });
+    expect(requestedRoutes(api).filter((r) => r === JOINTS)).toHaveLength(1);
   });
 });

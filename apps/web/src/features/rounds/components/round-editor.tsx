@@ -10,12 +10,12 @@ import {
   TabList,
   tokens,
 } from '@fluentui/react-components';
-import { driveOf, formatChainage } from '@roundbook/geomath';
+import { formatChainage } from '@roundbook/geomath';
 import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { submitRound } from '@/api/resources/rounds';
-import { useNearbyJoints } from '@/features/rounds/api/get-round';
+import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
 import { GroundSection } from '@/features/rounds/components/ground-section';
 import { JointsSection } from '@/features/rounds/components/joints-section';
@@ -29,9 +29,8 @@ import type { RoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { chainageOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
+import { liveAssessment } from '@/features/rounds/utils/assessment';
 import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
-import { liveRatings } from '@/features/rounds/utils/live-ratings';
-import { computeSets } from '@/features/rounds/utils/sets';
 import { isApiError } from '@/lib/api-client';
 
 export const ROUND_SECTIONS = ['position', 'ground', 'joints', 'rating', 'support'] as const;
@@ -122,10 +121,8 @@ function RoundEditorBody({
   autosave,
 }: RoundEditorProps & { autosave: RoundAutosave }) {
   const styles = useStyles();
-  const { values, resetForm } = useFormikContext<RoundFormValues>();
+  const { values, resetForm, setFieldValue } = useFormikContext<RoundFormValues>();
   const [section, setSection] = useState<RoundSection>(initialSection ?? 'position');
-  const [distance, setDistance] = useState(25);
-  const [setCount, setSetCount] = useState<number | null>(null);
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
@@ -141,19 +138,30 @@ function RoundEditorBody({
   const readOnly = !canEdit || !(server.status === 'draft' || server.status === 'returned');
 
   const face = chainageOf(values.faceChainage) ?? server.faceChainage;
+  const distance = values.setParameters.windowM;
   const nearby = useNearbyJoints(
     projectId,
     heading.id,
     { fromChainage: face - distance, toChainage: face + distance, excludeRoundId: round.id },
     distance > 0,
   );
-  const drive = useMemo(() => driveOf(heading), [heading]);
   const nearbyJoints = useMemo(() => (distance > 0 ? (nearby.data ?? []) : []), [distance, nearby.data]);
-  const sets = useMemo(
-    () => computeSets(values.joints, nearbyJoints, drive, setCount),
-    [values.joints, nearbyJoints, drive, setCount],
+  const triggerRules = useRoundTriggerRules(projectId);
+  const rules = triggerRules.data;
+  // One assessment of the round as typed (packages/domain, as the API runs it on save): the Rating tab,
+  // the sets and the trigger level all read it.
+  const assessment = useMemo(
+    () =>
+      liveAssessment(values, {
+        round: server,
+        project,
+        heading,
+        supportClasses,
+        nearbyJoints,
+        rules: rules ?? [],
+      }),
+    [values, server, project, heading, supportClasses, nearbyJoints, rules],
   );
-  const live = useMemo(() => liveRatings(values), [values]);
 
   const serverErrors = { ...autosave.fieldErrors, ...submitErrors };
   const errorSections = new Set(Object.keys(serverErrors).map(sectionOfField));
@@ -207,7 +215,11 @@ function RoundEditorBody({
           }
         />
 
-        <TriggerPanel level={server.triggerLevel} firings={server.triggerFirings} />
+        {rules === undefined ? (
+          <TriggerPanel level={server.triggerLevel} firings={server.triggerFirings} />
+        ) : (
+          <TriggerPanel level={assessment.triggers.level} firings={assessment.triggers.firings} live />
+        )}
 
         {autosave.state === 'offline' && (
           <MessageBar intent="warning" data-testid="offline-note">
@@ -284,26 +296,26 @@ function RoundEditorBody({
           <PositionSection round={server} chainage={chainageStyle} timeZone={project.timeZone} />
         )}
         {section === 'ground' && (
-          <GroundSection groundScale={project.groundScale} inflowPer10m={server.inflowPer10m} />
+          <GroundSection groundScale={project.groundScale} inflowPer10m={assessment.inflowPer10m} />
         )}
         {section === 'joints' && (
           <JointsSection
             defaultNotation={project.defaultNotation}
-            sets={sets}
+            sets={assessment.sets}
             distance={distance}
-            onDistanceChange={setDistance}
-            setCount={setCount}
-            onSetCountChange={setSetCount}
+            onDistanceChange={(windowM) => void setFieldValue('setParameters.windowM', windowM)}
+            setCount={values.setParameters.count}
+            onSetCountChange={(count) => void setFieldValue('setParameters.count', count)}
             nearbyCount={nearbyJoints.length}
             nearbyLoading={distance > 0 && nearby.isLoading}
           />
         )}
         {section === 'rating' && (
           <RatingSection
-            live={live}
+            live={assessment.ratings}
             saved={server.ratings}
-            sets={sets.sets}
-            inflowPer10m={server.inflowPer10m}
+            sets={assessment.sets.sets}
+            inflowPer10m={assessment.inflowPer10m}
             driveTrend={heading.driveTrend}
           />
         )}

@@ -1,6 +1,4 @@
-import { Field, Input, makeStyles, Textarea, tokens } from '@fluentui/react-components';
-import { FormikSelectField, TOUCH_TARGET_PX } from '@roundbook/ui';
-import { useField } from 'formik';
+import { FormikInputField, FormikSelectField } from '@roundbook/ui';
 import { createContext, useContext } from 'react';
 import type { ReactElement } from 'react';
 
@@ -17,12 +15,6 @@ export function useRoundEdit(): RoundEditState {
   return useContext(RoundEditContext);
 }
 
-const useStyles = makeStyles({
-  input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%' },
-  number: { fontVariantNumeric: 'tabular-nums' },
-  hint: { color: tokens.colorNeutralForeground2 },
-});
-
 interface BaseProps {
   name: string;
   label: string;
@@ -33,17 +25,6 @@ interface BaseProps {
   warning?: string | null;
 }
 
-function useMessage(name: string, apiName: string | undefined, warning: string | null | undefined) {
-  const [, meta] = useField<string>(name);
-  const { serverErrors } = useRoundEdit();
-  const server = serverErrors[apiName ?? name];
-  const local = meta.error !== undefined && meta.touched ? meta.error : undefined;
-  const error = local ?? server;
-  if (error !== undefined) return { validationState: 'error' as const, validationMessage: error };
-  if (warning) return { validationState: 'warning' as const, validationMessage: warning };
-  return { validationState: 'none' as const, validationMessage: undefined };
-}
-
 export interface NumberFieldProps extends BaseProps {
   unit?: string;
   /** Text fields for chainages accept 1+250.0; numbers get the numeric keypad. */
@@ -51,7 +32,7 @@ export interface NumberFieldProps extends BaseProps {
   onValueChange?: (value: string) => void;
 }
 
-/** A number typed on the numeric keypad, kept as typed; large for gloved hands. */
+/** A number typed on the numeric keypad, kept as typed; large for gloved hands (the packages/ui adapter). */
 export function NumberField({
   name,
   label,
@@ -62,32 +43,24 @@ export function NumberField({
   inputMode = 'decimal',
   onValueChange,
 }: NumberFieldProps) {
-  const styles = useStyles();
-  const [field, , helpers] = useField<string>(name);
-  const { readOnly } = useRoundEdit();
-  const message = useMessage(name, apiName, warning);
+  const { readOnly, serverErrors } = useRoundEdit();
   return (
-    <Field label={label} hint={hint} size="large" {...message}>
-      <Input
-        className={styles.input}
-        input={{ className: styles.number }}
-        name={field.name}
-        value={field.value ?? ''}
-        inputMode={inputMode}
-        autoComplete="off"
-        size="large"
-        readOnly={readOnly}
-        contentAfter={unit}
-        onChange={(_e, data) => {
-          void helpers.setValue(data.value);
-          onValueChange?.(data.value);
-        }}
-        onBlur={field.onBlur}
-      />
-    </Field>
+    <FormikInputField
+      name={name}
+      label={label}
+      hint={hint}
+      inputMode={inputMode}
+      autoComplete="off"
+      readOnly={readOnly}
+      contentAfter={unit}
+      message={serverErrors[apiName ?? name]}
+      warning={warning}
+      onValueChange={onValueChange}
+    />
   );
 }
 
+/** A line (or several) of text: the packages/ui adapter, read only while the round is. */
 export function TextField({
   name,
   label,
@@ -96,34 +69,17 @@ export function TextField({
   warning,
   multiline,
 }: BaseProps & { multiline?: boolean }) {
-  const styles = useStyles();
-  const [field, , helpers] = useField<string>(name);
-  const { readOnly } = useRoundEdit();
-  const message = useMessage(name, apiName, warning);
+  const { readOnly, serverErrors } = useRoundEdit();
   return (
-    <Field label={label} hint={hint} size="large" {...message}>
-      {multiline ? (
-        <Textarea
-          name={field.name}
-          value={field.value ?? ''}
-          size="large"
-          resize="vertical"
-          readOnly={readOnly}
-          onChange={(_e, data) => void helpers.setValue(data.value)}
-          onBlur={field.onBlur}
-        />
-      ) : (
-        <Input
-          className={styles.input}
-          name={field.name}
-          value={field.value ?? ''}
-          size="large"
-          readOnly={readOnly}
-          onChange={(_e, data) => void helpers.setValue(data.value)}
-          onBlur={field.onBlur}
-        />
-      )}
-    </Field>
+    <FormikInputField
+      name={name}
+      label={label}
+      hint={hint}
+      readOnly={readOnly}
+      message={serverErrors[apiName ?? name]}
+      warning={warning}
+      multiline={multiline}
+    />
   );
 }
 

@@ -11,6 +11,8 @@ export interface TriggerPanelProps {
   firings: TriggerFiring[];
   /** How many firings show before the rest fold away (short on a tablet). */
   shownAtFirst?: number;
+  /** Worked out from the round as typed (true) or as the server found it at the last save. */
+  live?: boolean;
 }
 
 const useStyles = makeStyles({
@@ -90,10 +92,11 @@ function Firing({ firing }: { firing: TriggerFiring }) {
 }
 
 /**
- * The round's trigger level and the rules that fire, as the server worked them out at the last save.
+ * The round's trigger level and the rules that fire: worked out from the round as typed once the project's
+ * rules are read (the same assessment the server saves), as the server found them at the last save before.
  * Shown above the sections, so it is in sight whatever the geologist is filling in.
  */
-export function TriggerPanel({ level, firings, shownAtFirst = 2 }: TriggerPanelProps) {
+export function TriggerPanel({ level, firings, shownAtFirst = 2, live = false }: TriggerPanelProps) {
   const styles = useStyles();
   const titleId = useId();
   const listId = useId();
@@ -102,12 +105,13 @@ export function TriggerPanel({ level, firings, shownAtFirst = 2 }: TriggerPanelP
   const shown = folded ? firings.slice(0, shownAtFirst) : firings;
   const hidden = firings.length - shownAtFirst;
 
+  const basis = live ? 'As typed; saved with the round.' : 'As of the last save.';
   const note =
     level === null
       ? 'The project has no trigger rules yet; an admin or engineer adds them in Setup.'
       : firings.length === 0
-        ? 'No rule fires on this round. As of the last save.'
-        : `${firings.length} ${firings.length === 1 ? 'rule fires' : 'rules fire'}, worst first. As of the last save.`;
+        ? `No rule fires on this round. ${basis}`
+        : `${firings.length} ${firings.length === 1 ? 'rule fires' : 'rules fire'}, worst first. ${basis}`;
 
   return (
     <section

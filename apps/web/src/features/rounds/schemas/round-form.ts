@@ -1,3 +1,4 @@
+import { DEFAULT_SET_PARAMETERS, type SetParameters } from '@roundbook/domain';
 import { parseChainage } from '@roundbook/geomath';
 import type {
   QLocation,
@@ -110,6 +111,8 @@ export interface RoundFormValues {
   overbreakM3: string;
   groundNotes: string;
   joints: JointRow[];
+  /** How the sets are found (window along the heading, number of sets): kept with the round. */
+  setParameters: SetParameters;
   q: QForm;
   rmr: RmrForm;
   gsiObserved: string;
@@ -321,6 +324,7 @@ export function formValuesOf(round: Round): RoundFormValues {
       notes: j.notes,
       importNote: '',
     })),
+    setParameters: { ...(round.setParameters ?? DEFAULT_SET_PARAMETERS) },
     q: qFormOf(round.qInput),
     rmr: rmrFormOf(round.rmrInput),
     gsiObserved: text(round.gsiObserved),
@@ -451,6 +455,7 @@ export function saveRequestOf(
       notes: values.groundNotes,
     },
     joints: values.joints.map(jointInputOf),
+    setParameters: values.setParameters as SaveRoundRequest['setParameters'],
     qInput: qInputOf(values.q),
     rmrInput: rmrInputOf(values.rmr),
     gsiObserved: num(values.gsiObserved),

@@ -1,4 +1,5 @@
 import { FluentProvider } from '@fluentui/react-components';
+import { emptyGround } from '@roundbook/domain';
 import { roundbookLightTheme } from '@roundbook/ui';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render } from '@testing-library/react';
@@ -100,16 +101,7 @@ export const draftRound: Round = {
   mappedByName: 'Gale Tremlow',
   mappedAt: '2026-12-01T08:15:00Z',
   distantParts: '',
-  ground: {
-    units: [],
-    pointLoadIs50: null,
-    pointLoadFactor: null,
-    inflowLpm: null,
-    inflowLengthM: null,
-    waterDescription: '',
-    overbreakM3: null,
-    notes: '',
-  },
+  ground: emptyGround(),
   joints: [],
   qInput: null,
   rmrInput: null,

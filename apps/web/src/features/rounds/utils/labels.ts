@@ -1,63 +1,21 @@
+import { JOINT_KINDS, PLANE_NOTATIONS } from '@roundbook/domain';
 import type { QLocation, Rmr89Roughness, Rmr89WaterCondition, Rmr89Weathering } from '@roundbook/geomath';
-import type {
-  JointKind,
-  JointWater,
-  JrcMethod,
-  PlaneNotation,
-  RoundStatus,
-  Shift,
-  Stage,
-} from '@/features/rounds/api/types';
+import type { JointKind, PlaneNotation } from '@/features/rounds/api/types';
 
-export const stageLabels: Record<Stage, string> = {
-  'full-face': 'Full face',
-  'top-heading': 'Top heading',
-  bench: 'Bench',
-  invert: 'Invert',
-};
+// The words of Roundbook's codes come from packages/domain (one vocabulary for the browser, the API and
+// the reports); only the Round screen's own choice words live here.
+export {
+  jointKindLabels,
+  jrcMethodLabels,
+  notationLabels,
+  shiftLabels,
+  stageLabels,
+  statusLabels,
+  waterLabels,
+} from '@roundbook/domain';
 
-export const statusLabels: Record<RoundStatus, string> = {
-  draft: 'Draft',
-  submitted: 'Submitted',
-  confirmed: 'Confirmed',
-  returned: 'Returned',
-};
-
-export const shiftLabels: Record<Shift, string> = { day: 'Day shift', night: 'Night shift' };
-
-export const jointKindLabels: Record<JointKind, string> = {
-  joint: 'Joint',
-  bedding: 'Bedding',
-  foliation: 'Foliation',
-  fault: 'Fault',
-  'shear-zone': 'Shear zone',
-  vein: 'Vein',
-  contact: 'Contact',
-};
-
-export const jointKinds = Object.keys(jointKindLabels) as JointKind[];
-
-export const notationLabels: Record<PlaneNotation, string> = {
-  'dip-direction/dip': 'Dip direction / dip',
-  'dip/dip-direction': 'Dip / dip direction',
-  'strike/dip-rhr': 'Strike / dip (right hand)',
-};
-
-export const notations = Object.keys(notationLabels) as PlaneNotation[];
-
-export const waterLabels: Record<JointWater, string> = {
-  dry: 'Dry',
-  damp: 'Damp',
-  wet: 'Wet',
-  dripping: 'Dripping',
-  flowing: 'Flowing',
-};
-
-export const jrcMethodLabels: Record<JrcMethod, string> = {
-  'profile-comb': 'Profile gauge',
-  'tilt-test': 'Tilt test',
-  visual: 'By eye',
-};
+export const jointKinds: JointKind[] = [...JOINT_KINDS];
+export const notations: PlaneNotation[] = [...PLANE_NOTATIONS];
 
 export const qLocationLabels: Record<QLocation, string> = {
   tunnel: 'In the tunnel (Jn as read)',

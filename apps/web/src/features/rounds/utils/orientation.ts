@@ -1,3 +1,4 @@
+import { formatAzimuth, formatDipDirectionDip } from '@roundbook/domain';
 import { formatPlane, OrientationError, parsePlane, poleOf, rightHandStrike } from '@roundbook/geomath';
 import type { Plane } from '@roundbook/geomath';
 import type { PlaneNotation } from '@/features/rounds/api/types';
@@ -16,9 +17,6 @@ export type OrientationReading =
     }
   | { kind: 'error'; message: string };
 
-const az = (degrees: number) => String(Math.round(degrees) % 360).padStart(3, '0');
-const deg = (degrees: number) => String(Math.round(degrees)).padStart(2, '0');
-
 /** Reads typed orientation text with geomath; the message of an OrientationError is meant to be shown as is. */
 export function readOrientation(text: string, notation: PlaneNotation): OrientationReading {
   if (text.trim() === '') return { kind: 'empty' };
@@ -29,8 +27,8 @@ export function readOrientation(text: string, notation: PlaneNotation): Orientat
       kind: 'plane',
       plane,
       dipDirectionDip: formatPlane(plane, 'dip-direction/dip'),
-      strike: `${az(rightHandStrike(plane))}°`,
-      pole: `${az(pole.trend)}/${deg(pole.plunge)}`,
+      strike: formatAzimuth(rightHandStrike(plane)),
+      pole: formatDipDirectionDip({ dipDirection: pole.trend, dip: pole.plunge }),
     };
   } catch (error) {
     if (error instanceof OrientationError) return { kind: 'error', message: error.message };

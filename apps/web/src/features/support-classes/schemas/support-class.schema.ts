@@ -1,3 +1,4 @@
+import { Q_RANGE } from '@roundbook/domain';
 import { boolean, number, object, string } from 'yup';
 import type { ObjectSchema } from 'yup';
 import type { CreateSupportClassRequest, SupportClass } from '@/api/contract';
@@ -38,7 +39,6 @@ const optionalNumber = (typeError: string) =>
     .default(null)
     .defined();
 
-const Q_RANGE = 'Q runs from 0.001 to 1000.';
 const RMR_RANGE = 'RMR89 is a whole number, 0 to 100.';
 
 export const supportClassSchema: ObjectSchema<SupportClassInput> = object({
@@ -50,16 +50,16 @@ export const supportClassSchema: ObjectSchema<SupportClassInput> = object({
     .trim()
     .required('Give the class a name (up to 120 characters).')
     .max(120, 'Give the class a name (up to 120 characters).'),
-  qMin: optionalNumber(Q_RANGE)
-    .min(0.001, Q_RANGE)
-    .max(1000, Q_RANGE)
+  qMin: optionalNumber(Q_RANGE.message)
+    .min(Q_RANGE.min, Q_RANGE.message)
+    .max(Q_RANGE.max, Q_RANGE.message)
     .test('some-range', 'Give a Q range, an RMR89 range, or both.', function check(qMin) {
       const p = this.parent as SupportClassFormValues;
       return qMin !== null || [p.qMax, p.rmrMin, p.rmrMax].some((v) => typed(v) !== null);
     }),
-  qMax: optionalNumber(Q_RANGE)
-    .min(0.001, Q_RANGE)
-    .max(1000, Q_RANGE)
+  qMax: optionalNumber(Q_RANGE.message)
+    .min(Q_RANGE.min, Q_RANGE.message)
+    .max(Q_RANGE.max, Q_RANGE.message)
     .test('above-min', 'The upper Q bound must be above the lower one.', function check(qMax) {
       const qMin = typed((this.parent as SupportClassFormValues).qMin);
       return qMax === null || qMin === null || qMin === undefined || Number.isNaN(qMin) || qMin < qMax;

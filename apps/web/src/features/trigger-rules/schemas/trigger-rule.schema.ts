@@ -1,3 +1,4 @@
+import { Q_RANGE, RMR_RANGE } from '@roundbook/domain';
 import { boolean, mixed, number, object, string } from 'yup';
 import type { ObjectSchema } from 'yup';
 import type {
@@ -57,10 +58,9 @@ export const triggerRuleSchema: ObjectSchema<TriggerRuleInput> = object({
       switch (watchInfo[watch]?.kind) {
         case 'numeric': {
           const s = schema.nonNullable('Give the threshold.');
-          if (watch === 'q')
-            return s.min(0.001, 'Q runs from 0.001 to 1000.').max(1000, 'Q runs from 0.001 to 1000.');
+          if (watch === 'q') return s.min(Q_RANGE.min, Q_RANGE.message).max(Q_RANGE.max, Q_RANGE.message);
           if (watch === 'rmr89')
-            return s.min(0, 'RMR89 runs from 0 to 100.').max(100, 'RMR89 runs from 0 to 100.');
+            return s.min(RMR_RANGE.min, RMR_RANGE.message).max(RMR_RANGE.max, RMR_RANGE.message);
           return s.min(0, 'The threshold cannot be negative.').max(1e6, 'That threshold is too large.');
         }
         case 'distance':
