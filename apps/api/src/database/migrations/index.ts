@@ -5,6 +5,7 @@ import { RoundTriggers1764892800000 } from './1764892800000-RoundTriggers.js';
 import { RoundAssessments1764979200000 } from './1764979200000-RoundAssessments.js';
 import { JobsAndOperators1796193536073 } from './1796193536073-JobsAndOperators.js';
 import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.js';
+import { Photos1796270000000 } from './1796270000000-Photos.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -15,4 +16,5 @@ export const migrations = [
   RoundAssessments1764979200000,
   JobsAndOperators1796193536073,
   HeadingAlignment1796196409420,
+  Photos1796270000000,
 ];
