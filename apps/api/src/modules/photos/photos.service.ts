@@ -184,7 +184,12 @@ export class PhotosService {
   ): Promise<PhotoDto> {
     assertEditable(await this.round(access, roundId));
     const photo = await this.photo(access, roundId, photoId, 'uploading');
-    await this.guard(() => this.storage.completeMultipart(photo.objectKey, photo.uploadId!, dto.parts));
+    if (photo.uploadId) {
+      await this.guard(() => this.storage.completeMultipart(photo.objectKey, photo.uploadId!, dto.parts));
+      // The parts are one object now: a retry after a later failure goes straight to the checks.
+      photo.uploadId = null;
+      await this.dataSource.getRepository(Photo).update({ id: photo.id }, { uploadId: null });
+    }
     const { size } = await this.guard(() => this.storage.stat(photo.objectKey));
     if (size > this.config.photos.maxBytes || size !== photo.size) {
       await this.discard(photo);
@@ -316,7 +321,7 @@ export class PhotosService {
   async discard(photo: Photo): Promise<void> {
     try {
       if (photo.uploadId)
-        await this.storage.abortMultipart(photo.objectKey, photo.uploadId).catch(ignoreMissing);
+        await this.storage.abortMultipart(photo.objectKey, photo.uploadId).catch(ignoreAllButOutage);
       await this.storage.delete(photo.objectKey).catch(ignoreMissing);
     } catch (e) {
       if (e instanceof StorageUnavailableError) throw storageDown();
@@ -395,6 +400,11 @@ export class PhotosService {
       createdAt: (p.createdAt ?? new Date()).toISOString(),
     }));
   }
+}
+
+/** An upload already gone or completed cannot be aborted; only an outage matters. */
+function ignoreAllButOutage(e: unknown): void {
+  if (e instanceof StorageUnavailableError) throw e;
 }
 
 function ignoreMissing(e: unknown): void {

@@ -9,6 +9,7 @@ import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
+import { PhotosSection } from '@/features/photos';
 import {
   useRound,
   useRoundHeading,
@@ -57,6 +58,14 @@ export function RoundRoute() {
         heading={heading}
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
+      />
+      <PhotosSection
+        projectId={projectId}
+        roundId={round.id}
+        canEdit={
+          (project.role === 'geologist' || project.role === 'admin') &&
+          (round.status === 'draft' || round.status === 'returned')
+        }
       />
     </>
   );
