@@ -68,6 +68,7 @@ export class PhotoVariantsJob implements OnModuleInit {
           .jpeg({ quality: 80 })
           .toBuffer();
         const meta = await sharp(file).metadata();
+        // Orientations 5–8 turn the picture a quarter: width and height swap (EXIF 2.32, tag 0x0112).
         const turned = (meta.orientation ?? 1) >= 5;
         made = {
           thumbnail,
