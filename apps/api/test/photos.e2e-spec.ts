@@ -211,11 +211,11 @@ describe('Photos (e2e, S3 fake)', () => {
       .body as Body[];
     await request(http).get(photosOf(roundId)).set(other.as('admin')).expect(404);
     await request(http)
-      .get(`${photosOf(roundId)}/${photo!.id}/url?variant=thumbnail`)
+      .get(`${photosOf(roundId)}/${photo.id}/url?variant=thumbnail`)
       .set(other.as('admin'))
       .expect(404);
     await request(http)
-      .get(`${photosOf(roundId)}/${photo!.id}/url`)
+      .get(`${photosOf(roundId)}/${photo.id}/url`)
       .set(other.as('geologist'))
       .expect(404);
     await request(http)
@@ -224,7 +224,7 @@ describe('Photos (e2e, S3 fake)', () => {
       .send({ fileName: 'a.jpg', contentType: 'image/jpeg', size: 10 })
       .expect(403);
     await request(http)
-      .patch(`${photosOf(roundId)}/${photo!.id}`)
+      .patch(`${photosOf(roundId)}/${photo.id}`)
       .set(p.as('engineer'))
       .send({ caption: 'x' })
       .expect(403);
@@ -234,7 +234,7 @@ describe('Photos (e2e, S3 fake)', () => {
     const [photo] = (await request(http).get(photosOf(roundId)).set(p.as('viewer')).expect(200))
       .body as Body[];
     const edited = await request(http)
-      .patch(`${photosOf(roundId)}/${photo!.id}`)
+      .patch(`${photosOf(roundId)}/${photo.id}`)
       .set(p.as('geologist'))
       .send({ caption: 'Wet shear zone, left shoulder', facePart: 'left-wall', pinX: -2.1, pinY: 1.4 })
       .expect(200);
@@ -245,29 +245,29 @@ describe('Photos (e2e, S3 fake)', () => {
       pinY: 1.4,
     });
     await request(http)
-      .patch(`${photosOf(roundId)}/${photo!.id}`)
+      .patch(`${photosOf(roundId)}/${photo.id}`)
       .set(p.as('geologist'))
       .send({ facePart: 'roof' })
       .expect(400);
     await request(http)
-      .patch(`${photosOf(roundId)}/${photo!.id}`)
+      .patch(`${photosOf(roundId)}/${photo.id}`)
       .set(p.as('geologist'))
       .send({ pinX: null })
       .expect(400);
 
     await request(http)
-      .delete(`${photosOf(roundId)}/${photo!.id}`)
+      .delete(`${photosOf(roundId)}/${photo.id}`)
       .set(p.as('admin'))
       .expect(204);
     await request(http).get(photosOf(roundId)).set(p.as('viewer')).expect(200).expect([]);
     const kept = await app
       .get(DataSource)
       .getRepository(Photo)
-      .findOne({ where: { id: photo!.id }, withDeleted: true });
+      .findOne({ where: { id: photo.id }, withDeleted: true });
     expect(kept?.deletedAt).toBeInstanceOf(Date);
     const audit = await app
       .get(DataSource)
-      .query<Body[]>(`SELECT action FROM audit_events WHERE entity_id = ? ORDER BY created_at`, [photo!.id]);
+      .query<Body[]>(`SELECT action FROM audit_events WHERE entity_id = ? ORDER BY created_at`, [photo.id]);
     expect(audit.map((a) => a.action)).toEqual(['photo.added', 'photo.updated', 'photo.removed']);
   });
 

@@ -81,7 +81,7 @@ export class PhotoVariantsJob implements OnModuleInit {
         // the original stays, shown as it is.
         await repo.update({ id: photoId }, { variantState: 'failed' });
         throw new PermanentJobError(
-          `Could not make the smaller sizes: ${e instanceof Error ? e.message : e}`,
+          `Could not make the smaller sizes: ${e instanceof Error ? e.message : String(e)}`,
         );
       }
       const takenAt = photo.takenAt ?? (await this.takenAt(file, photo.projectId));

@@ -70,7 +70,7 @@ export class PhotosService {
 
   async get(access: ProjectAccess, roundId: string, photoId: string): Promise<PhotoDto> {
     await this.round(access, roundId);
-    return (await this.toDtos([await this.photo(access, roundId, photoId, 'stored')]))[0]!;
+    return (await this.toDtos([await this.photo(access, roundId, photoId, 'stored')]))[0];
   }
 
   async createUpload(
@@ -111,7 +111,10 @@ export class PhotosService {
         contentType: declared || 'application/octet-stream',
         size: dto.size,
         partSize: partBytes,
-        originalName: dto.fileName.replace(/[\u0000-\u001f]/g, '').slice(0, 255),
+        originalName: Array.from(dto.fileName)
+          .filter((c) => c.charCodeAt(0) >= 32)
+          .join('')
+          .slice(0, 255),
         caption: '',
         facePart: null,
         takenAt: null,
@@ -134,7 +137,7 @@ export class PhotosService {
       return row;
     });
     return {
-      photo: (await this.toDtos([photo]))[0]!,
+      photo: (await this.toDtos([photo]))[0],
       partSize: partBytes,
       partCount: Math.max(1, Math.ceil(dto.size / partBytes)),
       maxBytes,
@@ -232,7 +235,7 @@ export class PhotosService {
         after: { roundId, originalName: photo.originalName, contentType: photo.contentType, size },
       });
     });
-    return (await this.toDtos([photo]))[0]!;
+    return (await this.toDtos([photo]))[0];
   }
 
   /** Gives up an upload: its parts are removed from storage and the row deleted. */
@@ -272,7 +275,7 @@ export class PhotosService {
         after: { caption: photo.caption, facePart: photo.facePart, pinX: photo.pinX, pinY: photo.pinY },
       });
     });
-    return (await this.toDtos([photo]))[0]!;
+    return (await this.toDtos([photo]))[0];
   }
 
   /** Removes a photo of an editable round: a soft delete (the objects are kept), recorded in the audit trail. */

@@ -18,8 +18,10 @@ export const photoKeys = {
     ['projects', projectId, 'rounds', roundId, 'photos', photoId, 'url', variant] as const,
 };
 
-const path = { projectId: '', roundId: '' };
-type RoundPath = typeof path;
+interface RoundPath {
+  projectId: string;
+  roundId: string;
+}
 
 export function getPhotos(projectId: string, roundId: string): Promise<Photo[]> {
   return unwrap(
@@ -101,7 +103,7 @@ export function deletePhoto(at: RoundPath, photoId: string): Promise<void> {
     apiClient.DELETE('/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}', {
       params: { path: { ...at, photoId } },
     }),
-  ) as Promise<void>;
+  );
 }
 
 /** The address a part is PUT to (raw bytes, outside the JSON contract). */

@@ -1,11 +1,11 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { PhotosSection } from './photos-section';
 import type { Photo } from '@/api/resources/photos';
 import { saveSession } from '@/lib/session';
 import { adminSession } from '@/testing/fixtures';
 import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render-with-providers';
-import { PhotosSection } from './photos-section';
 
 const BASE = '/api/projects/p-1/rounds/r-1/photos';
 
@@ -182,7 +182,7 @@ describe('PhotosSection', () => {
     const view = renderWithProviders(<PhotosSection projectId="p-1" roundId="r-1" canEdit />);
     const user = userEvent.setup();
     const selects = await screen.findAllByRole('combobox', { name: 'Part of the face' });
-    await user.selectOptions(selects[0]!, 'crown');
+    await user.selectOptions(selects[0], 'crown');
     await waitFor(() => expect(patches).toEqual([{ facePart: 'crown' }]));
 
     await user.click(screen.getByRole('button', { name: 'Open Shear zone' }));

@@ -25,6 +25,8 @@ import {
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
+import type { UploadProgress } from '../upload/photo-upload';
+import { freshProgress, refuseBeforeUpload, uploadPhoto } from '../upload/photo-upload';
 import type { FacePart, Photo, PhotoVariant } from '@/api/resources/photos';
 import {
   deletePhoto,
@@ -34,8 +36,6 @@ import {
   updatePhoto,
 } from '@/api/resources/photos';
 import { isApiError } from '@/lib/api-client';
-import type { UploadProgress } from '../upload/photo-upload';
-import { freshProgress, refuseBeforeUpload, uploadPhoto } from '../upload/photo-upload';
 
 /** Parts of the face a photo can show (labels of this screen). */
 export const facePartLabels: Record<FacePart, string> = {
@@ -350,7 +350,7 @@ function PhotoViewer({
   onClose: () => void;
 }) {
   const styles = useStyles();
-  const photo = photos[index]!;
+  const photo = photos[index];
   const url = usePhotoUrl(at, photo, 'display');
   const touchX = useRef<number | null>(null);
   const go = (step: number) => onIndex((index + step + photos.length) % photos.length);

@@ -54,7 +54,7 @@ function sendPart(
     if (token !== null) xhr.setRequestHeader('Authorization', `Bearer ${token}`);
     xhr.upload.onprogress = (e) => onBytes(e.loaded);
     xhr.onload = () => {
-      let parsed: unknown = null;
+      let parsed: unknown;
       try {
         parsed = JSON.parse(xhr.responseText);
       } catch {
