@@ -280,7 +280,7 @@ describe('Photos (e2e, S3 fake)', () => {
     expect(res.body.message).toMatch(/submitted/);
   });
 
-  it('answers 503 with Retry-After when object storage is away, and keeps nothing of the attempt', async () => {
+  it('answers 503 with Retry-After when object storage is away (at the start or mid-upload), keeps nothing of the attempt, and a retry succeeds', async () => {
     const down = await createTestApp((c) => ({
       ...c,
       jobs: { ...c.jobs, workerEnabled: false },
@@ -296,6 +296,37 @@ describe('Photos (e2e, S3 fake)', () => {
       expect(res.headers['retry-after']).toBe('30');
       expect(res.body.message).toMatch(/storage cannot be reached/);
       expect(await app.get(DataSource).getRepository(Photo).countBy({ roundId })).toBe(before);
+
+      // Storage goes away mid-upload: the part is refused with 503, the upload stays open, and the same
+      // part sent again once storage answers is taken; completing then stores the photo.
+      const jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#884422' } })
+        .jpeg()
+        .toBuffer();
+      const started = await request(http)
+        .post(photosOf(roundId))
+        .set(p.as('geologist'))
+        .send({ fileName: 'mid.jpg', contentType: 'image/jpeg', size: jpeg.length })
+        .expect(201);
+      const id = (started.body as Body).photo.id as string;
+      const lost = await request(down.getHttpServer() as App)
+        .put(`${photosOf(roundId)}/${id}/parts/1`)
+        .set(p.as('geologist'))
+        .set('Content-Type', 'application/octet-stream')
+        .send(jpeg)
+        .expect(503);
+      expect(lost.headers['retry-after']).toBe('30');
+      const part = await request(http)
+        .put(`${photosOf(roundId)}/${id}/parts/1`)
+        .set(p.as('geologist'))
+        .set('Content-Type', 'application/octet-stream')
+        .send(jpeg)
+        .expect(200);
+      const stored = await request(http)
+        .post(`${photosOf(roundId)}/${id}/complete`)
+        .set(p.as('geologist'))
+        .send({ parts: [part.body] })
+        .expect(200);
+      expect(stored.body).toMatchObject({ id, uploadState: 'stored', contentType: 'image/jpeg' });
     } finally {
       await down.close();
     }

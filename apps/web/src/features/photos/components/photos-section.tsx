@@ -17,6 +17,7 @@ import {
 import {
   ArrowClockwiseRegular,
   CameraAddRegular,
+  ImageAddRegular,
   ChevronLeftRegular,
   ChevronRightRegular,
   DeleteRegular,
@@ -108,6 +109,7 @@ export function PhotosSection({ projectId, roundId, canEdit }: PhotosSectionProp
   const queryClient = useQueryClient();
   const at = { projectId, roundId };
   const input = useRef<HTMLInputElement>(null);
+  const camera = useRef<HTMLInputElement>(null);
   const [uploads, setUploads] = useState<FileUpload[]>([]);
   const [refused, setRefused] = useState<string[]>([]);
   const [viewing, setViewing] = useState<number | null>(null);
@@ -152,6 +154,7 @@ export function PhotosSection({ projectId, roundId, canEdit }: PhotosSectionProp
     // One after the other: a slow link gives each file the whole bandwidth.
     void added.reduce<Promise<void>>((chain, u) => chain.then(() => send(u)), Promise.resolve());
     if (input.current) input.current.value = '';
+    if (camera.current) camera.current.value = '';
   }
 
   // The files of the last pick stay listed (done ones as added) until the next pick.
@@ -169,23 +172,40 @@ export function PhotosSection({ projectId, roundId, canEdit }: PhotosSectionProp
       </Title3>
       {canEdit && (
         <div className={styles.row}>
+          {/* Files (several at once) and, on tablets, the camera: capture alone would hide the files. */}
           <input
             ref={input}
             className={styles.hidden}
             type="file"
             accept="image/*"
-            capture="environment"
             multiple
             aria-label="Photo files"
+            onChange={(e) => pick(e.target.files)}
+          />
+          <input
+            ref={camera}
+            className={styles.hidden}
+            type="file"
+            accept="image/*"
+            capture="environment"
+            aria-label="Camera"
             onChange={(e) => pick(e.target.files)}
           />
           <Button
             className={styles.touch}
             size="large"
-            icon={<CameraAddRegular />}
+            icon={<ImageAddRegular />}
             onClick={() => input.current?.click()}
           >
             Add photos
+          </Button>
+          <Button
+            className={styles.touch}
+            size="large"
+            icon={<CameraAddRegular />}
+            onClick={() => camera.current?.click()}
+          >
+            Take a photo
           </Button>
           <Caption1>JPEG, PNG, WebP or HEIC, up to 25 MB each.</Caption1>
         </div>
