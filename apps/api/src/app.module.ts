@@ -17,6 +17,7 @@ import { BoardModule } from './modules/board/board.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
+import { PhotosModule } from './modules/photos/photos.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
 import { RoundsModule } from './modules/rounds/rounds.module.js';
 import { SupportClassesModule } from './modules/support-classes/support-classes.module.js';
@@ -45,6 +46,7 @@ export class AppModule {
         TriggerRulesModule,
         TeamModule,
         RoundsModule,
+        PhotosModule,
         BoardModule,
         HealthModule,
         LocalMailModule,

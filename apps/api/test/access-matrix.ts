@@ -91,6 +91,17 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   // The queue lists what the caller reviews as an engineer, across projects; empty for everyone else.
   'GET /api/review/queue': SIGNED_IN,
 
+  // Photos (issue 14): members see them; the geologist or the admin adds, edits and removes them.
+  'GET /api/projects/{projectId}/rounds/{roundId}/photos': MEMBERS,
+  'POST /api/projects/{projectId}/rounds/{roundId}/photos': GEOLOGIST_OR_ADMIN,
+  'PUT /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/parts/{partNumber}': GEOLOGIST_OR_ADMIN,
+  'POST /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/complete': GEOLOGIST_OR_ADMIN,
+  'DELETE /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/upload': GEOLOGIST_OR_ADMIN,
+  'GET /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}': MEMBERS,
+  'PATCH /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}': GEOLOGIST_OR_ADMIN,
+  'DELETE /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}': GEOLOGIST_OR_ADMIN,
+  'GET /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/url': MEMBERS,
+
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,
   'GET /api/local/mail': OPERATOR,
@@ -99,7 +110,7 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'POST /api/local/jobs/{jobId}/retry': OPERATOR,
 };
 
-// Kept for routes whose rule is "geologist or admin" (none today); exported so a new row can use it.
+// The role sets, exported so a new row can use them.
 export const ROLE_SETS = {
   ANYONE,
   SIGNED_IN,

@@ -40,6 +40,7 @@ export interface AppConfig {
     backoffMaxMs: number;
     leaseMs: number;
   };
+  photos: { maxBytes: number; partBytes: number };
   projectCreation: 'anyone' | 'operators';
 }
 
@@ -85,6 +86,7 @@ export function toAppConfig(e: EnvironmentVariables): AppConfig {
       backoffMaxMs: e.JOBS_BACKOFF_MAX_MS,
       leaseMs: e.JOBS_LEASE_MS,
     },
+    photos: { maxBytes: e.PHOTO_MAX_BYTES, partBytes: e.PHOTO_PART_BYTES },
     projectCreation: e.PROJECT_CREATION,
   };
 }

@@ -204,6 +204,18 @@ export class EnvironmentVariables {
   @Min(1000)
   JOBS_LEASE_MS = 300_000;
 
+  /** Largest photo accepted, in bytes (25 MiB by default). */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1024)
+  PHOTO_MAX_BYTES = 25 * 1024 * 1024;
+
+  /** Size of each part of a photo upload, in bytes: S3 needs at least 5 MiB for every part but the last. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(5 * 1024 * 1024)
+  PHOTO_PART_BYTES = 5 * 1024 * 1024;
+
   /** Who may create projects: anyone signed in, or instance operators only. */
   @IsIn(['anyone', 'operators'])
   PROJECT_CREATION: 'anyone' | 'operators' = 'operators';

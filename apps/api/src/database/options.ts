@@ -5,6 +5,7 @@ import { Job } from '../infrastructure/jobs/job.entity.js';
 import { Notice } from '../infrastructure/mail/notice.entity.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
+import { Photo } from '../modules/photos/photo.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
 import { Joint } from '../modules/rounds/joint.entity.js';
@@ -39,6 +40,7 @@ export const entities = [
   IdempotencyKey,
   Job,
   Notice,
+  Photo,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -24,6 +24,7 @@ const codeOfStatus: Partial<Record<number, ErrorCode>> = {
   404: ErrorCode.NotFound,
   409: ErrorCode.Conflict,
   413: ErrorCode.PayloadTooLarge,
+  415: ErrorCode.UnsupportedMediaType,
   429: ErrorCode.TooManyRequests,
   503: ErrorCode.ServiceUnavailable,
 };

@@ -12,6 +12,7 @@ export enum ErrorCode {
   NeedsConfirmation = 'NEEDS_CONFIRMATION',
   TooManyRequests = 'TOO_MANY_REQUESTS',
   PayloadTooLarge = 'PAYLOAD_TOO_LARGE',
+  UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
   ServiceUnavailable = 'SERVICE_UNAVAILABLE',
   Internal = 'INTERNAL',
 }
@@ -27,6 +28,7 @@ const statusOf: Record<ErrorCode, HttpStatus> = {
   [ErrorCode.NeedsConfirmation]: HttpStatus.CONFLICT,
   [ErrorCode.TooManyRequests]: HttpStatus.TOO_MANY_REQUESTS,
   [ErrorCode.PayloadTooLarge]: HttpStatus.PAYLOAD_TOO_LARGE,
+  [ErrorCode.UnsupportedMediaType]: HttpStatus.UNSUPPORTED_MEDIA_TYPE,
   [ErrorCode.ServiceUnavailable]: HttpStatus.SERVICE_UNAVAILABLE,
   [ErrorCode.Internal]: HttpStatus.INTERNAL_SERVER_ERROR,
 };

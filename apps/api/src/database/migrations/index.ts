@@ -6,6 +6,7 @@ import { RoundAssessments1764979200000 } from './1764979200000-RoundAssessments.
 import { JobsAndOperators1796193536073 } from './1796193536073-JobsAndOperators.js';
 import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.js';
 import { Review1796200000000 } from './1796200000000-Review.js';
+import { Photos1796270000000 } from './1796270000000-Photos.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -17,4 +18,5 @@ export const migrations = [
   JobsAndOperators1796193536073,
   HeadingAlignment1796196409420,
   Review1796200000000,
+  Photos1796270000000,
 ];

@@ -597,6 +597,111 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/photos": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The round's stored photos, oldest first (any member) */
+        get: operations["PhotosController_list"];
+        put?: never;
+        /** Starts an upload: checks the declared size and type, opens a multipart upload in object storage */
+        post: operations["PhotosController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/parts/{partNumber}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /** One part of the file as the raw request body (application/octet-stream), streamed to storage */
+        put: operations["PhotosController_uploadPart"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/complete": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Puts the parts together and checks the file by its bytes; the thumbnail job is queued */
+        post: operations["PhotosController_complete"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/upload": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Gives up an unfinished upload (its parts are removed) */
+        delete: operations["PhotosController_abort"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One stored photo (any member) */
+        get: operations["PhotosController_get"];
+        put?: never;
+        post?: never;
+        /** Removes a photo of an editable round (kept in the audit trail) */
+        delete: operations["PhotosController_remove"];
+        options?: never;
+        head?: never;
+        /** Caption, part of the face, pin on the sketch */
+        patch: operations["PhotosController_update"];
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/url": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** A signed address, valid a few minutes, of the original, the display size or the thumbnail (any member) */
+        get: operations["PhotosController_url"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -1726,6 +1831,75 @@ export interface components {
         ReviewQueueDto: {
             items: components["schemas"]["ReviewQueueItemDto"][];
             caution: string;
+        };
+        /** @enum {string} */
+        PhotoUploadState: "uploading" | "stored";
+        /** @enum {string} */
+        PhotoVariantState: "pending" | "ready" | "failed";
+        /** @enum {string} */
+        FacePart: "face" | "crown" | "left-wall" | "right-wall" | "invert" | "probe";
+        PhotoDto: {
+            uploadState: components["schemas"]["PhotoUploadState"];
+            variantState: components["schemas"]["PhotoVariantState"];
+            facePart: components["schemas"]["FacePart"] | null;
+            /** Format: date-time */
+            takenAt: string | null;
+            uploadedByName: string | null;
+            pinX: number | null;
+            pinY: number | null;
+            width: number | null;
+            height: number | null;
+            /** Format: date-time */
+            createdAt: string;
+            id: string;
+            roundId: string;
+            contentType: string;
+            /** @description bytes */
+            size: number;
+            originalName: string;
+            caption: string;
+            uploadedBy: string;
+        };
+        CreatePhotoUploadDto: {
+            /** @description The file's name on the device (shown, never used in a storage key) */
+            fileName: string;
+            /** @description The type the browser reports; the stored bytes are checked again on completion */
+            contentType: string;
+            /** @description bytes */
+            size: number;
+        };
+        PhotoUploadDto: {
+            photo: components["schemas"]["PhotoDto"];
+            partSize: number;
+            partCount: number;
+            /** @description Largest accepted file, bytes */
+            maxBytes: number;
+        };
+        UploadedPartResultDto: {
+            partNumber: number;
+            etag: string;
+        };
+        UploadedPartDto: {
+            partNumber: number;
+            etag: string;
+        };
+        CompletePhotoUploadDto: {
+            parts: components["schemas"]["UploadedPartDto"][];
+        };
+        UpdatePhotoDto: {
+            facePart?: components["schemas"]["FacePart"] | null;
+            pinX?: number | null;
+            pinY?: number | null;
+            caption?: string;
+        };
+        /** @enum {string} */
+        PhotoVariant: "original" | "display" | "thumbnail";
+        PhotoUrlDto: {
+            /** @description The size served: the original while the smaller ones are being made */
+            variant: components["schemas"]["PhotoVariant"];
+            /** Format: date-time */
+            expiresAt: string;
+            url: string;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -3566,6 +3740,492 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ReviewQueueDto"];
+                };
+            };
+        };
+    };
+    PhotosController_list: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_create: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreatePhotoUploadDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoUploadDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description The round is not editable */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_uploadPart: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+                partNumber: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/octet-stream": string;
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["UploadedPartResultDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_complete: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CompletePhotoUploadDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Not a JPEG, PNG, WebP or HEIC */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_abort: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_remove: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description The round is not editable */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdatePhotoDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description The round is not editable */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    PhotosController_url: {
+        parameters: {
+            query?: {
+                variant?: components["schemas"]["PhotoVariant"];
+            };
+            header?: never;
+            path: {
+                roundId: string;
+                photoId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["PhotoUrlDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };

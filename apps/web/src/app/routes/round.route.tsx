@@ -9,6 +9,7 @@ import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
+import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import {
   useRound,
@@ -67,6 +68,14 @@ export function RoundRoute() {
           timeZone={project.timeZone}
         />
       )}
+      <PhotosSection
+        projectId={projectId}
+        roundId={round.id}
+        canEdit={
+          (project.role === 'geologist' || project.role === 'admin') &&
+          (round.status === 'draft' || round.status === 'returned')
+        }
+      />
     </>
   );
 }

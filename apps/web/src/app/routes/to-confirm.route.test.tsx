@@ -13,6 +13,7 @@ const engineer: CurrentUser = {
   email: 'engineer@roundbook.test',
   name: 'Edda Ravenshaw',
   memberships: [{ projectId: 'p-1', projectName: 'Harrowdale Headrace', role: 'engineer' }],
+  canCreateProjects: false,
 };
 const CAUTION =
   'Roundbook computes and records; the responsible engineer decides under the project’s design and local regulations.';

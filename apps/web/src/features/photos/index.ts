@@ -1,0 +1,2 @@
+export { PhotosSection } from './components/photos-section';
+export type { PhotosSectionProps } from './components/photos-section';
