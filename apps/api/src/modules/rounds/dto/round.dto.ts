@@ -16,17 +16,18 @@ import {
   IsBoolean,
   IsIn,
   IsInt,
+  IsObject,
   IsNumber,
   IsOptional,
   IsString,
   IsUUID,
   Length,
-  Matches,
   Max,
   MaxLength,
   Min,
   ValidateNested,
 } from 'class-validator';
+import { IsCalendarDate } from '../../../common/dto/calendar-date.js';
 import { QInputDto, RmrInputDto } from './rating-input.dto.js';
 
 export class RockUnitDto {
@@ -270,7 +271,9 @@ export class RoundInputDto {
   faceChainage: number;
 
   @IsOptional()
-  @IsNumber()
+  @IsNumber({}, { message: 'Previous chainage is a number of metres.' })
+  @Min(-99999)
+  @Max(999999)
   @ApiProperty({ type: Number, nullable: true })
   previousChainage: number | null;
 
@@ -281,7 +284,7 @@ export class RoundInputDto {
   @ApiProperty({ type: Number, nullable: true })
   roundLength: number | null;
 
-  @Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'Shift date is a date such as 2026-11-30.' })
+  @IsCalendarDate({ message: 'Shift date is a real calendar date such as 2026-11-30.' })
   shiftDate: string;
 
   @IsIn(SHIFTS)
@@ -298,6 +301,7 @@ export class RoundInputDto {
 
   @IsArray()
   @ArrayMaxSize(500)
+  @IsObject({ each: true, message: 'Each joint is an object of its fields.' })
   @ValidateNested({ each: true })
   @Type(() => JointInputDto)
   joints: JointInputDto[];
@@ -509,6 +513,7 @@ export class RoundQueryDto {
   @Type(() => Number)
   @IsInt()
   @Min(1)
+  @Max(100000, { message: 'Page is 1–100000.' })
   page?: number;
 
   @IsOptional()
@@ -536,11 +541,15 @@ export class RoundQueryDto {
   @IsOptional()
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   fromChainage?: number;
 
   @IsOptional()
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   toChainage?: number;
 }
 
@@ -571,10 +580,14 @@ export class NearbyJointDto {
 export class NearbyJointsQueryDto {
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   fromChainage: number;
 
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   toChainage: number;
 
   @IsOptional()
