@@ -14,6 +14,7 @@ import { profileEnv, root } from './lib/env.mjs';
 import { InfraError, fail, step } from './lib/log.mjs';
 import { startChild, stopAll, waitForLine } from './lib/proc.mjs';
 import { assertPortFree, startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
+import { supervise } from './lib/supervise.mjs';
 
 const { dataDir, env } = profileEnv('local');
 const dev = process.argv.includes('--dev');
@@ -40,20 +41,30 @@ try {
   await assertPortFree(Number(new URL(env.S3_ENDPOINT).port), 'the S3 fake', 'S3_ENDPOINT');
   await assertPortFree(Number(env.SMTP_PORT), 'the SMTP fake', 'SMTP_PORT');
   await assertPortFree(Number(env.PORT), 'Roundbook', 'PORT');
-  await startMariadb({ dataDir, env });
-  await startS3({ dataDir, env });
-  await startSmtp({ dataDir, env });
+  const isStopping = () => stopping;
+  const logs = (name) => `See ${dataDir}/logs/${name}.log.`;
+  const db = await startMariadb({ dataDir, env });
+  supervise('MariaDB', db.child, async () => (await startMariadb({ dataDir, env })).child, {
+    isStopping,
+    logHint: logs('mariadb'),
+  });
+  supervise('The S3 fake', await startS3({ dataDir, env }), () => startS3({ dataDir, env }), {
+    isStopping,
+    logHint: logs('s3'),
+  });
+  supervise('The SMTP fake', await startSmtp({ dataDir, env }), () => startSmtp({ dataDir, env }), {
+    isStopping,
+    logHint: logs('smtp'),
+  });
   migrateAndSeed(env);
   if (dev) {
     await startDev();
     await new Promise(() => {}); // until Ctrl-C
   }
-  const api = await startApi({ dataDir, env });
-  api.on('exit', (code) => {
-    if (!stopping) {
-      fail(`Roundbook stopped unexpectedly (exit code ${code}); see ${dataDir}/logs/api.log`);
-      void shutdown(1);
-    }
+  // One API crash does not take the stack down: it is restarted with back-off like the services.
+  supervise('Roundbook (the API)', await startApi({ dataDir, env }), () => startApi({ dataDir, env }), {
+    isStopping,
+    logHint: logs('api'),
   });
   const url = `http://${env.HOST}:${env.PORT}`;
   console.log(`

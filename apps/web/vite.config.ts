@@ -1,11 +1,16 @@
 import { fileURLToPath, URL } from 'node:url';
 import react from '@vitejs/plugin-react';
 import { defaultClientConditions, defineConfig } from 'vite';
+import { compression } from 'vite-plugin-compression2';
 
 const src = fileURLToPath(new URL('./src', import.meta.url));
 
 export default defineConfig({
-  plugins: [react()],
+  // Brotli and gzip copies of every built file beside it; the API serves them precompressed (web-app.ts).
+  plugins: [
+    react(),
+    compression({ algorithms: ['gzip', 'brotliCompress'], exclude: [/\.(br|gz)$/, /\.map$/] }),
+  ],
   resolve: {
     alias: { '@': src },
     // Workspace packages are consumed as TypeScript source: geomath publishes it under the

@@ -1,8 +1,5 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
 import { Module, type DynamicModule } from '@nestjs/common';
 import { APP_GUARD } from '@nestjs/core';
-import { ServeStaticModule } from '@nestjs/serve-static';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import type { AppConfig } from './config/app-config.js';
 import { AppConfigModule } from './config/app-config.module.js';
@@ -27,10 +24,6 @@ import { TriggerRulesModule } from './modules/trigger-rules/trigger-rules.module
 @Module({})
 export class AppModule {
   static forRoot(config: AppConfig): DynamicModule {
-    const web =
-      config.webDistDir && existsSync(path.join(config.webDistDir, 'index.html'))
-        ? config.webDistDir
-        : undefined;
     return {
       module: AppModule,
       imports: [
@@ -50,8 +43,7 @@ export class AppModule {
         BoardModule,
         HealthModule,
         LocalMailModule,
-        // The API serves the built web app, so Roundbook is one address.
-        ...(web ? [ServeStaticModule.forRoot({ rootPath: web, exclude: ['/api/{*path}'] })] : []),
+        // The API also serves the built web app (setup-app.ts, common/http/web-app.ts): one address.
       ],
       controllers: [AppInfoController],
       providers: [{ provide: APP_GUARD, useClass: JwtAuthGuard }],

@@ -8,7 +8,17 @@ export interface AppConfig {
   appUrl: string;
   localMode: boolean;
   database: { host: string; port: number; name: string; user: string; password: string };
-  auth: { jwtSecret: string; jwtExpiresIn: string; loginRateLimit: number };
+  auth: {
+    jwtSecret: string;
+    jwtExpiresIn: string;
+    loginRateLimit: number;
+    loginAddressLimit: number;
+    publicRateLimit: number;
+  };
+  /** Express `trust proxy`: false (none) unless TRUST_PROXY names the proxies in front */
+  trustProxy: boolean | number | string;
+  /** Readiness checks are reused this long */
+  healthCacheSeconds: number;
   storage: {
     driver: 's3';
     endpoint: string;
@@ -46,6 +56,14 @@ export interface AppConfig {
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
 
+/** TRUST_PROXY as Express reads it: empty or `none` → trust no proxy; a hop count; or addresses/subnets. */
+export function trustProxyOf(value: string | undefined): boolean | number | string {
+  const v = (value ?? '').trim();
+  if (v === '' || v === 'none' || v === 'false') return false;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
+}
+
 export function toAppConfig(e: EnvironmentVariables): AppConfig {
   return {
     env: e.NODE_ENV,
@@ -54,7 +72,15 @@ export function toAppConfig(e: EnvironmentVariables): AppConfig {
     appUrl: e.APP_URL.replace(/\/$/, ''),
     localMode: e.LOCAL_MODE,
     database: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD },
-    auth: { jwtSecret: e.JWT_SECRET, jwtExpiresIn: e.JWT_EXPIRES_IN, loginRateLimit: e.LOGIN_RATE_LIMIT },
+    auth: {
+      jwtSecret: e.JWT_SECRET,
+      jwtExpiresIn: e.JWT_EXPIRES_IN,
+      loginRateLimit: e.LOGIN_RATE_LIMIT,
+      loginAddressLimit: e.LOGIN_ADDRESS_LIMIT,
+      publicRateLimit: e.PUBLIC_RATE_LIMIT,
+    },
+    trustProxy: trustProxyOf(e.TRUST_PROXY),
+    healthCacheSeconds: e.HEALTH_CACHE_SECONDS,
     storage: {
       driver: e.STORAGE_DRIVER,
       endpoint: e.S3_ENDPOINT,

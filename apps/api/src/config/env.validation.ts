@@ -159,6 +159,37 @@ export class EnvironmentVariables {
   @Min(1)
   LOGIN_RATE_LIMIT = 10;
 
+  /** Failed sign-ins from one client address (all accounts) before that address waits, with back-off. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  LOGIN_ADDRESS_LIMIT = 100;
+
+  /** Requests per minute per client address on anonymous routes (sign-in, invitations, health). */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  PUBLIC_RATE_LIMIT = 120;
+
+  /**
+   * The proxies whose X-Forwarded-For is believed (Express `trust proxy`): empty/none (default) trusts no
+   * one; `loopback`, a list of addresses or subnets, or a hop count.
+   */
+  @IsOptional()
+  @IsString()
+  @Matches(/^(?!true$)(none|false|\d+|[\w.:/, -]+)$/, {
+    message:
+      'TRUST_PROXY is none, a hop count, or addresses/subnets (not `true`: trusting everyone is the bypass).',
+  })
+  TRUST_PROXY?: string;
+
+  /** /api/health runs its database, storage and mail checks at most once per this many seconds. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(0)
+  @Max(3600)
+  HEALTH_CACHE_SECONDS = 10;
+
   // --- Background jobs and instance permissions (jobs worker, operators) ---
 
   /** Whether this API process runs the jobs worker (any number of processes may). */

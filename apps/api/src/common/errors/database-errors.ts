@@ -1,4 +1,4 @@
-import { QueryFailedError } from 'typeorm';
+import { QueryFailedError, TypeORMError } from 'typeorm';
 
 /** MariaDB's error number of a failed query, if it is one. */
 export function dbErrno(error: unknown): number | undefined {
@@ -12,75 +12,99 @@ export const isRowReferenced = (error: unknown): boolean => dbErrno(error) === 1
 /** ER_DUP_ENTRY (1062): a unique key already holds the value. */
 export const isDuplicateKey = (error: unknown): boolean => dbErrno(error) === 1062;
 
-/** What a database failure means to the caller, or null when it is not one the caller can act on. */
-export type DatabaseFailure =
-  | { kind: 'conflict'; message: string }
-  | { kind: 'bad-value'; message: string }
-  | { kind: 'unavailable'; message: string };
+/** How the global filter answers a database error: status, code, message, and a retry hint for outages. */
+export interface DatabaseErrorAnswer {
+  status: 400 | 409 | 503;
+  message: string;
+  retryAfterSeconds?: number;
+}
 
-// MariaDB error numbers (https://mariadb.com/kb/en/mariadb-error-codes/).
+/** MariaDB error numbers that mean the value sent does not fit the column (out of range, too long, bad value). */
 const BAD_VALUE = new Set([
-  1048, // ER_BAD_NULL_ERROR: a column cannot be null
+  1048, // ER_BAD_NULL_ERROR: column cannot be null
   1264, // ER_WARN_DATA_OUT_OF_RANGE
   1265, // WARN_DATA_TRUNCATED
-  1292, // ER_TRUNCATED_WRONG_VALUE (dates)
-  1366, // ER_TRUNCATED_WRONG_VALUE_FOR_FIELD
+  1292, // ER_TRUNCATED_WRONG_VALUE (dates such as 2026-02-30)
+  1366, // ER_TRUNCATED_WRONG_VALUE_FOR_FIELD (bad character or number)
+  1367, // ER_ILLEGAL_VALUE_FOR_TYPE
   1406, // ER_DATA_TOO_LONG
-  1690, // ER_DATA_OUT_OF_RANGE
+  1690, // ER_DATA_OUT_OF_RANGE (BIGINT UNSIGNED value is out of range)
   3140, // ER_INVALID_JSON_TEXT
-  4025, // ER_CONSTRAINT_FAILED (CHECK, JSON_VALID)
+  4025, // ER_CONSTRAINT_FAILED (a CHECK such as JSON_VALID)
+  4038, // ER_JSON_SYNTAX
 ]);
-const UNAVAILABLE = new Set([
+/** Transient: the database is busy or briefly unreachable; trying again later can succeed. */
+const TRANSIENT_ERRNO = new Set([
   1040, // ER_CON_COUNT_ERROR: too many connections
-  1047, // ER_UNKNOWN_COM_ERROR: a Galera node not ready
   1053, // ER_SERVER_SHUTDOWN
   1205, // ER_LOCK_WAIT_TIMEOUT
   1213, // ER_LOCK_DEADLOCK
+  1927, // ER_CONNECTION_KILLED
   2002, // CR_CONNECTION_ERROR
   2003, // CR_CONN_HOST_ERROR
   2006, // CR_SERVER_GONE_ERROR
   2013, // CR_SERVER_LOST
+  4031, // ER_CLIENT_INTERACTION_TIMEOUT
 ]);
-const UNAVAILABLE_CODES = new Set([
+const TRANSIENT_CODES = new Set([
   'ECONNREFUSED',
   'ECONNRESET',
   'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENOTFOUND',
   'EPIPE',
   'PROTOCOL_CONNECTION_LOST',
-  'ER_GET_CONNECTION_TIMEOUT',
-  'ER_CONNECTION_TIMEOUT',
-  'ER_SOCKET_UNEXPECTED_CLOSE',
-  'ER_CLOSING_POOL',
+  'PROTOCOL_SEQUENCE_TIMEOUT',
+  'ER_LOCK_WAIT_TIMEOUT',
+  'ER_LOCK_DEADLOCK',
+  'POOL_CLOSED',
 ]);
 
-/** Classifies a failed query or lost connection; null for anything else (a bug: 500). */
-export function databaseFailure(error: unknown): DatabaseFailure | null {
-  // A failed query, or the MariaDB driver's own connection error (it marks those `fatal`); other libraries'
-  // network errors (mail, storage) are not the database's.
-  const isDriverError = (e: unknown): boolean =>
-    e !== null && typeof e === 'object' && 'fatal' in e && ('errno' in e || 'code' in e);
-  if (!(error instanceof QueryFailedError) && !isDriverError(error)) return null;
-  const driver = (error instanceof QueryFailedError ? error.driverError : error) as
-    { errno?: number; code?: string } | null | undefined;
-  if (!driver || typeof driver !== 'object') return null;
-  const errno = driver.errno;
+/** The mysql2 error behind a TypeORM error, or the error itself when it came straight from the pool. */
+function driverErrorOf(error: unknown): { errno?: number; code?: string; message?: string } | undefined {
+  if (error instanceof QueryFailedError) return error.driverError as { errno?: number; code?: string };
+  if (error && typeof error === 'object') {
+    const e = error as { errno?: unknown; code?: unknown; driverError?: unknown };
+    if (e.driverError && typeof e.driverError === 'object') return e.driverError;
+    // mysql2's own errors (from the pool, before any query) carry `fatal` or `sqlState`.
+    const fromDriver = 'fatal' in e || 'sqlState' in e || error instanceof TypeORMError;
+    if (fromDriver && (typeof e.code === 'string' || typeof e.errno === 'number')) return error;
+  }
+  return undefined;
+}
+
+/**
+ * Maps a database error to a 4xx or 503 answer, or undefined when it is not one this product can explain.
+ * Messages name no table, key or host.
+ */
+export function answerOfDatabaseError(error: unknown): DatabaseErrorAnswer | undefined {
+  const d = driverErrorOf(error);
+  if (!d) return undefined;
+  const { errno, code } = d;
   if (errno === 1062)
     return {
-      kind: 'conflict',
-      message: 'Something with the same code or name was saved at the same moment; reload and try again.',
+      status: 409,
+      message:
+        'Something with the same code, name or address already exists (perhaps saved a moment ago). Reload and check.',
     };
+  if (errno === 1451)
+    return { status: 409, message: 'This is still in use elsewhere and cannot be removed.' };
+  if (errno === 1452)
+    return { status: 400, message: 'The request refers to something that does not exist (any more).' };
   if (errno !== undefined && BAD_VALUE.has(errno))
     return {
-      kind: 'bad-value',
-      message: 'A value is outside what Roundbook can store (too large, too long or not a real date).',
+      status: 400,
+      message:
+        'A value in the request is out of range, too long or not valid for its field. Nothing was saved.',
     };
   if (
-    (errno !== undefined && UNAVAILABLE.has(errno)) ||
-    (driver.code !== undefined && UNAVAILABLE_CODES.has(driver.code))
+    (errno !== undefined && TRANSIENT_ERRNO.has(errno)) ||
+    (code !== undefined && TRANSIENT_CODES.has(code))
   )
     return {
-      kind: 'unavailable',
-      message: 'The database is not reachable just now. Nothing was saved; try again in a few seconds.',
+      status: 503,
+      message: 'The database is not answering just now. Nothing was lost; try again in a few seconds.',
+      retryAfterSeconds: errno === 1205 || errno === 1213 ? 2 : 10,
     };
-  return null;
+  return undefined;
 }

@@ -7,7 +7,9 @@ import {
   type ExceptionFilter,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { databaseFailure } from './database-errors.js';
+import { JsonTooDeepError } from '../http/guarded-json.js';
+import { LONE_SURROGATE_MESSAGE } from '../http/well-formed-text.js';
+import { answerOfDatabaseError } from './database-errors.js';
 import { DomainException, ErrorCode } from './domain.exception.js';
 
 export interface ErrorBody {
@@ -24,7 +26,6 @@ const codeOfStatus: Partial<Record<number, ErrorCode>> = {
   404: ErrorCode.NotFound,
   409: ErrorCode.Conflict,
   413: ErrorCode.PayloadTooLarge,
-  415: ErrorCode.UnsupportedMediaType,
   429: ErrorCode.TooManyRequests,
   503: ErrorCode.ServiceUnavailable,
 };
@@ -44,16 +45,18 @@ export class DomainExceptionFilter implements ExceptionFilter {
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
-    const { status, body } = this.toBody(exception);
+    const { status, body, retryAfterSeconds } = this.toBody(exception);
+    // Every 503 says when to try again (a dependency is down, not the request wrong).
+    if (status === 503 || (status === 429 && retryAfterSeconds !== undefined))
+      res.setHeader('Retry-After', String(retryAfterSeconds ?? 10));
     if (status >= 500)
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
       );
-    if (status === 503) res.setHeader('Retry-After', '5');
     res.status(status).json(body);
   }
 
-  private toBody(exception: unknown): { status: number; body: ErrorBody } {
+  private toBody(exception: unknown): { status: number; body: ErrorBody; retryAfterSeconds?: number } {
     if (exception instanceof DomainException) {
       return {
         status: exception.status,
@@ -63,6 +66,10 @@ export class DomainExceptionFilter implements ExceptionFilter {
           fields: exception.fields,
           details: exception.details,
         },
+        retryAfterSeconds:
+          typeof exception.details?.retryAfterSeconds === 'number'
+            ? exception.details.retryAfterSeconds
+            : undefined,
       };
     }
     if (exception instanceof HttpException) {
@@ -73,6 +80,22 @@ export class DomainExceptionFilter implements ExceptionFilter {
       const message = friendly[status] ?? (typeof raw === 'string' ? raw : exception.message);
       return { status, body: { code: codeOfStatus[status] ?? `HTTP_${status}`, message } };
     }
+    if (exception instanceof JsonTooDeepError) {
+      return { status: 400, body: { code: ErrorCode.ValidationFailed, message: exception.message } };
+    }
+    const db = answerOfDatabaseError(exception);
+    if (db) {
+      const code = {
+        400: ErrorCode.ValidationFailed,
+        409: ErrorCode.Conflict,
+        503: ErrorCode.ServiceUnavailable,
+      }[db.status];
+      return {
+        status: db.status,
+        body: { code, message: db.message },
+        retryAfterSeconds: db.retryAfterSeconds,
+      };
+    }
     const typeOf = (exception as { type?: string } | null)?.type;
     if (typeOf === 'entity.too.large') {
       return {
@@ -80,32 +103,16 @@ export class DomainExceptionFilter implements ExceptionFilter {
         body: { code: ErrorCode.PayloadTooLarge, message: friendly[413]! },
       };
     }
-    if (typeOf === 'entity.too.deep') {
-      return {
-        status: HttpStatus.BAD_REQUEST,
-        body: { code: ErrorCode.ValidationFailed, message: 'The request body is nested too deeply.' },
-      };
-    }
-    const db = databaseFailure(exception);
-    if (db !== null) {
-      const status =
-        db.kind === 'conflict'
-          ? HttpStatus.CONFLICT
-          : db.kind === 'bad-value'
-            ? HttpStatus.BAD_REQUEST
-            : HttpStatus.SERVICE_UNAVAILABLE;
-      const code =
-        db.kind === 'conflict'
-          ? ErrorCode.Conflict
-          : db.kind === 'bad-value'
-            ? ErrorCode.ValidationFailed
-            : ErrorCode.ServiceUnavailable;
-      return { status, body: { code, message: db.message } };
-    }
     if (typeOf === 'entity.parse.failed') {
       return {
         status: HttpStatus.BAD_REQUEST,
-        body: { code: ErrorCode.ValidationFailed, message: 'The request body is not valid JSON.' },
+        body: {
+          code: ErrorCode.ValidationFailed,
+          message:
+            (exception as Error).message === LONE_SURROGATE_MESSAGE
+              ? LONE_SURROGATE_MESSAGE
+              : 'The request body is not valid JSON.',
+        },
       };
     }
     return {

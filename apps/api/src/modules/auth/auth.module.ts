@@ -8,6 +8,7 @@ import { User } from '../users/user.entity.js';
 import { AuthController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
 import { JwtAuthGuard } from './jwt-auth.guard.js';
+import { LoginAttempts } from './login-attempts.js';
 
 @Module({
   imports: [
@@ -22,12 +23,16 @@ import { JwtAuthGuard } from './jwt-auth.guard.js';
     ThrottlerModule.forRootAsync({
       inject: [APP_CONFIG],
       useFactory: (config: AppConfig) => ({
-        throttlers: [{ name: 'login', ttl: 60_000, limit: config.auth.loginRateLimit }],
+        // `login`: invitation pages and accepts, per address; `public`: request volume on anonymous routes.
+        throttlers: [
+          { name: 'login', ttl: 60_000, limit: config.auth.loginRateLimit },
+          { name: 'public', ttl: 60_000, limit: config.auth.publicRateLimit },
+        ],
       }),
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, JwtAuthGuard],
+  providers: [AuthService, JwtAuthGuard, LoginAttempts],
   exports: [AuthService, JwtAuthGuard, JwtModule],
 })
 export class AuthModule {}

@@ -10,6 +10,7 @@ import { ProjectMember } from '../projects/project-member.entity.js';
 import { hashPassword, verifyPassword } from '../users/password.js';
 import { User } from '../users/user.entity.js';
 import type { MeDto, TokenResponseDto } from './dto/token-response.dto.js';
+import { LoginAttempts } from './login-attempts.js';
 
 export interface JwtPayload {
   sub: string;
@@ -25,18 +26,23 @@ export class AuthService {
     @InjectRepository(ProjectMember) private readonly members: Repository<ProjectMember>,
     @Inject(JwtService) private readonly jwt: JwtService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Inject(LoginAttempts) private readonly attempts: LoginAttempts,
   ) {}
 
-  async login(email: string, password: string): Promise<TokenResponseDto> {
+  async login(email: string, password: string, address = 'unknown'): Promise<TokenResponseDto> {
+    email = email.trim().toLowerCase();
+    this.attempts.assertAllowed(email, address);
     const user = await this.users.findOne({ where: { email: email.trim().toLowerCase() } });
     // Verify even when the user is unknown, so response time does not reveal which e-mails exist.
     const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), password);
     if (!user || !ok) {
+      this.attempts.failed(email, address);
       throw new DomainException(
         ErrorCode.InvalidCredentials,
         'That e-mail and password do not match an account.',
       );
     }
+    this.attempts.succeeded(email);
     const payload: JwtPayload = { sub: user.id, email: user.email, name: user.name };
     const accessToken = await this.jwt.signAsync(payload);
     const { exp } = this.jwt.decode<JwtPayload>(accessToken);

@@ -47,7 +47,7 @@ export interface paths {
         };
         get?: never;
         put?: never;
-        /** Signs in with e-mail and password; returns a bearer token. Rate-limited per address. */
+        /** Signs in with e-mail and password; returns a bearer token. Failures are limited per account and per address, with back-off. */
         post: operations["AuthController_login"];
         delete?: never;
         options?: never;
@@ -709,8 +709,25 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** Database, object storage and mail transport; 503 when any of them fails */
+        /** Readiness: database, object storage and mail transport (checks cached a few seconds); 503 when any fails */
         get: operations["HealthController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/health/live": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Liveness: the process answers. Touches no database, storage or mail. */
+        get: operations["HealthController_live"];
         put?: never;
         post?: never;
         delete?: never;
@@ -1905,14 +1922,20 @@ export interface components {
         HealthStatus: "ok" | "degraded";
         ComponentHealthDto: {
             ok: boolean;
-            /** @description What was checked, or why it failed */
+            /** @description `answering`, or that it is not (the reason is in the server log) */
             detail: string;
         };
         HealthDto: {
             status: components["schemas"]["HealthStatus"];
+            /** @description When the checks ran (they are cached a few seconds) */
+            checkedAt: string;
             database: components["schemas"]["ComponentHealthDto"];
             storage: components["schemas"]["ComponentHealthDto"];
             mail: components["schemas"]["ComponentHealthDto"];
+        };
+        LivenessDto: {
+            /** @enum {string} */
+            status: "ok";
         };
         LocalAccessDto: {
             /** @description LOCAL_MODE=true and a local inbox folder: the local mail view exists */
@@ -4253,6 +4276,25 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["HealthDto"];
+                };
+            };
+        };
+    };
+    HealthController_live: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LivenessDto"];
                 };
             };
         };

@@ -161,15 +161,21 @@ export class CreateHeadingDto {
   plannedRoundLength: number;
 
   @IsOptional()
-  @IsNumber()
+  @IsNumber({}, { message: 'startEasting is a number of metres.' })
+  @Min(-99999999, { message: 'Grid coordinates are within ±99999999 m.' })
+  @Max(99999999, { message: 'Grid coordinates are within ±99999999 m.' })
   startEasting?: number | null;
 
   @IsOptional()
-  @IsNumber()
+  @IsNumber({}, { message: 'startNorthing is a number of metres.' })
+  @Min(-99999999, { message: 'Grid coordinates are within ±99999999 m.' })
+  @Max(99999999, { message: 'Grid coordinates are within ±99999999 m.' })
   startNorthing?: number | null;
 
   @IsOptional()
-  @IsNumber()
+  @IsNumber({}, { message: 'startElevation is a number of metres.' })
+  @Min(-99999, { message: 'Grid coordinates are within ±99999 m.' })
+  @Max(99999, { message: 'Grid coordinates are within ±99999 m.' })
   startElevation?: number | null;
 
   @Optional()

@@ -275,7 +275,9 @@ export class RoundInputDto {
   faceChainage: number;
 
   @IsOptional()
-  @IsNumber()
+  @IsNumber({}, { message: 'Previous chainage is a number of metres.' })
+  @Min(-99999)
+  @Max(999999)
   @ApiProperty({ type: Number, nullable: true })
   previousChainage: number | null;
 
@@ -287,7 +289,7 @@ export class RoundInputDto {
   roundLength: number | null;
 
   @Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'Shift date is a date such as 2026-11-30.' })
-  @IsCalendarDate({ message: 'Shift date is a real date such as 2026-11-30.' })
+  @IsCalendarDate({ message: 'Shift date is a real calendar date such as 2026-11-30.' })
   shiftDate: string;
 
   @IsIn(SHIFTS)
@@ -305,7 +307,7 @@ export class RoundInputDto {
 
   @IsArray()
   @ArrayMaxSize(500)
-  @IsObject({ each: true, message: 'Give each item as an object.' })
+  @IsObject({ each: true, message: 'Each joint is an object of its fields.' })
   @ValidateNested({ each: true })
   @Type(() => JointInputDto)
   joints: JointInputDto[];
@@ -520,6 +522,7 @@ export class RoundQueryDto {
   @Type(() => Number)
   @IsInt()
   @Min(1)
+  @Max(100000, { message: 'Page is 1–100000.' })
   page?: number;
 
   @Optional()
@@ -547,11 +550,15 @@ export class RoundQueryDto {
   @Optional()
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   fromChainage?: number;
 
   @Optional()
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   toChainage?: number;
 }
 
@@ -582,10 +589,14 @@ export class NearbyJointDto {
 export class NearbyJointsQueryDto {
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   fromChainage: number;
 
   @Type(() => Number)
   @IsNumber()
+  @Min(-99999)
+  @Max(999999)
   toChainage: number;
 
   @Optional()
