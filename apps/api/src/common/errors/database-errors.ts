@@ -36,6 +36,7 @@ const BAD_VALUE = new Set([
 /** Transient: the database is busy or briefly unreachable; trying again later can succeed. */
 const TRANSIENT_ERRNO = new Set([
   1040, // ER_CON_COUNT_ERROR: too many connections
+  1047, // ER_UNKNOWN_COM_ERROR: a Galera node not yet synced (stack-notes §13)
   1053, // ER_SERVER_SHUTDOWN
   1205, // ER_LOCK_WAIT_TIMEOUT
   1213, // ER_LOCK_DEADLOCK
