@@ -32,6 +32,7 @@ const OPERATOR: readonly Actor[] = ['operator'];
 export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'GET /api/config': ANYONE,
   'GET /api/health': ANYONE,
+  'GET /api/health/live': ANYONE,
   'POST /api/auth/login': ANYONE,
   'GET /api/auth/me': SIGNED_IN,
 

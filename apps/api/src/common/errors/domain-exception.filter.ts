@@ -26,6 +26,7 @@ const codeOfStatus: Partial<Record<number, ErrorCode>> = {
   404: ErrorCode.NotFound,
   409: ErrorCode.Conflict,
   413: ErrorCode.PayloadTooLarge,
+  415: ErrorCode.UnsupportedMediaType,
   429: ErrorCode.TooManyRequests,
   503: ErrorCode.ServiceUnavailable,
 };
@@ -47,7 +48,9 @@ export class DomainExceptionFilter implements ExceptionFilter {
     const res = host.switchToHttp().getResponse<Response>();
     const { status, body, retryAfterSeconds } = this.toBody(exception);
     // Every 503 says when to try again (a dependency is down, not the request wrong).
-    if (status === 503 || (status === 429 && retryAfterSeconds !== undefined))
+    // A header already set by the part that knows better (e.g. photos when storage is away) is kept.
+    const alreadySaid = typeof res.getHeader === 'function' && res.getHeader('Retry-After') !== undefined;
+    if (!alreadySaid && (status === 503 || (status === 429 && retryAfterSeconds !== undefined)))
       res.setHeader('Retry-After', String(retryAfterSeconds ?? 10));
     if (status >= 500)
       this.logger.error(
