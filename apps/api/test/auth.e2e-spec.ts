@@ -8,7 +8,8 @@ import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { Project } from '../src/modules/projects/project.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
-import { createTestApp, DEMO_PASSWORD } from './test-app';
+import { makeProject, TEST_PASSWORD, type Role } from './factories';
+import { createTestApp } from './test-app';
 
 describe('sign-in, roles and project access (e2e, real MariaDB)', () => {
   let app: INestApplication;
@@ -17,19 +18,23 @@ describe('sign-in, roles and project access (e2e, real MariaDB)', () => {
   let projectId: string;
   let otherProjectId: string;
 
-  const login = (email: string, password = DEMO_PASSWORD) =>
+  let emailOf: (role: Role) => string;
+  const login = (email: string, password = TEST_PASSWORD) =>
     request(http).post('/api/auth/login').send({ email, password });
 
   beforeAll(async () => {
     app = await createTestApp();
     http = app.getHttpServer() as App;
-    for (const role of ['admin', 'geologist', 'engineer', 'supervisor', 'viewer']) {
-      const res = await login(`${role}@roundbook.test`).expect(200);
+    // A project of this file's own with one user per role (factories.ts); nothing from the demo seed.
+    const own = await makeProject(app, { code: `AU${String(Date.now() % 1e6)}` });
+    emailOf = own.emailOf;
+    projectId = own.projectId;
+    for (const role of ['admin', 'geologist', 'engineer', 'supervisor', 'viewer'] as const) {
+      const res = await login(emailOf(role)).expect(200);
       tokens[role] = (res.body as { accessToken: string }).accessToken;
     }
     const ds = app.get(DataSource);
-    projectId = (await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' })).id;
-    // A second project the demo users are not members of, with its own member.
+    // A second project this project's users are not members of, with its own member.
     const outsider = await ds.getRepository(User).save({
       email: `outsider-${Date.now()}@roundbook.test`,
       name: 'Invented Outsider',
@@ -49,16 +54,16 @@ describe('sign-in, roles and project access (e2e, real MariaDB)', () => {
     await app.close();
   });
 
-  it('signs in with the demo password and returns a token, its expiry and the user', async () => {
-    const res = await login('GEOLOGIST@roundbook.test ').expect(200);
-    expect(res.body).toMatchObject({ user: { email: 'geologist@roundbook.test' } });
+  it('signs in (e-mail in any case, spaces trimmed) and returns a token, its expiry and the user', async () => {
+    const res = await login(`${emailOf('geologist').toUpperCase()} `).expect(200);
+    expect(res.body).toMatchObject({ user: { email: emailOf('geologist') } });
     expect(typeof res.body.accessToken).toBe('string');
     expect(new Date(res.body.expiresAt as string).getTime()).toBeGreaterThan(Date.now());
     expect(res.body.user.passwordHash).toBeUndefined();
   });
 
   it('refuses a wrong password with 401 INVALID_CREDENTIALS and the same answer for an unknown e-mail', async () => {
-    const wrong = await login('geologist@roundbook.test', 'not-the-password').expect(401);
+    const wrong = await login(emailOf('geologist'), 'not-the-password').expect(401);
     const unknown = await login('nobody@roundbook.test', 'not-the-password').expect(401);
     expect(wrong.body).toEqual({ code: 'INVALID_CREDENTIALS', message: expect.any(String) });
     expect(unknown.body).toEqual(wrong.body);
@@ -86,7 +91,7 @@ describe('sign-in, roles and project access (e2e, real MariaDB)', () => {
       .set('Authorization', `Bearer ${tokens.engineer}`)
       .expect(200);
     expect(res.body).toMatchObject({
-      email: 'engineer@roundbook.test',
+      email: emailOf('engineer'),
       memberships: [{ projectId, role: 'engineer' }],
     });
   });
@@ -99,9 +104,7 @@ describe('sign-in, roles and project access (e2e, real MariaDB)', () => {
         .expect(200);
       const list = res.body as Array<{ id: string; role: string; headings: unknown[] }>;
       expect(list.map((p) => [p.id, p.role])).toEqual([[projectId, role]]);
-      expect(list[0].headings.map((h) => (h as { code: string }).code)).toEqual(
-        expect.arrayContaining(['HR-D', 'HR-U']),
-      );
+      expect(list[0].headings.map((h) => (h as { code: string }).code)).toEqual(['TH']);
     }
     const outsider = await request(http)
       .get('/api/projects')
@@ -187,16 +190,18 @@ describe('sign-in rate limit (e2e)', () => {
   it('answers 429 after the configured number of attempts per minute', async () => {
     const app = await createTestApp((c) => ({ ...c, auth: { ...c.auth, loginRateLimit: 3 } }));
     const http = app.getHttpServer() as App;
+    const email = `limited.${Date.now() % 1e6}@roundbook.test`;
+    await app
+      .get(DataSource)
+      .getRepository(User)
+      .save({ email, name: 'Invented Limited', passwordHash: await hashPassword(TEST_PASSWORD) });
     try {
       for (let i = 0; i < 3; i++) {
-        await request(http)
-          .post('/api/auth/login')
-          .send({ email: 'viewer@roundbook.test', password: 'wrong-password' })
-          .expect(401);
+        await request(http).post('/api/auth/login').send({ email, password: 'wrong-password' }).expect(401);
       }
       const res = await request(http)
         .post('/api/auth/login')
-        .send({ email: 'viewer@roundbook.test', password: DEMO_PASSWORD })
+        .send({ email, password: TEST_PASSWORD })
         .expect(429);
       expect(res.body.code).toBe('TOO_MANY_REQUESTS');
     } finally {

@@ -84,6 +84,17 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
     expect(good.filter((r) => r.triggerLevel === 'green').length).toBeGreaterThan(good.length / 2);
   });
 
+  it('lets every demo user sign in with the demo password (the README’s logins)', async () => {
+    // signIn in beforeAll expects 200 for each; here the role each holds on the demo project.
+    for (const role of ['admin', 'engineer', 'viewer', 'supervisor'] as const) {
+      const me = (await request(http).get('/api/auth/me').set(as(role)).expect(200)).body as Body;
+      expect(me).toMatchObject({ email: `${role}@roundbook.test` });
+      expect((me.memberships as Body[]).find((m) => `/api/projects/${m.projectId}` === base)?.role).toBe(
+        role,
+      );
+    }
+  });
+
   it('seeds the headings with their alignment and profile, a library best ground first with no range warnings, and a distribution list', async () => {
     const headings = (await request(http).get(`${base}/headings`).set(as('viewer')).expect(200))
       .body as Body[];

@@ -9,10 +9,12 @@ import { Job } from '../src/infrastructure/jobs/job.entity';
 import { JobsWorker } from '../src/infrastructure/jobs/jobs.worker';
 import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
-import { Project } from '../src/modules/projects/project.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
-import { createTestApp, DEMO_PASSWORD } from './test-app';
+import { makeProject as makeTestProject, signIn, TEST_PASSWORD, type Role } from './factories';
+import { createTestApp } from './test-app';
+
+const ROLES: Role[] = ['admin', 'geologist', 'engineer', 'supervisor', 'viewer'];
 
 type Body = Record<string, any>;
 /** A suffix that keeps this run's codes and addresses apart from earlier runs against the same database. */
@@ -35,6 +37,7 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
   let projectId: string;
   let base: string;
   const tokens: Record<string, string> = {};
+  let ownEmail: (role: Role) => string;
   const as = (role: string) => ({ Authorization: `Bearer ${tokens[role]}` });
   const bearer = (t: string) => ({ Authorization: `Bearer ${t}` });
 
@@ -96,11 +99,17 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
   beforeAll(async () => {
     app = await createTestApp();
     http = app.getHttpServer() as App;
-    for (const role of ['admin', 'geologist', 'engineer', 'supervisor', 'viewer']) {
-      tokens[role] = await login(`${role}@roundbook.test`, DEMO_PASSWORD);
-    }
-    projectId = (await app.get(DataSource).getRepository(Project).findOneByOrFail({ code: 'BRH' })).id;
-    base = `/api/projects/${projectId}`;
+    // A project of this file's own with its five users; its admin also runs the instance (the operator),
+    // as the demo's admin does.
+    const own = await makeTestProject(app, { code: `IV${run}` });
+    Object.assign(tokens, await signIn(http, ROLES, own.emailOf, TEST_PASSWORD));
+    await app
+      .get(DataSource)
+      .getRepository(User)
+      .update({ email: own.emailOf('admin') }, { isOperator: true });
+    ownEmail = own.emailOf;
+    projectId = own.projectId;
+    base = own.base;
   });
 
   afterAll(async () => {
@@ -130,12 +139,12 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
 
       const token = await tokenFor(email);
       const [message] = mailFor(email);
-      expect(message.subject).toBe('You are invited to Brannoch Hydro — Headrace Tunnel in Roundbook');
+      expect(message.subject).toBe(`You are invited to Invented test project IV${run} in Roundbook`);
       expect(message.text).toContain('Invented Newcomer');
       // Issue 19, item 15: the role in the screens' words, the expiry in the project's time zone.
       expect(message.text).toContain('as the role “Geologist” (records the rounds)');
       expect(message.text).toMatch(
-        /valid until \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} \(Europe\/London time\)/,
+        /valid until \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} \(Europe\/Zurich time\)/,
       );
       expect(message.text).not.toMatch(/UTC/);
       const team0 = await request(http).get(`${base}/team`).set(as('admin')).expect(200);
@@ -150,7 +159,7 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
         name: 'Invented Newcomer', // what the admin typed, to prefill the form
         role: 'geologist',
         expiresAt: expect.any(String),
-        projectName: 'Brannoch Hydro — Headrace Tunnel',
+        projectName: `Invented test project IV${run}`,
       });
       const short = await request(http)
         .post(`/api/invitations/${token}/accept`)
@@ -204,7 +213,7 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
       const dup = await request(http)
         .post(`${base}/invitations`)
         .set(as('admin'))
-        .send({ email: 'viewer@roundbook.test', role: 'viewer' })
+        .send({ email: ownEmail('viewer'), role: 'viewer' })
         .expect(409);
       expect(dup.body.fields).toEqual({ email: 'Already a member.' });
     });
@@ -283,7 +292,7 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
         operator: true,
       });
       await request(http).get('/api/local/mail').set(as('geologist')).expect(403);
-      await request(http).get('/api/local/mail').set(as('admin')).expect(200); // the demo operator
+      await request(http).get('/api/local/mail').set(as('admin')).expect(200); // this project's admin, the operator
       const jobs = await request(http).get('/api/local/jobs').set(as('admin')).expect(200);
       expect(jobs.body.counts).toEqual({
         pending: expect.any(Number),

@@ -4,10 +4,13 @@ import { Readable } from 'node:stream';
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
+import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
 import { MailService } from '../src/infrastructure/mail/mail.service';
 import { StorageService } from '../src/infrastructure/storage/storage.service';
-import { createTestApp, DEMO_PASSWORD } from './test-app';
+import { User } from '../src/modules/users/user.entity';
+import { makeProject, signIn, TEST_PASSWORD } from './factories';
+import { createTestApp } from './test-app';
 
 const sha256 = (b: Buffer): string => createHash('sha256').update(b).digest('hex');
 
@@ -21,20 +24,20 @@ describe('health, storage, mail and docs (e2e against MariaDB, the S3 fake and t
   let app: INestApplication;
   let http: App;
   let token: (role: string) => Promise<string>;
+  let adminEmail: string;
 
   beforeAll(async () => {
     app = await createTestApp();
     http = app.getHttpServer() as App;
-    const cache: Record<string, string> = {};
-    token = async (role) =>
-      (cache[role] ??= (
-        (
-          await request(http)
-            .post('/api/auth/login')
-            .send({ email: `${role}@roundbook.test`, password: DEMO_PASSWORD })
-            .expect(200)
-        ).body as { accessToken: string }
-      ).accessToken);
+    // A project of this file's own; its admin also runs the instance (the operator), as the demo's does.
+    const own = await makeProject(app, { code: `PL${String(Date.now() % 1e6)}` });
+    await app
+      .get(DataSource)
+      .getRepository(User)
+      .update({ email: own.emailOf('admin') }, { isOperator: true });
+    adminEmail = own.emailOf('admin');
+    const tokens = await signIn(http, ['admin', 'geologist', 'viewer'], own.emailOf, TEST_PASSWORD);
+    token = (role) => Promise.resolve(tokens[role as 'admin' | 'geologist' | 'viewer']);
   });
 
   afterAll(async () => {
@@ -153,11 +156,8 @@ describe('health, storage, mail and docs (e2e against MariaDB, the S3 fake and t
     try {
       const h = prod.getHttpServer() as App;
       const t = (
-        (
-          await request(h)
-            .post('/api/auth/login')
-            .send({ email: 'admin@roundbook.test', password: DEMO_PASSWORD })
-        ).body as { accessToken: string }
+        (await request(h).post('/api/auth/login').send({ email: adminEmail, password: TEST_PASSWORD }))
+          .body as { accessToken: string }
       ).accessToken;
       await request(h).get('/api/local/mail').set('Authorization', `Bearer ${t}`).expect(404);
       expect((await request(h).get('/api/config').expect(200)).body).toEqual({
