@@ -5,8 +5,11 @@ import { brotliCompressSync, gzipSync } from 'node:zlib';
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
-import { makeProject, type TestProject } from './factories';
-import { createTestApp, DEMO_PASSWORD } from './test-app';
+import { DataSource } from 'typeorm';
+import { hashPassword } from '../src/modules/users/password';
+import { User } from '../src/modules/users/user.entity';
+import { makeProject, TEST_PASSWORD, type TestProject } from './factories';
+import { createTestApp } from './test-app';
 
 // Issue 18, items 2, 3, 4, 6, 7, 8: each test replays the request the issue names.
 type Body = Record<string, any>;
@@ -225,6 +228,8 @@ describe('hardening: bodies, values, database errors, headers, health (e2e, real
 });
 
 describe('hardening: sign-in limits per account and per address, trust proxy (e2e)', () => {
+  const run = String(Date.now() % 1e6);
+  const emailOf = (role: string) => `${role}.limits${run}@roundbook.test`;
   let app: INestApplication;
   let http: App;
   const login = (email: string, password: string, xff?: string) => {
@@ -240,6 +245,11 @@ describe('hardening: sign-in limits per account and per address, trust proxy (e2
       auth: { ...c.auth, loginRateLimit: 3, loginAddressLimit: 6 },
     }));
     http = app.getHttpServer() as App;
+    // Users of this test's own (no demo accounts): one per role name used below.
+    const users = app.get(DataSource).getRepository(User);
+    const passwordHash = await hashPassword(TEST_PASSWORD);
+    for (const role of ['viewer', 'geologist', 'engineer'])
+      await users.save({ email: emailOf(role), name: `Invented ${role} ${run}`, passwordHash });
   });
   afterAll(async () => {
     await app.close();
@@ -247,18 +257,18 @@ describe('hardening: sign-in limits per account and per address, trust proxy (e2
 
   it('item 3: three typos lock that account only (429 + Retry-After, forged X-Forwarded-For or not); a colleague behind the same address still signs in', async () => {
     for (let i = 0; i < 3; i++)
-      await login('viewer@roundbook.test', 'wrong-password', `203.0.113.${i}`).expect(401);
-    const locked = await login('viewer@roundbook.test', DEMO_PASSWORD, '198.51.100.7').expect(429);
+      await login(emailOf('viewer'), 'wrong-password', `203.0.113.${i}`).expect(401);
+    const locked = await login(emailOf('viewer'), TEST_PASSWORD, '198.51.100.7').expect(429);
     expect(locked.body.code).toBe('TOO_MANY_REQUESTS');
     expect(Number(locked.headers['retry-after'])).toBeGreaterThan(0);
-    await login('geologist@roundbook.test', DEMO_PASSWORD).expect(200);
+    await login(emailOf('geologist'), TEST_PASSWORD).expect(200);
   });
 
   it('item 3: many failures across accounts from one address block the address, whatever X-Forwarded-For says', async () => {
     // 3 failures above + 3 here reach the address allowance of 6.
     for (let i = 0; i < 3; i++)
       await login(`nobody${i}@roundbook.test`, 'wrong-password', `192.0.2.${i}`).expect(401);
-    await login('engineer@roundbook.test', DEMO_PASSWORD, '192.0.2.200').expect(429);
+    await login(emailOf('engineer'), TEST_PASSWORD, '192.0.2.200').expect(429);
   });
 });
 
