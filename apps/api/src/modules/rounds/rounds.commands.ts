@@ -3,6 +3,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
   DEFAULT_SET_PARAMETERS,
+  emptyGround,
   groundErrors,
   nextFaceChainage,
   roundLengthOf,
@@ -31,21 +32,11 @@ import { readOrientation } from './orientation-reading.js';
 import { RoundAssessor } from './round-assessor.service.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { applyTransition, assertEditable, type RoundEvent } from './round-status.js';
-import { Round, type GroundRecord } from './round.entity.js';
+import { Round } from './round.entity.js';
 import { recordOf } from './rounds.mapper.js';
 import { RoundsQueries } from './rounds.queries.js';
 import { RoundsReview } from './rounds.review.js';
 
-const emptyGround = (): GroundRecord => ({
-  units: [],
-  pointLoadIs50: null,
-  pointLoadFactor: null,
-  inflowLpm: null,
-  inflowLengthM: null,
-  waterDescription: '',
-  overbreakM3: null,
-  notes: '',
-});
 const AUDITED = [
   'faceChainage',
   'previousChainage',
