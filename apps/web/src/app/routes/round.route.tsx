@@ -1,5 +1,7 @@
 import { Button, makeStyles } from '@fluentui/react-components';
 import { ArrowLeftRegular } from '@fluentui/react-icons';
+import { driveTrendAt } from '@roundbook/domain';
+import { driveOf } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
@@ -9,6 +11,8 @@ import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
+import { useThemePreference } from '@/app/theme-preference';
+import { RoundOrientationPanel } from '@/features/orientation/components/round-orientation-panel';
 import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import {
@@ -44,6 +48,15 @@ export function RoundRoute() {
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, round.headingId);
   const { data: library } = useRoundSupportClasses(projectId);
+  const { mode } = useThemePreference();
+  // The drive at the face: the alignment's tangent there (straights and arcs), the gradient's plunge.
+  const driveAt = (faceChainage: number) => {
+    try {
+      return { trend: driveTrendAt(heading, faceChainage), plunge: driveOf(heading).plunge };
+    } catch {
+      return driveOf(heading);
+    }
+  };
   return (
     <>
       <Link to={`/projects/${projectId}/headings/${heading.id}`}>
@@ -59,6 +72,16 @@ export function RoundRoute() {
         heading={heading}
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
+        orientationSlot={({ joints, assessment, faceChainage }) => (
+          <RoundOrientationPanel
+            joints={joints}
+            sets={assessment.sets}
+            features={assessment.features}
+            drive={driveAt(faceChainage)}
+            highContrast={mode === 'high-contrast'}
+            fileName={`${heading.code}-round-${round.roundNumber}`}
+          />
+        )}
       />
       {round.status === 'draft' && round.revision === 1 ? null : (
         <ReviewPanel

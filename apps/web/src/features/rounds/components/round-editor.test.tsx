@@ -2,7 +2,7 @@ import { qValue, Q_EDITION, RMR_ORIENTATION_RULE } from '@roundbook/geomath';
 import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
-import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { RoundEditor, type RoundEditorProps } from '@/features/rounds/components/round-editor';
 import { roundDrafts } from '@/features/rounds/hooks/use-round-autosave';
 import { formValuesOf } from '@/features/rounds/schemas/round-form';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
@@ -57,7 +57,11 @@ function savedFrom(body: SaveRoundRequest, base: Round = draftRound): Round {
   };
 }
 
-function renderEditor(round: Round = draftRound, canEdit = true) {
+function renderEditor(
+  round: Round = draftRound,
+  canEdit = true,
+  orientationSlot?: RoundEditorProps['orientationSlot'],
+) {
   return renderWithProviders(
     <RoundEditor
       projectId="p-1"
@@ -66,6 +70,7 @@ function renderEditor(round: Round = draftRound, canEdit = true) {
       heading={heading}
       supportClasses={supportClasses}
       canEdit={canEdit}
+      orientationSlot={orientationSlot}
     />,
   );
 }
@@ -391,6 +396,17 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     expect(Math.abs(Number(said?.[2]) - dip)).toBeLessThanOrEqual(0.5);
     // Nothing is written back into the record by the screen: the only save is the one the typing makes.
     expect(saves).toHaveLength(0);
+  });
+
+  it('hands the orientation slot the joints as typed and the same live sets the table shows', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round, true, ({ joints, assessment }) => (
+      <p data-testid="slot">{`${joints.length} joints; sets ${assessment.sets.sets.map((x) => x.label).join(',')}`}</p>
+    ));
+    expect(screen.queryByTestId('slot')).toBeNull(); // only under the joints
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    await waitFor(() => expect(screen.getByTestId('slot')).toHaveTextContent(/^3 joints; sets .*S1/));
   });
 
   it('keeps the set parameters with the round: a new window is saved and the sets follow it', async () => {

@@ -10,10 +10,11 @@ import {
   TabList,
   tokens,
 } from '@fluentui/react-components';
+import type { RoundAssessment, RoundRecordInput } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
 import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { submitRound } from '@/api/resources/rounds';
 import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
@@ -29,7 +30,7 @@ import type { RoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { chainageOf, roundFormSchema } from '@/features/rounds/schemas/round-form';
-import { liveAssessment } from '@/features/rounds/utils/assessment';
+import { assessmentRecordOf, liveAssessment } from '@/features/rounds/utils/assessment';
 import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 import { isApiError } from '@/lib/api-client';
 
@@ -63,6 +64,15 @@ export interface RoundEditorProps {
   /** The person may edit rounds (geologist); the round's status decides the rest. */
   canEdit: boolean;
   initialSection?: RoundSection;
+  /**
+   * Shown under the joints: the round as typed (its readable joints and the live assessment), e.g. the
+   * orientation panel that app/routes composes from its own feature.
+   */
+  orientationSlot?: (live: {
+    joints: RoundRecordInput['joints'];
+    assessment: RoundAssessment;
+    faceChainage: number;
+  }) => ReactNode;
 }
 
 const useStyles = makeStyles({
@@ -118,6 +128,7 @@ function RoundEditorBody({
   supportClasses,
   canEdit,
   initialSection,
+  orientationSlot,
   autosave,
 }: RoundEditorProps & { autosave: RoundAutosave }) {
   const styles = useStyles();
@@ -310,6 +321,12 @@ function RoundEditorBody({
             nearbyLoading={distance > 0 && nearby.isLoading}
           />
         )}
+        {section === 'joints' &&
+          orientationSlot?.({
+            joints: assessmentRecordOf(values, server.faceChainage).joints,
+            assessment,
+            faceChainage: face,
+          })}
         {section === 'rating' && (
           <RatingSection
             live={assessment.ratings}
