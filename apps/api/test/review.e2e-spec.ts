@@ -248,6 +248,14 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       },
       canConfirm: { allowed: false },
     });
+    // The heading's rounds list shows the confirmed class beside the recommended one.
+    const listed = (
+      await request(http).get(`${p.base}/headings/${p.headingId}/rounds`).set(p.as('viewer')).expect(200)
+    ).body as Body;
+    expect((listed.items as Body[]).find((i) => i.id === submitted.id)).toMatchObject({
+      recommendedClassCode: 'C1',
+      confirmedClassCode: 'C2',
+    });
     expect(confirmed.decisions.map((d: Body) => d.decision)).toEqual(['return', 'confirm']);
 
     // Locked: the geologist's save is refused.

@@ -68,6 +68,8 @@ export function toRoundDto(
     inflowPer10m: assessment.inflowPer10m,
     suggestedClassIds: assessment.suggestedClassIds,
     recommendedClassId: round.recommendedClassId,
+    confirmedClassId: round.confirmedClassId,
+    confirmedRoundLength: round.confirmedRoundLength,
     nextRoundLength: round.nextRoundLength,
     recommendationReason: round.recommendationReason,
     status: round.status,

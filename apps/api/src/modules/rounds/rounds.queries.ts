@@ -116,6 +116,7 @@ export class RoundsQueries {
       .from(Round, 'r')
       .leftJoin(User, 'u', 'u.id = r.mapped_by')
       .leftJoin(SupportClass, 'c', 'c.id = r.recommended_class_id')
+      .leftJoin(SupportClass, 'cc', 'cc.id = r.confirmed_class_id')
       .where('r.heading_id = :headingId', { headingId });
     if (query.status) qb.andWhere('r.status = :status', { status: query.status });
     if (query.stage) qb.andWhere('r.stage = :stage', { stage: query.stage });
@@ -142,6 +143,7 @@ export class RoundsQueries {
         'r.q AS q',
         'r.rmr AS rmr',
         'c.code AS recommendedClassCode',
+        'cc.code AS confirmedClassCode',
         'r.status AS status',
         'r.trigger_level AS triggerLevel',
         'r.triggers_not_evaluated AS triggersNotEvaluated',
@@ -163,6 +165,7 @@ export class RoundsQueries {
         q: r.q === null ? null : Number(r.q),
         rmr: r.rmr === null ? null : Number(r.rmr),
         recommendedClassCode: r.recommendedClassCode === null ? null : String(r.recommendedClassCode),
+        confirmedClassCode: r.confirmedClassCode === null ? null : String(r.confirmedClassCode),
         status: r.status as Round['status'],
         triggerLevel: (r.triggerLevel ?? null) as Round['triggerLevel'],
         triggersNotEvaluated: Number(r.triggersNotEvaluated ?? 0),

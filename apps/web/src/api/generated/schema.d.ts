@@ -1296,6 +1296,8 @@ export interface components {
             q: number | null;
             rmr: number | null;
             recommendedClassCode: string | null;
+            /** @description The class the engineer confirmed (null until confirmed) */
+            confirmedClassCode: string | null;
             status: components["schemas"]["RoundStatus"];
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             id: string;
@@ -1572,6 +1574,10 @@ export interface components {
             /** @description Highest level among the project's trigger rules that fire on this round; green only when every rule could be evaluated; null when it has no rules or some lack their data */
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             submittedAt: string | null;
+            /** @description The class the engineer confirmed, apart from the recommendation (null until confirmed) */
+            confirmedClassId: string | null;
+            /** @description The next round length the engineer confirmed, m */
+            confirmedRoundLength: number | null;
             /** @description Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
             inflowPer10m: number | null;
             id: string;

@@ -459,6 +459,12 @@ export class RoundDto extends RoundInputDto {
   triggerFirings: TriggerFiringDto[];
   @ApiProperty({ type: String, nullable: true })
   submittedAt: string | null;
+  /** The class the engineer confirmed, apart from the recommendation (null until confirmed) */
+  @ApiProperty({ type: String, nullable: true })
+  confirmedClassId: string | null;
+  /** The next round length the engineer confirmed, m */
+  @ApiProperty({ type: Number, nullable: true })
+  confirmedRoundLength: number | null;
   declare joints: JointDto[];
   ratings: RoundRatingsDto;
   /** Inflow per 10 m of tunnel, l/min (from inflow and the length it comes from) */
@@ -489,6 +495,9 @@ export class RoundSummaryDto {
   rmr: number | null;
   @ApiProperty({ type: String, nullable: true })
   recommendedClassCode: string | null;
+  /** The class the engineer confirmed (null until confirmed) */
+  @ApiProperty({ type: String, nullable: true })
+  confirmedClassCode: string | null;
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
   status: (typeof ROUND_STATUSES)[number];
   @ApiProperty({ enum: ['green', 'amber', 'red'], enumName: 'TriggerLevel', nullable: true })

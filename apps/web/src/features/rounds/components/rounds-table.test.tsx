@@ -18,6 +18,7 @@ const summary = (n: number, extra: Partial<RoundSummary>): RoundSummary => ({
   q: 2.5,
   rmr: 55,
   recommendedClassCode: 'B',
+  confirmedClassCode: null,
   triggersNotEvaluated: 0,
   status: 'submitted',
   triggerLevel: null,
@@ -51,5 +52,30 @@ describe('RoundsTable', () => {
     expect(cells.map((c) => c.textContent)).toEqual(['Red', 'Amber', 'Green', 'no rules']);
     expect(within(cells[0]).getByText('Red')).toHaveAttribute('data-level', 'red');
     expect(within(cells[3]).getByText('no rules')).toHaveAttribute('data-level', 'none');
+  });
+
+  it('shows the class the engineer confirmed beside the recommended one, marked when it differs', async () => {
+    const page: RoundPage = {
+      items: [
+        summary(3, { status: 'confirmed', recommendedClassCode: 'B', confirmedClassCode: 'C' }),
+        summary(2, { status: 'confirmed', recommendedClassCode: 'B', confirmedClassCode: 'B' }),
+        summary(1, { status: 'submitted', recommendedClassCode: 'B', confirmedClassCode: null }),
+      ],
+      total: 3,
+      page: 1,
+      pageSize: 25,
+    };
+    mockApi({ 'GET /api/projects/p-1/headings/h-1/rounds': page });
+    renderWithProviders(
+      <MemoryRouter>
+        <RoundsTable projectId="p-1" heading={heading} />
+      </MemoryRouter>,
+    );
+    const table = screen.getByRole('table', { name: 'Rounds of HR-U' });
+    const rows = await within(table).findAllByTestId('round-row');
+    expect(within(table).getByRole('columnheader', { name: 'Class confirmed' })).toBeInTheDocument();
+    expect(rows[0]).toHaveTextContent('C (changed)');
+    expect(rows[1]).not.toHaveTextContent('changed');
+    expect(rows[2]).toHaveTextContent('not yet');
   });
 });

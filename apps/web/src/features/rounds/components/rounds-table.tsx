@@ -170,6 +170,7 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
             {header('q', 'Q')}
             {header('rmr', 'RMR')}
             <TableHeaderCell>Class recommended</TableHeaderCell>
+            <TableHeaderCell>Class confirmed</TableHeaderCell>
             <TableHeaderCell>Status</TableHeaderCell>
             <TableHeaderCell>Trigger</TableHeaderCell>
           </TableRow>
@@ -189,6 +190,15 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
               <TableCell className={styles.number}>{r.q === null ? '—' : formatQ(r.q)}</TableCell>
               <TableCell className={styles.number}>{r.rmr === null ? '—' : r.rmr}</TableCell>
               <TableCell>{r.recommendedClassCode ?? '—'}</TableCell>
+              <TableCell>
+                {r.confirmedClassCode === null
+                  ? r.status === 'confirmed'
+                    ? '—'
+                    : 'not yet'
+                  : r.confirmedClassCode === r.recommendedClassCode
+                    ? r.confirmedClassCode
+                    : `${r.confirmedClassCode} (changed)`}
+              </TableCell>
               <TableCell>
                 <Badge appearance="tint" size="large" shape="rounded" color={statusColours[r.status]}>
                   {statusLabels[r.status]}

@@ -113,6 +113,8 @@ export const draftRound: Round = {
   triggerLevel: null,
   triggerFirings: [],
   submittedAt: null,
+  confirmedClassId: null,
+  confirmedRoundLength: null,
   inflowPer10m: null,
   revision: 1,
   ratings: { q: emptyRating, rmr: emptyRating, gsi: emptyRating },
