@@ -398,6 +398,17 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     expect(saves).toHaveLength(0);
   });
 
+  it('shows a submitted round with the trigger level it was submitted with, never a live recomputation', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor({ ...round, status: 'submitted', triggerLevel: 'green', triggerFirings: [] }, false);
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    await screen.findByTestId('sets-table');
+    const panel = screen.getByTestId('trigger-panel');
+    expect(panel).not.toHaveTextContent('As typed');
+    expect(within(panel).queryByTestId('trigger-firing')).toBeNull();
+  });
+
   it('hands the orientation slot the joints as typed and the same live sets the table shows', async () => {
     mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
     renderEditor(round, true, ({ joints, assessment }) => (

@@ -100,6 +100,12 @@ const useStyles = makeStyles({
 });
 
 /** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
+/** The sets the round was saved (or frozen at submit) with, when its stored assessment has them. */
+function frozenSets(round: Round): RoundAssessment['sets'] | null {
+  const sets = (round.assessment as Partial<RoundAssessment>).sets;
+  return sets && Array.isArray(sets.sets) ? sets : null;
+}
+
 export function RoundEditor(props: RoundEditorProps) {
   const { projectId, round, supportClasses, canEdit } = props;
   const classCode = useCallback(
@@ -226,7 +232,8 @@ function RoundEditorBody({
           }
         />
 
-        {rules === undefined ? (
+        {/* A round that is no longer a draft shows what it was submitted with, never a recomputation. */}
+        {rules === undefined || readOnly ? (
           <TriggerPanel level={server.triggerLevel} firings={server.triggerFirings} />
         ) : (
           <TriggerPanel level={assessment.triggers.level} firings={assessment.triggers.firings} live />
@@ -312,7 +319,7 @@ function RoundEditorBody({
         {section === 'joints' && (
           <JointsSection
             defaultNotation={project.defaultNotation}
-            sets={assessment.sets}
+            sets={readOnly ? (frozenSets(server) ?? assessment.sets) : assessment.sets}
             distance={distance}
             onDistanceChange={(windowM) => void setFieldValue('setParameters.windowM', windowM)}
             setCount={values.setParameters.count}
