@@ -2,6 +2,7 @@ import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
+import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
@@ -179,3 +180,12 @@ export const saveBody = (r: Body, extra: Body = {}) => ({
   recommendationReason: '',
   ...extra,
 });
+
+/** The newest audit event of an entity (what the last change recorded). */
+export async function latestAudit(app: INestApplication, entityId: string): Promise<AuditEvent> {
+  const events = await app
+    .get(DataSource)
+    .getRepository(AuditEvent)
+    .find({ where: { entityId }, order: { createdAt: 'DESC' }, take: 1 });
+  return events[0];
+}

@@ -7,11 +7,10 @@ import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
 import { Job } from '../src/infrastructure/jobs/job.entity';
 import { JobsWorker } from '../src/infrastructure/jobs/jobs.worker';
-import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
-import { makeProject as makeTestProject, signIn, TEST_PASSWORD, type Role } from './factories';
+import { latestAudit, makeProject as makeTestProject, signIn, TEST_PASSWORD, type Role } from './factories';
 import { createTestApp } from './test-app';
 
 const ROLES: Role[] = ['admin', 'geologist', 'engineer', 'supervisor', 'viewer'];
@@ -41,13 +40,7 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
   const as = (role: string) => ({ Authorization: `Bearer ${tokens[role]}` });
   const bearer = (t: string) => ({ Authorization: `Bearer ${t}` });
 
-  const lastAudit = async (entityId: string): Promise<AuditEvent> => {
-    const events = await app
-      .get(DataSource)
-      .getRepository(AuditEvent)
-      .find({ where: { entityId }, order: { createdAt: 'DESC' }, take: 1 });
-    return events[0];
-  };
+  const lastAudit = (entityId: string) => latestAudit(app, entityId);
 
   /** What the SMTP fake received for an address (the invited person's inbox). */
   const mailFor = (to: string): Body[] => {

@@ -3,9 +3,7 @@
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
-import { DataSource } from 'typeorm';
-import { AuditEvent } from '../src/modules/audit/audit-event.entity';
-import { makeProject, saveBody, type TestProject } from './factories';
+import { latestAudit, makeProject, saveBody, type TestProject } from './factories';
 import { createTestApp } from './test-app';
 
 type Body = Record<string, any>;
@@ -16,13 +14,7 @@ describe('Setup: trigger rules (e2e, real MariaDB)', () => {
   let http: App;
   let p: TestProject;
 
-  const lastAudit = async (entityId: string): Promise<AuditEvent> => {
-    const events = await app
-      .get(DataSource)
-      .getRepository(AuditEvent)
-      .find({ where: { entityId }, order: { createdAt: 'DESC' }, take: 1 });
-    return events[0];
-  };
+  const lastAudit = (entityId: string) => latestAudit(app, entityId);
 
   beforeAll(async () => {
     app = await createTestApp();
