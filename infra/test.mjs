@@ -136,7 +136,9 @@ try {
       await startApi({ dataDir, env });
       step('browser: Playwright in Chromium');
       const out = path.join(scratch, 'playwright.json');
-      await runAsync('npx', ['playwright', 'test', '--reporter=list,json'], {
+      // RB_BROWSER_FILES=handover runs only the matching Playwright specs (while working on one screen).
+      const browserFiles = process.env.RB_BROWSER_FILES ? [process.env.RB_BROWSER_FILES] : [];
+      await runAsync('npx', ['playwright', 'test', '--reporter=list,json', ...browserFiles], {
         cwd: path.join(root, 'apps/web'),
         env: {
           ...childEnv,
