@@ -7,6 +7,7 @@ import { JobsAndOperators1796193536073 } from './1796193536073-JobsAndOperators.
 import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.js';
 import { Review1796200000000 } from './1796200000000-Review.js';
 import { Photos1796270000000 } from './1796270000000-Photos.js';
+import { AuditCoalesce1796280000000 } from './1796280000000-AuditCoalesce.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -19,4 +20,5 @@ export const migrations = [
   HeadingAlignment1796196409420,
   Review1796200000000,
   Photos1796270000000,
+  AuditCoalesce1796280000000,
 ];

@@ -1,9 +1,13 @@
 import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 import { CreatedAt } from '../../common/dto/timestamps.js';
 
-/** Who changed what, when, before → after. Never updated, never deleted. */
+/**
+ * Who changed what, when, before → after. Never deleted; the one update is an autosave run growing its own
+ * event (AuditService.recordCoalesced): `lastAt` is its latest change and `coalesced` how many saves it holds.
+ */
 @Entity('audit_events')
 @Index('IDX_audit_events_project_at', ['projectId', 'createdAt'])
+@Index('IDX_audit_events_entity_at', ['entityType', 'entityId', 'createdAt'])
 export class AuditEvent {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -31,4 +35,12 @@ export class AuditEvent {
 
   @CreatedAt()
   createdAt: Date;
+
+  /** The latest change folded into this event (autosave runs); null for a single change */
+  @Column({ name: 'last_at', type: 'datetime', precision: 3, nullable: true })
+  lastAt: Date | null;
+
+  /** How many further saves were folded into this event */
+  @Column({ type: 'int', default: 0 })
+  coalesced: number;
 }

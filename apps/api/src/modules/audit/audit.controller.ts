@@ -48,6 +48,8 @@ export class AuditController {
       actorId: e.actorId,
       actorName: (e.actorId && names.get(e.actorId)) || 'Roundbook',
       at: e.createdAt.toISOString(),
+      lastAt: e.lastAt ? e.lastAt.toISOString() : null,
+      coalesced: e.coalesced,
     }));
   }
 }

@@ -16,6 +16,7 @@ import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { priorResult, rememberResult } from '../../common/idempotency/idempotency.js';
+import { auditDiff, objectDiff } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { Heading } from '../headings/heading.entity.js';
 import { ProjectsService } from '../projects/projects.service.js';
@@ -73,6 +74,19 @@ const JOINT_FIELDS = [
   'faceOffset',
 ] as const;
 const CREATE_SCOPE = 'round:create';
+
+/** What the audit keeps of a joint: its editable fields and place in the list. */
+function jointSnapshot(j: Joint): Record<string, unknown> {
+  return { seq: j.seq, ...Object.fromEntries(JOINT_FIELDS.map((f) => [f, j[f] ?? null])) };
+}
+
+/** The round's ground with the fields of the save over it; fields the save leaves out are kept. */
+function mergeGround(current: Round['ground'], patch: SaveRoundDto['ground']): Round['ground'] {
+  const base = { ...emptyGround(), ...current };
+  if (!patch) return base;
+  const given = Object.entries(patch).filter(([, v]) => v !== undefined);
+  return { ...base, ...Object.fromEntries(given) };
+}
 
 /** Stores the assessment and what is kept of it in columns (for listing, sorting and the Board). */
 function storeAssessment(round: Round, assessment: RoundAssessment): void {
@@ -215,32 +229,43 @@ export class RoundsCommands {
       assertEditable(round.status);
       const project = await this.projects.findProject(access.projectId);
       if (dto.recommendedClassId) await this.supportClass(access, dto.recommendedClassId);
-      this.assertRecord(dto, project.groundScale);
       const heading = await this.queries.heading(access, round.headingId, manager);
+      const jointsBefore = await manager.find(Joint, { where: { roundId }, order: { seq: 'ASC' } });
+      const jointsBeforeSnap = Object.fromEntries(jointsBefore.map((j) => [j.id, jointSnapshot(j)]));
+      this.assertRecord(dto, mergeGround(round.ground, dto.ground), jointsBefore, project.groundScale);
       const before = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
+      // A field left out keeps what the round has: a partial save never erases anything.
+      const keep = <K extends keyof SaveRoundDto & keyof Round>(k: K): Round[K] =>
+        (dto[k] === undefined ? round[k] : dto[k]) as Round[K];
+      const previousChainage = keep('previousChainage') ?? null;
+      const faceChainage = keep('faceChainage');
       Object.assign(round, {
-        faceChainage: dto.faceChainage,
-        previousChainage: dto.previousChainage ?? null,
+        faceChainage,
+        previousChainage,
         // Positive in the drive direction, whichever way the heading's chainage runs.
         roundLength:
-          dto.previousChainage !== null && dto.previousChainage !== undefined
-            ? roundLengthOf(dto.faceChainage, dto.previousChainage, heading.chainageSense)
-            : (dto.roundLength ?? null),
-        shiftDate: dto.shiftDate,
-        shift: dto.shift,
-        distantParts: dto.distantParts,
-        ground: { ...emptyGround(), ...dto.ground },
-        qInput: (dto.qInput as Round['qInput']) ?? null,
-        rmrInput: (dto.rmrInput as Round['rmrInput']) ?? null,
-        gsiObserved: dto.gsiObserved ?? null,
-        recommendedClassId: dto.recommendedClassId ?? null,
-        nextRoundLength: dto.nextRoundLength ?? null,
-        recommendationReason: dto.recommendationReason,
+          previousChainage !== null
+            ? roundLengthOf(faceChainage, previousChainage, heading.chainageSense)
+            : (keep('roundLength') ?? null),
+        shiftDate: keep('shiftDate'),
+        shift: keep('shift'),
+        distantParts: keep('distantParts'),
+        ground: mergeGround(round.ground, dto.ground),
+        qInput: keep('qInput') ?? null,
+        rmrInput: keep('rmrInput') ?? null,
+        gsiObserved: keep('gsiObserved') ?? null,
+        recommendedClassId: keep('recommendedClassId') ?? null,
+        nextRoundLength: keep('nextRoundLength') ?? null,
+        recommendationReason: keep('recommendationReason'),
         setParameters: dto.setParameters
           ? { windowM: dto.setParameters.windowM, count: dto.setParameters.count ?? null }
           : (round.setParameters ?? DEFAULT_SET_PARAMETERS),
       });
-      const joints = await this.upsertJoints(manager, round, dto, project.defaultNotation);
+      // Joints left out of the save are kept as they are (an empty list removes them all).
+      const joints =
+        dto.joints === undefined
+          ? jointsBefore
+          : await this.upsertJoints(manager, round, dto.joints, jointsBefore, project.defaultNotation);
       const assessment = await this.assessor.assess(round, joints, manager);
       // Joints without an override take the set the assessment found (the screen and triggers read the same).
       const relabel = joints.filter(
@@ -251,16 +276,44 @@ export class RoundsCommands {
       storeAssessment(round, assessment);
       await manager.save(round);
       const after = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
-      const changed = AUDITED.filter((f) => JSON.stringify(before[f]) !== JSON.stringify(after[f]));
-      await this.audit.record(manager, {
-        projectId: access.projectId,
-        actorId: caller.id,
-        entityType: 'round',
-        entityId: roundId,
-        action: 'save',
-        before: Object.fromEntries(changed.map((f) => [f, before[f]])),
-        after: { ...Object.fromEntries(changed.map((f) => [f, after[f]])), joints: joints.length },
-      });
+      // The audit keeps what changed, not copies: ground by field, joints by id (null where one was added or
+      // removed); autosaves of one person in a run are one event.
+      const change = auditDiff(
+        before,
+        after,
+        AUDITED.filter((f) => f !== 'ground'),
+      ) ?? {
+        before: {},
+        after: {},
+      };
+      const ground = objectDiff(
+        before.ground as Record<string, unknown>,
+        after.ground as Record<string, unknown>,
+      );
+      if (Object.keys(ground.after).length) {
+        change.before.ground = ground.before;
+        change.after.ground = ground.after;
+      }
+      const jointsAfterSnap = Object.fromEntries(joints.map((j) => [j.id, jointSnapshot(j)]));
+      const jointChange = objectDiff(jointsBeforeSnap, jointsAfterSnap);
+      if (Object.keys(jointChange.after).length) {
+        change.before.joints = jointChange.before;
+        change.after.joints = jointChange.after;
+      }
+      if (Object.keys(change.after).length === 0) return; // nothing changed: nothing to record
+      await this.audit.recordCoalesced(
+        manager,
+        {
+          projectId: access.projectId,
+          actorId: caller.id,
+          entityType: 'round',
+          entityId: roundId,
+          action: 'save',
+          before: change.before,
+          after: change.after,
+        },
+        ['ground', 'joints'],
+      );
     });
     return this.queries.get(access, roundId);
   }
@@ -272,12 +325,12 @@ export class RoundsCommands {
   private async upsertJoints(
     manager: EntityManager,
     round: Round,
-    dto: SaveRoundDto,
+    input: NonNullable<SaveRoundDto['joints']>,
+    existing: Joint[],
     defaultNotation: Joint['notation'],
   ): Promise<Joint[]> {
-    const existing = await manager.find(Joint, { where: { roundId: round.id } });
     const byId = new Map(existing.map((j) => [j.id, j]));
-    const wanted = dto.joints.map((j) => j.id).filter((id): id is string => id !== undefined);
+    const wanted = input.map((j) => j.id).filter((id): id is string => id !== undefined);
     if (new Set(wanted).size !== wanted.length)
       throw new DomainException(ErrorCode.ValidationFailed, 'Two joints of the save have the same id.', {
         joints: 'Each joint needs its own id.',
@@ -290,7 +343,7 @@ export class RoundsCommands {
           joints: 'Make new ids for joints copied from another round.',
         });
     }
-    const kept: Joint[] = dto.joints.map((j, i) => {
+    const kept: Joint[] = input.map((j, i) => {
       const reading = readOrientation(j.orientationText, j.notation ?? defaultNotation);
       const joint =
         (j.id ? byId.get(j.id) : undefined) ?? manager.create(Joint, { id: j.id ?? randomUUID() });
@@ -432,11 +485,19 @@ export class RoundsCommands {
    * Refusals of a save that the DTO cannot see alone: grades of the project's scale and unit shares that
    * make 100 % (packages/domain groundErrors), and a governing discontinuity that is a joint of this save.
    */
-  private assertRecord(dto: SaveRoundDto, scale: 'isrm' | 'iso-14689'): void {
-    const fields = groundErrors(dto.ground, scale);
-    const q = dto.qInput as { governingJointId?: unknown; governingSetLabel?: unknown } | null;
+  private assertRecord(
+    dto: SaveRoundDto,
+    ground: Round['ground'],
+    jointsBefore: Joint[],
+    scale: 'isrm' | 'iso-14689',
+  ): void {
+    const fields = groundErrors(ground, scale);
+    const q = (dto.qInput === undefined ? null : dto.qInput) as {
+      governingJointId?: unknown;
+      governingSetLabel?: unknown;
+    } | null;
     if (q && q.governingJointId !== undefined && q.governingJointId !== null) {
-      const ids = dto.joints.map((j) => j.id).filter((id) => id !== undefined);
+      const ids = (dto.joints ?? jointsBefore).map((j) => j.id).filter((id) => id !== undefined);
       if (typeof q.governingJointId !== 'string' || !ids.includes(q.governingJointId))
         fields['qInput.governingJointId'] =
           'The governing discontinuity must be one of this round’s joints (by its id).';

@@ -838,6 +838,8 @@ export interface components {
                 [key: string]: unknown;
             } | null;
             actorId: string | null;
+            /** @description For an autosave run held as one event: the time of its last save (null for a single change) */
+            lastAt: string | null;
             id: string;
             entityType: string;
             entityId: string;
@@ -845,6 +847,8 @@ export interface components {
             /** @description The person's name, kept even after they left the project */
             actorName: string;
             at: string;
+            /** @description Saves of the run beyond the first (0 for a single change) */
+            coalesced: number;
         };
         LoginDto: {
             /**
@@ -1672,28 +1676,45 @@ export interface components {
             infill: string;
             notes: string;
         };
+        GroundPatchDto: {
+            /** @description Point-load index Is50, MPa */
+            pointLoadIs50?: number | null;
+            /** @description Factor used to estimate UCS from Is50 (UCS ≈ factor × Is50) */
+            pointLoadFactor?: number | null;
+            /** @description Water inflow at the face, l/min */
+            inflowLpm?: number | null;
+            /** @description Tunnel length the inflow comes from, m (for inflow per 10 m) */
+            inflowLengthM?: number | null;
+            /** @description True when the inflow was measured at the face (a point inflow; no length of tunnel is needed) */
+            inflowAtFace?: boolean | null;
+            overbreakM3?: number | null;
+            units?: components["schemas"]["RockUnitDto"][];
+            waterDescription?: string;
+            notes?: string;
+        };
         SaveRoundDto: {
-            previousChainage: number | null;
-            roundLength: number | null;
-            shift: components["schemas"]["Shift"];
+            previousChainage?: number | null;
+            roundLength?: number | null;
+            shift?: components["schemas"]["Shift"];
             /** @description Q inputs (numbers may be empty while drafting; table values are checked by packages/geomath) */
-            qInput: components["schemas"]["QInputDto"] | null;
+            qInput?: components["schemas"]["QInputDto"] | null;
             /** @description RMR89 inputs: strength, RQD, spacing, condition (simple or detailed), groundwater, orientation */
-            rmrInput: components["schemas"]["RmrInputDto"] | null;
-            gsiObserved: number | null;
+            rmrInput?: components["schemas"]["RmrInputDto"] | null;
+            gsiObserved?: number | null;
             /** Format: uuid */
-            recommendedClassId: string | null;
-            nextRoundLength: number | null;
-            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
-            version: number;
-            faceChainage: number;
-            shiftDate: string;
-            distantParts: string;
-            ground: components["schemas"]["GroundDto"];
-            joints: components["schemas"]["JointInputDto"][];
-            recommendationReason: string;
+            recommendedClassId?: string | null;
+            nextRoundLength?: number | null;
+            faceChainage?: number;
+            shiftDate?: string;
+            distantParts?: string;
+            joints?: components["schemas"]["JointInputDto"][];
+            recommendationReason?: string;
             /** @description How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
             setParameters?: components["schemas"]["SetParametersDto"];
+            /** @description Ground fields to change; those left out are kept */
+            ground?: components["schemas"]["GroundPatchDto"];
+            /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
+            version: number;
         };
         SubmitRoundDto: {
             version: number;

@@ -17,6 +17,11 @@ export class AuditEventDto {
   /** The person's name, kept even after they left the project */
   actorName: string;
   at: string;
+  /** For an autosave run held as one event: the time of its last save (null for a single change) */
+  @ApiProperty({ type: String, nullable: true })
+  lastAt: string | null;
+  /** Saves of the run beyond the first (0 for a single change) */
+  coalesced: number;
 }
 
 export class AuditQueryDto {

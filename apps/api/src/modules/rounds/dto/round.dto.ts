@@ -1,4 +1,4 @@
-import { ApiProperty } from '@nestjs/swagger';
+import { ApiProperty, OmitType, PartialType } from '@nestjs/swagger';
 import {
   JOINT_KINDS,
   JOINT_WATER,
@@ -359,7 +359,24 @@ export class RoundInputDto {
   setParameters?: SetParametersDto;
 }
 
-export class SaveRoundDto extends RoundInputDto {
+/** Part of the ground record: on a save, a field left out keeps what the round has. */
+export class GroundPatchDto extends PartialType(GroundDto, { skipNullProperties: false }) {}
+
+/**
+ * A save: any part of the record with the version read. A field left out keeps what the round has — a partial
+ * body never erases anything; null clears only a field whose type allows null (null for any other is a 400).
+ */
+export class SaveRoundDto extends PartialType(OmitType(RoundInputDto, ['ground'] as const), {
+  skipNullProperties: false,
+}) {
+  /** Ground fields to change; those left out are kept */
+  @Optional()
+  @IsObject({ message: 'Give an object here.' })
+  @ValidateNested()
+  @Type(() => GroundPatchDto)
+  @ApiProperty({ type: () => GroundPatchDto, required: false })
+  ground?: GroundPatchDto;
+
   /** The version you last read; a stale version is refused with 409 STALE_VERSION */
   @IsInt()
   @Min(1)

@@ -15,7 +15,12 @@ export type RoundPage = Schemas['RoundPageDto'];
 export type NextRound = Schemas['NextRoundDto'];
 export type CreateRoundRequest = Schemas['CreateRoundDto'];
 export type Round = Schemas['RoundDto'];
-export type SaveRoundRequest = Schemas['SaveRoundDto'];
+/**
+ * What the round screen sends: always the whole record. (The API also takes part of one and keeps what a
+ * save leaves out; the screen never relies on that.)
+ */
+export type SaveRoundRequest = Omit<Required<Schemas['SaveRoundDto']>, 'ground' | 'setParameters'> &
+  Pick<Schemas['SaveRoundDto'], 'setParameters'> & { ground: Schemas['GroundDto'] };
 export type JointKind = Schemas['JointKind'];
 export type JointWater = Schemas['JointWater'];
 export type JrcMethod = Schemas['JrcMethod'];
