@@ -29,13 +29,7 @@ export function objectDiff(
   after: Record<string, unknown>,
 ): { before: Record<string, unknown>; after: Record<string, unknown> } {
   const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])];
-  return (
-    auditDiff(
-      before,
-      after,
-      keys as ReadonlyArray<string>,
-    ) ?? { before: {}, after: {} }
-  );
+  return auditDiff(before, after, keys as ReadonlyArray<string>) ?? { before: {}, after: {} };
 }
 
 const isPlainObject = (v: unknown): v is Record<string, unknown> =>
