@@ -24,9 +24,13 @@ interface OpenApiDocument {
 const document = JSON.parse(
   readFileSync(path.join(__dirname, '..', 'openapi.json'), 'utf8'),
 ) as OpenApiDocument;
-const routes = Object.entries(document.paths).flatMap(([route, ops]) =>
-  METHODS.filter((m) => ops[m] !== undefined).map((m) => `${m.toUpperCase()} ${route}`),
-);
+// Routes that end the caller's sessions go last, so the tokens hold for every other route.
+const REVOKING = ['POST /api/auth/sign-out-everywhere'];
+const routes = Object.entries(document.paths)
+  .flatMap(([route, ops]) =>
+    METHODS.filter((m) => ops[m] !== undefined).map((m) => `${m.toUpperCase()} ${route}`),
+  )
+  .sort((a, b) => Number(REVOKING.includes(a)) - Number(REVOKING.includes(b)));
 
 describe('Access matrix (e2e, every route × every actor)', () => {
   let app: INestApplication;

@@ -35,6 +35,8 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'GET /api/health/live': ANYONE,
   'POST /api/auth/login': ANYONE,
   'GET /api/auth/me': SIGNED_IN,
+  'POST /api/auth/sign-out-everywhere': SIGNED_IN,
+  'POST /api/auth/password': SIGNED_IN,
 
   'GET /api/projects': SIGNED_IN,
   // PROJECT_CREATION=operators (the API's default; `npm start` sets anyone for the demo).

@@ -190,7 +190,8 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
         .set(as('admin'))
         .expect(200);
       expect((removed.body.members as Body[]).map((m) => m.email)).not.toContain(email);
-      await request(http).get(`${base}`).set(bearer(newToken)).expect(404);
+      // Their last project: their sessions end too (issue 18 item 6; sessions.e2e-spec.ts)
+      await request(http).get(`${base}`).set(bearer(newToken)).expect(401);
     });
 
     it('keeps the last admin, and refuses to invite an existing member', async () => {

@@ -8,6 +8,7 @@ import { HeadingAlignment1796196409420 } from './1796196409420-HeadingAlignment.
 import { Review1796200000000 } from './1796200000000-Review.js';
 import { Photos1796270000000 } from './1796270000000-Photos.js';
 import { AuditCoalesce1796280000000 } from './1796280000000-AuditCoalesce.js';
+import { TokenVersion1796290000000 } from './1796290000000-TokenVersion.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -21,4 +22,5 @@ export const migrations = [
   Review1796200000000,
   Photos1796270000000,
   AuditCoalesce1796280000000,
+  TokenVersion1796290000000,
 ];

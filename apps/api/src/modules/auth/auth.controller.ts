@@ -1,6 +1,7 @@
 import { Body, Controller, Get, Header, HttpCode, Inject, Ip, Post, UseGuards } from '@nestjs/common';
 import {
   ApiBearerAuth,
+  ApiNoContentResponse,
   ApiOkResponse,
   ApiTags,
   ApiTooManyRequestsResponse,
@@ -12,7 +13,7 @@ import { CurrentUser } from '../../common/auth/current-user.decorator.js';
 import { Public } from '../../common/auth/public.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
 import { AuthService } from './auth.service.js';
-import { LoginDto } from './dto/login.dto.js';
+import { ChangePasswordDto, LoginDto } from './dto/login.dto.js';
 import { MeDto, TokenResponseDto } from './dto/token-response.dto.js';
 
 @ApiTags('auth')
@@ -32,6 +33,25 @@ export class AuthController {
   @ApiTooManyRequestsResponse({ type: ErrorResponseDto, description: 'TOO_MANY_REQUESTS' })
   login(@Body() body: LoginDto, @Ip() address: string): Promise<TokenResponseDto> {
     return this.auth.login(body.email, body.password, address);
+  }
+
+  /** Signs this account out on every device: every token issued so far stops working */
+  @ApiBearerAuth()
+  @Post('sign-out-everywhere')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'Every token of the account is revoked' })
+  signOutEverywhere(@CurrentUser() user: AuthUser): Promise<void> {
+    return this.auth.signOutEverywhere(user);
+  }
+
+  /** A new password (the current one asked again); every other session ends, this one gets a new token */
+  @ApiBearerAuth()
+  @Post('password')
+  @Header('Cache-Control', 'no-store')
+  @HttpCode(200)
+  @ApiOkResponse({ type: TokenResponseDto })
+  changePassword(@CurrentUser() user: AuthUser, @Body() body: ChangePasswordDto): Promise<TokenResponseDto> {
+    return this.auth.changePassword(user, body.currentPassword, body.newPassword);
   }
 
   /** The signed-in user and their project memberships */

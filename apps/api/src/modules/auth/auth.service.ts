@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { InjectRepository } from '@nestjs/typeorm';
-import type { Repository } from 'typeorm';
+import type { EntityManager, Repository } from 'typeorm';
 import type { AuthUser } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
@@ -16,6 +16,8 @@ export interface JwtPayload {
   sub: string;
   email: string;
   name: string;
+  /** The account's token version when this token was issued (User.tokenVersion) */
+  tv?: number;
   exp?: number;
 }
 
@@ -43,7 +45,11 @@ export class AuthService {
       );
     }
     this.attempts.succeeded(email);
-    const payload: JwtPayload = { sub: user.id, email: user.email, name: user.name };
+    return this.issue(user);
+  }
+
+  private async issue(user: User): Promise<TokenResponseDto> {
+    const payload: JwtPayload = { sub: user.id, email: user.email, name: user.name, tv: user.tokenVersion };
     const accessToken = await this.jwt.signAsync(payload);
     const { exp } = this.jwt.decode<JwtPayload>(accessToken);
     return {
@@ -53,10 +59,41 @@ export class AuthService {
     };
   }
 
-  /** The user behind a valid token, or null when the account no longer exists. */
+  /** The user behind a valid token, or null when the account no longer exists or the token was revoked. */
   async userOfToken(payload: JwtPayload): Promise<AuthUser | null> {
     const user = await this.users.findOne({ where: { id: payload.sub } });
-    return user ? { id: user.id, email: user.email, name: user.name } : null;
+    if (!user || (payload.tv ?? 0) !== user.tokenVersion) return null;
+    return { id: user.id, email: user.email, name: user.name };
+  }
+
+  /** Every token of the account stops working at its next request (this one included). */
+  async signOutEverywhere(caller: AuthUser): Promise<void> {
+    await revokeTokens(this.users.manager, caller.id);
+  }
+
+  /**
+   * A new password: the current one is asked again, every earlier token is revoked, and this device gets a
+   * new token so it stays signed in.
+   */
+  async changePassword(caller: AuthUser, current: string, next: string): Promise<TokenResponseDto> {
+    const user = await this.users.findOneOrFail({ where: { id: caller.id } });
+    this.attempts.assertAllowed(user.email, 'password-change');
+    if (!(await verifyPassword(user.passwordHash, current))) {
+      this.attempts.failed(user.email, 'password-change');
+      throw new DomainException(ErrorCode.ValidationFailed, 'Your current password is not right.', {
+        currentPassword: 'Type the password you signed in with.',
+      });
+    }
+    if (next === current)
+      throw new DomainException(ErrorCode.ValidationFailed, 'Choose a password other than the current one.', {
+        newPassword: 'Choose a new password.',
+      });
+    this.attempts.succeeded(user.email);
+    await this.users.update(
+      { id: user.id },
+      { passwordHash: await hashPassword(next), tokenVersion: () => 'token_version + 1' },
+    );
+    return this.issue(await this.users.findOneOrFail({ where: { id: user.id } }));
   }
 
   async me(caller: AuthUser): Promise<MeDto> {
@@ -79,6 +116,11 @@ export class AuthService {
       })),
     };
   }
+}
+
+/** Raises the account's token version: every token issued before stops working at its next request. */
+export async function revokeTokens(manager: EntityManager, userId: string): Promise<void> {
+  await manager.update(User, { id: userId }, { tokenVersion: () => 'token_version + 1' });
 }
 
 /** A real argon2id hash of a random string, used to spend the same time on unknown e-mails. */

@@ -44,7 +44,7 @@ export class JwtAuthGuard implements CanActivate {
     if (!user)
       throw new DomainException(
         ErrorCode.Unauthenticated,
-        'This account no longer exists. Please sign in again.',
+        'Your session has ended (signed out on every device, a new password, or the account was removed). Please sign in again.',
       );
     req.user = user;
     return true;

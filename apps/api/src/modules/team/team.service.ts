@@ -9,7 +9,7 @@ import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { NoticesService, type NoticeStatus } from '../../infrastructure/mail/notices.service.js';
 import { invitationEmail } from '../../infrastructure/mail/templates/invitation.email.js';
 import { AuditService } from '../audit/audit.service.js';
-import { AuthService } from '../auth/auth.service.js';
+import { AuthService, revokeTokens } from '../auth/auth.service.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
 import { hashPassword } from '../users/password.js';
@@ -185,6 +185,9 @@ export class TeamService {
       const member = await this.findMember(manager, access, memberId);
       if (member.role === 'admin') await this.assertAnotherAdmin(manager, access.projectId, member.id);
       await manager.delete(ProjectMember, { id: member.id });
+      // Removed from their last project: their sessions end (they have nothing left to open).
+      if ((await manager.count(ProjectMember, { where: { userId: member.userId } })) === 0)
+        await revokeTokens(manager, member.userId);
       await this.audit.record(manager, {
         projectId: access.projectId,
         actorId: caller.id,

@@ -22,6 +22,13 @@ export class User {
   @Column({ name: 'is_operator', type: 'boolean', default: false })
   isOperator: boolean;
 
+  /**
+   * Tokens carry the version they were issued under; raising it (sign out everywhere, a new password, removal
+   * from the last project) makes every earlier token of the account invalid at its next request.
+   */
+  @Column({ name: 'token_version', type: 'int', default: 0 })
+  tokenVersion: number;
+
   @CreatedAt()
   createdAt: Date;
 

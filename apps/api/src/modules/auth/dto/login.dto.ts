@@ -1,5 +1,19 @@
 import { Transform } from 'class-transformer';
-import { IsEmail, IsNotEmpty, IsString, MaxLength } from 'class-validator';
+import { IsEmail, IsNotEmpty, IsString, MaxLength, MinLength } from 'class-validator';
+
+export class ChangePasswordDto {
+  /** The password the account signs in with now */
+  @IsString()
+  @IsNotEmpty({ message: 'Type your current password.' })
+  @MaxLength(200)
+  currentPassword: string;
+
+  /** At least 10 characters */
+  @IsString()
+  @MinLength(10, { message: 'Choose a password of at least 10 characters.' })
+  @MaxLength(200)
+  newPassword: string;
+}
 
 export class LoginDto {
   /** The e-mail address the account was created with */
