@@ -16,6 +16,7 @@ export type ApiErrorBody = Schemas['ErrorResponseDto'];
 export type LoginRequest = Schemas['LoginDto'];
 export type UserSummary = Schemas['UserDto'];
 export type LoginResponse = Schemas['TokenResponseDto'];
+export type ChangePasswordRequest = Schemas['ChangePasswordDto'];
 export type Membership = Schemas['MembershipDto'];
 export type CurrentUser = Schemas['MeDto'];
 export type HandoverSummary = Schemas['LastHandoverDto'];

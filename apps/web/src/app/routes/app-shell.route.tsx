@@ -3,6 +3,7 @@ import {
   BoardRegular,
   ClipboardTaskListLtrRegular,
   MailInboxRegular,
+  PersonRegular,
   PeopleSwapRegular,
   SettingsRegular,
   SignOutRegular,
@@ -24,9 +25,10 @@ import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import type { ShellContext } from '@/app/shell-context';
 import { useCurrentUser } from '@/features/auth/api/get-current-user';
+import { AccountDialog } from '@/features/auth/components/account-dialog';
 import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
 import { useConfig } from '@/features/system/api/get-config';
-import { clearSession } from '@/lib/session';
+import { clearSession, saveSession } from '@/lib/session';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -143,6 +145,8 @@ export function AppShellRoute() {
     localAccess: config.localMode ? (localAccess.data ?? null) : null,
   });
 
+  const [accountOpen, setAccountOpen] = useState(false);
+
   const signOut = async () => {
     clearSession();
     await navigate('/sign-in', { replace: true });
@@ -188,6 +192,14 @@ export function AppShellRoute() {
           <Button
             className={styles.touch}
             size="large"
+            icon={<PersonRegular />}
+            onClick={() => setAccountOpen(true)}
+          >
+            Account
+          </Button>
+          <Button
+            className={styles.touch}
+            size="large"
             icon={<SignOutRegular />}
             onClick={() => {
               void signOut();
@@ -197,6 +209,20 @@ export function AppShellRoute() {
           </Button>
         </div>
       </header>
+
+      <AccountDialog
+        open={accountOpen}
+        name={me.name}
+        email={me.email}
+        onClose={() => setAccountOpen(false)}
+        onPasswordChanged={(result) =>
+          saveSession({ accessToken: result.accessToken, expiresAt: result.expiresAt, user: result.user })
+        }
+        onSignedOutEverywhere={() => {
+          setAccountOpen(false);
+          void signOut();
+        }}
+      />
 
       <nav className={styles.nav} aria-label="Main">
         {navItems.map((item) => (
