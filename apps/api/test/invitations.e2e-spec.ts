@@ -343,6 +343,31 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
       });
     });
 
+    it('a revoked token is no one: after sign-out everywhere it cannot accept for its account (issue 18 item 6)', async () => {
+      const owner = await makeUser('owner-rv');
+      const p = await makeProject(owner.token, `RV${run}`);
+      const invitee = await makeUser('revoked');
+      await request(http)
+        .post(`/api/projects/${p}/invitations`)
+        .set(bearer(owner.token))
+        .send({ email: invitee.user.email, role: 'viewer' })
+        .expect(201);
+      const t = await tokenFor(invitee.user.email);
+      await request(http).post('/api/auth/sign-out-everywhere').set(bearer(invitee.token)).expect(204);
+      // The old token read as no one: the address has an account, so it must sign in first (before: joined).
+      const stale = await request(http)
+        .post(`/api/invitations/${t}/accept`)
+        .set(bearer(invitee.token))
+        .send({})
+        .expect(409);
+      expect(stale.body.message).toMatch(/Sign in/);
+      const members = app.get(DataSource).getRepository(ProjectMember);
+      expect(await members.existsBy({ projectId: p, userId: invitee.user.id })).toBe(false);
+      const fresh = await login(invitee.user.email, 'a-long-enough-pw');
+      await request(http).post(`/api/invitations/${t}/accept`).set(bearer(fresh)).send({}).expect(200);
+      expect(await members.existsBy({ projectId: p, userId: invitee.user.id })).toBe(true);
+    });
+
     it('the token reused → refused (single use, and a resent link replaces the old one)', async () => {
       const owner = await makeUser('owner2');
       const p = await makeProject(owner.token, `RU${run}`);

@@ -83,4 +83,47 @@ describe('sessions: revoking tokens (e2e, real MariaDB)', () => {
       .expect(200);
     await me(supervisor).expect(401);
   });
+
+  it('two apps in one process, each with its own secret, accept only their own tokens (passport strategy per app)', async () => {
+    // stack-notes §12: passport's registry is process-wide; with one strategy name the second app's
+    // strategy replaced the first's (app A then accepted B's tokens and refused its own).
+    const other = await createTestApp((c) => ({
+      ...c,
+      auth: { ...c.auth, jwtSecret: `another-secret-${code}-0123456789` },
+    }));
+    try {
+      const otherHttp = other.getHttpServer() as App;
+      const email = p.emailOf('supervisor');
+      const tokenOn = async (server: App) =>
+        (
+          (await request(server).post('/api/auth/login').send({ email, password: TEST_PASSWORD }).expect(200))
+            .body as { accessToken: string }
+        ).accessToken;
+      const mine = await tokenOn(http);
+      const theirs = await tokenOn(otherHttp);
+      await me(mine).expect(200);
+      await me(theirs).expect(401);
+      await request(otherHttp).get('/api/auth/me').set('Authorization', `Bearer ${theirs}`).expect(200);
+      await request(otherHttp).get('/api/auth/me').set('Authorization', `Bearer ${mine}`).expect(401);
+    } finally {
+      await other.close();
+    }
+    // The first app keeps working after the second has shut down (its strategy left the registry).
+    await me(p.as('engineer').Authorization.slice(7)).expect(200);
+  });
+
+  it('a missing, malformed or foreign token reads as words a person can act on (401)', async () => {
+    const none = await request(http).get('/api/auth/me').expect(401);
+    expect(none.body.message).toBe('Please sign in to continue.');
+    const junk = await request(http)
+      .get('/api/auth/me')
+      .set('Authorization', 'Bearer not.a.token')
+      .expect(401);
+    expect(junk.body.message).toBe('Please sign in to continue.');
+    const basic = await request(http)
+      .get('/api/auth/me')
+      .set('Authorization', 'Basic Zm9vOmJhcg==')
+      .expect(401);
+    expect(basic.body.code).toBe('UNAUTHENTICATED');
+  });
 });

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
@@ -8,10 +9,12 @@ import { User } from '../users/user.entity.js';
 import { AuthController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
 import { JwtAuthGuard } from './jwt-auth.guard.js';
+import { createJwtStrategy, JWT_STRATEGY } from './jwt.strategy.js';
 import { LoginAttempts } from './login-attempts.js';
 
 @Module({
   imports: [
+    PassportModule.register({ session: false }),
     TypeOrmModule.forFeature([User, ProjectMember]),
     JwtModule.registerAsync({
       inject: [APP_CONFIG],
@@ -32,7 +35,16 @@ import { LoginAttempts } from './login-attempts.js';
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, JwtAuthGuard, LoginAttempts],
-  exports: [AuthService, JwtAuthGuard, JwtModule],
+  providers: [
+    AuthService,
+    LoginAttempts,
+    {
+      provide: JWT_STRATEGY,
+      inject: [APP_CONFIG, AuthService],
+      useFactory: (config: AppConfig, auth: AuthService) => createJwtStrategy(config.auth.jwtSecret, auth),
+    },
+    JwtAuthGuard,
+  ],
+  exports: [AuthService, JwtAuthGuard, JWT_STRATEGY, JwtModule],
 })
 export class AuthModule {}

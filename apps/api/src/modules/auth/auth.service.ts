@@ -66,6 +66,22 @@ export class AuthService {
     return { id: user.id, email: user.email, name: user.name };
   }
 
+  /**
+   * The account behind an optional `Authorization: Bearer …` on a public route: null when there is none,
+   * it does not verify, or it was revoked (the same checks as the guard's strategy).
+   */
+  async userOfAuthorization(authorization?: string): Promise<AuthUser | null> {
+    const [scheme, bearer] = (authorization ?? '').split(' ');
+    if (scheme?.toLowerCase() !== 'bearer' || !bearer) return null;
+    let payload: JwtPayload;
+    try {
+      payload = await this.jwt.verifyAsync<JwtPayload>(bearer, { algorithms: ['HS256'] });
+    } catch {
+      return null;
+    }
+    return this.userOfToken(payload);
+  }
+
   /** Every token of the account stops working at its next request (this one included). */
   async signOutEverywhere(caller: AuthUser): Promise<void> {
     await revokeTokens(this.users.manager, caller.id);

@@ -1,23 +1,42 @@
 import { Inject, Injectable, type CanActivate, type ExecutionContext } from '@nestjs/common';
+import type { OnModuleDestroy } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import { JwtService } from '@nestjs/jwt';
-import type { Request } from 'express';
+import { AuthGuard } from '@nestjs/passport';
+import type { IAuthGuard } from '@nestjs/passport';
 import type { AuthUser } from '../../common/auth/auth-user.js';
 import { IS_PUBLIC } from '../../common/auth/public.decorator.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
-import { AuthService, type JwtPayload } from './auth.service.js';
+import { JWT_STRATEGY, type JwtStrategyHandle } from './jwt.strategy.js';
 
 /**
- * Global guard: every route needs a valid bearer token unless marked @Public(). The token is verified with
- * the app's own JwtService (no process-wide strategy registry), and the account must still exist.
+ * Global guard: every route needs a valid bearer token unless marked @Public(). The token goes through
+ * passport-jwt (`@nestjs/passport`'s AuthGuard with this app's strategy); failures read as words a person
+ * can act on.
  */
 @Injectable()
-export class JwtAuthGuard implements CanActivate {
+export class JwtAuthGuard implements CanActivate, OnModuleDestroy {
+  private readonly passportGuard: IAuthGuard;
+
   constructor(
     @Inject(Reflector) private readonly reflector: Reflector,
-    @Inject(JwtService) private readonly jwt: JwtService,
-    @Inject(AuthService) private readonly auth: AuthService,
-  ) {}
+    @Inject(JWT_STRATEGY) private readonly strategy: JwtStrategyHandle,
+  ) {
+    const PassportGuard = AuthGuard(strategy.strategyName);
+    // `session: false`: bearer tokens only, nothing kept on the server between requests.
+    this.passportGuard = new (class extends PassportGuard {
+      override handleRequest<TUser = AuthUser>(err: unknown, user: TUser | false, info: unknown): TUser {
+        if (err instanceof DomainException) throw err;
+        if (err || !user) {
+          const expired = info instanceof Error && info.name === 'TokenExpiredError';
+          throw new DomainException(
+            ErrorCode.Unauthenticated,
+            expired ? 'Your session has expired. Please sign in again.' : 'Please sign in to continue.',
+          );
+        }
+        return user;
+      }
+    })({ session: false });
+  }
 
   async canActivate(context: ExecutionContext): Promise<boolean> {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, [
@@ -25,28 +44,10 @@ export class JwtAuthGuard implements CanActivate {
       context.getClass(),
     ]);
     if (isPublic) return true;
-    const req = context.switchToHttp().getRequest<Request & { user?: AuthUser }>();
-    const [scheme, token] = (req.headers.authorization ?? '').split(' ');
-    if (scheme?.toLowerCase() !== 'bearer' || !token) {
-      throw new DomainException(ErrorCode.Unauthenticated, 'Please sign in to continue.');
-    }
-    let payload: JwtPayload;
-    try {
-      payload = await this.jwt.verifyAsync<JwtPayload>(token, { algorithms: ['HS256'] });
-    } catch (e) {
-      const expired = e instanceof Error && e.name === 'TokenExpiredError';
-      throw new DomainException(
-        ErrorCode.Unauthenticated,
-        expired ? 'Your session has expired. Please sign in again.' : 'Please sign in to continue.',
-      );
-    }
-    const user = await this.auth.userOfToken(payload);
-    if (!user)
-      throw new DomainException(
-        ErrorCode.Unauthenticated,
-        'Your session has ended (signed out on every device, a new password, or the account was removed). Please sign in again.',
-      );
-    req.user = user;
-    return true;
+    return (await this.passportGuard.canActivate(context)) as boolean;
+  }
+
+  onModuleDestroy(): void {
+    this.strategy.unregister();
   }
 }

@@ -1,6 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
-import { JwtService } from '@nestjs/jwt';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, IsNull, MoreThan, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
@@ -37,7 +36,6 @@ export class TeamService {
     @Inject(AuditService) private readonly audit: AuditService,
     @Inject(NoticesService) private readonly notices: NoticesService,
     @Inject(AuthService) private readonly auth: AuthService,
-    @Inject(JwtService) private readonly jwt: JwtService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
@@ -226,7 +224,7 @@ export class TeamService {
     dto: AcceptInvitationDto,
     authorization?: string,
   ): Promise<AcceptedInvitationDto> {
-    const caller = await this.callerOf(authorization);
+    const caller = await this.auth.userOfAuthorization(authorization);
     try {
       return await this.dataSource
         .transaction(async (manager) => {
@@ -306,20 +304,6 @@ export class TeamService {
       }
       throw e;
     }
-  }
-
-  /** The account behind an optional bearer token on a public route (null when absent or not valid). */
-  private async callerOf(authorization?: string): Promise<AuthUser | null> {
-    const [scheme, bearer] = (authorization ?? '').split(' ');
-    if (scheme?.toLowerCase() !== 'bearer' || !bearer) return null;
-    let sub: string;
-    try {
-      sub = (await this.jwt.verifyAsync<{ sub: string }>(bearer, { algorithms: ['HS256'] })).sub;
-    } catch {
-      return null;
-    }
-    const user = await this.dataSource.getRepository(User).findOne({ where: { id: sub } });
-    return user ? { id: user.id, email: user.email, name: user.name } : null;
   }
 
   /** Renders the invitation e-mail and queues it (notice + job) in the caller's transaction. */
