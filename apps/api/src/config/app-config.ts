@@ -13,6 +13,10 @@ export interface AppConfig {
     jwtExpiresIn: string;
     loginRateLimit: number;
     loginAddressLimit: number;
+    /** Invitation e-mails per project per hour */
+    invitationEmailLimit: number;
+    /** Invitation e-mails per address per hour (all projects) */
+    invitationAddressLimit: number;
     publicRateLimit: number;
   };
   /** Express `trust proxy`: false (none) unless TRUST_PROXY names the proxies in front */
@@ -77,6 +81,8 @@ export function toAppConfig(e: EnvironmentVariables): AppConfig {
       jwtExpiresIn: e.JWT_EXPIRES_IN,
       loginRateLimit: e.LOGIN_RATE_LIMIT,
       loginAddressLimit: e.LOGIN_ADDRESS_LIMIT,
+      invitationEmailLimit: e.INVITATION_EMAIL_LIMIT,
+      invitationAddressLimit: e.INVITATION_ADDRESS_LIMIT,
       publicRateLimit: e.PUBLIC_RATE_LIMIT,
     },
     trustProxy: trustProxyOf(e.TRUST_PROXY),

@@ -165,6 +165,18 @@ export class EnvironmentVariables {
   @Min(1)
   LOGIN_ADDRESS_LIMIT = 100;
 
+  /** Invitation e-mails one project may send in an hour (new invitations and resent links together). */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  INVITATION_EMAIL_LIMIT = 60;
+
+  /** Invitation e-mails to one address in an hour, from all projects together. */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  INVITATION_ADDRESS_LIMIT = 5;
+
   /** Requests per minute per client address on anonymous routes (sign-in, invitations, health). */
   @Transform(({ value }) => Number(value))
   @IsInt()

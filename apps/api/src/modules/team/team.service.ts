@@ -5,6 +5,7 @@ import { DataSource, IsNull, MoreThan, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
+import { Notice } from '../../infrastructure/mail/notice.entity.js';
 import { NoticesService, type NoticeStatus } from '../../infrastructure/mail/notices.service.js';
 import { invitationEmail } from '../../infrastructure/mail/templates/invitation.email.js';
 import { AuditService } from '../audit/audit.service.js';
@@ -28,6 +29,11 @@ const INVITATION_DAYS = 7;
 const sha256 = (s: string): string => createHash('sha256').update(s).digest('hex');
 const isDuplicateKey = (e: unknown): boolean =>
   typeof e === 'object' && e !== null && (e as { code?: unknown }).code === 'ER_DUP_ENTRY';
+
+interface MailCount {
+  oldest: Date | string | null;
+  count: string | number;
+}
 
 @Injectable()
 export class TeamService {
@@ -74,6 +80,7 @@ export class TeamService {
   async invite(caller: AuthUser, access: ProjectAccess, dto: InviteDto): Promise<InvitationDto> {
     const token = randomBytes(32).toString('base64url');
     const invitation = await this.dataSource.transaction(async (manager) => {
+      await this.assertInvitationMailAllowed(manager, access.projectId, dto.email);
       const existing = await manager.findOne(User, { where: { email: dto.email } });
       if (
         existing &&
@@ -120,6 +127,11 @@ export class TeamService {
   async resend(caller: AuthUser, access: ProjectAccess, invitationId: string): Promise<InvitationDto> {
     const token = randomBytes(32).toString('base64url');
     const invitation = await this.dataSource.transaction(async (manager) => {
+      const open = await manager.findOne(Invitation, {
+        where: { id: invitationId, projectId: access.projectId, acceptedAt: IsNull() },
+      });
+      if (!open) throw DomainException.notFound('The invitation');
+      await this.assertInvitationMailAllowed(manager, access.projectId, open.email);
       const found = await manager.findOne(Invitation, {
         where: { id: invitationId, projectId: access.projectId, acceptedAt: IsNull() },
         lock: { mode: 'pessimistic_write' },
@@ -332,6 +344,57 @@ export class TeamService {
     });
     invitation.noticeId = notice.id;
     await manager.save(invitation);
+  }
+
+  /**
+   * Invitation e-mails are limited (issue 18 item 6): per project per hour (INVITATION_EMAIL_LIMIT) and per
+   * address per hour from all projects (INVITATION_ADDRESS_LIMIT), counted from the queued notices, so the
+   * limit holds across API processes and restarts. Over it: 429 with the wait, and nothing is written.
+   */
+  private async assertInvitationMailAllowed(
+    manager: EntityManager,
+    projectId: string,
+    email: string,
+  ): Promise<void> {
+    // The project row locked first: one project's invitations are counted one at a time, so the
+    // per-project limit is exact even with several API processes.
+    await manager.findOne(Project, { where: { id: projectId }, lock: { mode: 'pessimistic_write' } });
+    const since = new Date(Date.now() - 3_600_000);
+    const sent = manager
+      .getRepository(Notice)
+      .createQueryBuilder('n')
+      .select('MIN(n.created_at)', 'oldest')
+      .addSelect('COUNT(*)', 'count')
+      .where('n.kind = :kind', { kind: 'invitation' })
+      .andWhere('n.created_at > :since', { since });
+    const [byProject, byAddress] = await Promise.all([
+      sent.clone().andWhere('n.project_id = :projectId', { projectId }).getRawOne<MailCount>(),
+      sent
+        .clone()
+        .andWhere('JSON_CONTAINS(n.to_addresses, JSON_QUOTE(:email))', { email })
+        .getRawOne<MailCount>(),
+    ]);
+    const over = (c: MailCount | undefined, limit: number) => Number(c?.count ?? 0) >= limit;
+    const waitOf = (c: MailCount | undefined) =>
+      Math.max(60, Math.ceil((new Date(c?.oldest ?? Date.now()).getTime() + 3_600_000 - Date.now()) / 1000));
+    if (over(byProject, this.config.auth.invitationEmailLimit)) {
+      const seconds = waitOf(byProject);
+      throw new DomainException(
+        ErrorCode.TooManyRequests,
+        `This project has sent ${this.config.auth.invitationEmailLimit} invitation e-mails in the last hour, the most allowed. Try again in ${Math.ceil(seconds / 60)} min.`,
+        undefined,
+        { retryAfterSeconds: seconds },
+      );
+    }
+    if (over(byAddress, this.config.auth.invitationAddressLimit)) {
+      const seconds = waitOf(byAddress);
+      throw new DomainException(
+        ErrorCode.TooManyRequests,
+        `${email} has been sent ${this.config.auth.invitationAddressLimit} invitation e-mails in the last hour, the most allowed. Try again in ${Math.ceil(seconds / 60)} min.`,
+        undefined,
+        { retryAfterSeconds: seconds },
+      );
+    }
   }
 
   private toInvitationDto(i: Invitation, status: Map<string, NoticeStatus>): InvitationDto {
