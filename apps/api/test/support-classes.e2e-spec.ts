@@ -41,6 +41,30 @@ describe('Setup: support classes (e2e, real MariaDB)', () => {
     await app.close();
   });
 
+  it('twenty classes created at once: every one 201, numbered 1…N with no duplicate sort order (issue 18 item 4)', async () => {
+    const q = await makeProject(app, { code: `${code}Z` });
+    const answers = await Promise.all(
+      Array.from({ length: 20 }, (_, i) =>
+        request(http)
+          .post(`${q.base}/support-classes`)
+          .set(q.as('admin'))
+          .send({
+            code: `Z-${String(i).padStart(2, '0')}`,
+            name: `Class ${i}`,
+            maxRoundLength: 2,
+            qMin: 1 + i,
+            qMax: 2 + i,
+          }),
+      ),
+    );
+    expect(answers.filter((a) => a.status !== 201).map((a) => a.body as Body)).toEqual([]);
+    const library = await request(http).get(`${q.base}/support-classes`).set(q.as('admin')).expect(200);
+    const orders = (library.body.classes as Body[]).map((c) => c.sortOrder as number);
+    // makeProject's own small library first, then the twenty: 1…N, each once.
+    expect(orders.length).toBeGreaterThanOrEqual(20);
+    expect([...orders].sort((a, b) => a - b)).toEqual(Array.from({ length: orders.length }, (_, i) => i + 1));
+  });
+
   it('shows the library best ground first, with no range warnings', async () => {
     const res = await request(http).get(`${p.base}/support-classes`).set(p.as('supervisor')).expect(200);
     expect((res.body.classes as Body[]).map((c) => c.code)).toEqual(['SC-A', 'SC-B', 'SC-C']);

@@ -7,6 +7,7 @@ import { isRowReferenced } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { auditDiff, auditSnapshot } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
+import { Project } from '../projects/project.entity.js';
 import { supportClassWarnings } from './coverage.js';
 import type {
   CreateSupportClassDto,
@@ -78,6 +79,12 @@ export class SupportClassesService {
     dto: CreateSupportClassDto,
   ): Promise<SupportClassLibraryDto> {
     await this.dataSource.transaction(async (manager) => {
+      // The project row locked first: classes created at once are numbered one after the other (twenty
+      // concurrent creates got duplicate sort orders when each read the same last one).
+      await manager.findOne(Project, {
+        where: { id: access.projectId },
+        lock: { mode: 'pessimistic_write' },
+      });
       const draft = manager.create(SupportClass, {
         qMin: null,
         qMax: null,
