@@ -1,7 +1,7 @@
 // Local SMTP fake: accepts every message on 127.0.0.1, parses it with mailparser and keeps it under the mail
 // folder as <id>.eml (raw), <id>.json (summary) and <id>.att<n> (attachments) for the local mail view.
 import { randomUUID } from 'node:crypto';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
@@ -49,7 +49,10 @@ const server = new SMTPServer({
             html: typeof mail.html === 'string' ? mail.html : null,
             attachments,
           };
-          writeFileSync(path.join(dir, `${id}.json`), JSON.stringify(summary, null, 2));
+          // Written aside, then renamed: a reader in another process never sees half a summary (a test read
+          // one mid-write: "Unexpected end of JSON input"). The summary comes last, so the .eml is there too.
+          writeFileSync(path.join(dir, `${id}.json.part`), JSON.stringify(summary, null, 2));
+          renameSync(path.join(dir, `${id}.json.part`), path.join(dir, `${id}.json`));
           console.log(`received ${id}: ${summary.subject}`);
           callback();
         })
