@@ -210,19 +210,21 @@ export function AppShellRoute() {
         </div>
       </header>
 
-      <AccountDialog
-        open={accountOpen}
-        name={me.name}
-        email={me.email}
-        onClose={() => setAccountOpen(false)}
-        onPasswordChanged={(result) =>
-          saveSession({ accessToken: result.accessToken, expiresAt: result.expiresAt, user: result.user })
-        }
-        onSignedOutEverywhere={() => {
-          setAccountOpen(false);
-          void signOut();
-        }}
-      />
+      {accountOpen && (
+        <AccountDialog
+          open
+          name={me.name}
+          email={me.email}
+          onClose={() => setAccountOpen(false)}
+          onPasswordChanged={(result) =>
+            saveSession({ accessToken: result.accessToken, expiresAt: result.expiresAt, user: result.user })
+          }
+          onSignedOutEverywhere={() => {
+            setAccountOpen(false);
+            void signOut();
+          }}
+        />
+      )}
 
       <nav className={styles.nav} aria-label="Main">
         {navItems.map((item) => (

@@ -21,7 +21,7 @@ async function openAccount() {
   // The page first, so nothing mounts behind the open dialog.
   await screen.findByRole('heading', { level: 1, name: 'Local mail' });
   await user.click(screen.getByRole('button', { name: 'Account' }));
-  const dialog = await screen.findByRole('dialog', { name: 'Your account' });
+  const dialog = await screen.findByRole('dialog', { name: 'Your account' }, { timeout: 5000 });
   return { user, dialog };
 }
 
