@@ -67,7 +67,9 @@ export function orderedRange(
   sense: ChainageSenseCode | null | undefined,
 ): { fromChainage: number; toChainage: number } {
   const s = senseSign(sense);
-  return s * (to - from) >= 0 ? { fromChainage: from, toChainage: to } : { fromChainage: to, toChainage: from };
+  return s * (to - from) >= 0
+    ? { fromChainage: from, toChainage: to }
+    : { fromChainage: to, toChainage: from };
 }
 
 export interface HazardHeadingBounds extends Partial<ChainageStyleOf> {
@@ -91,7 +93,10 @@ export function hazardRangeErrors(
   const face = furthestFace ?? heading.startChainage;
   const ch = (m: number): string =>
     heading.chainageStyle
-      ? formatChainageFor(m, { chainageStyle: heading.chainageStyle, chainageDecimals: heading.chainageDecimals })
+      ? formatChainageFor(m, {
+          chainageStyle: heading.chainageStyle,
+          chainageDecimals: heading.chainageDecimals,
+        })
       : `${m} m`;
   for (const key of ['fromChainage', 'toChainage'] as const) {
     const c = range[key];

@@ -11,7 +11,14 @@ import {
   surfaceFacing,
 } from '@roundbook/geomath';
 import type { Plane } from '@roundbook/geomath';
-import { formatChainage, formatDipDirectionDip, formatQ, Q_RANGE, RMR_RANGE, roundedAsPrinted } from './format.js';
+import {
+  formatChainage,
+  formatDipDirectionDip,
+  formatQ,
+  Q_RANGE,
+  RMR_RANGE,
+  roundedAsPrinted,
+} from './format.js';
 import { compareHazards, hazardKindLabels, hazardPlaceFromFace, type HazardFact } from './hazards.js';
 import { LEVEL_RANK, SINGLE_FEATURE_KINDS, type TriggerLevel } from './vocabulary.js';
 

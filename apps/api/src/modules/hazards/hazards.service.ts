@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { compareHazards, hazardRangeErrors, orderedRange, type ChainageSenseCode } from '@roundbook/domain';
+import { compareHazards, hazardRangeErrors, orderedRange } from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
@@ -223,7 +223,8 @@ export class HazardsService {
             toChainage ?? hazard.toChainage,
           ),
         );
-      if (photoIds !== undefined) hazard.photoIds = await this.checkedPhotos(manager, access, heading, photoIds);
+      if (photoIds !== undefined)
+        hazard.photoIds = await this.checkedPhotos(manager, access, heading, photoIds);
       const diff = auditDiff(before, hazard, AUDITED);
       if (!diff) return;
       await manager.save(hazard);
@@ -333,7 +334,7 @@ export class HazardsService {
       'SELECT MAX(face_chainage) AS hi, MIN(face_chainage) AS lo FROM rounds WHERE heading_id = ?',
       [heading.id],
     );
-    const pick = (heading.chainageSense as ChainageSenseCode) === 'decreasing' ? rows[0]?.lo : rows[0]?.hi;
+    const pick = heading.chainageSense === 'decreasing' ? rows[0]?.lo : rows[0]?.hi;
     return pick === null || pick === undefined ? null : Number(pick);
   }
 

@@ -1,4 +1,5 @@
 import { ApiProperty } from '@nestjs/swagger';
+import type { HazardKind, HazardOrigin, HazardStatus, TriggerLevel } from '@roundbook/domain';
 import {
   ArrayMaxSize,
   IsArray,
@@ -12,7 +13,6 @@ import {
   Max,
   Min,
 } from 'class-validator';
-import type { HazardKind, HazardOrigin, HazardStatus, TriggerLevel } from '@roundbook/domain';
 import { Optional } from '../../../common/dto/optional.js';
 import { HAZARD_KINDS, HAZARD_LEVELS, HAZARD_ORIGINS, HAZARD_STATUSES } from '../hazard.entity.js';
 
