@@ -2098,12 +2098,18 @@ export interface components {
             handoverId?: string | null;
             /** @description Stored photos of this heading's rounds that show it */
             photoIds?: string[];
+            /** @description One end of the range, m (the ends may come in either order) */
+            fromChainage: number;
+            /** @description The other end, m (the same as from for a hazard at one place) */
+            toChainage: number;
             description: string;
         };
         UpdateHazardDto: {
             kind?: components["schemas"]["HazardKind"];
             level?: components["schemas"]["TriggerLevel"];
             photoIds?: string[];
+            fromChainage?: number;
+            toChainage?: number;
             description?: string;
             /** @description The version the change was made on (a stale one is refused with the current hazard) */
             version: number;

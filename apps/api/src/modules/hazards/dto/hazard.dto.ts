@@ -18,7 +18,6 @@ import { HAZARD_KINDS, HAZARD_LEVELS, HAZARD_ORIGINS, HAZARD_STATUSES } from '..
 
 /** At most this many photos are linked to one hazard. */
 export const MAX_HAZARD_PHOTOS = 20;
-const CHAINAGE_LIMIT = 1e6;
 
 /** A hazard as the register, the handover and the trigger rules read it. */
 export class HazardDto {
@@ -76,14 +75,14 @@ export class CreateHazardDto {
 
   /** One end of the range, m (the ends may come in either order) */
   @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give the chainage in metres.' })
-  @Min(-CHAINAGE_LIMIT)
-  @Max(CHAINAGE_LIMIT)
+  @Min(-999999)
+  @Max(999999)
   fromChainage: number;
 
   /** The other end, m (the same as from for a hazard at one place) */
   @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give the chainage in metres.' })
-  @Min(-CHAINAGE_LIMIT)
-  @Max(CHAINAGE_LIMIT)
+  @Min(-999999)
+  @Max(999999)
   toChainage: number;
 
   @IsIn(HAZARD_LEVELS)
@@ -130,14 +129,14 @@ export class UpdateHazardDto {
 
   @Optional()
   @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give the chainage in metres.' })
-  @Min(-CHAINAGE_LIMIT)
-  @Max(CHAINAGE_LIMIT)
+  @Min(-999999)
+  @Max(999999)
   fromChainage?: number;
 
   @Optional()
   @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give the chainage in metres.' })
-  @Min(-CHAINAGE_LIMIT)
-  @Max(CHAINAGE_LIMIT)
+  @Min(-999999)
+  @Max(999999)
   toChainage?: number;
 
   @Optional()
