@@ -8,6 +8,7 @@ import {
   DialogTitle,
   Field,
   makeStyles,
+  mergeClasses,
   MessageBar,
   MessageBarBody,
   Spinner,
@@ -188,7 +189,7 @@ function HazardCard({
   const kind = hazardKindLabels[hazard.kind];
   return (
     <li aria-label={`${kind} ${rangeText(hazard, heading)}, ${hazard.level}, ${hazard.status}`}>
-      <Card className={`${styles.card} ${open ? styles[hazard.level] : styles.closed}`}>
+      <Card className={mergeClasses(styles.card, open ? styles[hazard.level] : styles.closed)}>
         <div className={styles.head}>
           <TriggerLevelBadge level={hazard.level} />
           <span className={styles.kind}>{kind}</span>
@@ -230,7 +231,7 @@ export function HazardRegister({ projectId, heading, role, faceChainage = null }
   if (isPending) return <Spinner label="Reading the hazards…" />;
   if (isError)
     return (
-      <MessageBar intent="error">
+      <MessageBar intent="error" layout="multiline">
         <MessageBarBody>
           The hazards could not be read.{' '}
           <Button appearance="transparent" onClick={() => void refetch()}>

@@ -55,7 +55,7 @@ export function RaiseHazardButton({
       </Button>
       {raised && (
         <div role="status">
-          <MessageBar intent="success">
+          <MessageBar intent="success" layout="multiline">
             <MessageBarBody>
               {`${hazardKindLabels[raised.kind]} raised on ${heading.code}; it is on the heading’s Hazards tab.`}
             </MessageBarBody>
