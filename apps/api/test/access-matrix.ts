@@ -27,6 +27,10 @@ const GEOLOGIST: readonly Actor[] = ['geologist'];
 const ENGINEER: readonly Actor[] = ['engineer'];
 const GEOLOGIST_OR_ENGINEER: readonly Actor[] = ['geologist', 'engineer'];
 const OPERATOR: readonly Actor[] = ['operator'];
+/** Everyone of the project but viewers (hazards are raised by whoever sees them). */
+const CONTRIBUTORS: readonly Actor[] = ['admin', 'geologist', 'engineer', 'supervisor'];
+/** Who may close a hazard: engineers and supervisors (and admins). */
+const HAZARD_CLOSERS: readonly Actor[] = ['admin', 'engineer', 'supervisor'];
 
 /** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
 export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
@@ -105,6 +109,13 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'DELETE /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}': GEOLOGIST_OR_ADMIN,
   'GET /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/url': MEMBERS,
 
+  // Hazards (issue 15 item 1): the register of a heading.
+  'GET /api/projects/{projectId}/headings/{headingId}/hazards': MEMBERS,
+  'POST /api/projects/{projectId}/headings/{headingId}/hazards': CONTRIBUTORS,
+  'GET /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': MEMBERS,
+  'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': CONTRIBUTORS,
+  'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close': HAZARD_CLOSERS,
+
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,
   'GET /api/local/mail': OPERATOR,
@@ -123,4 +134,6 @@ export const ROLE_SETS = {
   ENGINEER_OR_ADMIN,
   GEOLOGIST,
   OPERATOR,
+  CONTRIBUTORS,
+  HAZARD_CLOSERS,
 };

@@ -142,6 +142,9 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/rounds/{roundId}/photos',
   'POST /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/complete',
   'PATCH /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}',
+  'POST /api/projects/{projectId}/headings/{headingId}/hazards',
+  'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}',
+  'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close',
 ];
 
 function withValue(body: Body, where: string, value: unknown): Body {
@@ -385,6 +388,34 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         url: `${p.base}/rounds/${round.id}/photos/${round.id}`,
         as: p.as('geologist'),
         body: { caption: 'Crown, left of axis' },
+      },
+      // Hazards (issue 15): the body is checked before the hazard is looked up.
+      {
+        key: 'POST /api/projects/{projectId}/headings/{headingId}/hazards',
+        url: `${p.base}/headings/${p.headingId}/hazards`,
+        as: p.as('geologist'),
+        body: {
+          kind: 'wedge',
+          fromChainage: 1001,
+          toChainage: 1003,
+          level: 'red',
+          description: 'Wedge in the crown.',
+          origin: 'round',
+          roundId: round.id,
+          photoIds: [],
+        },
+      },
+      {
+        key: 'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}',
+        url: `${p.base}/headings/${p.headingId}/hazards/${round.id}`,
+        as: p.as('engineer'),
+        body: { version: 1, level: 'amber', fromChainage: 1001, description: 'Smaller than first seen.' },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close',
+        url: `${p.base}/headings/${p.headingId}/hazards/${round.id}/close`,
+        as: p.as('engineer'),
+        body: { version: 1, reason: 'Scaled down and bolted.' },
       },
     );
   });

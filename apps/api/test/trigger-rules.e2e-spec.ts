@@ -100,7 +100,7 @@ describe('Setup: trigger rules (e2e, real MariaDB)', () => {
     expect(await lastAudit(rule.id as string)).toMatchObject({ action: 'delete' });
   });
 
-  it('previews a rule on the project’s own rounds without saving it; a rule that waits on hazards is not evaluated', async () => {
+  it('previews a rule on the project’s own rounds without saving it; the open-red-hazard rule reads the heading’s register', async () => {
     // Two rounds with Q: 60/4 × 1.5/2 × 1/1 = 11.25 and 10/12 × 1/8 × 0.66/2.5 ≈ 0.0275 (Barton et al. 1974, Q = RQD/Jn × Jr/Ja × Jw/SRF) [computed here].
     const qInputs = [
       { rqd: 60, jn: 4, jr: 1.5, ja: 2, jw: 1, srf: 1 },
@@ -148,11 +148,8 @@ describe('Setup: trigger rules (e2e, real MariaDB)', () => {
         timeAllowedHours: 1,
       })
       .expect(200);
-    expect(hazard.body).toMatchObject({
-      evaluatedRounds: 0,
-      matches: [],
-      notEvaluated: expect.stringMatching(/Hazards/),
-    });
+    // Both rounds were assessed with the heading's register, which holds no hazard: evaluated, clear.
+    expect(hazard.body).toMatchObject({ evaluatedRounds: 2, matches: [], notEvaluated: null });
     await request(http).post(`${p.base}/trigger-rules/preview`).set(p.as('geologist')).send({}).expect(403);
     const rules = (await request(http).get(`${p.base}/trigger-rules`).set(p.as('admin')).expect(200))
       .body as Body[];

@@ -10,6 +10,7 @@ import {
   type GoverningDiscontinuity,
 } from './governing.js';
 import { groundErrors, pointLoadWarning } from './ground.js';
+import type { HazardFact } from './hazards.js';
 import {
   computeRatings,
   RATING_EDITIONS,
@@ -38,7 +39,7 @@ import { SINGLE_FEATURE_KINDS, type JointKind } from './vocabulary.js';
 import { readWater, waterConditionWarning } from './water.js';
 
 /** The version of the rules that produced an assessment (stored with it; bump when a rule changes). */
-export const ASSESSMENT_VERSION = 'domain-3';
+export const ASSESSMENT_VERSION = 'domain-4';
 
 export interface GroundRecord {
   units: Array<{
@@ -101,6 +102,8 @@ export interface AssessmentContext {
   qTableEdition?: string;
   /** The project's scale of weathering and strength grades (default ISRM). */
   groundScale?: GroundScale;
+  /** The heading's open hazards (the register); absent: not read, so the open-red-hazard rule is not evaluated. */
+  openHazards?: HazardFact[];
 }
 
 export interface FeatureAssessment {
@@ -227,6 +230,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       faceOffset: j.faceOffset ?? null,
     })),
     sets: sets.sets.map((s) => ({ label: s.label, plane: s.mean, count: s.count })),
+    ...(context.openHazards !== undefined ? { openHazards: context.openHazards } : {}),
   };
   const qEdition = context.qTableEdition
     ? `${RATING_EDITIONS.q}; project tables: ${context.qTableEdition} edition`

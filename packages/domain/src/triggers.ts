@@ -11,7 +11,15 @@ import {
   surfaceFacing,
 } from '@roundbook/geomath';
 import type { Plane } from '@roundbook/geomath';
-import { formatDipDirectionDip, formatQ, Q_RANGE, RMR_RANGE, roundedAsPrinted } from './format.js';
+import {
+  formatChainage,
+  formatDipDirectionDip,
+  formatQ,
+  Q_RANGE,
+  RMR_RANGE,
+  roundedAsPrinted,
+} from './format.js';
+import { compareHazards, hazardKindLabels, hazardPlaceFromFace, type HazardFact } from './hazards.js';
 import { LEVEL_RANK, SINGLE_FEATURE_KINDS, type TriggerLevel } from './vocabulary.js';
 
 export const WATCHED = [
@@ -62,11 +70,8 @@ export const comparisonLabels: Record<Comparison, string> = {
   '=': 'equal to (=)',
 };
 
-/** Rules that cannot fire until a later feature records what they watch. */
-export const WAITING_RULES: Partial<Record<Watched, string>> = {
-  'open-red-hazard':
-    'Hazards are not recorded in Roundbook yet, so this rule cannot fire (waiting for hazards).',
-};
+/** Rules that cannot fire until a later feature records what they watch (none at present). */
+export const WAITING_RULES: Partial<Record<Watched, string>> = {};
 
 export interface TriggerRuleInput {
   id: string;
@@ -150,6 +155,11 @@ export interface RoundFacts {
   joints: FactJoint[];
   /** The round's sets as found by its assessment; when absent the sets are the joints' labels. */
   sets?: Array<{ label: string; plane: Plane; count: number }>;
+  /**
+   * The heading's open hazards when the round was assessed (the register, any stage); absent in facts
+   * stored before hazards were recorded, so the open-red-hazard rule is then not evaluated.
+   */
+  openHazards?: HazardFact[];
 }
 
 export interface HeadingGeometry {
@@ -390,8 +400,37 @@ export function evaluateRuleOutcome(
         }${others ? `; ${others}` : ''}`,
       };
     }
-    case 'open-red-hazard':
-      return { state: 'waiting', detail: WAITING_RULES['open-red-hazard']! };
+    case 'open-red-hazard': {
+      // Any open red hazard on the heading fires, wherever its range lies: a red hazard behind the face is
+      // still in the ground the crews pass and work under, and it stays red until someone closes it.
+      if (round.openHazards === undefined)
+        return { state: 'not-evaluated', detail: 'the heading’s open hazards were not read for this round' };
+      const red = round.openHazards
+        .filter((h) => h.level === 'red')
+        .sort((a, b) => compareHazards(a, b, heading.chainageSense === -1 ? 'decreasing' : 'increasing'));
+      if (red.length === 0) return { state: 'clear' };
+      const place = (h: HazardFact): string => {
+        const p = hazardPlaceFromFace(
+          h,
+          round.faceChainage,
+          heading.chainageSense === -1 ? 'decreasing' : 'increasing',
+        );
+        return p.where === 'at-face'
+          ? 'reaching this face'
+          : `${p.distance.toFixed(1)} m ${p.where === 'behind' ? 'behind' : 'ahead of'} this face`;
+      };
+      const range = (h: HazardFact): string =>
+        h.fromChainage === h.toChainage
+          ? `at ${formatChainage(h.fromChainage)}`
+          : `${formatChainage(h.fromChainage)}–${formatChainage(h.toChainage)}`;
+      return {
+        state: 'fired',
+        value: red.length,
+        detail: `${red.length === 1 ? 'Open red hazard' : `${red.length} open red hazards`}: ${red
+          .map((h) => `${hazardKindLabels[h.kind].toLowerCase()} ${range(h)} (${place(h)})`)
+          .join('; ')}`,
+      };
+    }
   }
 }
 

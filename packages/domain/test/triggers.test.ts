@@ -158,10 +158,52 @@ describe('rules whose input is missing (issue 10: never green)', () => {
     expect(assessTriggers(rules, { ...base, rmr: null }, heading).level).toBe('red');
   });
 
-  it('lists the open-red-hazard rule as waiting, not evaluated and not enabled-and-clear', () => {
+  it('does not evaluate the open-red-hazard rule on facts stored before hazards were read', () => {
     const r = assessTriggers([rule('open-red-hazard')], base, heading);
-    expect(r.waiting).toHaveLength(1);
+    expect(r.waiting).toHaveLength(0);
+    expect(r.notEvaluated.map((n) => n.ruleId)).toEqual(['open-red-hazard']);
     expect(r.level).toBeNull();
+  });
+
+  it('fires red on any open red hazard of the heading, saying where it lies from this face; amber ones do not fire it', () => {
+    const hazard = (
+      id: string,
+      level: 'green' | 'amber' | 'red',
+      fromChainage: number,
+      toChainage: number,
+      kind: 'wedge' | 'gas' | 'water' = 'wedge',
+    ) => ({ id, kind, level, fromChainage, toChainage, description: '' });
+    const clear = assessTriggers(
+      [rule('open-red-hazard', { level: 'red' })],
+      { ...base, openHazards: [hazard('a', 'amber', 990, 1000)] },
+      heading,
+    );
+    expect(clear.level).toBe('green');
+    expect(clear.firings).toHaveLength(0);
+
+    const fired = assessTriggers(
+      [rule('open-red-hazard', { level: 'red' })],
+      {
+        ...base,
+        openHazards: [
+          hazard('b', 'red', 980, 985, 'gas'),
+          hazard('a', 'amber', 990, 1000),
+          hazard('c', 'red', 996, 1002),
+        ],
+      },
+      heading,
+    );
+    expect(fired.level).toBe('red');
+    expect(fired.firings[0].detail).toBe(
+      '2 open red hazards: gas 0+980.0–0+985.0 (15.0 m behind this face); wedge 0+996.0–1+002.0 (reaching this face)',
+    );
+    expect(
+      evaluateRuleOutcome(
+        { watch: 'open-red-hazard', comparison: null, threshold: null },
+        { ...base, openHazards: [] },
+        heading,
+      ),
+    ).toEqual({ state: 'clear' });
   });
 
   it('compares at the figures it prints: Q 0.098 reads "0.098", Q 0.1004 is not "< 0.1" [common practice]', () => {

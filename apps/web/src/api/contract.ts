@@ -60,3 +60,9 @@ export type InviteRequest = Schemas['InviteDto'];
 export type InvitationInfo = Schemas['InvitationInfoDto'];
 export type AcceptInvitationRequest = Schemas['AcceptInvitationDto'];
 export type CreateProjectRequest = Schemas['CreateProjectDto'];
+
+export type Hazard = Schemas['HazardDto'];
+export type HazardKind = Schemas['HazardKind'];
+export type CreateHazardRequest = Schemas['CreateHazardDto'];
+export type UpdateHazardRequest = Schemas['UpdateHazardDto'];
+export type CloseHazardRequest = Schemas['CloseHazardDto'];

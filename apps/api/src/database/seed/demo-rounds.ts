@@ -329,6 +329,8 @@ export async function seedDemoRounds(
         rules,
         qTableEdition: project.qTableEdition,
         groundScale: project.groundScale,
+        // The demo's register holds no hazard while its rounds are mapped.
+        openHazards: [],
       },
     );
     for (const j of jointRows)

@@ -2,6 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { assessRound, DEFAULT_SET_PARAMETERS, type RoundAssessment } from '@roundbook/domain';
 import { Brackets, DataSource, type EntityManager } from 'typeorm';
+import { HazardsService } from '../hazards/hazards.service.js';
 import { headingGeometry } from '../headings/heading-geometry.js';
 import type { Heading } from '../headings/heading.entity.js';
 import { HeadingsService } from '../headings/headings.service.js';
@@ -59,6 +60,7 @@ export class RoundAssessor {
     @Inject(SupportClassesService) private readonly supportClasses: SupportClassesService,
     @Inject(TriggerRulesService) private readonly triggerRules: TriggerRulesService,
     @Inject(ProjectsService) private readonly projects: ProjectsService,
+    @Inject(HazardsService) private readonly hazards: HazardsService,
   ) {}
 
   async assess(
@@ -68,7 +70,7 @@ export class RoundAssessor {
     heading?: Heading,
   ): Promise<RoundAssessment> {
     const parameters = round.setParameters ?? DEFAULT_SET_PARAMETERS;
-    const [h, classes, rules, project, previous, nearby] = await Promise.all([
+    const [h, classes, rules, project, previous, nearby, openHazards] = await Promise.all([
       heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
       this.supportClasses.classesOf(round.projectId),
       this.triggerRules.rulesOf(round.projectId),
@@ -80,6 +82,7 @@ export class RoundAssessor {
           })
         : Promise.resolve(null),
       nearbyPlanes(manager, round, parameters.windowM),
+      this.hazards.openForHeading(round.headingId, manager),
     ]);
     if (!h) throw new Error(`Heading ${round.headingId} of round ${round.id} is missing`);
     return assessRound(
@@ -120,6 +123,15 @@ export class RoundAssessor {
         rules,
         qTableEdition: project.qTableEdition,
         groundScale: project.groundScale,
+        // The heading's open hazards as the register holds them now (the open-red-hazard rule reads them).
+        openHazards: openHazards.map((z) => ({
+          id: z.id,
+          kind: z.kind,
+          level: z.level,
+          fromChainage: z.fromChainage,
+          toChainage: z.toChainage,
+          description: z.description,
+        })),
       },
     );
   }

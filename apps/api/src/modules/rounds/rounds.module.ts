@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { IdempotencyKey } from '../../common/idempotency/idempotency-key.entity.js';
 import { ROUNDS_READ } from '../../common/ports/rounds-read.port.js';
 import { AuditModule } from '../audit/audit.module.js';
+import { HazardsModule } from '../hazards/hazards.module.js';
 import { HeadingsModule } from '../headings/headings.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { ProjectsModule } from '../projects/projects.module.js';
@@ -42,6 +43,7 @@ import { RoundsReview } from './rounds.review.js';
     HeadingsModule,
     SupportClassesModule,
     TriggerRulesModule,
+    HazardsModule,
   ],
   controllers: [RoundsController, RoundReviewController, ReviewQueueController],
   providers: [

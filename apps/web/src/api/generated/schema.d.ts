@@ -736,6 +736,59 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/headings/{headingId}/hazards": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The heading's hazards: open ones first (red, amber, green; then by chainage), then closed, latest first (any member) */
+        get: operations["HazardsController_list"];
+        put?: never;
+        /** Raises a hazard on the heading, directly, from a round or from a handover (geologists, engineers, supervisors, admins). A retry with the same Idempotency-Key (or hazard id) returns the first result. */
+        post: operations["HazardsController_create"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One hazard (any member) */
+        get: operations["HazardsController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /** Changes an open hazard: kind, range, level, description, photos (geologists, engineers, supervisors, admins) */
+        patch: operations["HazardsController_update"];
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Closes the hazard with the reason it no longer stands (engineers, supervisors, admins) */
+        post: operations["HazardsController_close"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -1984,6 +2037,86 @@ export interface components {
             /** Format: date-time */
             expiresAt: string;
             url: string;
+        };
+        /** @enum {string} */
+        HazardListStatus: "open" | "closed" | "all";
+        /** @enum {string} */
+        HazardKind: "loose-ground" | "wedge" | "water" | "gas" | "misfire" | "probe-finding" | "overbreak" | "other";
+        /** @enum {string} */
+        HazardOrigin: "round" | "handover" | "direct";
+        /** @enum {string} */
+        HazardStatus: "open" | "closed";
+        HazardDto: {
+            kind: components["schemas"]["HazardKind"];
+            level: components["schemas"]["TriggerLevel"];
+            origin: components["schemas"]["HazardOrigin"];
+            /** Format: uuid */
+            roundId: string | null;
+            /** @description The round's number on its heading and stage, when raised on a round */
+            roundNumber: number | null;
+            /** Format: uuid */
+            handoverId: string | null;
+            photoIds: string[];
+            status: components["schemas"]["HazardStatus"];
+            raisedByName: string | null;
+            /** Format: date-time */
+            raisedAt: string;
+            closedBy: string | null;
+            closedByName: string | null;
+            /** Format: date-time */
+            closedAt: string | null;
+            closeReason: string | null;
+            id: string;
+            headingId: string;
+            /** @description The range's end nearer the heading's start, m */
+            fromChainage: number;
+            /** @description The range's far end along the drive, m */
+            toChainage: number;
+            description: string;
+            raisedBy: string;
+            version: number;
+        };
+        CreateHazardDto: {
+            /**
+             * Format: uuid
+             * @description The hazard's id (a UUID the client makes, so a retry finds it); made by the API when absent
+             */
+            id?: string;
+            kind: components["schemas"]["HazardKind"];
+            level: components["schemas"]["TriggerLevel"];
+            /** @description Where it is raised (default: directly on the register) */
+            origin?: components["schemas"]["HazardOrigin"];
+            /**
+             * Format: uuid
+             * @description The round of this heading it was raised on (origin round)
+             */
+            roundId?: string | null;
+            /**
+             * Format: uuid
+             * @description The handover it was raised on (origin handover)
+             */
+            handoverId?: string | null;
+            /** @description Stored photos of this heading's rounds that show it */
+            photoIds?: string[];
+            /** @description One end of the range, m (the ends may come in either order) */
+            fromChainage: number;
+            /** @description The other end, m (the same as from for a hazard at one place) */
+            toChainage: number;
+            description: string;
+        };
+        UpdateHazardDto: {
+            kind?: components["schemas"]["HazardKind"];
+            level?: components["schemas"]["TriggerLevel"];
+            photoIds?: string[];
+            fromChainage?: number;
+            toChainage?: number;
+            description?: string;
+            /** @description The version the change was made on (a stale one is refused with the current hazard) */
+            version: number;
+        };
+        CloseHazardDto: {
+            reason: string;
+            version: number;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -4352,6 +4485,225 @@ export interface operations {
             };
             /** @description Object storage unreachable (Retry-After) */
             503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HazardsController_list: {
+        parameters: {
+            query?: {
+                /** @description Which hazards to list (default all, open first) */
+                status?: components["schemas"]["HazardListStatus"];
+            };
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HazardDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HazardsController_create: {
+        parameters: {
+            query?: never;
+            header?: {
+                /** @description A key (e.g. a UUID) the client keeps for this create; a retried request returns the hazard the first one made */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateHazardDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HazardDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, engineer, supervisor, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HazardsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+                hazardId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HazardDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HazardsController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+                hazardId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateHazardDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HazardDto"];
+                };
+            };
+            /** @description Member without one of the roles: geologist, engineer, supervisor, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Stale version, or the hazard is closed */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HazardsController_close: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+                hazardId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CloseHazardDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HazardDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer, supervisor, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Stale version, or already closed */
+            409: {
                 headers: {
                     [name: string]: unknown;
                 };

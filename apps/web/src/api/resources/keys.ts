@@ -42,6 +42,9 @@ export const resourceKeys = {
     [...resourceKeys.headingRounds(projectId, headingId), filters] as const,
   nextRound: (projectId: string, headingId: string, stage: string) =>
     [...resourceKeys.headingRounds(projectId, headingId), 'next', { stage }] as const,
+  /** The heading's hazard register (GET …/headings/{headingId}/hazards). */
+  headingHazards: (projectId: string, headingId: string) =>
+    [...resourceKeys.heading(projectId, headingId), 'hazards'] as const,
   nearbyJoints: (projectId: string, headingId: string, window: JointWindow) =>
     [...resourceKeys.heading(projectId, headingId), 'joints', window] as const,
   /** Parent of every round of the project (GET /projects/{id}/rounds/{roundId}). */

@@ -57,4 +57,22 @@ describe('Heading screen', () => {
     await user.click(screen.getByRole('tab', { name: 'Rounds' }));
     expect(screen.queryByRole('img', { name: /stereonet/ })).toBeNull();
   });
+
+  it('opens the Hazards tab on the heading’s register', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects/p-1': project,
+      'GET /api/projects/p-1/headings/h-1': heading,
+      'GET /api/projects/p-1/headings/h-1/rounds': () =>
+        jsonResponse({ items: [roundRow], total: 1, page: 1, pageSize: 1 }),
+      'GET /api/projects/p-1/headings/h-1/hazards': [],
+    });
+    renderApp('/projects/p-1/headings/h-1');
+    const user = userEvent.setup();
+    const tab = await screen.findByRole('tab', { name: 'Hazards' });
+    expect(tab).toBeEnabled();
+    await user.click(tab);
+    expect(await screen.findByText('No open hazard on this heading')).toBeInTheDocument();
+  });
 });

@@ -10,6 +10,7 @@ import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
+import { HazardRegister } from '@/features/hazards/components/hazard-register';
 import { HeadingOrientation } from '@/features/orientation/components/heading-orientation';
 import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
 import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
@@ -34,7 +35,7 @@ const useStyles = makeStyles({
   back: { minHeight: `${TOUCH_TARGET_PX}px` },
 });
 
-/** Heading: its rounds (the other tabs come with later work). */
+/** Heading: its rounds, orientation and hazards (the other tabs come with later work). */
 export function HeadingRoute() {
   const styles = useStyles();
   const navigate = useNavigate();
@@ -82,8 +83,8 @@ export function HeadingRoute() {
         <Tab className={styles.tab} value="orientation">
           Orientation
         </Tab>
-        <Tab className={styles.tab} value="hazards" disabled>
-          Hazards (coming)
+        <Tab className={styles.tab} value="hazards">
+          Hazards
         </Tab>
         <Tab className={styles.tab} value="handovers" disabled>
           Handovers (coming)
@@ -91,6 +92,8 @@ export function HeadingRoute() {
       </TabList>
       {tab === 'orientation' ? (
         <HeadingOrientation projectId={projectId} heading={heading} highContrast={mode === 'high-contrast'} />
+      ) : tab === 'hazards' ? (
+        <HazardRegister projectId={projectId} heading={heading} role={project.role} />
       ) : (
         <RoundsTable projectId={projectId} heading={heading} />
       )}

@@ -12,6 +12,7 @@ import { roundQueryOptions } from '@/api/resources/rounds';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
 import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
+import { RaiseHazardButton } from '@/features/hazards/components/raise-hazard-button';
 import { RoundOrientationPanel } from '@/features/orientation/components/round-orientation-panel';
 import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
@@ -38,7 +39,10 @@ export const clientLoader =
       return null;
     });
 
-const useStyles = makeStyles({ back: { minHeight: `${TOUCH_TARGET_PX}px`, marginBottom: '8px' } });
+const useStyles = makeStyles({
+  back: { minHeight: `${TOUCH_TARGET_PX}px` },
+  bar: { display: 'flex', flexWrap: 'wrap', gap: '12px', alignItems: 'center', marginBottom: '8px' },
+});
 
 /** Round: one mapped face, edited by the geologist while it is a draft; read only otherwise. */
 export function RoundRoute() {
@@ -59,11 +63,22 @@ export function RoundRoute() {
   };
   return (
     <>
-      <Link to={`/projects/${projectId}/headings/${heading.id}`}>
-        <Button className={styles.back} size="large" appearance="subtle" icon={<ArrowLeftRegular />}>
-          {`Rounds of ${heading.code}`}
-        </Button>
-      </Link>
+      <div className={styles.bar}>
+        <Link to={`/projects/${projectId}/headings/${heading.id}`}>
+          <Button className={styles.back} size="large" appearance="subtle" icon={<ArrowLeftRegular />}>
+            {`Rounds of ${heading.code}`}
+          </Button>
+        </Link>
+        {project.role !== 'viewer' && (
+          <RaiseHazardButton
+            projectId={projectId}
+            heading={heading}
+            faceChainage={round.faceChainage}
+            round={{ id: round.id, roundNumber: round.roundNumber }}
+            appearance="secondary"
+          />
+        )}
+      </div>
       <RoundEditor
         key={round.id}
         projectId={projectId}
