@@ -4,6 +4,7 @@ import type { AppConfig } from '../config/app-config.js';
 import { Job } from '../infrastructure/jobs/job.entity.js';
 import { Notice } from '../infrastructure/mail/notice.entity.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
+import { Handover, HandoverHeading } from '../modules/handovers/handover.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { Photo } from '../modules/photos/photo.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
@@ -41,6 +42,8 @@ export const entities = [
   Job,
   Notice,
   Photo,
+  Handover,
+  HandoverHeading,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */
