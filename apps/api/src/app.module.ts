@@ -11,6 +11,7 @@ import { AuditModule } from './modules/audit/audit.module.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { JwtAuthGuard } from './modules/auth/jwt-auth.guard.js';
 import { BoardModule } from './modules/board/board.module.js';
+import { HandoversModule } from './modules/handovers/handovers.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
@@ -40,6 +41,7 @@ export class AppModule {
         TeamModule,
         RoundsModule,
         PhotosModule,
+        HandoversModule,
         BoardModule,
         HealthModule,
         LocalMailModule,

@@ -29,8 +29,12 @@ export class Handovers1796310000000 implements MigrationInterface {
 
   public async down(queryRunner: QueryRunner): Promise<void> {
     await queryRunner.query(`ALTER TABLE \`notices\` DROP COLUMN \`attachments\``);
-    await queryRunner.query(`ALTER TABLE \`handover_headings\` DROP FOREIGN KEY \`FK_handover_headings_heading\``);
-    await queryRunner.query(`ALTER TABLE \`handover_headings\` DROP FOREIGN KEY \`FK_handover_headings_handover\``);
+    await queryRunner.query(
+      `ALTER TABLE \`handover_headings\` DROP FOREIGN KEY \`FK_handover_headings_heading\``,
+    );
+    await queryRunner.query(
+      `ALTER TABLE \`handover_headings\` DROP FOREIGN KEY \`FK_handover_headings_handover\``,
+    );
     await queryRunner.query(`ALTER TABLE \`handovers\` DROP FOREIGN KEY \`FK_handovers_project\``);
     await queryRunner.query(`DROP TABLE \`handover_headings\``);
     await queryRunner.query(`DROP TABLE \`handovers\``);
