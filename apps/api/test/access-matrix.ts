@@ -27,6 +27,8 @@ const GEOLOGIST: readonly Actor[] = ['geologist'];
 const ENGINEER: readonly Actor[] = ['engineer'];
 const GEOLOGIST_OR_ENGINEER: readonly Actor[] = ['geologist', 'engineer'];
 const OPERATOR: readonly Actor[] = ['operator'];
+const SUPERVISOR: readonly Actor[] = ['supervisor'];
+const SUPERVISOR_OR_ADMIN: readonly Actor[] = ['admin', 'supervisor'];
 
 /** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
 export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
@@ -105,6 +107,17 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'DELETE /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}': GEOLOGIST_OR_ADMIN,
   'GET /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/url': MEMBERS,
 
+  // Handovers (issue 15): supervisors and admins compose and send; the incoming supervisor named on it
+  // acknowledges (checked on the handover: other supervisors get 403 there); every member reads them.
+  'GET /api/projects/{projectId}/handovers/draft': SUPERVISOR_OR_ADMIN,
+  'POST /api/projects/{projectId}/handovers': SUPERVISOR_OR_ADMIN,
+  'GET /api/projects/{projectId}/handovers/{handoverId}': MEMBERS,
+  'GET /api/projects/{projectId}/handovers/{handoverId}/pdf': MEMBERS,
+  'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge': SUPERVISOR,
+  'GET /api/projects/{projectId}/headings/{headingId}/handovers': MEMBERS,
+  // Handovers addressed to the caller, across their projects; empty for everyone else.
+  'GET /api/handovers/received': SIGNED_IN,
+
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,
   'GET /api/local/mail': OPERATOR,
@@ -123,4 +136,6 @@ export const ROLE_SETS = {
   ENGINEER_OR_ADMIN,
   GEOLOGIST,
   OPERATOR,
+  SUPERVISOR,
+  SUPERVISOR_OR_ADMIN,
 };

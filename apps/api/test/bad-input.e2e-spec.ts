@@ -142,6 +142,8 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/rounds/{roundId}/photos',
   'POST /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/complete',
   'PATCH /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}',
+  'POST /api/projects/{projectId}/handovers',
+  'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
 ];
 
 function withValue(body: Body, where: string, value: unknown): Body {
@@ -385,6 +387,26 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         url: `${p.base}/rounds/${round.id}/photos/${round.id}`,
         as: p.as('geologist'),
         body: { caption: 'Crown, left of axis' },
+      },
+      {
+        // The only supervisor hands over to themselves: a body that passes validation still gets a 400.
+        key: 'POST /api/projects/{projectId}/handovers',
+        url: `${p.base}/handovers`,
+        as: p.as('supervisor'),
+        body: {
+          shiftDate: '2026-12-03',
+          shift: 'night',
+          incomingUserId: (team.members as Body[]).find((m) => m.role === 'supervisor')!.userId as string,
+          headings: [{ headingId: p.headingId, cycleStage: 'drilling', notes: '' }],
+          generalNotes: 'Invented notes',
+          extraRecipients: ['office@roundbook.test'],
+        },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
+        url: `${p.base}/handovers/${round.id}/acknowledge`,
+        as: p.as('supervisor'),
+        body: { comment: 'Understood.' },
       },
     );
   });

@@ -9,6 +9,7 @@ import {
   IsArray,
   IsEmail,
   IsIn,
+  IsObject,
   IsOptional,
   IsString,
   IsUUID,
@@ -149,6 +150,7 @@ export class ComposeHandoverDto {
   @IsArray()
   @ArrayMinSize(1, { message: 'Hand over at least one heading.' })
   @ArrayMaxSize(MAX_HANDOVER_HEADINGS)
+  @IsObject({ each: true, message: 'Each heading is an object with headingId and cycleStage.' })
   @ValidateNested({ each: true })
   @Type(() => ComposeHandoverHeadingDto)
   @ApiProperty({ type: [ComposeHandoverHeadingDto], minItems: 1, maxItems: MAX_HANDOVER_HEADINGS })
