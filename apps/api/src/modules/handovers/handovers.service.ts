@@ -250,7 +250,8 @@ export class HandoversService implements OnModuleInit {
       .createQueryBuilder('h')
       .innerJoin(ProjectMember, 'm', 'm.project_id = h.project_id AND m.user_id = :me', { me: caller.id })
       .where('h.incoming_id = :me', { me: caller.id })
-      .orderBy("h.status = 'sent'", 'DESC')
+      // An ENUM sorts by its position: 'sent' (waiting) before 'acknowledged'.
+      .orderBy('h.status', 'ASC')
       .addOrderBy('h.sent_at', 'DESC')
       .addOrderBy('h.id', 'DESC')
       .take(200)
