@@ -295,5 +295,11 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       await request(http).get(`${p.base}/headings/${p.headingId}/handovers`).set(p.as('viewer')).expect(200)
     ).body as Body[];
     expect(history.map((h) => h.id)).toEqual([second.id, sent.id]);
+    // The Board shows the heading's latest handover and that it waits for acknowledgement.
+    const project = (await request(http).get(p.base).set(p.as('viewer')).expect(200)).body as Body;
+    expect((project.headings as Body[]).find((h) => h.id === p.headingId)!.lastHandover).toEqual({
+      sentAt: second.sentAt,
+      acknowledgedAt: null,
+    });
   });
 });
