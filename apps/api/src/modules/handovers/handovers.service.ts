@@ -416,6 +416,7 @@ export class HandoversService implements OnModuleInit {
         id: h.id,
         projectId: h.projectId,
         projectName: h.snapshot.projectName,
+        timeZone: h.snapshot.timeZone,
         shiftDate: h.shiftDate,
         shift: h.shift,
         status: h.status,

@@ -2200,6 +2200,8 @@ export interface components {
             id: string;
             projectId: string;
             projectName: string;
+            /** @description The project's time zone (times are shown in it) */
+            timeZone: string;
             shiftDate: string;
             outgoing: components["schemas"]["HandoverPersonDto"];
             incoming: components["schemas"]["HandoverPersonDto"];

@@ -185,6 +185,8 @@ export class HandoverDto {
   id: string;
   projectId: string;
   projectName: string;
+  /** The project's time zone (times are shown in it) */
+  timeZone: string;
   shiftDate: string;
   @ApiProperty({ enum: SHIFTS, enumName: 'Shift' })
   shift: Shift;
