@@ -12,6 +12,7 @@ import { AuthModule } from './modules/auth/auth.module.js';
 import { JwtAuthGuard } from './modules/auth/jwt-auth.guard.js';
 import { BoardModule } from './modules/board/board.module.js';
 import { HazardsModule } from './modules/hazards/hazards.module.js';
+import { HandoversModule } from './modules/handovers/handovers.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
@@ -42,6 +43,7 @@ export class AppModule {
         RoundsModule,
         PhotosModule,
         HazardsModule,
+        HandoversModule,
         BoardModule,
         HealthModule,
         LocalMailModule,

@@ -31,6 +31,8 @@ const OPERATOR: readonly Actor[] = ['operator'];
 const CONTRIBUTORS: readonly Actor[] = ['admin', 'geologist', 'engineer', 'supervisor'];
 /** Who may close a hazard: engineers and supervisors (and admins). */
 const HAZARD_CLOSERS: readonly Actor[] = ['admin', 'engineer', 'supervisor'];
+const SUPERVISOR: readonly Actor[] = ['supervisor'];
+const SUPERVISOR_OR_ADMIN: readonly Actor[] = ['admin', 'supervisor'];
 
 /** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
 export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
@@ -115,6 +117,16 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'GET /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': MEMBERS,
   'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': CONTRIBUTORS,
   'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close': HAZARD_CLOSERS,
+  // Handovers (issue 15): supervisors and admins compose and send; the incoming supervisor named on it
+  // acknowledges (checked on the handover: other supervisors get 403 there); every member reads them.
+  'GET /api/projects/{projectId}/handovers/draft': SUPERVISOR_OR_ADMIN,
+  'POST /api/projects/{projectId}/handovers': SUPERVISOR_OR_ADMIN,
+  'GET /api/projects/{projectId}/handovers/{handoverId}': MEMBERS,
+  'GET /api/projects/{projectId}/handovers/{handoverId}/pdf': MEMBERS,
+  'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge': SUPERVISOR,
+  'GET /api/projects/{projectId}/headings/{headingId}/handovers': MEMBERS,
+  // Handovers addressed to the caller, across their projects; empty for everyone else.
+  'GET /api/handovers/received': SIGNED_IN,
 
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,
@@ -136,4 +148,6 @@ export const ROLE_SETS = {
   OPERATOR,
   CONTRIBUTORS,
   HAZARD_CLOSERS,
+  SUPERVISOR,
+  SUPERVISOR_OR_ADMIN,
 };

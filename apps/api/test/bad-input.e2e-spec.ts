@@ -145,6 +145,8 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/headings/{headingId}/hazards',
   'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}',
   'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close',
+  'POST /api/projects/{projectId}/handovers',
+  'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
 ];
 
 function withValue(body: Body, where: string, value: unknown): Body {
@@ -416,6 +418,26 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         url: `${p.base}/headings/${p.headingId}/hazards/${round.id}/close`,
         as: p.as('engineer'),
         body: { version: 1, reason: 'Scaled down and bolted.' },
+      },
+      {
+        // The only supervisor hands over to themselves: a body that passes validation still gets a 400.
+        key: 'POST /api/projects/{projectId}/handovers',
+        url: `${p.base}/handovers`,
+        as: p.as('supervisor'),
+        body: {
+          shiftDate: '2026-12-03',
+          shift: 'night',
+          incomingUserId: (team.members as Body[]).find((m) => m.role === 'supervisor')!.userId as string,
+          headings: [{ headingId: p.headingId, cycleStage: 'drilling', notes: '' }],
+          generalNotes: 'Invented notes',
+          extraRecipients: ['office@roundbook.test'],
+        },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
+        url: `${p.base}/handovers/${round.id}/acknowledge`,
+        as: p.as('supervisor'),
+        body: { comment: 'Understood.' },
       },
     );
   });

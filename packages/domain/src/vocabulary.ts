@@ -104,3 +104,21 @@ export const chainageStyleLabels: Record<ChainageStyleCode, string> = {
   'km+m': 'km + m (1+250.0)',
   metres: 'metres (1250.0)',
 };
+
+/** Where the excavation cycle of a heading stands at shift change (the supervisor says; common practice). */
+export const CYCLE_STAGES = ['drilling', 'charging', 'mucking', 'support', 'mapping'] as const;
+export type CycleStage = (typeof CYCLE_STAGES)[number];
+export const cycleStageLabels: Record<CycleStage, string> = {
+  drilling: 'Drilling',
+  charging: 'Charging',
+  mucking: 'Mucking out',
+  support: 'Installing support',
+  mapping: 'Face mapping',
+};
+
+export const HANDOVER_STATUSES = ['sent', 'acknowledged'] as const;
+export type HandoverStatus = (typeof HANDOVER_STATUSES)[number];
+export const handoverStatusLabels: Record<HandoverStatus, string> = {
+  sent: 'Waiting for acknowledgement',
+  acknowledged: 'Acknowledged',
+};

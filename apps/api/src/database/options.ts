@@ -5,6 +5,7 @@ import { Job } from '../infrastructure/jobs/job.entity.js';
 import { Notice } from '../infrastructure/mail/notice.entity.js';
 import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Hazard } from '../modules/hazards/hazard.entity.js';
+import { Handover, HandoverHeading } from '../modules/handovers/handover.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
 import { Photo } from '../modules/photos/photo.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
@@ -43,6 +44,8 @@ export const entities = [
   Notice,
   Photo,
   Hazard,
+  Handover,
+  HandoverHeading,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -64,7 +64,9 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 },
                 {
                   path: 'received',
-                  lazy: async () => ({ Component: (await import('@/app/routes/later.route')).ReceivedRoute }),
+                  lazy: async () => ({
+                    Component: (await import('@/app/routes/received.route')).ReceivedRoute,
+                  }),
                 },
                 {
                   path: 'setup/:section?',

@@ -12,6 +12,8 @@ export interface HeadingProgress {
   roundsToConfirm: number;
   /** Worst trigger level among the latest evaluated round of each stage of the heading */
   triggerLevel: 'green' | 'amber' | 'red' | null;
+  /** The heading's latest handover: when it was sent and whether (when) it was acknowledged */
+  lastHandover?: { sentAt: string; acknowledgedAt: string | null } | null;
 }
 
 export interface HeadingProgressPort {

@@ -10,6 +10,7 @@ import { Photos1796270000000 } from './1796270000000-Photos.js';
 import { AuditCoalesce1796280000000 } from './1796280000000-AuditCoalesce.js';
 import { TokenVersion1796290000000 } from './1796290000000-TokenVersion.js';
 import { Hazards1796300000000 } from './1796300000000-Hazards.js';
+import { Handovers1796310000000 } from './1796310000000-Handovers.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -25,4 +26,5 @@ export const migrations = [
   AuditCoalesce1796280000000,
   TokenVersion1796290000000,
   Hazards1796300000000,
+  Handovers1796310000000,
 ];

@@ -1,6 +1,13 @@
 import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 import { CreatedAt } from '../../common/dto/timestamps.js';
 
+/** An attachment of a notice: read from object storage when the notice is sent. */
+export interface NoticeAttachment {
+  filename: string;
+  contentType: string;
+  storageKey: string;
+}
+
 /**
  * One outgoing e-mail (the outbox). Its Message-ID is fixed when it is queued and `sent_at` is set once the
  * mail server took it, so a retried job never sends it twice and a resend after a crash reuses the same
@@ -37,6 +44,10 @@ export class Notice {
   /** The body holds a secret (an invitation link): it is cleared once sent */
   @Column({ type: 'boolean', default: false })
   sensitive: boolean;
+
+  /** Files sent with it, kept in object storage until it is sent (the handover's PDF) */
+  @Column({ type: 'json', nullable: true })
+  attachments: NoticeAttachment[] | null;
 
   @Column({ name: 'message_id', type: 'varchar', length: 255 })
   messageId: string;

@@ -5,8 +5,9 @@ import { DataSource, In, IsNull, type EntityManager } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { JobHandlers, PermanentJobError } from '../jobs/job-handlers.js';
 import { JobsService } from '../jobs/jobs.service.js';
-import { MailService, type MailMessage } from './mail.service.js';
-import { Notice } from './notice.entity.js';
+import { StorageNotFoundError, StorageService } from '../storage/storage.service.js';
+import { MailService, type MailAttachment, type MailMessage } from './mail.service.js';
+import { Notice, type NoticeAttachment } from './notice.entity.js';
 
 export const MAIL_JOB = 'mail.send';
 
@@ -14,6 +15,8 @@ export interface QueueMail extends Omit<MailMessage, 'attachments' | 'messageId'
   kind: string;
   projectId?: string | null;
   sensitive?: boolean;
+  /** Files already in object storage, read and attached when the notice is sent */
+  attachments?: NoticeAttachment[];
 }
 
 export type NoticeStatus = 'queued' | 'sent' | 'failed';
@@ -37,6 +40,7 @@ export class NoticesService implements OnModuleInit {
     @Inject(JobsService) private readonly jobs: JobsService,
     @Inject(JobHandlers) private readonly handlers: JobHandlers,
     @Inject(MailService) private readonly mail: MailService,
+    @Inject(StorageService) private readonly storage: StorageService,
     @Inject(APP_CONFIG) config: AppConfig,
   ) {
     this.domain = messageIdDomain(config.mail.from);
@@ -58,6 +62,7 @@ export class NoticesService implements OnModuleInit {
         text: mail.text,
         html: mail.html ?? null,
         sensitive: mail.sensitive ?? false,
+        attachments: mail.attachments?.length ? mail.attachments : null,
         messageId: `<${randomUUID()}@${this.domain}>`,
         sentAt: null,
       }),
@@ -85,6 +90,7 @@ export class NoticesService implements OnModuleInit {
       subject: notice.subject,
       text: notice.text,
       html: notice.html ?? undefined,
+      attachments: notice.attachments?.length ? await this.files(notice.attachments) : undefined,
       messageId: notice.messageId,
     });
     await repo.update(
@@ -94,6 +100,22 @@ export class NoticesService implements OnModuleInit {
         ...(notice.sensitive ? { text: '(cleared after sending: it held a private link)', html: null } : {}),
       },
     );
+  }
+
+  /** The attachments' bytes from object storage (an outage throws, so the job tries again later). */
+  private async files(list: NoticeAttachment[]): Promise<MailAttachment[]> {
+    const out: MailAttachment[] = [];
+    for (const a of list) {
+      const stored = await this.storage.get(a.storageKey).catch((e: unknown) => {
+        if (e instanceof StorageNotFoundError)
+          throw new PermanentJobError(`The attachment ${a.filename} is no longer in storage`);
+        throw e;
+      });
+      const chunks: Buffer[] = [];
+      for await (const chunk of stored.body) chunks.push(Buffer.from(chunk as Uint8Array));
+      out.push({ filename: a.filename, contentType: a.contentType, content: Buffer.concat(chunks) });
+    }
+    return out;
   }
 
   /** Where each notice stands: sent, queued (waiting or retrying) or failed (its job gave up). */

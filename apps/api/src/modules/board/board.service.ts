@@ -75,7 +75,18 @@ export class BoardService implements HeadingProgressPort {
         levelOf.set(l.headingId, l.triggerLevel);
       else if (!levelOf.has(l.headingId)) levelOf.set(l.headingId, current);
     }
-    return new Map(
+    // Each heading's latest handover (handovers.e2e-spec.ts), read from the handovers' own tables.
+    const handovers = await this.dataSource.query<
+      Array<{ headingId: string; sentAt: Date; acknowledgedAt: Date | null }>
+    >(
+      `SELECT hh.heading_id AS headingId, h.sent_at AS sentAt, h.acknowledged_at AS acknowledgedAt
+         FROM handover_headings hh JOIN handovers h ON h.id = hh.handover_id
+        WHERE hh.heading_id IN (${headingIds.map(() => '?').join(', ')})
+          AND h.sent_at = (SELECT MAX(x.sent_at) FROM handovers x JOIN handover_headings xh
+                            ON xh.handover_id = x.id WHERE xh.heading_id = hh.heading_id)`,
+      headingIds,
+    );
+    const out = new Map<string, HeadingProgress>(
       rows.map((r) => [
         r.headingId,
         {
@@ -87,5 +98,20 @@ export class BoardService implements HeadingProgressPort {
         },
       ]),
     );
+    for (const h of handovers) {
+      const entry = out.get(h.headingId) ?? {
+        faceChainage: null,
+        draftFaceChainage: null,
+        lastRoundAt: null,
+        roundsToConfirm: 0,
+        triggerLevel: null,
+      };
+      entry.lastHandover = {
+        sentAt: new Date(h.sentAt).toISOString(),
+        acknowledgedAt: h.acknowledgedAt ? new Date(h.acknowledgedAt).toISOString() : null,
+      };
+      out.set(h.headingId, entry);
+    }
+    return out;
   }
 }

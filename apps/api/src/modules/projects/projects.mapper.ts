@@ -30,8 +30,7 @@ export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROG
     profileHeight: h.profileHeight,
     plannedRoundLength: h.plannedRoundLength,
     ...progress,
-    // Handovers arrive with their own feature; until then nothing to show.
-    lastHandover: null,
+    lastHandover: progress.lastHandover ?? null,
   };
 }
 

@@ -789,6 +789,125 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/handovers/draft": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** What the composer opens with: each heading's figures from the data now, and who can receive it */
+        get: operations["HandoversController_draft"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/handovers": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Saves the handover (figures frozen as they are now) and sends it: the PDF and the e-mail follow by job */
+        post: operations["HandoversController_compose"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/handovers/{handoverId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One handover as it was sent, with its acknowledgement (any member) */
+        get: operations["HandoversController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/handovers/{handoverId}/pdf": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** A signed address, valid a few minutes, of the handover's PDF (any member) */
+        get: operations["HandoversController_pdf"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/handovers/{handoverId}/acknowledge": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** The incoming supervisor named on it acknowledges, once, optionally with a comment (others 403) */
+        post: operations["HandoversController_acknowledge"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/headings/{headingId}/handovers": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Every handover of a heading, newest first (any member) */
+        get: operations["HandoversController_history"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/handovers/received": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Handovers addressed to the caller: those waiting for acknowledgement first, then the newest */
+        get: operations["ReceivedHandoversController_received"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -2117,6 +2236,123 @@ export interface components {
         CloseHazardDto: {
             reason: string;
             version: number;
+        };
+        HandoverLastConfirmedDto: {
+            stage: components["schemas"]["Stage"];
+            classId: string | null;
+            classCode: string | null;
+            className: string | null;
+            /** @description The next round length the engineer confirmed, m */
+            nextRoundLength: number | null;
+            confirmedAt: string | null;
+            roundId: string;
+            roundNumber: number;
+            faceChainage: number;
+        };
+        HandoverAlertDto: {
+            level: components["schemas"]["TriggerLevel"];
+            summary: string;
+            action: string;
+            /** @description The role that owns the alert (who acts on it) */
+            ownerRole: string;
+        };
+        /** @enum {string} */
+        CycleStage: "drilling" | "charging" | "mucking" | "support" | "mapping";
+        HandoverHeadingDto: {
+            chainageStyle: components["schemas"]["ChainageStyle"];
+            /** @description Face of the last round handed in (submitted or later), metres; null before the first */
+            faceChainage: number | null;
+            stage: components["schemas"]["Stage"] | null;
+            lastRoundNumber: number | null;
+            lastConfirmed: components["schemas"]["HandoverLastConfirmedDto"] | null;
+            /** @description Trigger level of the last round handed in */
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            alerts: components["schemas"]["HandoverAlertDto"][];
+            cycleStage: components["schemas"]["CycleStage"] | null;
+            headingId: string;
+            code: string;
+            name: string;
+            chainageDecimals: number;
+            notes: string;
+        };
+        HandoverPersonDto: {
+            userId: string;
+            name: string;
+            email: string;
+        };
+        HandoverDraftDto: {
+            headings: components["schemas"]["HandoverHeadingDto"][];
+            shift: components["schemas"]["Shift"];
+            /** @description Members with the supervisor role, other than the caller: who can receive it */
+            supervisors: components["schemas"]["HandoverPersonDto"][];
+            /** @description The shift now, in the project's time zone */
+            shiftDate: string;
+            /** @description The project's distribution list (always copied) */
+            distributionList: string[];
+            caution: string;
+        };
+        ComposeHandoverHeadingDto: {
+            /** @description Where the cycle stands at the face */
+            cycleStage: components["schemas"]["CycleStage"];
+            /** Format: uuid */
+            headingId: string;
+            notes?: string;
+        };
+        ComposeHandoverDto: {
+            shiftDate: string;
+            shift: components["schemas"]["Shift"];
+            headings: components["schemas"]["ComposeHandoverHeadingDto"][];
+            /** @description Further addresses besides the incoming supervisor and the project's distribution list */
+            extraRecipients?: string[];
+            /**
+             * Format: uuid
+             * @description The incoming supervisor: a member of the project with the supervisor role
+             */
+            incomingUserId: string;
+            generalNotes?: string;
+        };
+        /** @enum {string} */
+        HandoverStatus: "sent" | "acknowledged";
+        /**
+         * @description Where the e-mail stands: waiting for its PDF or in the outbox (queued), sent, or failed
+         * @enum {string}
+         */
+        HandoverEmailStatus: "queued" | "sent" | "failed";
+        HandoverDto: {
+            shift: components["schemas"]["Shift"];
+            status: components["schemas"]["HandoverStatus"];
+            headings: components["schemas"]["HandoverHeadingDto"][];
+            /** @description Where the e-mail stands: waiting for its PDF or in the outbox (queued), sent, or failed */
+            emailStatus: components["schemas"]["HandoverEmailStatus"];
+            /** Format: date-time */
+            sentAt: string;
+            /** Format: date-time */
+            acknowledgedAt: string | null;
+            acknowledgedBy: components["schemas"]["HandoverPersonDto"] | null;
+            acknowledgeComment: string | null;
+            id: string;
+            projectId: string;
+            projectName: string;
+            /** @description The project's time zone (times are shown in it) */
+            timeZone: string;
+            shiftDate: string;
+            outgoing: components["schemas"]["HandoverPersonDto"];
+            incoming: components["schemas"]["HandoverPersonDto"];
+            generalNotes: string;
+            /** @description Every address the e-mail goes to */
+            recipients: string[];
+            /** @description The PDF is stored and can be downloaded */
+            pdfReady: boolean;
+            caution: string;
+        };
+        HandoverUrlDto: {
+            /** Format: date-time */
+            expiresAt: string;
+            url: string;
+        };
+        AcknowledgeHandoverDto: {
+            /** @description A remark or a question back to the outgoing supervisor */
+            comment?: string | null;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -4709,6 +4945,269 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HandoversController_draft: {
+        parameters: {
+            query: {
+                /** @description Comma-separated heading ids */
+                headingIds: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDraftDto"];
+                };
+            };
+            /** @description Member without one of the roles: supervisor, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HandoversController_compose: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ComposeHandoverDto"];
+            };
+        };
+        responses: {
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDto"];
+                };
+            };
+            /** @description Member without one of the roles: supervisor, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HandoversController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                handoverId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    HandoversController_pdf: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                handoverId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverUrlDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description The PDF is still being made */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HandoversController_acknowledge: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                handoverId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcknowledgeHandoverDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDto"];
+                };
+            };
+            /** @description Member without one of the roles: supervisor */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Already acknowledged */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    HandoversController_history: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDto"][];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    ReceivedHandoversController_received: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["HandoverDto"][];
                 };
             };
         };

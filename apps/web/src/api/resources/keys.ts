@@ -63,4 +63,6 @@ export const resourceKeys = {
   triggerRules: (projectId: string) => [...resourceKeys.project(projectId), 'trigger-rules'] as const,
   team: (projectId: string) => [...resourceKeys.project(projectId), 'team'] as const,
   invitation: (token: string) => ['invitations', token] as const,
+  /** Handovers addressed to the signed-in person, across projects (GET /handovers/received). */
+  receivedHandovers: () => ['handovers', 'received'] as const,
 };

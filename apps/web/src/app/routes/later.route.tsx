@@ -14,12 +14,3 @@ export function LaterPage({ title, purpose }: LaterPageProps) {
     </>
   );
 }
-
-export function ReceivedRoute() {
-  return (
-    <LaterPage
-      title="Received"
-      purpose="Handovers sent to your shift will wait here until you acknowledge them."
-    />
-  );
-}

@@ -1,0 +1,132 @@
+import PDFDocument from 'pdfkit';
+import { HANDOVER_CAUTION, handoverHeader, handoverSubject, headingFacts } from './handover-text.js';
+import type { HandoverSnapshot } from './handover.entity.js';
+
+/** Open Sans (TTF from @expo-google-fonts/open-sans; pdfkit fails on WOFF2, stack-notes §9). */
+const FONT_REGULAR = require.resolve('@expo-google-fonts/open-sans/400Regular/OpenSans_400Regular.ttf');
+const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans_700Bold.ttf');
+
+const INK = '#1d2327';
+const MUTED = '#4a555c';
+const LINE = '#c9d1d6';
+const CAUTION = '#b26a00';
+
+export interface HandoverPdfInput {
+  snapshot: HandoverSnapshot;
+  shiftDate: string;
+  shift: 'day' | 'night';
+  sentAt: Date;
+}
+
+/**
+ * The handover as an A4 PDF: who to whom, then per heading its face, cycle, last confirmed round, class,
+ * next round length, alerts and notes, the general notes and the caution (on every page's foot as well).
+ */
+export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
+  const s = input.snapshot;
+  const doc = new PDFDocument({
+    size: 'A4',
+    margins: { top: 50, bottom: 70, left: 50, right: 50 },
+    bufferPages: true,
+    info: {
+      Title: handoverSubject(s, input.shiftDate, input.shift),
+      Author: s.outgoing.name,
+      Creator: 'Roundbook',
+    },
+  });
+  doc.registerFont('regular', FONT_REGULAR);
+  doc.registerFont('bold', FONT_BOLD);
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('data', (c: Buffer) => chunks.push(c));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  const width = doc.page.width - 100;
+  const left = 50;
+
+  const fact = (label: string, value: string) => {
+    const y = doc.y;
+    doc.font('regular').fontSize(10).fillColor(MUTED).text(label, left, y, { width: 170 });
+    const labelBottom = doc.y;
+    doc
+      .font('bold')
+      .fontSize(10)
+      .fillColor(INK)
+      .text(value, left + 175, y, { width: width - 175 });
+    doc.y = Math.max(doc.y, labelBottom) + 2;
+  };
+
+  doc.font('bold').fontSize(18).fillColor(INK).text('Shift handover', left, doc.y, { width });
+  doc.font('regular').fontSize(11).fillColor(MUTED).text(s.projectName, { width });
+  doc.moveDown(0.6);
+  for (const [k, v] of handoverHeader(s, input.shiftDate, input.shift, input.sentAt)) fact(k, v);
+  doc.moveDown(0.6);
+
+  for (const h of s.headings.map(headingFacts)) {
+    if (doc.y > doc.page.height - 240) doc.addPage();
+    doc
+      .moveTo(left, doc.y)
+      .lineTo(left + width, doc.y)
+      .strokeColor(LINE)
+      .lineWidth(1)
+      .stroke();
+    doc.moveDown(0.4);
+    doc.font('bold').fontSize(14).fillColor(INK).text(h.title, left, doc.y, { width });
+    doc.moveDown(0.3);
+    for (const [k, v] of h.facts) fact(k, v);
+    doc.moveDown(0.3);
+    doc.font('bold').fontSize(10).fillColor(INK).text('Alerts', left, doc.y, { width });
+    if (h.alerts.length === 0) doc.font('regular').text('None', { width });
+    for (const a of h.alerts)
+      doc
+        .font('regular')
+        .fontSize(10)
+        .text(`• ${a}`, left + 10, doc.y, { width: width - 10 });
+    if (h.notes) {
+      doc.moveDown(0.3);
+      doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });
+      doc.font('regular').fontSize(10).text(h.notes, { width });
+    }
+    doc.moveDown(0.8);
+  }
+
+  if (s.generalNotes) {
+    doc.font('bold').fontSize(12).fillColor(INK).text('General notes', left, doc.y, { width });
+    doc.font('regular').fontSize(10).text(s.generalNotes, { width });
+    doc.moveDown(0.8);
+  }
+
+  // The caution in a box after the content, and in small type at every page's foot.
+  if (doc.y > doc.page.height - 150) doc.addPage();
+  const boxTop = doc.y;
+  doc.font('bold').fontSize(10).fillColor(INK);
+  const textHeight = doc.heightOfString(HANDOVER_CAUTION, { width: width - 24 });
+  doc
+    .rect(left, boxTop, width, textHeight + 16)
+    .fillColor('#fff6e5')
+    .fill();
+  doc
+    .rect(left, boxTop, 4, textHeight + 16)
+    .fillColor(CAUTION)
+    .fill();
+  doc.fillColor(INK).text(HANDOVER_CAUTION, left + 14, boxTop + 8, { width: width - 24 });
+
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const bottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    doc
+      .font('regular')
+      .fontSize(7.5)
+      .fillColor(MUTED)
+      .text(`${HANDOVER_CAUTION}  Page ${i + 1} of ${range.count}.`, left, doc.page.height - 52, {
+        width,
+        lineBreak: true,
+      });
+    doc.page.margins.bottom = bottom;
+  }
+  doc.end();
+  return done;
+}

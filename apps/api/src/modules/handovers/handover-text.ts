@@ -1,0 +1,76 @@
+import {
+  cycleStageLabels,
+  formatCalendarDate,
+  formatChainageFor,
+  formatProjectTime,
+  levelLabels,
+  roleLabel,
+  shiftLabels,
+  stageLabels,
+} from '@roundbook/domain';
+import type { HandoverHeadingSnapshot, HandoverSnapshot } from './handover.entity.js';
+
+/** The caution every handover carries, on screen, in the e-mail and in the PDF (product.md "Cautions"). */
+export const HANDOVER_CAUTION =
+  'This handover supports the face-to-face briefing at shift change and does not replace it. The competent person on site decides whether the ground is safe to enter; nobody enters unsupported ground.';
+
+/** The words of one heading's handover, as label and value pairs (the e-mail and the PDF share them). */
+export interface HeadingFacts {
+  title: string;
+  facts: Array<[string, string]>;
+  alerts: string[];
+  notes: string;
+}
+
+const metres = (m: number): string => `${Number(m.toFixed(2))} m`;
+
+export function headingFacts(h: HandoverHeadingSnapshot): HeadingFacts {
+  const chainage = (m: number) => formatChainageFor(m, h);
+  const face =
+    h.faceChainage === null
+      ? 'No round handed in yet'
+      : `${chainage(h.faceChainage)}${h.stage ? `, ${stageLabels[h.stage]}` : ''}${
+          h.lastRoundNumber !== null ? ` (round ${h.lastRoundNumber})` : ''
+        }`;
+  const c = h.lastConfirmed;
+  const confirmed = c
+    ? `Round ${c.roundNumber} at ${chainage(c.faceChainage)}, ${stageLabels[c.stage]}`
+    : 'No round confirmed yet';
+  const supportClass = c?.classCode ? `${c.classCode} — ${c.className ?? ''}`.trim() : 'Not confirmed';
+  const next = c?.nextRoundLength != null ? metres(c.nextRoundLength) : 'Not confirmed';
+  return {
+    title: `${h.code} — ${h.name}`,
+    facts: [
+      ['Face', face],
+      ['Cycle', h.cycleStage ? cycleStageLabels[h.cycleStage] : 'Not given'],
+      ['Last confirmed round', confirmed],
+      ['Support class (confirmed)', supportClass],
+      ['Next round length (confirmed)', next],
+      ['Trigger level', h.triggerLevel ? levelLabels[h.triggerLevel] : 'Not evaluated'],
+    ],
+    alerts: h.alerts.map(
+      (a) => `${levelLabels[a.level]}: ${a.summary} — ${a.action} (owner: ${roleLabel(a.ownerRole)})`,
+    ),
+    notes: h.notes,
+  };
+}
+
+/** "Handover TH, HR, day shift 3 Dec 2026 — Project" */
+export function handoverSubject(s: HandoverSnapshot, shiftDate: string, shift: 'day' | 'night'): string {
+  return `Handover ${s.headings.map((h) => h.code).join(', ')}, ${shiftLabels[shift].toLowerCase()} ${formatCalendarDate(shiftDate)} — ${s.projectName}`;
+}
+
+/** Who handed over to whom and when, in the project's time zone. */
+export function handoverHeader(
+  s: HandoverSnapshot,
+  shiftDate: string,
+  shift: 'day' | 'night',
+  sentAt: Date,
+): Array<[string, string]> {
+  return [
+    ['Shift', `${shiftLabels[shift]}, ${formatCalendarDate(shiftDate)}`],
+    ['From', s.outgoing.name],
+    ['To', s.incoming.name],
+    ['Sent', `${formatProjectTime(sentAt, s.timeZone)} (${s.timeZone} time)`],
+  ];
+}

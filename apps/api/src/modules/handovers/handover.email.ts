@@ -1,0 +1,63 @@
+import { escapeHtml } from '../../infrastructure/mail/templates/escape.js';
+import { HANDOVER_CAUTION, handoverHeader, handoverSubject, headingFacts } from './handover-text.js';
+import type { HandoverSnapshot } from './handover.entity.js';
+
+export interface HandoverEmailInput {
+  snapshot: HandoverSnapshot;
+  shiftDate: string;
+  shift: 'day' | 'night';
+  sentAt: Date;
+  /** Where the incoming supervisor acknowledges it (after signing in) */
+  link: string;
+}
+
+/** The handover e-mail: plain text and a one-column HTML part that reads on a phone, with the same words. */
+export function handoverEmail(e: HandoverEmailInput): { subject: string; text: string; html: string } {
+  const s = e.snapshot;
+  const header = handoverHeader(s, e.shiftDate, e.shift, e.sentAt);
+  const headings = s.headings.map(headingFacts);
+  const text = [
+    `${s.outgoing.name} handed over to ${s.incoming.name}.`,
+    '',
+    ...header.map(([k, v]) => `${k}: ${v}`),
+    '',
+    ...headings.flatMap((h) => [
+      h.title,
+      ...h.facts.map(([k, v]) => `  ${k}: ${v}`),
+      ...(h.alerts.length ? ['  Alerts:', ...h.alerts.map((a) => `    - ${a}`)] : ['  Alerts: none']),
+      ...(h.notes ? [`  Notes: ${h.notes}`] : []),
+      '',
+    ]),
+    ...(s.generalNotes ? ['General notes:', s.generalNotes, ''] : []),
+    `Acknowledge it in Roundbook (sign in if asked): ${e.link}`,
+    'The PDF of this handover is attached.',
+    '',
+    HANDOVER_CAUTION,
+    '',
+    `Roundbook — ${s.projectName}`,
+  ].join('\n');
+  const row = ([k, v]: [string, string]) =>
+    `<tr><td style="padding:2px 8px 2px 0;color:#4a555c;vertical-align:top">${escapeHtml(k)}</td><td style="padding:2px 0;vertical-align:top"><strong>${escapeHtml(v)}</strong></td></tr>`;
+  const para = (t: string) => escapeHtml(t).replace(/\n/g, '<br>');
+  const html = `<div style="font-family:'Open Sans',Arial,sans-serif;font-size:16px;line-height:1.5;color:#1d2327;max-width:560px">
+<p style="font-size:18px"><strong>${escapeHtml(`${s.outgoing.name} handed over to ${s.incoming.name}.`)}</strong></p>
+<table role="presentation" style="border-collapse:collapse;font-size:15px">${header.map(row).join('')}</table>
+${headings
+  .map(
+    (h) => `<div style="margin:16px 0;padding:10px 12px;border:1px solid #c9d1d6;border-radius:6px">
+<p style="margin:0 0 6px;font-size:17px"><strong>${escapeHtml(h.title)}</strong></p>
+<table role="presentation" style="border-collapse:collapse;font-size:15px">${h.facts.map(row).join('')}</table>
+<p style="margin:6px 0 2px"><strong>Alerts</strong></p>
+${h.alerts.length ? `<ul style="margin:0;padding-left:20px">${h.alerts.map((a) => `<li>${escapeHtml(a)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
+${h.notes ? `<p style="margin:6px 0 0"><strong>Notes</strong><br>${para(h.notes)}</p>` : ''}
+</div>`,
+  )
+  .join('\n')}
+${s.generalNotes ? `<p><strong>General notes</strong><br>${para(s.generalNotes)}</p>` : ''}
+<p><a href="${escapeHtml(e.link)}" style="display:inline-block;padding:14px 22px;background:#1f5f7a;color:#ffffff;text-decoration:none;border-radius:6px">Open and acknowledge</a></p>
+<p style="font-size:13px;color:#4a555c">If the button does not work, copy this address into your browser:<br>${escapeHtml(e.link)}<br>The PDF of this handover is attached.</p>
+<p style="font-size:14px;padding:10px;border-left:4px solid #b26a00;background:#fff6e5">${escapeHtml(HANDOVER_CAUTION)}</p>
+<p style="font-size:13px;color:#4a555c">Roundbook — ${escapeHtml(s.projectName)}</p>
+</div>`;
+  return { subject: handoverSubject(s, e.shiftDate, e.shift), text, html };
+}

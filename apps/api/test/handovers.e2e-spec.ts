@@ -1,0 +1,305 @@
+// Issue 15, items 3–5: compose a handover from the data, send it (saved first; PDF and e-mail by job through
+// the notices outbox to the SMTP fake), acknowledge by the named incoming supervisor only, Received and
+// each heading's history. On a project of this file's own.
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import type { INestApplication } from '@nestjs/common';
+import request from 'supertest';
+import type { App } from 'supertest/types';
+import { DataSource } from 'typeorm';
+import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
+import { ProjectMember } from '../src/modules/projects/project-member.entity';
+import { hashPassword } from '../src/modules/users/password';
+import { User } from '../src/modules/users/user.entity';
+import { latestAudit, makeProject, saveBody, signIn, TEST_PASSWORD, type TestProject } from './factories';
+import { createTestApp } from './test-app';
+
+// pdf-parse 1.1.4 works in plain Jest on Node 20 (stack-notes §12); its index runs a self-test, so the lib.
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const pdfParse = require('pdf-parse/lib/pdf-parse.js') as (data: Buffer) => Promise<{ text: string }>;
+
+type Body = Record<string, any>;
+const code = `HO${String(Date.now() % 1e6)}`;
+const CAUTION =
+  'This handover supports the face-to-face briefing at shift change and does not replace it. The competent person on site decides whether the ground is safe to enter; nobody enters unsupported ground.';
+const flat = (s: string) => s.replace(/\s+/g, ' ');
+
+/** Waits for a condition with a bounded loop of short pauses (no fixed sleeps). */
+async function until<T>(probe: () => Promise<T> | T, ok: (v: T) => boolean, ms = 20_000): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await probe();
+    if (ok(v)) return v;
+    if (Date.now() > end) throw new Error(`condition not reached within ${ms} ms`);
+    await new Promise((r) => setTimeout(r, 25));
+  }
+}
+
+describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', () => {
+  let app: INestApplication;
+  let http: App;
+  let p: TestProject;
+  let incoming: { id: string; email: string; token: string };
+  let outgoingId: string;
+  const classId = (c: string) => p.classes.find((x) => x.code === c)!.id as string;
+
+  const mailDir = () => app.get<AppConfig>(APP_CONFIG).mail.localInboxDir!;
+  const mailFor = (to: string): Body[] =>
+    readdirSync(mailDir())
+      .filter((f) => f.endsWith('.json'))
+      .map((f) => JSON.parse(readFileSync(path.join(mailDir(), f), 'utf8')) as Body)
+      .filter((m) => (m.to as string[]).includes(to));
+
+  /** Opens a round at the face, saves its record with class C1 and Q 11.25, and submits it. */
+  const mapRound = async (faceChainage: number): Promise<Body> => {
+    const opened = (
+      await request(http)
+        .post(`${p.base}/headings/${p.headingId}/rounds`)
+        .set(p.as('geologist'))
+        .send({ stage: 'full-face', faceChainage })
+        .expect(201)
+    ).body as Body;
+    const saved = (
+      await request(http)
+        .put(`${p.base}/rounds/${opened.id}`)
+        .set(p.as('geologist'))
+        .send(saveBody(opened, { recommendedClassId: classId('C1'), nextRoundLength: 3 }))
+        .expect(200)
+    ).body as Body;
+    return (
+      await request(http)
+        .post(`${p.base}/rounds/${saved.id}/submit`)
+        .set(p.as('geologist'))
+        .send({ version: saved.version })
+        .expect(200)
+    ).body as Body;
+  };
+
+  const compose = (body: Body, role: 'supervisor' | 'admin' | 'engineer' = 'supervisor') =>
+    request(http).post(`${p.base}/handovers`).set(p.as(role)).send(body);
+  const validBody = (): Body => ({
+    shiftDate: '2026-12-03',
+    shift: 'day',
+    incomingUserId: incoming.id,
+    headings: [
+      {
+        headingId: p.headingId,
+        cycleStage: 'mucking',
+        notes: 'Scaling done at the crown; mucking half way.',
+      },
+    ],
+    generalNotes: 'Loader 2 is in the workshop.',
+    extraRecipients: [`site.office.${code.toLowerCase()}@roundbook.test`],
+  });
+
+  beforeAll(async () => {
+    app = await createTestApp();
+    http = app.getHttpServer() as App;
+    // Q = 60/4 × 1.5/2 × 1/1 = 11.25 (Barton et al. 1974) [computed here]: the amber rule Q < 20 fires.
+    p = await makeProject(app, {
+      code,
+      rules: [{ watch: 'q', comparison: '<', threshold: 20, level: 'amber', timeAllowedHours: 4 }],
+    });
+    const ds = app.get(DataSource);
+    // A second supervisor (the incoming shift's).
+    const email = `incoming.${code.toLowerCase()}@roundbook.test`;
+    const user = await ds
+      .getRepository(User)
+      .save({ email, name: `Invented incoming ${code}`, passwordHash: await hashPassword(TEST_PASSWORD) });
+    await ds
+      .getRepository(ProjectMember)
+      .save({ projectId: p.projectId, userId: user.id, role: 'supervisor' });
+    const token = (await signIn(http, ['supervisor'], () => email, TEST_PASSWORD)).supervisor;
+    incoming = { id: user.id, email, token };
+    outgoingId = (await ds.getRepository(User).findOneByOrFail({ email: p.emailOf('supervisor') })).id;
+
+    // Round 1 at 1+003.0 confirmed as C1 with a next round of 3 m; round 2 at 1+006.0 handed in.
+    const first = await mapRound(1003);
+    await request(http)
+      .post(`${p.base}/rounds/${first.id}/confirm`)
+      .set(p.as('engineer'))
+      .send({
+        version: first.version,
+        classId: classId('C1'),
+        roundLength: 3,
+        comments: '',
+        reason: '',
+        password: TEST_PASSWORD,
+      })
+      .expect(200);
+    await mapRound(1006);
+  });
+
+  afterAll(async () => {
+    await app.close();
+  });
+
+  let sent: Body;
+
+  it('opens a draft from the data: last handed-in face, last confirmed round with its class and length, alerts', async () => {
+    const url = `${p.base}/handovers/draft?headingIds=${p.headingId}`;
+    await request(http).get(url).set(p.as('geologist')).expect(403);
+    await request(http).get(`${p.base}/handovers/draft?headingIds=nope`).set(p.as('supervisor')).expect(400);
+    const draft = (await request(http).get(url).set(p.as('supervisor')).expect(200)).body as Body;
+    expect(draft.headings).toHaveLength(1);
+    expect(draft.headings[0]).toMatchObject({
+      headingId: p.headingId,
+      code: 'TH',
+      faceChainage: 1006,
+      stage: 'full-face',
+      lastRoundNumber: 2,
+      lastConfirmed: { roundNumber: 1, faceChainage: 1003, classCode: 'C1', nextRoundLength: 3 },
+      triggerLevel: 'amber',
+      cycleStage: null,
+      notes: '',
+    });
+    expect(draft.headings[0].alerts).toEqual([
+      expect.objectContaining({ level: 'amber', ownerRole: 'engineer', action: 'Tell the engineer.' }),
+    ]);
+    // Whom it can go to: the project's other supervisors (not the caller).
+    expect((draft.supervisors as Body[]).map((s) => s.userId)).toEqual([incoming.id]);
+    expect(draft.caution).toBe(CAUTION);
+  });
+
+  it('refuses a handover to someone who is not a supervisor, to oneself, or of a foreign heading; engineers cannot send', async () => {
+    const viewerId = (
+      await app
+        .get(DataSource)
+        .getRepository(User)
+        .findOneByOrFail({ email: p.emailOf('viewer') })
+    ).id;
+    const notSupervisor = await compose({ ...validBody(), incomingUserId: viewerId }).expect(400);
+    expect(notSupervisor.body.fields).toEqual({ incomingUserId: 'Not a supervisor of this project.' });
+    await compose({ ...validBody(), incomingUserId: outgoingId }).expect(400);
+    await compose({
+      ...validBody(),
+      headings: [{ headingId: '00000000-0000-4000-8000-000000000000', cycleStage: 'drilling' }],
+    }).expect(404);
+    await compose({ ...validBody(), headings: [{ headingId: p.headingId, cycleStage: 'resting' }] }).expect(
+      400,
+    );
+    await compose(validBody(), 'engineer').expect(403);
+  });
+
+  it('saves and sends: the SMTP fake receives HTML, text and a PDF with the chainage, the class and the caution', async () => {
+    const res = await compose(validBody()).expect(201);
+    sent = res.body as Body;
+    expect(sent).toMatchObject({
+      status: 'sent',
+      shiftDate: '2026-12-03',
+      shift: 'day',
+      incoming: { userId: incoming.id, email: incoming.email },
+      outgoing: { userId: outgoingId },
+      headings: [{ faceChainage: 1006, cycleStage: 'mucking', lastConfirmed: { classCode: 'C1' } }],
+      acknowledgedAt: null,
+    });
+    expect(sent.recipients).toEqual([incoming.email, `site.office.${code.toLowerCase()}@roundbook.test`]);
+    expect(await latestAudit(app, sent.id as string)).toMatchObject({
+      action: 'send',
+      entityType: 'handover',
+    });
+
+    const [mail] = await until(
+      () => mailFor(incoming.email),
+      (m) => m.length > 0,
+    );
+    expect(mail.subject).toBe(`Handover TH, day shift 3 Dec 2026 — Invented test project ${code}`);
+    expect(mail.cc).toEqual([`site.office.${code.toLowerCase()}@roundbook.test`]);
+    for (const part of [String(mail.text), String(mail.html)]) {
+      expect(part).toContain('1+006.0');
+      expect(part).toContain('C1 — Spot bolts');
+      expect(part).toContain('Mucking out');
+      expect(part).toContain('Scaling done at the crown');
+      expect(part).toContain('Amber: ');
+    }
+    expect(flat(String(mail.text))).toContain(CAUTION);
+    expect(String(mail.html)).toContain('max-width:560px');
+    expect(String(mail.html)).toContain('face-to-face briefing');
+    expect(mail.attachments).toEqual([
+      expect.objectContaining({
+        index: 0,
+        contentType: 'application/pdf',
+        filename: 'handover-TH-2026-12-03-day.pdf',
+      }),
+    ]);
+    const pdf = readFileSync(path.join(mailDir(), `${mail.id}.att0`));
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    const text = flat((await pdfParse(pdf)).text);
+    expect(text).toContain('1+006.0'); // face of the last round handed in
+    expect(text).toContain('1+003.0'); // the last confirmed round
+    expect(text).toContain('C1 — Spot bolts');
+    expect(text).toContain('3 m');
+    expect(text).toContain('Mucking out');
+    expect(text).toContain(CAUTION);
+
+    // Listed with the handover: the stored PDF downloads, the e-mail reads as sent.
+    const got = (await request(http).get(`${p.base}/handovers/${sent.id}`).set(p.as('viewer')).expect(200))
+      .body as Body;
+    expect(got).toMatchObject({ pdfReady: true, emailStatus: 'sent' });
+    const link = (
+      await request(http).get(`${p.base}/handovers/${sent.id}/pdf`).set(p.as('viewer')).expect(200)
+    ).body as Body;
+    const downloaded = Buffer.from(await (await fetch(link.url as string)).arrayBuffer());
+    expect(downloaded.equals(pdf)).toBe(true);
+  });
+
+  it('is acknowledged by the named incoming supervisor only, once, with the comment, time and person recorded', async () => {
+    const url = `${p.base}/handovers/${sent.id}/acknowledge`;
+    const byOutgoing = await request(http).post(url).set(p.as('supervisor')).send({}).expect(403);
+    expect(byOutgoing.body.message).toContain(`Invented incoming ${code}`);
+    await request(http).post(url).set(p.as('admin')).send({}).expect(403);
+    await request(http).post(url).set(p.as('engineer')).send({}).expect(403);
+    const ack = await request(http)
+      .post(url)
+      .set({ Authorization: `Bearer ${incoming.token}` })
+      .send({ comment: 'Is the probe rig back tonight?' })
+      .expect(200);
+    expect(ack.body).toMatchObject({
+      status: 'acknowledged',
+      acknowledgedBy: { userId: incoming.id },
+      acknowledgeComment: 'Is the probe rig back tonight?',
+    });
+    expect(Date.parse(ack.body.acknowledgedAt as string)).toBeGreaterThanOrEqual(
+      Date.parse(sent.sentAt as string),
+    );
+    expect(await latestAudit(app, sent.id as string)).toMatchObject({
+      action: 'acknowledge',
+      actorId: incoming.id,
+      after: { status: 'acknowledged', comment: 'Is the probe rig back tonight?' },
+    });
+    await request(http)
+      .post(url)
+      .set({ Authorization: `Bearer ${incoming.token}` })
+      .send({})
+      .expect(409);
+  });
+
+  it('lists Received (waiting first) for the incoming supervisor and the heading’s history (newest first)', async () => {
+    const second = (await compose({ ...validBody(), shift: 'night', extraRecipients: [] }).expect(201))
+      .body as Body;
+    const received = (
+      await request(http)
+        .get('/api/handovers/received')
+        .set({ Authorization: `Bearer ${incoming.token}` })
+        .expect(200)
+    ).body as Body[];
+    expect(received.map((h) => [h.id, h.status])).toEqual([
+      [second.id, 'sent'],
+      [sent.id, 'acknowledged'],
+    ]);
+    const outgoingReceived = (
+      await request(http).get('/api/handovers/received').set(p.as('supervisor')).expect(200)
+    ).body as Body[];
+    expect(outgoingReceived).toEqual([]);
+    const history = (
+      await request(http).get(`${p.base}/headings/${p.headingId}/handovers`).set(p.as('viewer')).expect(200)
+    ).body as Body[];
+    expect(history.map((h) => h.id)).toEqual([second.id, sent.id]);
+    // The Board shows the heading's latest handover and that it waits for acknowledgement.
+    const project = (await request(http).get(p.base).set(p.as('viewer')).expect(200)).body as Body;
+    expect((project.headings as Body[]).find((h) => h.id === p.headingId)!.lastHandover).toEqual({
+      sentAt: second.sentAt,
+      acknowledgedAt: null,
+    });
+  });
+});

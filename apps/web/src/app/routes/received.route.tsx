@@ -1,0 +1,6 @@
+import { ReceivedList } from '@/features/handovers/components/received-list';
+
+/** Received: the incoming supervisor's handovers, acknowledged here. */
+export function ReceivedRoute() {
+  return <ReceivedList />;
+}
