@@ -11,3 +11,4 @@ export * from './assess-round.js';
 export * from './heading.js';
 export * from './ground.js';
 export * from './governing.js';
+export * from './sketch.js';
