@@ -9,6 +9,7 @@ import { Review1796200000000 } from './1796200000000-Review.js';
 import { Photos1796270000000 } from './1796270000000-Photos.js';
 import { AuditCoalesce1796280000000 } from './1796280000000-AuditCoalesce.js';
 import { TokenVersion1796290000000 } from './1796290000000-TokenVersion.js';
+import { RoundSketch1796320000000 } from './1796320000000-RoundSketch.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -23,4 +24,5 @@ export const migrations = [
   Photos1796270000000,
   AuditCoalesce1796280000000,
   TokenVersion1796290000000,
+  RoundSketch1796320000000,
 ];
