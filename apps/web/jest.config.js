@@ -16,8 +16,8 @@ export default {
       },
     ],
   },
-  // geomath's d3 helpers ship as ESM only; let @swc/jest turn them into CommonJS.
-  transformIgnorePatterns: ['/node_modules/(?!(d3-.*|internmap|delaunator|robust-predicates)/)'],
+  // geomath's d3 helpers and konva ship as ESM only; let @swc/jest turn them into CommonJS.
+  transformIgnorePatterns: ['/node_modules/(?!(d3-.*|internmap|delaunator|robust-predicates|konva|react-konva|its-fine)/)'],
   moduleNameMapper: {
     '^@/(.*)$': '<rootDir>/src/$1',
     // Workspace packages are tested from their TypeScript source, like Vite bundles them.
@@ -28,5 +28,7 @@ export default {
     '\\.css$': '<rootDir>/test/style-mock.cjs',
   },
   testEnvironmentOptions: { url: 'http://127.0.0.1:8080/' },
+  // jsdom has no 2D canvas; Konva needs one.
+  setupFiles: ['jest-canvas-mock'],
   setupFilesAfterEnv: ['<rootDir>/test/setup.ts'],
 };

@@ -12,3 +12,4 @@ export * from './heading.js';
 export * from './ground.js';
 export * from './governing.js';
 export * from './hazards.js';
+export * from './sketch.js';

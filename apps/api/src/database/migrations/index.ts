@@ -11,6 +11,7 @@ import { AuditCoalesce1796280000000 } from './1796280000000-AuditCoalesce.js';
 import { TokenVersion1796290000000 } from './1796290000000-TokenVersion.js';
 import { Hazards1796300000000 } from './1796300000000-Hazards.js';
 import { Handovers1796310000000 } from './1796310000000-Handovers.js';
+import { RoundSketch1796320000000 } from './1796320000000-RoundSketch.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -27,4 +28,5 @@ export const migrations = [
   TokenVersion1796290000000,
   Hazards1796300000000,
   Handovers1796310000000,
+  RoundSketch1796320000000,
 ];

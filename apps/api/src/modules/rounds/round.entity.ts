@@ -1,7 +1,7 @@
 import { ROUND_STATUSES, SHIFTS, type RoundStatus, type Shift } from '@roundbook/domain';
 import type { RoundAssessment, SetParameters } from '@roundbook/domain';
 import type { QRecord, RmrRecord } from '@roundbook/domain';
-import type { TriggerFiring } from '@roundbook/domain';
+import type { SketchDocument, TriggerFiring } from '@roundbook/domain';
 import { Column, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
@@ -103,6 +103,10 @@ export class Round {
 
   @Column({ type: 'json' })
   ground: GroundRecord;
+
+  /** The face sketch (packages/domain SketchDocument, checked by restoreSketch on the way in); null: none yet. */
+  @Column({ type: 'json', nullable: true })
+  sketch: SketchDocument | null;
 
   @Column({ name: 'q_input', type: 'json', nullable: true })
   qInput: QRecord | null;

@@ -6,7 +6,11 @@ import {
   emptyGround,
   groundErrors,
   nextFaceChainage,
+  restoreSketch,
   roundLengthOf,
+  SKETCH_MAX_BYTES,
+  SketchError,
+  type SketchDocument,
   shiftOf,
   type RoundAssessment,
   type Stage,
@@ -87,6 +91,34 @@ function mergeGround(current: Round['ground'], patch: SaveRoundDto['ground']): R
   const given = Object.entries(patch).filter(([, v]) => v !== undefined);
   return { ...base, ...Object.fromEntries(given) };
 }
+
+/**
+ * The sketch of a save, checked and upgraded by packages/domain (restoreSketch): undefined keeps the
+ * round's, null removes it; too large is a 413, not a sketch a 400 with the reason.
+ */
+function sketchOf(input: SaveRoundDto['sketch'], current: SketchDocument | null): SketchDocument | null {
+  if (input === undefined) return current;
+  if (input === null) return null;
+  const bytes = Buffer.byteLength(JSON.stringify(input), 'utf8');
+  if (bytes > SKETCH_MAX_BYTES)
+    throw new DomainException(
+      ErrorCode.PayloadTooLarge,
+      `The sketch is ${Math.ceil(bytes / 1024)} KB; at most ${SKETCH_MAX_BYTES / 1024} KB is kept. Simplify long freehand traces or remove some.`,
+    );
+  try {
+    return restoreSketch(input);
+  } catch (error) {
+    if (error instanceof SketchError)
+      throw new DomainException(ErrorCode.ValidationFailed, error.message, {
+        [`sketch.${error.path}`]: error.message,
+      });
+    throw error;
+  }
+}
+
+/** A short account of a sketch for the audit (the document itself stays with the round and its revisions). */
+const sketchSummary = (doc: SketchDocument | null): string | null =>
+  doc === null ? null : `${doc.elements.length} element(s)`;
 
 /** Stores the assessment and what is kept of it in columns (for listing, sorting and the Board). */
 function storeAssessment(round: Round, assessment: RoundAssessment): void {
@@ -187,6 +219,7 @@ export class RoundsCommands {
         qInput: null,
         rmrInput: null,
         gsiObserved: null,
+        sketch: null,
         q: null,
         rmr: null,
         gsi: null,
@@ -233,6 +266,8 @@ export class RoundsCommands {
       const jointsBefore = await manager.find(Joint, { where: { roundId }, order: { seq: 'ASC' } });
       const jointsBeforeSnap = Object.fromEntries(jointsBefore.map((j) => [j.id, jointSnapshot(j)]));
       this.assertRecord(dto, mergeGround(round.ground, dto.ground), jointsBefore, project.groundScale);
+      const sketchBefore = round.sketch ?? null;
+      const sketch = sketchOf(dto.sketch, sketchBefore);
       const before = Object.fromEntries(AUDITED.map((f) => [f, round[f]]));
       // A field left out keeps what the round has: a partial save never erases anything.
       const keep = <K extends keyof SaveRoundDto & keyof Round>(k: K): Round[K] =>
@@ -254,6 +289,7 @@ export class RoundsCommands {
         qInput: keep('qInput') ?? null,
         rmrInput: keep('rmrInput') ?? null,
         gsiObserved: keep('gsiObserved') ?? null,
+        sketch,
         recommendedClassId: keep('recommendedClassId') ?? null,
         nextRoundLength: keep('nextRoundLength') ?? null,
         recommendationReason: keep('recommendationReason'),
@@ -293,6 +329,10 @@ export class RoundsCommands {
       if (Object.keys(ground.after).length) {
         change.before.ground = ground.before;
         change.after.ground = ground.after;
+      }
+      if (JSON.stringify(sketchBefore) !== JSON.stringify(sketch)) {
+        change.before.sketch = sketchSummary(sketchBefore);
+        change.after.sketch = sketchSummary(sketch);
       }
       const jointsAfterSnap = Object.fromEntries(joints.map((j) => [j.id, jointSnapshot(j)]));
       const jointChange = objectDiff(jointsBeforeSnap, jointsAfterSnap);

@@ -1781,6 +1781,14 @@ export interface components {
             /** Format: uuid */
             recommendedClassId: string | null;
             nextRoundLength: number | null;
+            /**
+             * @description The face sketch: a packages/domain SketchDocument (schemaVersion, metres in the face frame), checked and
+             *     upgraded by restoreSketch; null: no sketch. A document that fails the check is a 400 with the reason,
+             *     one over 512 KB a 413.
+             */
+            sketch: {
+                [key: string]: unknown;
+            } | null;
             /** @description The whole assessment (packages/domain RoundAssessment): saved with a draft, frozen at submit */
             assessment: {
                 [key: string]: unknown;
@@ -1916,6 +1924,14 @@ export interface components {
             /** Format: uuid */
             recommendedClassId?: string | null;
             nextRoundLength?: number | null;
+            /**
+             * @description The face sketch: a packages/domain SketchDocument (schemaVersion, metres in the face frame), checked and
+             *     upgraded by restoreSketch; null: no sketch. A document that fails the check is a 400 with the reason,
+             *     one over 512 KB a 413.
+             */
+            sketch?: {
+                [key: string]: unknown;
+            } | null;
             faceChainage?: number;
             shiftDate?: string;
             distantParts?: string;

@@ -1,6 +1,6 @@
 import { Button, makeStyles } from '@fluentui/react-components';
 import { ArrowLeftRegular } from '@fluentui/react-icons';
-import { driveTrendAt } from '@roundbook/domain';
+import { driveTrendAt, formatChainageFor } from '@roundbook/domain';
 import { driveOf } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
@@ -14,6 +14,7 @@ import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
 import { RaiseHazardButton } from '@/features/hazards/components/raise-hazard-button';
 import { RoundOrientationPanel } from '@/features/orientation/components/round-orientation-panel';
+import { SET_COLOURS_HIGH_CONTRAST, SET_COLOURS_LIGHT } from '@/features/orientation/scene/palette';
 import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import {
@@ -23,6 +24,7 @@ import {
   useRoundSupportClasses,
 } from '@/features/rounds/api/get-round';
 import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { SketchSection } from '@/features/sketch';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -97,6 +99,29 @@ export function RoundRoute() {
             fileName={`${heading.code}-round-${round.roundNumber}`}
           />
         )}
+        sketchSlot={({ sketch, onChange, readOnly, joints, assessment, faceChainage }) => {
+          // The sets take the stereonet's colours, in the same order.
+          const colours = mode === 'high-contrast' ? SET_COLOURS_HIGH_CONTRAST : SET_COLOURS_LIGHT;
+          return (
+            <SketchSection
+              document={sketch}
+              onChange={onChange}
+              readOnly={readOnly}
+              heading={heading}
+              stage={round.stage}
+              chainageText={formatChainageFor(faceChainage, heading)}
+              joints={joints.map((j) => ({
+                id: j.id,
+                label: `Joint ${j.seq}${j.orientationText ? ` · ${j.orientationText}` : ''}`,
+                setLabel: j.setLabel,
+              }))}
+              sets={assessment.sets.sets.map((s, i) => ({
+                label: s.label,
+                colour: colours[i % colours.length],
+              }))}
+            />
+          );
+        }}
       />
       {round.status === 'draft' && round.revision === 1 ? null : (
         <ReviewPanel

@@ -351,6 +351,16 @@ export class RoundInputDto {
   @MaxLength(4000)
   recommendationReason: string;
 
+  /**
+   * The face sketch: a packages/domain SketchDocument (schemaVersion, metres in the face frame), checked and
+   * upgraded by restoreSketch; null: no sketch. A document that fails the check is a 400 with the reason,
+   * one over 512 KB a 413.
+   */
+  @IsOptional()
+  @IsObject({ message: 'The sketch is a document object with its schemaVersion.' })
+  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true })
+  sketch: Record<string, unknown> | null;
+
   /** How the sets are found (kept with the round); the default window is 25 m, sets found from the density */
   @Optional()
   @IsObject({ message: 'Give an object here.' })

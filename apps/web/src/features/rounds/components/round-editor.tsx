@@ -10,7 +10,7 @@ import {
   TabList,
   tokens,
 } from '@fluentui/react-components';
-import type { RoundAssessment, RoundRecordInput } from '@roundbook/domain';
+import type { RoundAssessment, RoundRecordInput, SketchDocument } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
 import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
@@ -35,12 +35,22 @@ import { stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 import { isApiError } from '@/lib/api-client';
 
 export const ROUND_SECTIONS = ['position', 'ground', 'joints', 'rating', 'support'] as const;
-export type RoundSection = (typeof ROUND_SECTIONS)[number];
+export type RoundSection = (typeof ROUND_SECTIONS)[number] | 'sketch';
+/** The sections with the Sketch (when app/routes gives one): after the joints it is linked to. */
+const SECTIONS_WITH_SKETCH: readonly RoundSection[] = [
+  'position',
+  'ground',
+  'joints',
+  'sketch',
+  'rating',
+  'support',
+];
 
 const sectionLabels: Record<RoundSection, string> = {
   position: 'Position',
   ground: 'Ground',
   joints: 'Joints',
+  sketch: 'Sketch',
   rating: 'Rating',
   support: 'Support',
 };
@@ -50,6 +60,7 @@ export function sectionOfField(field: string): RoundSection {
   const head = field.split('.')[0];
   if (head === 'ground') return 'ground';
   if (head === 'joints') return 'joints';
+  if (head === 'sketch') return 'sketch';
   if (['ratings', 'qInput', 'rmrInput', 'gsiObserved'].includes(head)) return 'rating';
   if (['recommendedClassId', 'nextRoundLength', 'recommendationReason'].includes(head)) return 'support';
   return 'position';
@@ -70,6 +81,18 @@ export interface RoundEditorProps {
    */
   orientationSlot?: (live: {
     joints: RoundRecordInput['joints'];
+    assessment: RoundAssessment;
+    faceChainage: number;
+  }) => ReactNode;
+  /**
+   * The Sketch section (app/routes composes it from its own feature): the round's sketch document as typed,
+   * a setter that puts a new one into the round (saved with it as you go), and the joints as typed.
+   */
+  sketchSlot?: (live: {
+    sketch: SketchDocument;
+    onChange: (sketch: SketchDocument) => void;
+    readOnly: boolean;
+    joints: { id: string; seq: number; orientationText: string; setLabel: string | null }[];
     assessment: RoundAssessment;
     faceChainage: number;
   }) => ReactNode;
@@ -135,6 +158,7 @@ function RoundEditorBody({
   canEdit,
   initialSection,
   orientationSlot,
+  sketchSlot,
   autosave,
 }: RoundEditorProps & { autosave: RoundAutosave }) {
   const styles = useStyles();
@@ -297,7 +321,7 @@ function RoundEditorBody({
             onTabSelect={(_e, data) => go(data.value as RoundSection)}
             aria-label="Sections of the round"
           >
-            {ROUND_SECTIONS.map((s) => (
+            {(sketchSlot ? SECTIONS_WITH_SKETCH : ROUND_SECTIONS).map((s) => (
               <Tab key={s} value={s} className={styles.tab}>
                 {sectionLabels[s]}
                 {errorSections.has(s) && (
@@ -331,6 +355,20 @@ function RoundEditorBody({
         {section === 'joints' &&
           orientationSlot?.({
             joints: assessmentRecordOf(values, server.faceChainage).joints,
+            assessment,
+            faceChainage: face,
+          })}
+        {section === 'sketch' &&
+          sketchSlot?.({
+            sketch: values.sketch,
+            onChange: (sketch) => void setFieldValue('sketch', sketch),
+            readOnly,
+            joints: values.joints.map((j, i) => ({
+              id: j.key,
+              seq: i + 1,
+              orientationText: j.orientationText,
+              setLabel: assessment.sets.membership[j.key] || j.setLabel || null,
+            })),
             assessment,
             faceChainage: face,
           })}

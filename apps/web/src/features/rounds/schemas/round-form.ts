@@ -1,4 +1,10 @@
-import { DEFAULT_SET_PARAMETERS, type SetParameters } from '@roundbook/domain';
+import {
+  DEFAULT_SET_PARAMETERS,
+  emptySketch,
+  restoreSketch,
+  type SetParameters,
+  type SketchDocument,
+} from '@roundbook/domain';
 import { parseChainage } from '@roundbook/geomath';
 import type {
   QLocation,
@@ -119,6 +125,8 @@ export interface RoundFormValues {
   recommendedClassId: string;
   nextRoundLength: string;
   recommendationReason: string;
+  /** The face sketch (packages/domain document); an empty one is sent as null. */
+  sketch: SketchDocument;
 }
 
 let keySeq = 0;
@@ -281,9 +289,20 @@ function rmrFormOf(input: Loose | null): RmrForm {
   return r;
 }
 
+/** The round's sketch as the domain reads it (an unreadable one opens empty rather than breaking the form). */
+function sketchFormOf(sketch: Round['sketch']): SketchDocument {
+  if (sketch === null || sketch === undefined) return emptySketch();
+  try {
+    return restoreSketch(sketch);
+  } catch {
+    return emptySketch();
+  }
+}
+
 /** The form for a saved round. */
 export function formValuesOf(round: Round): RoundFormValues {
   return {
+    sketch: sketchFormOf(round.sketch),
     faceChainage: text(round.faceChainage),
     previousChainage: text(round.previousChainage),
     roundLength: text(round.roundLength),
@@ -462,6 +481,10 @@ export function saveRequestOf(
     recommendedClassId: values.recommendedClassId === '' ? null : values.recommendedClassId,
     nextRoundLength: num(values.nextRoundLength),
     recommendationReason: values.recommendationReason,
+    sketch:
+      values.sketch.elements.length === 0
+        ? null
+        : (values.sketch as unknown as NonNullable<SaveRoundRequest['sketch']>),
   };
 }
 

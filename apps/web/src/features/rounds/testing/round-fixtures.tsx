@@ -97,6 +97,7 @@ export const draftRound: Round = {
   roundLength: 3.5,
   shiftDate: '2026-12-01',
   shift: 'day',
+  sketch: null,
   mappedBy: 'u-geo',
   mappedByName: 'Gale Tremlow',
   mappedAt: '2026-12-01T08:15:00Z',

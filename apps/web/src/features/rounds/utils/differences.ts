@@ -55,6 +55,13 @@ const LABELS: [string, (r: Comparable) => unknown][] = [
   ['Recommended class', (r) => r.recommendedClassId],
   ['Next round length', (r) => r.nextRoundLength],
   ['Reason for the class', (r) => r.recommendationReason],
+  [
+    'Sketch',
+    (r) => {
+      const elements = (r.sketch as { elements?: unknown[] } | null | undefined)?.elements;
+      return elements ? `${elements.length} drawn element(s)` : null;
+    },
+  ],
 ];
 
 export function roundDifferences(

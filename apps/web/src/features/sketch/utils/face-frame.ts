@@ -1,0 +1,113 @@
+// The heading's profile as the sketch draws it (geomath profile.ts, at true scale) and the view transform
+// between face-frame metres (x right of the centre line, y up from the invert) and canvas pixels.
+import type { SketchPoint, Stage } from '@roundbook/domain';
+import { profileOutline, stagePart, type ProfilePoint, type ProfileShape } from '@roundbook/geomath';
+
+export interface SketchProfileInput {
+  profileShape: ProfileShape;
+  profileWidth: number;
+  profileHeight: number;
+  axisHeight: number;
+  benchHeight?: number | null;
+}
+
+export interface FaceFrame {
+  /** The whole excavation line, metres. */
+  outline: ProfilePoint[];
+  /** The round's stage part of it (the face actually mapped). */
+  part: ProfilePoint[];
+  width: number;
+  height: number;
+  axisHeight: number;
+  /** Height of the springline: where the profile is widest (the highest such point). */
+  springline: number;
+  /** Floor line of the top heading / top of the bench, when the stage is one of them. */
+  benchLine: number | null;
+  /** Lowest and highest heights of the stage part. */
+  bottom: number;
+  top: number;
+}
+
+/** The face frame of a heading for a stage; null when the heading's profile cannot be drawn. */
+export function faceFrameOf(heading: SketchProfileInput, stage: Stage): FaceFrame | null {
+  try {
+    const input = {
+      shape: heading.profileShape,
+      width: heading.profileWidth,
+      height: heading.profileHeight,
+      axisHeight: heading.axisHeight,
+      ...(heading.benchHeight !== null && heading.benchHeight !== undefined
+        ? { benchLine: heading.benchHeight }
+        : {}),
+    };
+    const outline = profileOutline(input);
+    const part = stagePart(input, stage === 'invert' ? 'full-face' : stage);
+    const half = outline.points.reduce((m, p) => Math.max(m, Math.abs(p[0])), 0);
+    const springline = outline.points
+      .filter((p) => Math.abs(p[0]) >= half - 1e-6)
+      .reduce((m, p) => Math.max(m, p[1]), 0);
+    const benchLine = stage === 'top-heading' ? part.bottom : stage === 'bench' ? part.top : null;
+    return {
+      outline: outline.points,
+      part: part.points,
+      width: outline.width,
+      height: outline.height,
+      axisHeight: heading.axisHeight,
+      springline,
+      benchLine,
+      bottom: part.bottom,
+      top: part.top,
+    };
+  } catch {
+    return null;
+  }
+}
+
+/** Pixels per metre and where the frame's origin (centre line, invert) is on the canvas. */
+export interface ViewTransform {
+  scale: number;
+  ox: number;
+  oy: number;
+}
+
+/** The view that fits the profile (with a 1 m margin and room for the labels) into the canvas. */
+export function fitView(frame: FaceFrame, widthPx: number, heightPx: number): ViewTransform {
+  const spanX = frame.width + 3;
+  const spanY = frame.height + 2.5;
+  const scale = Math.max(4, Math.min(widthPx / spanX, heightPx / spanY));
+  return { scale, ox: widthPx / 2, oy: heightPx / 2 + (frame.height / 2) * scale };
+}
+
+export const toPx = (v: ViewTransform, p: SketchPoint | ProfilePoint): [number, number] => [
+  v.ox + p[0] * v.scale,
+  v.oy - p[1] * v.scale,
+];
+
+export const toMetres = (v: ViewTransform, px: { x: number; y: number }): SketchPoint => [
+  (px.x - v.ox) / v.scale,
+  (v.oy - px.y) / v.scale,
+];
+
+/** Flat pixel list for a Konva Line. */
+export const flatPx = (v: ViewTransform, points: readonly (SketchPoint | ProfilePoint)[]): number[] =>
+  points.flatMap((p) => toPx(v, p));
+
+/** Zoom by `factor` about the pixel point `at` (wheel or pinch), within 4 to 400 px per metre. */
+export function zoomAbout(v: ViewTransform, factor: number, at: { x: number; y: number }): ViewTransform {
+  const scale = Math.min(400, Math.max(4, v.scale * factor));
+  const k = scale / v.scale;
+  return { scale, ox: at.x - (at.x - v.ox) * k, oy: at.y - (at.y - v.oy) * k };
+}
+
+/** Whole metres from `from` to `to` (the grid lines). */
+export function gridLines(from: number, to: number): number[] {
+  const out: number[] = [];
+  for (let m = Math.ceil(from); m <= Math.floor(to); m++) out.push(m);
+  return out;
+}
+
+/** Centre of a ring (mean of its points): where an area figure is written. */
+export const centreOf = (points: readonly SketchPoint[]): SketchPoint => [
+  points.reduce((s, p) => s + p[0], 0) / points.length,
+  points.reduce((s, p) => s + p[1], 0) / points.length,
+];
