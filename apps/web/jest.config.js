@@ -17,7 +17,9 @@ export default {
     ],
   },
   // geomath's d3 helpers and konva ship as ESM only; let @swc/jest turn them into CommonJS.
-  transformIgnorePatterns: ['/node_modules/(?!(d3-.*|internmap|delaunator|robust-predicates|konva|react-konva|its-fine)/)'],
+  transformIgnorePatterns: [
+    '/node_modules/(?!(d3-.*|internmap|delaunator|robust-predicates|konva|react-konva|its-fine)/)',
+  ],
   moduleNameMapper: {
     '^@/(.*)$': '<rootDir>/src/$1',
     // Workspace packages are tested from their TypeScript source, like Vite bundles them.
