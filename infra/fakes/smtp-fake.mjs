@@ -43,6 +43,7 @@ const server = new SMTPServer({
             cc: addressList(mail.cc),
             envelopeTo: session.envelope.rcptTo.map((r) => r.address),
             subject: mail.subject ?? '',
+            messageId: mail.messageId ?? null,
             date: (mail.date ?? new Date()).toISOString(),
             receivedAt: new Date().toISOString(),
             text: mail.text ?? '',

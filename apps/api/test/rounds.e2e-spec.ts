@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { INestApplication } from '@nestjs/common';
 import { parsePlane, qValue } from '@roundbook/geomath';
 import request from 'supertest';
@@ -501,5 +502,22 @@ describe('Rounds (e2e, real MariaDB)', () => {
     // The 30,000 invented rounds go again, so a rerun on the same database starts small.
     await ds.query('DELETE FROM rounds WHERE heading_id = ?', [big.id]);
     await ds.getRepository(Heading).delete({ id: big.id });
+  });
+  it('rounds opened at once on one heading are numbered one after the other, none refused', async () => {
+    // Found by the cluster proof (npm run cluster:proof): a create that waited for the heading's lock read the
+    // last round number from its snapshot and failed on the unique key (409) when three came at once.
+    const q = await makeProject(app, { code: `RC${stamp}`, heading: { stages: ['full-face'] } });
+    const ids = Array.from({ length: 12 }, () => randomUUID());
+    const answers = await Promise.all(
+      ids.map((id, i) =>
+        request(http)
+          .post(`${q.base}/headings/${q.headingId}/rounds`)
+          .set(q.as('geologist'))
+          .send({ id, stage: 'full-face', faceChainage: 1003 + i }),
+      ),
+    );
+    expect(answers.map((a) => a.status)).toEqual(ids.map(() => 201));
+    const numbers = answers.map((a) => (a.body as Body).roundNumber as number).sort((a, b) => a - b);
+    expect(numbers).toEqual(ids.map((_, i) => i + 1));
   });
 });

@@ -10,7 +10,7 @@ export function dbErrno(error: unknown): number | undefined {
 /** ER_ROW_IS_REFERENCED_2 (1451): a foreign key with RESTRICT holds the row. */
 export const isRowReferenced = (error: unknown): boolean => dbErrno(error) === 1451;
 /** ER_DUP_ENTRY (1062): a unique key already holds the value. */
-export const isDuplicateKey = (error: unknown): boolean => dbErrno(error) === 1062;
+export const isDuplicateKey = (error: unknown): boolean => driverErrorOf(error)?.errno === 1062;
 
 /** How the global filter answers a database error: status, code, message, and a retry hint for outages. */
 export interface DatabaseErrorAnswer {

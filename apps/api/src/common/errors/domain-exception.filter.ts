@@ -56,6 +56,8 @@ export class DomainExceptionFilter implements ExceptionFilter {
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
       );
+    else if (status === 409 && !(exception instanceof DomainException) && exception instanceof Error)
+      this.logger.warn(`409 from the database: ${exception.message}`);
     res.status(status).json(body);
   }
 

@@ -5,6 +5,7 @@ import { AuthGuard } from '@nestjs/passport';
 import type { IAuthGuard } from '@nestjs/passport';
 import type { AuthUser } from '../../common/auth/auth-user.js';
 import { IS_PUBLIC } from '../../common/auth/public.decorator.js';
+import { answerOfDatabaseError } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { JWT_STRATEGY, type JwtStrategyHandle } from './jwt.strategy.js';
 
@@ -26,6 +27,10 @@ export class JwtAuthGuard implements CanActivate, OnModuleDestroy {
     this.passportGuard = new (class extends PassportGuard {
       override handleRequest<TUser = AuthUser>(err: unknown, user: TUser | false, info: unknown): TUser {
         if (err instanceof DomainException) throw err;
+        // The token could not be checked (the database did not answer while reading its account): that is the
+        // server's trouble, answered 503 with Retry-After by the exception filter, never "please sign in"
+        // (found by the cluster proof: a Galera node killed mid-load sent signed-in people to sign-in).
+        if (err instanceof Error && answerOfDatabaseError(err)?.status === 503) throw err;
         if (err || !user) {
           const expired = info instanceof Error && info.name === 'TokenExpiredError';
           throw new DomainException(

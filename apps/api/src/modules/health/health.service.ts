@@ -53,9 +53,27 @@ export class HealthService {
     }
   }
 
+  /**
+   * The database answers and, on a Galera node, is part of the primary component and synced: a joining or
+   * cut-off node answers `SELECT 1` but refuses reads and writes with 1047 (stack-notes §13), so the port alone
+   * says too little. A server without Galera (`@@wsrep_on` 0) needs only the answer.
+   */
+  private async databaseReady(): Promise<void> {
+    const [row] = await this.dataSource.query<{ wsrepOn: number | string }[]>('SELECT @@wsrep_on AS wsrepOn');
+    if (Number(row?.wsrepOn ?? 0) !== 1) return;
+    const status = await this.dataSource.query<{ Variable_name: string; Value: string }[]>(
+      "SHOW GLOBAL STATUS WHERE Variable_name IN ('wsrep_ready', 'wsrep_local_state_comment')",
+    );
+    const value = (name: string) => status.find((s) => s.Variable_name === name)?.Value;
+    const ready = value('wsrep_ready');
+    const state = value('wsrep_local_state_comment');
+    if (ready !== 'ON' || state !== 'Synced')
+      throw new Error(`Galera node not ready (wsrep_ready ${ready ?? '?'}, state ${state ?? '?'})`);
+  }
+
   private async checkNow(): Promise<HealthDto> {
     const [database, storage, mail] = await Promise.all([
-      this.probe('database', () => this.dataSource.query('SELECT 1')),
+      this.probe('database', () => this.databaseReady()),
       this.probe('storage', () => this.storage.check()),
       this.probe('mail', () => this.mail.check()),
     ]);

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
-import { DataSource, type Repository } from 'typeorm';
+import { DataSource, type EntityManager, type Repository } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { HEADING_PROGRESS, type HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
@@ -68,8 +68,9 @@ export class ProjectsService {
   }
 
   /** The project's settings, for another module (rounds read its time zone, notation and Q edition). */
-  async findProject(projectId: string): Promise<Project> {
-    const project = await this.dataSource.getRepository(Project).findOneBy({ id: projectId });
+  /** `manager`: the caller's transaction, so a read inside one never waits for a second pooled connection. */
+  async findProject(projectId: string, manager: EntityManager = this.dataSource.manager): Promise<Project> {
+    const project = await manager.getRepository(Project).findOneBy({ id: projectId });
     if (!project) throw DomainException.notFound('The project');
     return project;
   }

@@ -72,9 +72,12 @@ export class RoundAssessor {
     const parameters = round.setParameters ?? DEFAULT_SET_PARAMETERS;
     const [h, classes, rules, project, previous, nearby, openHazards] = await Promise.all([
       heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
-      this.supportClasses.classesOf(round.projectId),
-      this.triggerRules.rulesOf(round.projectId),
-      this.projects.findProject(round.projectId),
+      // Every read through `manager`: inside a transaction a second pooled connection could wait forever
+      // once every connection is held by a transaction waiting for the heading's lock (twelve rounds opened
+      // at once hung the API with a pool of ten before).
+      this.supportClasses.classesOf(round.projectId, manager),
+      this.triggerRules.rulesOf(round.projectId, manager),
+      this.projects.findProject(round.projectId, manager),
       round.roundNumber > 1
         ? manager.findOne(Round, {
             where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },

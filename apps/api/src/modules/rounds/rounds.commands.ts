@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
   DEFAULT_SET_PARAMETERS,
@@ -135,6 +135,7 @@ function storeAssessment(round: Round, assessment: RoundAssessment): void {
 /** Changes to rounds: open, save (drafts save as you go), submit. Status changes go through round-status.ts. */
 @Injectable()
 export class RoundsCommands {
+  private readonly logger = new Logger('Rounds');
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(AuditService) private readonly audit: AuditService,
@@ -161,13 +162,18 @@ export class RoundsCommands {
     dto: CreateRoundDto,
     idempotencyKey: string | null = null,
   ): Promise<RoundDto> {
-    try {
-      return await this.createOnce(caller, access, headingId, dto, idempotencyKey);
-    } catch (error) {
-      // Two copies of one request raced: the loser finds what the winner made.
-      if (isDuplicateKey(error) && (idempotencyKey !== null || dto.id !== undefined))
-        return this.createOnce(caller, access, headingId, dto, idempotencyKey);
-      throw error;
+    // A duplicate key means another create won a race: two copies of one request (the loser then finds what
+    // the winner made), or, on a Galera cluster, two rounds of the heading made at once on different nodes,
+    // where the heading's row lock is local to each node and both read the same last round number (the loser
+    // reads again and takes the next one). Found by the cluster proof; a few tries settle it.
+    for (let attempt = 1; ; attempt++) {
+      try {
+        return await this.createOnce(caller, access, headingId, dto, idempotencyKey);
+      } catch (error) {
+        if (!isDuplicateKey(error) || (idempotencyKey === null && dto.id === undefined) || attempt >= 5)
+          throw error;
+        this.logger.warn(`A round create met a duplicate key (try ${attempt}): ${(error as Error).message}`);
+      }
     }
   }
 
@@ -199,8 +205,8 @@ export class RoundsCommands {
           { stage: `Choose one of: ${heading.stages.join(', ')}.` },
         );
       }
-      const next = await this.nextFor(manager, heading, dto.stage);
-      const project = await this.projects.findProject(access.projectId);
+      const next = await this.nextFor(manager, heading, dto.stage, { locking: true });
+      const project = await this.projects.findProject(access.projectId, manager);
       const now = new Date();
       const round = manager.create(Round, {
         id: dto.id ?? randomUUID(),
@@ -260,7 +266,7 @@ export class RoundsCommands {
       const round = await this.queries.find(manager, access, roundId, true);
       await this.assertCurrent(manager, round, dto.version);
       assertEditable(round.status);
-      const project = await this.projects.findProject(access.projectId);
+      const project = await this.projects.findProject(access.projectId, manager);
       if (dto.recommendedClassId) await this.supportClass(access, dto.recommendedClassId);
       const heading = await this.queries.heading(access, round.headingId, manager);
       const jointsBefore = await manager.find(Joint, { where: { roundId }, order: { seq: 'ASC' } });
@@ -502,10 +508,23 @@ export class RoundsCommands {
     );
   }
 
-  private async nextFor(manager: EntityManager, heading: Heading, stage: Stage): Promise<NextRoundDto> {
+  /**
+   * The next round of the heading's stage. `locking` (inside a create's transaction): a locking read, which
+   * sees the latest committed rounds. A plain read under REPEATABLE READ sees the snapshot taken at the
+   * transaction's first read, before the heading's lock was granted, so a create that waited for another
+   * read the same last number and failed on the unique key (found by the cluster proof with three
+   * concurrent creates; on one server too).
+   */
+  private async nextFor(
+    manager: EntityManager,
+    heading: Heading,
+    stage: Stage,
+    { locking = false }: { locking?: boolean } = {},
+  ): Promise<NextRoundDto> {
     const last = await manager.findOne(Round, {
       where: { headingId: heading.id, stage },
       order: { roundNumber: 'DESC' },
+      ...(locking ? { lock: { mode: 'pessimistic_write' as const } } : {}),
     });
     const previousChainage = last?.faceChainage ?? heading.startChainage;
     return {

@@ -60,10 +60,9 @@ export class SupportClassesService {
   ) {}
 
   /** The project's classes in library order, for another module (rounds' suggestions). */
-  classesOf(projectId: string): Promise<SupportClass[]> {
-    return this.dataSource
-      .getRepository(SupportClass)
-      .find({ where: { projectId }, order: { sortOrder: 'ASC' } });
+  /** `manager`: the caller's transaction (see ProjectsService.findProject). */
+  classesOf(projectId: string, manager: EntityManager = this.dataSource.manager): Promise<SupportClass[]> {
+    return manager.getRepository(SupportClass).find({ where: { projectId }, order: { sortOrder: 'ASC' } });
   }
 
   async library(access: ProjectAccess): Promise<SupportClassLibraryDto> {

@@ -53,8 +53,9 @@ export class TriggerRulesService {
   ) {}
 
   /** The project's rules, for another module (rounds evaluate them on every save). */
-  rulesOf(projectId: string): Promise<TriggerRule[]> {
-    return this.dataSource.getRepository(TriggerRule).find({ where: { projectId } });
+  /** `manager`: the caller's transaction (see ProjectsService.findProject). */
+  rulesOf(projectId: string, manager: EntityManager = this.dataSource.manager): Promise<TriggerRule[]> {
+    return manager.getRepository(TriggerRule).find({ where: { projectId } });
   }
 
   async list(access: ProjectAccess): Promise<TriggerRuleDto[]> {
