@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module.js';
+import { ProjectMember } from '../projects/project-member.entity.js';
 import { Round } from '../rounds/round.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
 import { User } from '../users/user.entity.js';
@@ -10,7 +11,7 @@ import { SupportRecordsService } from './support-records.service.js';
 
 /** Support as built per confirmed round; the Board and the handovers read it through the service. */
 @Module({
-  imports: [TypeOrmModule.forFeature([SupportRecord, Round, SupportClass, User]), AuditModule],
+  imports: [TypeOrmModule.forFeature([SupportRecord, Round, SupportClass, User, ProjectMember]), AuditModule],
   controllers: [SupportRecordsController],
   providers: [SupportRecordsService],
   exports: [SupportRecordsService],
