@@ -6,7 +6,7 @@ import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { SupportRecordsService } from '../src/modules/support-records/support-records.service';
-import { latestAudit, makeProject, saveBody, TEST_PASSWORD, type TestProject } from './factories';
+import { latestAudit, makeProject, saveBody, TEST_PASSWORD, testQInput, type TestProject } from './factories';
 import { createTestApp } from './test-app';
 
 type Body = Record<string, any>;
@@ -25,7 +25,8 @@ describe('Support as built (e2e, real MariaDB)', () => {
       (h) => h.id === p.headingId,
     )!;
 
-  /** Opens a round, saves it with class C2 recommended, submits it. */
+  /** Opens a round, saves it with Q = 60/4 × 1.5/4 × 1/1 = 5.625 (Barton et al. 1974) [computed here], inside
+   * C2 (1 ≤ Q < 10), with C2 recommended, and submits it. */
   const mapRound = async (faceChainage: number): Promise<Body> => {
     const opened = (
       await request(http)
@@ -38,7 +39,13 @@ describe('Support as built (e2e, real MariaDB)', () => {
       await request(http)
         .put(`${p.base}/rounds/${opened.id}`)
         .set(p.as('geologist'))
-        .send(saveBody(opened, { recommendedClassId: classId('C2'), nextRoundLength: 3 }))
+        .send(
+          saveBody(opened, {
+            qInput: { ...testQInput, ja: 4 },
+            recommendedClassId: classId('C2'),
+            nextRoundLength: 3,
+          }),
+        )
         .expect(200)
     ).body as Body;
     return (
@@ -83,20 +90,19 @@ describe('Support as built (e2e, real MariaDB)', () => {
       ],
     });
     const submitted = await mapRound(1003);
-    confirmed = (
-      await request(http)
-        .post(`${p.base}/rounds/${submitted.id}/confirm`)
-        .set(p.as('engineer'))
-        .send({
-          version: submitted.version,
-          classId: classId('C2'),
-          roundLength: 3,
-          comments: '',
-          reason: '',
-          password: TEST_PASSWORD,
-        })
-        .expect(200)
-    ).body as Body;
+    await request(http)
+      .post(`${p.base}/rounds/${submitted.id}/confirm`)
+      .set(p.as('engineer'))
+      .send({
+        version: submitted.version,
+        classId: classId('C2'),
+        roundLength: 3,
+        comments: '',
+        reason: '',
+        password: TEST_PASSWORD,
+      })
+      .expect(200);
+    confirmed = submitted;
     draft = await mapRound(1006);
   });
 
