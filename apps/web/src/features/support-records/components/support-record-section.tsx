@@ -132,7 +132,8 @@ export function SupportRecordSection({ projectId, roundId, canRecord, timeZone }
       const quantity = parsed(d.quantity);
       const length = parsed(d.length);
       const label = supportElementLabels[d.element];
-      if (Number.isNaN(quantity)) local[`items.${index}.quantity`] = `${label}: give the quantity as a number.`;
+      if (Number.isNaN(quantity))
+        local[`items.${index}.quantity`] = `${label}: give the quantity as a number.`;
       if (Number.isNaN(length)) local[`items.${index}.length`] = `${label}: give the length in metres.`;
       const item = { element: d.element, status: d.status, quantity, length, reason: d.reason.trim() };
       if (!Number.isNaN(quantity) && !Number.isNaN(length))
