@@ -26,7 +26,7 @@ import {
 } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useQueryClient } from '@tanstack/react-query';
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import type { SupportRecord, SupportRecordItem } from '@/api/contract';
 import { resourceKeys } from '@/api/resources/keys';
 import { useSaveSupportRecord, useSupportRecord } from '@/features/support-records/api/support-record';
@@ -94,16 +94,19 @@ export function SupportRecordSection({ projectId, roundId, canRecord, timeZone }
   const queryClient = useQueryClient();
   const { data: record, isPending, error } = useSupportRecord(projectId, roundId);
   const save = useSaveSupportRecord(projectId, roundId);
-  const [draft, setDraft] = useState<DraftItem[] | null>(null);
+  const [draft, setDraft] = useState<DraftItem[] | null>(record ? toDraft(record) : null);
+  const [source, setSource] = useState(record);
   const [typed, setTyped] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<{ message: string; fields: Record<string, string> } | null>(null);
   const [stale, setStale] = useState<SupportRecord | null>(null);
   const [savedAt, setSavedAt] = useState<number | null>(null);
 
-  // A new version from the server (first load, a save, their version after a conflict) resets the form.
-  useEffect(() => {
-    if (record) setDraft(toDraft(record));
-  }, [record]);
+  // A new version from the server (first load, a save, their version after a conflict) resets the form
+  // (adjusted while rendering, not in an effect).
+  if (record && record !== source) {
+    setSource(record);
+    setDraft(toDraft(record));
+  }
 
   if (isPending)
     return (
