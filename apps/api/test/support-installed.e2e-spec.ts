@@ -285,4 +285,9 @@ describe('Support as built (e2e, real MariaDB)', () => {
     });
     expect(Object.keys(audit.after!.items as Body)).toEqual(['sprayed-concrete']);
   });
+
+  it('has a migration that matches the entity (no schema change pending for support_records)', async () => {
+    const pending = await app.get(DataSource).driver.createSchemaBuilder().log();
+    expect(pending.upQueries.map((q) => q.query).filter((q) => q.includes('support_records'))).toEqual([]);
+  });
 });
