@@ -20,6 +20,7 @@ import { PhotosModule } from './modules/photos/photos.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
 import { RoundsModule } from './modules/rounds/rounds.module.js';
 import { SupportClassesModule } from './modules/support-classes/support-classes.module.js';
+import { SupportRecordsModule } from './modules/support-records/support-records.module.js';
 import { TeamModule } from './modules/team/team.module.js';
 import { TriggerRulesModule } from './modules/trigger-rules/trigger-rules.module.js';
 
@@ -43,6 +44,7 @@ export class AppModule {
         RoundsModule,
         PhotosModule,
         HazardsModule,
+        SupportRecordsModule,
         HandoversModule,
         BoardModule,
         HealthModule,

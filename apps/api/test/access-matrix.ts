@@ -33,6 +33,8 @@ const CONTRIBUTORS: readonly Actor[] = ['admin', 'geologist', 'engineer', 'super
 const HAZARD_CLOSERS: readonly Actor[] = ['admin', 'engineer', 'supervisor'];
 const SUPERVISOR: readonly Actor[] = ['supervisor'];
 const SUPERVISOR_OR_ADMIN: readonly Actor[] = ['admin', 'supervisor'];
+/** Who records support as built: the supervisor has it installed, the engineer may correct it (and admins). */
+const SUPPORT_RECORDERS: readonly Actor[] = ['admin', 'engineer', 'supervisor'];
 
 /** "METHOD /path" (as in the OpenAPI document) → the actors allowed through. */
 export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
@@ -128,6 +130,10 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   // Handovers addressed to the caller, across their projects; empty for everyone else.
   'GET /api/handovers/received': SIGNED_IN,
 
+  // Support as built (issue 15 item 2): members read the checklist; geologists and viewers do not record.
+  'GET /api/projects/{projectId}/rounds/{roundId}/support-record': MEMBERS,
+  'PUT /api/projects/{projectId}/rounds/{roundId}/support-record': SUPPORT_RECORDERS,
+
   // Local mode only (the test app runs in it); the instance operator alone.
   'GET /api/local/access': SIGNED_IN,
   'GET /api/local/mail': OPERATOR,
@@ -150,4 +156,5 @@ export const ROLE_SETS = {
   HAZARD_CLOSERS,
   SUPERVISOR,
   SUPERVISOR_OR_ADMIN,
+  SUPPORT_RECORDERS,
 };

@@ -147,6 +147,7 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}/close',
   'POST /api/projects/{projectId}/handovers',
   'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
+  'PUT /api/projects/{projectId}/rounds/{roundId}/support-record',
 ];
 
 function withValue(body: Body, where: string, value: unknown): Body {
@@ -438,6 +439,16 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         url: `${p.base}/handovers/${round.id}/acknowledge`,
         as: p.as('supervisor'),
         body: { comment: 'Understood.' },
+      },
+      {
+        // The round is a draft: a body that passes the checks still gets 409 (not confirmed), never a write.
+        key: 'PUT /api/projects/{projectId}/rounds/{roundId}/support-record',
+        url: `${p.base}/rounds/${round.id}/support-record`,
+        as: p.as('supervisor'),
+        body: {
+          version: 0,
+          items: [{ element: 'bolts', status: 'done', quantity: 12, length: 3, reason: '' }],
+        },
       },
     );
   });

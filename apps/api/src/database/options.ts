@@ -19,6 +19,7 @@ import {
 import { RoundRevision } from '../modules/rounds/round-revision.entity.js';
 import { Round } from '../modules/rounds/round.entity.js';
 import { SupportClass } from '../modules/support-classes/support-class.entity.js';
+import { SupportRecord } from '../modules/support-records/support-record.entity.js';
 import { Invitation } from '../modules/team/invitation.entity.js';
 import { TriggerRule } from '../modules/trigger-rules/trigger-rule.entity.js';
 import { User } from '../modules/users/user.entity.js';
@@ -46,6 +47,7 @@ export const entities = [
   Hazard,
   Handover,
   HandoverHeading,
+  SupportRecord,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -66,3 +66,7 @@ export type HazardKind = Schemas['HazardKind'];
 export type CreateHazardRequest = Schemas['CreateHazardDto'];
 export type UpdateHazardRequest = Schemas['UpdateHazardDto'];
 export type CloseHazardRequest = Schemas['CloseHazardDto'];
+
+export type SupportRecord = Schemas['SupportRecordDto'];
+export type SupportRecordItem = Schemas['SupportItemDto'];
+export type SaveSupportRecordRequest = Schemas['SaveSupportRecordDto'];

@@ -67,6 +67,7 @@ export const harrowdale: ProjectSummary = {
       roundsToConfirm: 2,
       triggerLevel: 'amber',
       lastHandover: { sentAt: '2026-11-30T18:05:00Z', acknowledgedAt: null },
+      supportOutstanding: true,
     },
     {
       id: 'h-2',
@@ -88,6 +89,7 @@ export const harrowdale: ProjectSummary = {
       roundsToConfirm: 0,
       triggerLevel: null,
       lastHandover: null,
+      supportOutstanding: false,
     },
   ],
 };

@@ -14,6 +14,8 @@ export interface HeadingProgress {
   triggerLevel: 'green' | 'amber' | 'red' | null;
   /** The heading's latest handover: when it was sent and whether (when) it was acknowledged */
   lastHandover?: { sentAt: string; acknowledgedAt: string | null } | null;
+  /** The latest confirmed round of a stage has support outstanding (support-records) */
+  supportOutstanding?: boolean;
 }
 
 export interface HeadingProgressPort {

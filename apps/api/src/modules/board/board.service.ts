@@ -1,9 +1,10 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { LEVEL_RANK } from '@roundbook/domain';
 import { DataSource } from 'typeorm';
 import type { HeadingProgress, HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
 import { Round } from '../rounds/round.entity.js';
+import { SupportRecordsService } from '../support-records/support-records.service.js';
 
 const num = (v: string | null): number | null => (v === null ? null : Number(v));
 
@@ -23,7 +24,10 @@ function beyond(r: {
 /** The Board's read model: per-heading progress from the rounds, in two queries for any number of headings. */
 @Injectable()
 export class BoardService implements HeadingProgressPort {
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(SupportRecordsService) private readonly supportRecords: SupportRecordsService,
+  ) {}
 
   async progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
     if (headingIds.length === 0) return new Map();
@@ -112,6 +116,9 @@ export class BoardService implements HeadingProgressPort {
       };
       out.set(h.headingId, entry);
     }
+    // Support as built: the latest confirmed round of a stage with items outstanding (support-records).
+    const outstanding = await this.supportRecords.outstandingHeadings(headingIds);
+    for (const [headingId, entry] of out) entry.supportOutstanding = outstanding.has(headingId);
     return out;
   }
 }

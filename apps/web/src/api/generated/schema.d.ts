@@ -789,6 +789,24 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/support-record": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The round's support checklist: as recorded, or prefilled from the confirmed class (any member) */
+        get: operations["SupportRecordsController_get"];
+        /** Records what was installed, item by item, with the version read (supervisors, engineers, admins) */
+        put: operations["SupportRecordsController_save"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/handovers/draft": {
         parameters: {
             query?: never;
@@ -1158,6 +1176,8 @@ export interface components {
             plannedRoundLength: number;
             /** @description Rounds submitted and waiting for the engineer's review */
             roundsToConfirm: number;
+            /** @description The latest confirmed round of a stage has support outstanding (or none recorded yet while its class names some) */
+            supportOutstanding: boolean;
         };
         ProjectSummaryDto: {
             qTableEdition: components["schemas"]["QTableEdition"];
@@ -2251,6 +2271,82 @@ export interface components {
         };
         CloseHazardDto: {
             reason: string;
+            version: number;
+        };
+        /** @enum {string} */
+        SupportElement: "probe-holes" | "sprayed-concrete" | "mesh" | "bolts" | "spiles" | "steel-sets";
+        /** @enum {string} */
+        SupportUnit: "count" | "mm" | "m2";
+        /** @enum {string} */
+        SupportItemStatus: "done" | "outstanding" | "not-needed";
+        PlannedSupportDto: {
+            /** @description A planned quantity in the element's unit, when the class gives one (sprayed concrete's thickness) */
+            quantity: number | null;
+            /** @description A planned length, m (bolts) */
+            length: number | null;
+            /** @description The class names this element */
+            inClass: boolean;
+            /** @description The class's own words for it (bolt type and pattern, the steel support) */
+            text: string;
+        };
+        SupportItemDto: {
+            element: components["schemas"]["SupportElement"];
+            unit: components["schemas"]["SupportUnit"];
+            status: components["schemas"]["SupportItemStatus"];
+            /** @description Installed quantity in the unit; null when nothing is installed yet */
+            quantity: number | null;
+            /** @description Installed length, m */
+            length: number | null;
+            /** @description Who recorded the item's last change */
+            installedBy: string | null;
+            installedByName: string | null;
+            /** Format: date-time */
+            installedAt: string | null;
+            /** @description Whether the item carries a length in metres */
+            hasLength: boolean;
+            planned: components["schemas"]["PlannedSupportDto"];
+            /** @description Why it is not needed, or a note on an outstanding item */
+            reason: string;
+        };
+        SupportRecordDto: {
+            /** Format: uuid */
+            classId: string | null;
+            classCode: string | null;
+            className: string | null;
+            /** Format: date-time */
+            updatedAt: string | null;
+            updatedByName: string | null;
+            items: components["schemas"]["SupportItemDto"][];
+            roundId: string;
+            headingId: string;
+            roundNumber: number;
+            /** @description Support is recorded once the round is confirmed; before that the checklist is not offered */
+            confirmed: boolean;
+            /** @description False while the checklist is only the class's plan (nothing saved yet) */
+            recorded: boolean;
+            /** @description The record's version (0 before the first save); send it back with the change */
+            version: number;
+            /** @description How many items are outstanding */
+            outstandingCount: number;
+        };
+        SupportItemInputDto: {
+            element: components["schemas"]["SupportElement"];
+            status: components["schemas"]["SupportItemStatus"];
+            /** @description Installed quantity in the element's unit (count, mm or m²); null when nothing is installed */
+            quantity: number | null;
+            /** @description Installed length, m (bolts, spiles, probe holes); null otherwise */
+            length: number | null;
+            /**
+             * Format: date-time
+             * @description When it was installed (defaults to the time of the save when the item changes)
+             */
+            installedAt?: string;
+            /** @description Why it is not needed (required then), or a note on an outstanding item */
+            reason: string;
+        };
+        SaveSupportRecordDto: {
+            items: components["schemas"]["SupportItemInputDto"][];
+            /** @description The record's version as read (0 when nothing was recorded yet); 409 STALE_VERSION if it changed */
             version: number;
         };
         HandoverLastConfirmedDto: {
@@ -4955,6 +5051,100 @@ export interface operations {
                 content?: never;
             };
             /** @description Stale version, or already closed */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    SupportRecordsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportRecordDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    SupportRecordsController_save: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SaveSupportRecordDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SupportRecordDto"];
+                };
+            };
+            /** @description A quantity, length or reason that does not fit */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Member without one of the roles: supervisor, engineer, admin */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Stale version (the current record is in details.current), or the round is not confirmed */
             409: {
                 headers: {
                     [name: string]: unknown;

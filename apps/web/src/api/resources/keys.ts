@@ -53,6 +53,9 @@ export const resourceKeys = {
   /** The round's review (GET /projects/{id}/rounds/{roundId}/review): below the round, so it goes with it. */
   roundReview: (projectId: string, roundId: string) =>
     [...resourceKeys.round(projectId, roundId), 'review'] as const,
+  /** The round's support as built (GET /projects/{id}/rounds/{roundId}/support-record): below the round. */
+  roundSupportRecord: (projectId: string, roundId: string) =>
+    [...resourceKeys.round(projectId, roundId), 'support-record'] as const,
   /** Every frozen revision of a round (GET /projects/{id}/rounds/{roundId}/revisions). */
   roundRevisions: (projectId: string, roundId: string) =>
     [...resourceKeys.round(projectId, roundId), 'revisions'] as const,

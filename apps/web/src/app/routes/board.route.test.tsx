@@ -37,10 +37,16 @@ describe('Board', () => {
     expect(upstream).toHaveTextContent('2 rounds');
     expect(upstream).toHaveTextContent('sent 30 Nov 2026, 18:05');
     expect(upstream).toHaveTextContent('not acknowledged yet');
+    // Support as built (issue 15, item 2): the last confirmed round still has support outstanding.
+    expect(within(upstream).getByTestId('support-outstanding')).toHaveTextContent(
+      'outstanding on the last confirmed round',
+    );
 
     const downstream = within(board).getByRole('article', { name: 'Downstream drive from Adit 2' });
     // Each heading's own chainage style (this one writes metres).
     expect(downstream).toHaveTextContent('no rounds yet (starts at 1000.0)');
+    expect(downstream).toHaveTextContent('Support as builtnothing outstanding');
+    expect(within(downstream).queryByTestId('support-outstanding')).not.toBeInTheDocument();
     expect(downstream).toHaveTextContent('No trigger level yet');
     expect(downstream).toHaveTextContent('227°, falling −0.40 %');
     expect(within(downstream).getAllByText('none yet')).toHaveLength(2);

@@ -25,6 +25,7 @@ import {
 } from '@/features/rounds/api/get-round';
 import { RoundEditor } from '@/features/rounds/components/round-editor';
 import { SketchSection } from '@/features/sketch';
+import { SupportRecordSection } from '@/features/support-records/components/support-record-section';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -128,6 +129,14 @@ export function RoundRoute() {
           projectId={projectId}
           roundId={round.id}
           supportClasses={library.classes}
+          timeZone={project.timeZone}
+        />
+      )}
+      {round.status === 'confirmed' && (
+        <SupportRecordSection
+          projectId={projectId}
+          roundId={round.id}
+          canRecord={['supervisor', 'engineer', 'admin'].includes(project.role)}
           timeZone={project.timeZone}
         />
       )}

@@ -60,6 +60,8 @@ export class HeadingSummaryDto {
   triggerLevel: 'green' | 'amber' | 'red' | null;
   @ApiProperty({ type: LastHandoverDto, nullable: true })
   lastHandover: LastHandoverDto | null;
+  /** The latest confirmed round of a stage has support outstanding (or none recorded yet while its class names some) */
+  supportOutstanding: boolean;
 }
 
 export class ProjectSummaryDto {

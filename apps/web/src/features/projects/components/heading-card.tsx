@@ -171,6 +171,15 @@ export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProp
             </span>
           )}
         </Fact>
+        <Fact term="Support as built">
+          {heading.supportOutstanding ? (
+            <span className={styles.attention} data-testid="support-outstanding">
+              outstanding on the last confirmed round
+            </span>
+          ) : (
+            'nothing outstanding'
+          )}
+        </Fact>
         <Fact term="Last handover">
           {handover === null || handoverStatus === 'none' ? (
             'none yet'
