@@ -4,7 +4,15 @@ import type Konva from 'konva';
 import { useMemo, useRef, useState } from 'react';
 import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import type { FaceFrame, ViewTransform } from '@/features/sketch/utils/face-frame';
-import { centreOf, flatPx, gridLines, toMetres, toPx, zoomAbout } from '@/features/sketch/utils/face-frame';
+import {
+  centreOf,
+  dragDelta,
+  flatPx,
+  gridLines,
+  toMetres,
+  toPx,
+  zoomAbout,
+} from '@/features/sketch/utils/face-frame';
 import type { DraftLine } from '@/features/sketch/utils/tools';
 
 /** Concrete colours (Konva draws on a canvas, where theme variables do not resolve). Roundbook's own. */
@@ -204,8 +212,7 @@ export function SketchCanvas(props: SketchCanvasProps) {
     onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => {
       setDragging(false);
       const node = e.target;
-      const dx = node.x() / view.scale;
-      const dy = -node.y() / view.scale;
+      const { dx, dy } = dragDelta(view, node.position());
       node.position({ x: 0, y: 0 });
       props.onMove(id, dx, dy);
     },

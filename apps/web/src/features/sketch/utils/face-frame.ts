@@ -88,6 +88,18 @@ export const toMetres = (v: ViewTransform, px: { x: number; y: number }): Sketch
   (v.oy - px.y) / v.scale,
 ];
 
+/**
+ * How far a drag of `offset` pixels moves an element, metres in the face frame (y up, so a drag down is a
+ * negative dy), to the millimetre the document keeps.
+ */
+export const dragDelta = (
+  v: ViewTransform,
+  offset: { x: number; y: number },
+): { dx: number; dy: number } => ({
+  dx: Math.round((offset.x / v.scale) * 1000) / 1000,
+  dy: Math.round((-offset.y / v.scale) * 1000) / 1000,
+});
+
 /** Flat pixel list for a Konva Line. */
 export const flatPx = (v: ViewTransform, points: readonly (SketchPoint | ProfilePoint)[]): number[] =>
   points.flatMap((p) => toPx(v, p));
