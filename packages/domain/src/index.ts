@@ -13,3 +13,4 @@ export * from './ground.js';
 export * from './governing.js';
 export * from './hazards.js';
 export * from './sketch.js';
+export * from './sketch-svg.js';

@@ -54,11 +54,6 @@ const settings = (over: Partial<ToolSettings> = {}): ToolSettings => {
   };
 };
 
-const closeTo = (actual: readonly number[], expected: readonly number[]) => {
-  expect(actual).toHaveLength(expected.length);
-  actual.forEach((v, i) => expect(v).toBeCloseTo(expected[i], 9));
-};
-
 describe('face frame of a heading', () => {
   it('top heading: the part above the bench line, springline at the widest highest point', () => {
     const frame = faceFrameOf(heading, 'top-heading');
