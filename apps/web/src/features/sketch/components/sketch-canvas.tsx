@@ -1,5 +1,5 @@
 import type { SketchDocument, SketchElement, SketchPoint } from '@roundbook/domain';
-import { overbreakArea } from '@roundbook/domain';
+import { overbreakArea, SKETCH_COLOURS } from '@roundbook/domain';
 import type Konva from 'konva';
 import { useMemo, useRef, useState } from 'react';
 import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
@@ -15,21 +15,8 @@ import {
 } from '@/features/sketch/utils/face-frame';
 import type { DraftLine } from '@/features/sketch/utils/tools';
 
-/** Concrete colours (Konva draws on a canvas, where theme variables do not resolve). Roundbook's own. */
-export const SKETCH_INK = {
-  paper: '#ffffff',
-  ink: '#1f2328',
-  muted: '#5b6470',
-  grid: '#dde1e7',
-  gridMajor: '#c3c9d2',
-  excavation: '#1f2328',
-  otherStage: '#a7aeb8',
-  axis: '#9c4a00',
-  water: '#1b6fd1',
-  overbreak: '#c2410c',
-  overbreakFill: 'rgba(194, 65, 12, 0.14)',
-  selection: '#e11d74',
-} as const;
+/** Concrete colours (Konva draws on a canvas, where theme variables do not resolve): the SVG render's. */
+export const SKETCH_INK = SKETCH_COLOURS;
 
 export interface SketchCanvasProps {
   document: SketchDocument;
