@@ -14,3 +14,4 @@ export * from './governing.js';
 export * from './hazards.js';
 export * from './sketch.js';
 export * from './sketch-svg.js';
+export * from './sketch-frame.js';
