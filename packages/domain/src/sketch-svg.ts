@@ -25,6 +25,37 @@ export const SKETCH_COLOURS = {
   selection: '#e11d74',
 } as const;
 
+/**
+ * Roundbook's set colours for light paper: six hues of different lightness and hue family, chosen so
+ * that neighbours in the list differ in lightness as well as hue (each set also has its own symbol
+ * shape, so no set is told apart by colour alone).
+ */
+export const SET_COLOURS_LIGHT: readonly string[] = [
+  '#0b5d73', // deep teal
+  '#d88a00', // ochre
+  '#7a2e8c', // plum
+  '#4f9a2f', // moss
+  '#b0302a', // brick
+  '#2f4fa8', // indigo
+];
+/**
+ * The colour of a trace: the colour of its set (directly, or through its joint's set) in the order of the
+ * round's sets, on light paper; the ink when it is not linked or its set is not known.
+ */
+export function traceColourBySet(
+  setLabels: readonly string[],
+  joints: readonly { id: string; setLabel?: string | null }[],
+  colours: readonly string[] = SET_COLOURS_LIGHT,
+): (trace: SketchTrace) => string {
+  return (trace) => {
+    const link = trace.link;
+    if (link === null) return SKETCH_COLOURS.ink;
+    const label = 'jointId' in link ? joints.find((j) => j.id === link.jointId)?.setLabel : link.setLabel;
+    const i = label ? setLabels.indexOf(label) : -1;
+    return i < 0 || colours.length === 0 ? SKETCH_COLOURS.ink : colours[i % colours.length];
+  };
+}
+
 /** The heading's profile as the picture shows it, metres in the face frame. */
 export interface SketchSvgProfile {
   /** The whole excavation line (a closed ring). */

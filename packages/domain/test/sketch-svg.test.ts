@@ -5,6 +5,8 @@ import {
   sketchSvgView,
   sketchToSvg,
   svgPx,
+  traceColourBySet,
+  SET_COLOURS_LIGHT,
   type SketchDocument,
   type SketchPoint,
 } from '../src/index.js';
@@ -99,5 +101,29 @@ describe('sketchToSvg', () => {
     expect(empty).toContain('points="');
     expect(empty).not.toContain('<polyline data-id');
     expect(() => sketchToSvg(emptySketch(), { outline: [] })).toThrow(/needs the profile outline/);
+  });
+});
+
+describe('traceColourBySet', () => {
+  const trace = (link: Record<string, string> | null) =>
+    ({ id: 't', kind: 'trace', mode: 'polyline', points: [], link }) as never;
+  const colourOf = traceColourBySet(
+    ['S1', 'S2'],
+    [
+      { id: 'j1', setLabel: 'S2' },
+      { id: 'j2', setLabel: null },
+    ],
+  );
+  it('takes the set colour in set order, through the joint or the set; the ink otherwise', () => {
+    expect(colourOf(trace({ setLabel: 'S1' }))).toBe(SET_COLOURS_LIGHT[0]);
+    expect(colourOf(trace({ jointId: 'j1' }))).toBe(SET_COLOURS_LIGHT[1]);
+    expect(colourOf(trace({ jointId: 'j2' }))).toBe('#1f2328');
+    expect(colourOf(trace({ jointId: 'gone' }))).toBe('#1f2328');
+    expect(colourOf(trace({ setLabel: 'S9' }))).toBe('#1f2328');
+    expect(colourOf(trace(null))).toBe('#1f2328');
+    // more sets than colours: the colours repeat
+    expect(traceColourBySet(['S1', 'S2', 'S3'], [], ['#111111', '#222222'])(trace({ setLabel: 'S3' }))).toBe(
+      '#111111',
+    );
   });
 });

@@ -6,6 +6,7 @@ import {
   restoreSketch,
   SketchError,
   sketchToSvg,
+  traceColourBySet,
   type SketchDocument,
 } from '@roundbook/domain';
 import sharp from 'sharp';
@@ -88,6 +89,12 @@ export class SketchRenders implements OnModuleInit {
     const chainage = Number(revision.record.faceChainage ?? round.faceChainage);
     const svg = sketchToSvg(doc, frame, {
       pxPerMetre: SKETCH_RENDER_PX_PER_M,
+      traceColour: traceColourBySet(
+        (revision.assessment?.sets?.sets ?? []).map((x) => x.label),
+        Array.isArray(revision.record.joints)
+          ? (revision.record.joints as { id: string; setLabel?: string | null }[])
+          : [],
+      ),
       title: `${heading.name} · face at ${formatChainageFor(chainage, heading)} · looking in the drive direction`,
     });
     const png = await sharp(Buffer.from(svg)).png().toBuffer();

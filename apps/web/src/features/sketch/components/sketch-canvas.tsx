@@ -360,7 +360,11 @@ export function SketchCanvas(props: SketchCanvasProps) {
               );
             }
             case 'overbreak': {
-              const [cx, cy] = toPx(view, centreOf(el.points));
+              const [cx0, cy] = toPx(view, centreOf(el.points));
+              // A ring too small for its figure gets it beside, right of the ring.
+              const xs = el.points.map((p) => toPx(view, p)[0]);
+              const narrow = Math.max(...xs) - Math.min(...xs) < 90;
+              const cx = narrow ? Math.max(...xs) + 46 : cx0;
               return (
                 <Group key={el.id} id={el.id} {...pickable(el.id)}>
                   <Line
