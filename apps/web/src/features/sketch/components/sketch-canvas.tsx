@@ -363,8 +363,8 @@ export function SketchCanvas(props: SketchCanvasProps) {
               const [cx0, cy] = toPx(view, centreOf(el.points));
               // A ring too small for its figure gets it beside, right of the ring.
               const xs = el.points.map((p) => toPx(view, p)[0]);
-              const narrow = Math.max(...xs) - Math.min(...xs) < 90;
-              const cx = narrow ? Math.max(...xs) + 46 : cx0;
+              const narrow = Math.max(...xs) - Math.min(...xs) < 120;
+              const cx = narrow ? Math.max(...xs) + 48 : cx0;
               return (
                 <Group key={el.id} id={el.id} {...pickable(el.id)}>
                   <Line
