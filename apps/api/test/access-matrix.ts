@@ -103,6 +103,7 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'GET /api/review/queue': SIGNED_IN,
 
   // Photos (issue 14): members see them; the geologist or the admin adds, edits and removes them.
+  'GET /api/projects/{projectId}/rounds/{roundId}/sketch/render': MEMBERS,
   'GET /api/projects/{projectId}/rounds/{roundId}/photos': MEMBERS,
   'POST /api/projects/{projectId}/rounds/{roundId}/photos': GEOLOGIST_OR_ADMIN,
   'PUT /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/parts/{partNumber}': GEOLOGIST_OR_ADMIN,

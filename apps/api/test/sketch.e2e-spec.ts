@@ -1,6 +1,13 @@
 import type { INestApplication } from '@nestjs/common';
+import { faceFrameOf, sketchSvgView, svgPx, type SketchDocument } from '@roundbook/domain';
+import sharp from 'sharp';
 import request from 'supertest';
 import type { App } from 'supertest/types';
+import { DataSource } from 'typeorm';
+import { Job } from '../src/infrastructure/jobs/job.entity';
+import { JobsWorker } from '../src/infrastructure/jobs/jobs.worker';
+import { StorageService } from '../src/infrastructure/storage/storage.service';
+import { SKETCH_RENDER_PX_PER_M, sketchRenderKey } from '../src/modules/rounds/sketch-render.service';
 import { latestAudit, makeProject, saveBody, testJoint, type TestProject } from './factories';
 import { createTestApp } from './test-app';
 
@@ -29,7 +36,8 @@ describe('round sketch: saved with the round, validated, frozen (e2e, real Maria
   let round: Body;
 
   beforeAll(async () => {
-    app = await createTestApp();
+    // jobs run only when a test ticks the worker (the sketch render)
+    app = await createTestApp((c) => ({ ...c, jobs: { ...c.jobs, workerEnabled: false } }));
     http = app.getHttpServer() as App;
     p = await makeProject(app, { code });
   });
@@ -191,5 +199,80 @@ describe('round sketch: saved with the round, validated, frozen (e2e, real Maria
     ).body as Body[];
     expect(revisions).toHaveLength(1);
     expect(revisions[0].record.sketch).toEqual(sketchOf(trace('frozen')));
+  });
+
+  /** Runs due jobs in this process until the revision's render job has finished (each tick waits for its jobs). */
+  async function runRenderJob(revisionId: string): Promise<Job> {
+    const worker = app.get(JobsWorker);
+    const jobs = app.get(DataSource).getRepository(Job);
+    for (let i = 0; i < 20; i++) {
+      await worker.tick();
+      await worker.idle();
+      const job = await jobs.findOne({ where: { dedupeKey: `sketch.render:${revisionId}` } });
+      if (job && (job.state === 'done' || job.state === 'dead')) return job;
+    }
+    throw new Error('the sketch render job did not finish');
+  }
+
+  const submitWith = async (sketch: Body | null) => {
+    const c1 = p.classes.find((c) => c.code === 'C1')!;
+    const ready = (
+      await save({ version: round.version, sketch, recommendedClassId: c1.id, nextRoundLength: 3 }).expect(
+        200,
+      )
+    ).body as Body;
+    await request(http)
+      .post(`${p.base}/rounds/${round.id}/submit`)
+      .set(p.as('geologist'))
+      .send({ version: ready.version })
+      .expect(200);
+    const revisions = (
+      await request(http).get(`${p.base}/rounds/${round.id}/revisions`).set(p.as('viewer')).expect(200)
+    ).body as Body[];
+    return revisions[revisions.length - 1];
+  };
+  const renderOf = () => request(http).get(`${p.base}/rounds/${round.id}/sketch/render`).set(p.as('viewer'));
+
+  it('at submit a job renders the frozen sketch to PNG and SVG in object storage; the trace is where it was drawn', async () => {
+    const doc = sketchOf(trace('drawn'));
+    const revision = await submitWith(doc);
+    // before the job has run: the picture is on its way
+    expect((await renderOf().expect(200)).body).toMatchObject({ state: 'rendering', pngUrl: null });
+    expect((await runRenderJob(revision.id as string)).state).toBe('done');
+
+    const key = sketchRenderKey(p.projectId, round.id as string, revision.revision as number, 'png');
+    expect(await app.get(StorageService).stat(key)).toMatchObject({ contentType: 'image/png' });
+    const render = (await renderOf().expect(200)).body as Body;
+    expect(render).toMatchObject({ state: 'ready', revision: revision.revision });
+    const png = Buffer.from(await (await fetch(render.pngUrl as string)).arrayBuffer());
+    const svg = await (await fetch(render.svgUrl as string)).text();
+    expect(svg).toContain('<polyline data-id="drawn"');
+
+    // where the picture puts the face frame: the heading's profile (6 m circle) at 60 px/m
+    const heading = (
+      await request(http).get(`${p.base}/headings/${p.headingId}`).set(p.as('viewer')).expect(200)
+    ).body as Body;
+    const frame = faceFrameOf(heading as never, 'full-face')!;
+    const view = sketchSvgView(doc as SketchDocument, frame, { pxPerMetre: SKETCH_RENDER_PX_PER_M });
+    const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    expect([info.width, info.height]).toEqual([view.width, view.height]);
+    const rgbAt = (m: [number, number]) => {
+      const [x, y] = svgPx(view, m).map(Math.round);
+      const i = (y * info.width + x) * 3;
+      return [data[i], data[i + 1], data[i + 2]];
+    };
+    // the middle of the trace's first leg, (−2.5, 1.2)–(0.4, 3.1): (−1.05, 2.15) m — the ink #1f2328
+    const ink = [0x1f, 0x23, 0x28];
+    rgbAt([-1.05, 2.15]).forEach((v, k) => expect(Math.abs(v - ink[k])).toBeLessThanOrEqual(24));
+    // 0.4 m below that point, off the trace and off the grid: paper (light)
+    rgbAt([-1.05, 1.75]).forEach((v) => expect(v).toBeGreaterThan(200));
+  });
+
+  it('no sketch, no render job and a 404 with the reason', async () => {
+    const revision = await submitWith(null);
+    const res = await renderOf().expect(404);
+    expect(res.body.message).toMatch(/submitted sketch/);
+    const jobs = app.get(DataSource).getRepository(Job);
+    expect(await jobs.countBy({ dedupeKey: `sketch.render:${revision.id as string}` })).toBe(0);
   });
 });

@@ -14,3 +14,5 @@ export * from './governing.js';
 export * from './hazards.js';
 export * from './sketch.js';
 export * from './support-record.js';
+export * from './sketch-svg.js';
+export * from './sketch-frame.js';

@@ -41,6 +41,7 @@ import { Round } from './round.entity.js';
 import { recordOf } from './rounds.mapper.js';
 import { RoundsQueries } from './rounds.queries.js';
 import { RoundsReview } from './rounds.review.js';
+import { SketchRenders } from './sketch-render.service.js';
 
 const AUDITED = [
   'faceChainage',
@@ -144,6 +145,7 @@ export class RoundsCommands {
     @Inject(ProjectsService) private readonly projects: ProjectsService,
     @Inject(SupportClassesService) private readonly supportClasses: SupportClassesService,
     @Inject(RoundsReview) private readonly review: RoundsReview,
+    @Inject(SketchRenders) private readonly sketchRenders: SketchRenders,
   ) {}
 
   async next(access: ProjectAccess, headingId: string, stage: Stage): Promise<NextRoundDto> {
@@ -465,7 +467,9 @@ export class RoundsCommands {
       round.submittedAt = new Date();
       storeAssessment(round, assessment);
       await manager.save(round);
-      await this.freeze(manager, round, joints, 'submit', caller);
+      const revisionId = await this.freeze(manager, round, joints, 'submit', caller);
+      // The picture of the frozen sketch, for reports and handovers (rendered by a job from the same document).
+      if ((round.sketch?.elements.length ?? 0) > 0) await this.sketchRenders.enqueue(manager, revisionId);
       await this.audit.record(manager, {
         projectId: access.projectId,
         actorId: caller.id,
@@ -492,10 +496,11 @@ export class RoundsCommands {
     joints: Joint[],
     event: RoundEvent,
     caller: AuthUser,
-  ): Promise<void> {
+  ): Promise<string> {
+    const id = randomUUID();
     await manager.save(
       manager.create(RoundRevision, {
-        id: randomUUID(),
+        id,
         roundId: round.id,
         revision: round.revision,
         event,
@@ -506,6 +511,7 @@ export class RoundsCommands {
         createdBy: caller.id,
       }),
     );
+    return id;
   }
 
   /**

@@ -4,6 +4,7 @@ import { IdempotencyKey } from '../../common/idempotency/idempotency-key.entity.
 import { ROUNDS_READ } from '../../common/ports/rounds-read.port.js';
 import { AuditModule } from '../audit/audit.module.js';
 import { HazardsModule } from '../hazards/hazards.module.js';
+import { Heading } from '../headings/heading.entity.js';
 import { HeadingsModule } from '../headings/headings.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { ProjectsModule } from '../projects/projects.module.js';
@@ -20,6 +21,8 @@ import { RoundsCommands } from './rounds.commands.js';
 import { RoundsController } from './rounds.controller.js';
 import { RoundsQueries } from './rounds.queries.js';
 import { RoundsReview } from './rounds.review.js';
+import { SketchRenderController } from './sketch-render.controller.js';
+import { SketchRenders } from './sketch-render.service.js';
 
 /**
  * Rounds, their joints, sets (in the assessment) and revisions. Depends on the setup modules through their
@@ -37,6 +40,7 @@ import { RoundsReview } from './rounds.review.js';
       TriggerAcknowledgement,
       IdempotencyKey,
       ProjectMember,
+      Heading,
     ]),
     AuditModule,
     ProjectsModule,
@@ -45,13 +49,14 @@ import { RoundsReview } from './rounds.review.js';
     TriggerRulesModule,
     HazardsModule,
   ],
-  controllers: [RoundsController, RoundReviewController, ReviewQueueController],
+  controllers: [RoundsController, RoundReviewController, ReviewQueueController, SketchRenderController],
   providers: [
     RoundAssessor,
     RoundsQueries,
     RoundsCommands,
     RoundsReview,
     RoundsReadAdapter,
+    SketchRenders,
     { provide: ROUNDS_READ, useExisting: RoundsReadAdapter },
   ],
   exports: [ROUNDS_READ, RoundsQueries, RoundAssessor],

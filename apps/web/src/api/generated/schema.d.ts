@@ -631,6 +631,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/sketch/render": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Signed addresses (a few minutes) of the PNG and SVG picture of the sketch as last submitted (any member) */
+        get: operations["SketchRenderController_render"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/rounds/{roundId}/photos": {
         parameters: {
             query?: never;
@@ -2123,6 +2140,21 @@ export interface components {
         ReviewQueueDto: {
             items: components["schemas"]["ReviewQueueItemDto"][];
             caution: string;
+        };
+        /**
+         * @description 'rendering' while the job has not written the picture yet (ask again shortly)
+         * @enum {string}
+         */
+        SketchRenderState: "ready" | "rendering";
+        SketchRenderDto: {
+            /** @description 'rendering' while the job has not written the picture yet (ask again shortly) */
+            state: components["schemas"]["SketchRenderState"];
+            pngUrl: string | null;
+            svgUrl: string | null;
+            /** Format: date-time */
+            expiresAt: string | null;
+            /** @description The revision whose sketch the picture shows (the last submit) */
+            revision: number;
         };
         /** @enum {string} */
         PhotoUploadState: "uploading" | "stored";
@@ -4352,6 +4384,55 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ReviewQueueDto"];
+                };
+            };
+        };
+    };
+    SketchRenderController_render: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SketchRenderDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /**
+             * @description No submit of this round had a sketch
+             *
+             *     Not a member of this project, or no such project
+             */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Object storage unreachable (Retry-After) */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
                 };
             };
         };

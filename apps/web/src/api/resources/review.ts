@@ -3,10 +3,10 @@ import { queryOptions } from '@tanstack/react-query';
 import type { components } from '@/api/generated/schema';
 import { invalidateResource } from '@/api/resources/invalidate';
 import { resourceKeys } from '@/api/resources/keys';
-import { apiClient, unwrap } from '@/lib/api-client';
+import { apiClient, isApiError, unwrap } from '@/lib/api-client';
 
 // GET /review/queue; GET /projects/{projectId}/rounds/{roundId}/review and …/revisions; POST …/confirm, …/return,
-// …/correct, …/review/comments/{commentId}/resolve, …/triggers/{ruleId}/acknowledge.
+// …/correct, …/review/comments/{commentId}/resolve, …/triggers/{ruleId}/acknowledge; GET …/sketch/render.
 
 type Schemas = components['schemas'];
 export type RoundReview = Schemas['RoundReviewDto'];
@@ -134,3 +134,28 @@ export async function reviewChanged(
     invalidateResource(queryClient, resourceKeys.projects(), { exact: true }),
   ]);
 }
+
+export type SketchRender = Schemas['SketchRenderDto'];
+
+/** The picture of the sketch as last submitted; null when no submit had a sketch (404). */
+export async function getSketchRender(projectId: string, roundId: string): Promise<SketchRender | null> {
+  try {
+    return await unwrap(
+      apiClient.GET('/api/projects/{projectId}/rounds/{roundId}/sketch/render', {
+        params: { path: { projectId, roundId } },
+      }),
+    );
+  } catch (e) {
+    if (isApiError(e) && e.status === 404) return null;
+    throw e;
+  }
+}
+
+/** Signed addresses last five minutes: read again after four, and every 3 s while the picture is being made. */
+export const sketchRenderQueryOptions = (projectId: string, roundId: string) =>
+  queryOptions({
+    queryKey: [...resourceKeys.roundReview(projectId, roundId), 'sketch-render'] as const,
+    queryFn: () => getSketchRender(projectId, roundId),
+    staleTime: 240_000,
+    refetchInterval: (query) => (query.state.data?.state === 'rendering' ? 3000 : 240_000),
+  });

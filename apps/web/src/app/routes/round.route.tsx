@@ -14,7 +14,7 @@ import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
 import { RaiseHazardButton } from '@/features/hazards/components/raise-hazard-button';
 import { RoundOrientationPanel } from '@/features/orientation/components/round-orientation-panel';
-import { SET_COLOURS_HIGH_CONTRAST, SET_COLOURS_LIGHT } from '@/features/orientation/scene/palette';
+import { SET_COLOURS_LIGHT } from '@/features/orientation/scene/palette';
 import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import {
@@ -101,8 +101,10 @@ export function RoundRoute() {
           />
         )}
         sketchSlot={({ sketch, onChange, readOnly, joints, assessment, faceChainage }) => {
-          // The sets take the stereonet's colours, in the same order.
-          const colours = mode === 'high-contrast' ? SET_COLOURS_HIGH_CONTRAST : SET_COLOURS_LIGHT;
+          // The sets take the stereonet's colours, in the same order; the sketch is drawn on white paper
+          // in both themes (as in its PNG), so always the light-paper colours (the high-contrast ones are
+          // made for a dark background and vanish on white).
+          const colours = SET_COLOURS_LIGHT;
           return (
             <SketchSection
               document={sketch}

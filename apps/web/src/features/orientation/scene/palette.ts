@@ -1,6 +1,7 @@
 // Colours of a stereonet scene. Pure data: the scene code never reads the DOM or React, so the same
 // scene can be written out as an SVG file (or on the server, for the PDFs) with a print palette, and on
 // screen with a palette of Fluent token variables (components/screen-palette.ts).
+import { SET_COLOURS_LIGHT } from '@roundbook/domain';
 
 /** Every colour a scene uses, by what it is for. Any CSS colour (or var(--token)) is accepted. */
 export interface StereonetPalette {
@@ -27,19 +28,8 @@ export interface StereonetPalette {
   sets: readonly string[];
 }
 
-/**
- * Roundbook's set colours for light paper: six hues of different lightness and hue family, chosen so
- * that neighbours in the list differ in lightness as well as hue (each set also has its own symbol
- * shape, so no set is told apart by colour alone).
- */
-export const SET_COLOURS_LIGHT: readonly string[] = [
-  '#0b5d73', // deep teal
-  '#d88a00', // ochre
-  '#7a2e8c', // plum
-  '#4f9a2f', // moss
-  '#b0302a', // brick
-  '#2f4fa8', // indigo
-];
+/** Roundbook's set colours for light paper (packages/domain, shared with the sketch and its PNG). */
+export { SET_COLOURS_LIGHT };
 
 /** Set colours for the high-contrast theme: bright, saturated, on black. */
 export const SET_COLOURS_HIGH_CONTRAST: readonly string[] = [

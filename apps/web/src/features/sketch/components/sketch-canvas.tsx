@@ -1,27 +1,22 @@
 import type { SketchDocument, SketchElement, SketchPoint } from '@roundbook/domain';
-import { overbreakArea } from '@roundbook/domain';
+import { overbreakArea, SKETCH_COLOURS } from '@roundbook/domain';
 import type Konva from 'konva';
 import { useMemo, useRef, useState } from 'react';
 import { Circle, Group, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import type { FaceFrame, ViewTransform } from '@/features/sketch/utils/face-frame';
-import { centreOf, flatPx, gridLines, toMetres, toPx, zoomAbout } from '@/features/sketch/utils/face-frame';
+import {
+  centreOf,
+  dragDelta,
+  flatPx,
+  gridLines,
+  toMetres,
+  toPx,
+  zoomAbout,
+} from '@/features/sketch/utils/face-frame';
 import type { DraftLine } from '@/features/sketch/utils/tools';
 
-/** Concrete colours (Konva draws on a canvas, where theme variables do not resolve). Roundbook's own. */
-export const SKETCH_INK = {
-  paper: '#ffffff',
-  ink: '#1f2328',
-  muted: '#5b6470',
-  grid: '#dde1e7',
-  gridMajor: '#c3c9d2',
-  excavation: '#1f2328',
-  otherStage: '#a7aeb8',
-  axis: '#9c4a00',
-  water: '#1b6fd1',
-  overbreak: '#c2410c',
-  overbreakFill: 'rgba(194, 65, 12, 0.14)',
-  selection: '#e11d74',
-} as const;
+/** Concrete colours (Konva draws on a canvas, where theme variables do not resolve): the SVG render's. */
+export const SKETCH_INK = SKETCH_COLOURS;
 
 export interface SketchCanvasProps {
   document: SketchDocument;
@@ -204,8 +199,7 @@ export function SketchCanvas(props: SketchCanvasProps) {
     onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => {
       setDragging(false);
       const node = e.target;
-      const dx = node.x() / view.scale;
-      const dy = -node.y() / view.scale;
+      const { dx, dy } = dragDelta(view, node.position());
       node.position({ x: 0, y: 0 });
       props.onMove(id, dx, dy);
     },
@@ -366,7 +360,11 @@ export function SketchCanvas(props: SketchCanvasProps) {
               );
             }
             case 'overbreak': {
-              const [cx, cy] = toPx(view, centreOf(el.points));
+              const [cx0, cy] = toPx(view, centreOf(el.points));
+              // A ring too small for its figure gets it beside, right of the ring.
+              const xs = el.points.map((p) => toPx(view, p)[0]);
+              const narrow = Math.max(...xs) - Math.min(...xs) < 120;
+              const cx = narrow ? Math.max(...xs) + 48 : cx0;
               return (
                 <Group key={el.id} id={el.id} {...pickable(el.id)}>
                   <Line

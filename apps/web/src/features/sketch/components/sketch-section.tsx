@@ -37,6 +37,7 @@ import {
   perform,
   redo,
   traceLength,
+  traceColourBySet,
   tracesOfJoint,
   undo,
   WATER_STATES,
@@ -204,18 +205,15 @@ export function SketchSection(props: SketchSectionProps) {
     (label: string | null | undefined) => sets.find((s) => s.label === label)?.colour,
     [sets],
   );
-  const colourOf = useCallback(
-    (el: SketchElement): string => {
-      if (el.kind !== 'trace' || el.link === null) return SKETCH_INK.ink;
-      const jointLink = 'jointId' in el.link ? el.link.jointId : null;
-      const label =
-        jointLink !== null
-          ? joints.find((j) => j.id === jointLink)?.setLabel
-          : (el.link as { setLabel: string }).setLabel;
-      return setColour(label) ?? SKETCH_INK.ink;
-    },
-    [joints, setColour],
-  );
+  // The same rule as the PNG render's (packages/domain traceColourBySet), with the colours given here.
+  const colourOf = useMemo(() => {
+    const ofTrace = traceColourBySet(
+      sets.map((s) => s.label),
+      joints,
+      sets.map((s) => s.colour),
+    );
+    return (el: SketchElement): string => (el.kind === 'trace' ? ofTrace(el) : SKETCH_INK.ink);
+  }, [sets, joints]);
 
   const highlighted = useMemo(() => {
     const joint = joints.find((j) => j.id === selectedJoint);

@@ -1,67 +1,9 @@
-// The heading's profile as the sketch draws it (geomath profile.ts, at true scale) and the view transform
-// between face-frame metres (x right of the centre line, y up from the invert) and canvas pixels.
-import type { SketchPoint, Stage } from '@roundbook/domain';
-import { profileOutline, stagePart, type ProfilePoint, type ProfileShape } from '@roundbook/geomath';
+// The view transform between face-frame metres (x right of the centre line, y up from the invert) and
+// canvas pixels. The face frame itself (the heading's profile for the stage) is packages/domain's.
+import type { FaceFrame, SketchPoint } from '@roundbook/domain';
+import type { ProfilePoint } from '@roundbook/geomath';
 
-export interface SketchProfileInput {
-  profileShape: ProfileShape;
-  profileWidth: number;
-  profileHeight: number;
-  axisHeight: number;
-  benchHeight?: number | null;
-}
-
-export interface FaceFrame {
-  /** The whole excavation line, metres. */
-  outline: ProfilePoint[];
-  /** The round's stage part of it (the face actually mapped). */
-  part: ProfilePoint[];
-  width: number;
-  height: number;
-  axisHeight: number;
-  /** Height of the springline: where the profile is widest (the highest such point). */
-  springline: number;
-  /** Floor line of the top heading / top of the bench, when the stage is one of them. */
-  benchLine: number | null;
-  /** Lowest and highest heights of the stage part. */
-  bottom: number;
-  top: number;
-}
-
-/** The face frame of a heading for a stage; null when the heading's profile cannot be drawn. */
-export function faceFrameOf(heading: SketchProfileInput, stage: Stage): FaceFrame | null {
-  try {
-    const input = {
-      shape: heading.profileShape,
-      width: heading.profileWidth,
-      height: heading.profileHeight,
-      axisHeight: heading.axisHeight,
-      ...(heading.benchHeight !== null && heading.benchHeight !== undefined
-        ? { benchLine: heading.benchHeight }
-        : {}),
-    };
-    const outline = profileOutline(input);
-    const part = stagePart(input, stage === 'invert' ? 'full-face' : stage);
-    const half = outline.points.reduce((m, p) => Math.max(m, Math.abs(p[0])), 0);
-    const springline = outline.points
-      .filter((p) => Math.abs(p[0]) >= half - 1e-6)
-      .reduce((m, p) => Math.max(m, p[1]), 0);
-    const benchLine = stage === 'top-heading' ? part.bottom : stage === 'bench' ? part.top : null;
-    return {
-      outline: outline.points,
-      part: part.points,
-      width: outline.width,
-      height: outline.height,
-      axisHeight: heading.axisHeight,
-      springline,
-      benchLine,
-      bottom: part.bottom,
-      top: part.top,
-    };
-  } catch {
-    return null;
-  }
-}
+export { faceFrameOf, type FaceFrame, type SketchProfileInput } from '@roundbook/domain';
 
 /** Pixels per metre and where the frame's origin (centre line, invert) is on the canvas. */
 export interface ViewTransform {
@@ -87,6 +29,18 @@ export const toMetres = (v: ViewTransform, px: { x: number; y: number }): Sketch
   (px.x - v.ox) / v.scale,
   (v.oy - px.y) / v.scale,
 ];
+
+/**
+ * How far a drag of `offset` pixels moves an element, metres in the face frame (y up, so a drag down is a
+ * negative dy), to the millimetre the document keeps.
+ */
+export const dragDelta = (
+  v: ViewTransform,
+  offset: { x: number; y: number },
+): { dx: number; dy: number } => ({
+  dx: Math.round((offset.x / v.scale) * 1000) / 1000,
+  dy: Math.round((-offset.y / v.scale) * 1000) / 1000,
+});
 
 /** Flat pixel list for a Konva Line. */
 export const flatPx = (v: ViewTransform, points: readonly (SketchPoint | ProfilePoint)[]): number[] =>
