@@ -22,6 +22,9 @@ type Body = Record<string, any>;
 const code = `HO${String(Date.now() % 1e6)}`;
 const CAUTION =
   'This handover supports the face-to-face briefing at shift change and does not replace it. The competent person on site decides whether the ground is safe to enter; nobody enters unsupported ground.';
+/** The red hazard as the e-mail and the PDF list it: level as a word, kind, range, description. */
+const HAZARD_LINE =
+  'Red — Wedge, 1+004.0 – 1+006.0: Invented: wedge of two joint sets in the right shoulder.';
 const flat = (s: string) => s.replace(/\s+/g, ' ');
 
 /** Waits for a condition with a bounded loop of short pauses (no fixed sleeps). */
@@ -128,6 +131,18 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       })
       .expect(200);
     await mapRound(1006);
+    // An open red hazard on the register (raised after the submits, so the rounds' alerts stay as they are).
+    await request(http)
+      .post(`${p.base}/headings/${p.headingId}/hazards`)
+      .set(p.as('geologist'))
+      .send({
+        kind: 'wedge',
+        fromChainage: 1006,
+        toChainage: 1004,
+        level: 'red',
+        description: 'Invented: wedge of two joint sets in the right shoulder.',
+      })
+      .expect(201);
   });
 
   afterAll(async () => {
@@ -153,6 +168,15 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       cycleStage: null,
       notes: '',
     });
+    expect(draft.headings[0].hazards).toEqual([
+      expect.objectContaining({
+        kind: 'wedge',
+        fromChainage: 1004,
+        toChainage: 1006,
+        level: 'red',
+        description: 'Invented: wedge of two joint sets in the right shoulder.',
+      }),
+    ]);
     expect(draft.headings[0].alerts).toEqual([
       expect.objectContaining({ level: 'amber', ownerRole: 'engineer', action: 'Tell the engineer.' }),
     ]);
@@ -190,7 +214,14 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       shift: 'day',
       incoming: { userId: incoming.id, email: incoming.email },
       outgoing: { userId: outgoingId },
-      headings: [{ faceChainage: 1006, cycleStage: 'mucking', lastConfirmed: { classCode: 'C1' } }],
+      headings: [
+        {
+          faceChainage: 1006,
+          cycleStage: 'mucking',
+          lastConfirmed: { classCode: 'C1' },
+          hazards: [expect.objectContaining({ kind: 'wedge', level: 'red' })],
+        },
+      ],
       acknowledgedAt: null,
     });
     expect(sent.recipients).toEqual([incoming.email, `site.office.${code.toLowerCase()}@roundbook.test`]);
@@ -211,6 +242,7 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       expect(part).toContain('Mucking out');
       expect(part).toContain('Scaling done at the crown');
       expect(part).toContain('Amber: ');
+      expect(part).toContain(HAZARD_LINE);
     }
     expect(flat(String(mail.text))).toContain(CAUTION);
     expect(String(mail.html)).toContain('max-width:560px');
@@ -230,6 +262,8 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect(text).toContain('C1 — Spot bolts');
     expect(text).toContain('3 m');
     expect(text).toContain('Mucking out');
+    expect(text).toContain('Open hazards');
+    expect(text).toContain(HAZARD_LINE);
     expect(text).toContain(CAUTION);
 
     // Listed with the handover: the stored PDF downloads, the e-mail reads as sent.

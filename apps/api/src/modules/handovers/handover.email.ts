@@ -25,6 +25,9 @@ export function handoverEmail(e: HandoverEmailInput): { subject: string; text: s
       h.title,
       ...h.facts.map(([k, v]) => `  ${k}: ${v}`),
       ...(h.alerts.length ? ['  Alerts:', ...h.alerts.map((a) => `    - ${a}`)] : ['  Alerts: none']),
+      ...(h.hazards.length
+        ? ['  Open hazards:', ...h.hazards.map((z) => `    - ${z}`)]
+        : ['  Open hazards: none']),
       ...(h.notes ? [`  Notes: ${h.notes}`] : []),
       '',
     ]),
@@ -49,6 +52,8 @@ ${headings
 <table role="presentation" style="border-collapse:collapse;font-size:15px">${h.facts.map(row).join('')}</table>
 <p style="margin:6px 0 2px"><strong>Alerts</strong></p>
 ${h.alerts.length ? `<ul style="margin:0;padding-left:20px">${h.alerts.map((a) => `<li>${escapeHtml(a)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
+<p style="margin:6px 0 2px"><strong>Open hazards</strong></p>
+${h.hazards.length ? `<ul style="margin:0;padding-left:20px">${h.hazards.map((z) => `<li>${escapeHtml(z)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
 ${h.notes ? `<p style="margin:6px 0 0"><strong>Notes</strong><br>${para(h.notes)}</p>` : ''}
 </div>`,
   )

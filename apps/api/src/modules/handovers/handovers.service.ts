@@ -15,6 +15,7 @@ import {
   StorageUnavailableError,
 } from '../../infrastructure/storage/storage.service.js';
 import { AuditService } from '../audit/audit.service.js';
+import { HazardsService } from '../hazards/hazards.service.js';
 import { Heading } from '../headings/heading.entity.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
@@ -43,7 +44,9 @@ export const HANDOVER_DELIVER_JOB = 'handover.deliver';
 /** Signed PDF addresses live this long. */
 export const PDF_URL_TTL_SECONDS = 300;
 
-type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes'>;
+type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes' | 'hazards'> & {
+  hazards: NonNullable<HandoverHeadingSnapshot['hazards']>;
+};
 
 /**
  * Shift handovers: the draft read from the data, the frozen snapshot saved when sent, its PDF and e-mail
@@ -58,6 +61,7 @@ export class HandoversService implements OnModuleInit {
     @Inject(JobHandlers) private readonly handlers: JobHandlers,
     @Inject(NoticesService) private readonly notices: NoticesService,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(HazardsService) private readonly hazards: HazardsService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
@@ -396,6 +400,14 @@ export class HandoversService implements OnModuleInit {
           action: f.action,
           ownerRole: f.ownerRole,
         })),
+        hazards: (await this.hazards.openForHeading(h.id, manager)).map((z) => ({
+          id: z.id,
+          kind: z.kind,
+          fromChainage: z.fromChainage,
+          toChainage: z.toChainage,
+          level: z.level,
+          description: z.description,
+        })),
       });
     }
     return out;
@@ -422,7 +434,7 @@ export class HandoversService implements OnModuleInit {
         status: h.status,
         outgoing: h.snapshot.outgoing,
         incoming: h.snapshot.incoming,
-        headings: h.snapshot.headings,
+        headings: h.snapshot.headings.map((x) => ({ ...x, hazards: x.hazards ?? [] })),
         generalNotes: h.snapshot.generalNotes,
         recipients: h.recipients,
         emailStatus: h.noticeId ? (status.get(h.noticeId) ?? 'queued') : 'queued',
