@@ -8,6 +8,7 @@ import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
+import { HandoversService } from '../src/modules/handovers/handovers.service';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
@@ -334,6 +335,87 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect((project.headings as Body[]).find((h) => h.id === p.headingId)!.lastHandover).toEqual({
       sentAt: second.sentAt,
       acknowledgedAt: null,
+      ackDueAt: second.ackDueAt,
+      overdue: false,
     });
+  });
+
+  it('flags an unacknowledged handover overdue after the project’s time, and tells the outgoing supervisor and the engineers once', async () => {
+    const ds = app.get(DataSource);
+    const service = app.get(HandoversService);
+    const projectUrl = p.base;
+    const before = (await request(http).get(projectUrl).set(p.as('admin')).expect(200)).body as Body;
+    expect(before.handoverAckMinutes).toBe(60); // our default
+    const tooShort = await request(http)
+      .patch(projectUrl)
+      .set(p.as('admin'))
+      .send({ handoverAckMinutes: 2, version: before.version })
+      .expect(400);
+    expect(JSON.stringify(tooShort.body)).toContain('at least 5 minutes');
+    await request(http)
+      .patch(projectUrl)
+      .set(p.as('supervisor'))
+      .send({ handoverAckMinutes: 30, version: before.version })
+      .expect(403);
+    await request(http)
+      .patch(projectUrl)
+      .set(p.as('admin'))
+      .send({ handoverAckMinutes: 30, version: before.version })
+      .expect(200);
+
+    const h = (await compose({ ...validBody(), extraRecipients: [] }).expect(201)).body as Body;
+    const sentAt = Date.parse(h.sentAt as string);
+    expect(Date.parse(h.ackDueAt as string) - sentAt).toBe(30 * 60_000);
+    expect(h).toMatchObject({ overdue: false, overdueNotified: false });
+    const overdueMails = () =>
+      mailFor(p.emailOf('supervisor')).filter((m) => String(m.subject).startsWith('Not acknowledged: '));
+    expect(overdueMails()).toHaveLength(0);
+
+    // Judged by a clock 29 minutes on: not yet due, nothing is sent.
+    await service.overdue(h.id as string, new Date(sentAt + 29 * 60_000));
+    expect(
+      (await request(http).get(`${p.base}/handovers/${h.id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ overdue: false, overdueNotified: false });
+
+    // Thirty-one minutes on: the due time is moved back (as if the half hour had passed) and the job made due.
+    await ds.query('UPDATE handovers SET ack_due_at = ? WHERE id = ?', [new Date(Date.now() - 60_000), h.id]);
+    await ds.query('UPDATE jobs SET next_attempt_at = ? WHERE dedupe_key = ?', [
+      new Date(),
+      `handover-overdue:${h.id}`,
+    ]);
+    const [mail] = await until(overdueMails, (m) => m.length > 0);
+    expect(mail.to).toEqual([p.emailOf('supervisor')]);
+    expect(mail.cc).toEqual([p.emailOf('engineer')]);
+    expect(String(mail.text)).toContain(`Invented incoming ${code} has not acknowledged the handover`);
+    expect(String(mail.text)).toContain(`/projects/${p.projectId}/headings/${p.headingId}`);
+    expect(flat(String(mail.text))).toContain(CAUTION);
+    expect(await latestAudit(app, h.id as string)).toMatchObject({ action: 'overdue', actorId: null });
+
+    // Flagged in the history and on the Board.
+    const history = (
+      await request(http).get(`${p.base}/headings/${p.headingId}/handovers`).set(p.as('viewer')).expect(200)
+    ).body as Body[];
+    expect(history[0]).toMatchObject({ id: h.id, overdue: true, overdueNotified: true });
+    const board = (await request(http).get(p.base).set(p.as('viewer')).expect(200)).body as Body;
+    expect((board.headings as Body[]).find((x) => x.id === p.headingId)!.lastHandover).toMatchObject({
+      sentAt: h.sentAt,
+      overdue: true,
+    });
+
+    // Run again (a retry, a second process): no second notice.
+    await service.overdue(h.id as string);
+    const notices = await ds.query<Array<{ n: string }>>(
+      "SELECT COUNT(*) AS n FROM notices WHERE kind = 'handover-overdue' AND project_id = ?",
+      [p.projectId],
+    );
+    expect(Number(notices[0].n)).toBe(1);
+
+    // Acknowledged late: no longer overdue (the notice stays on record).
+    const ack = await request(http)
+      .post(`${p.base}/handovers/${h.id}/acknowledge`)
+      .set({ Authorization: `Bearer ${incoming.token}` })
+      .send({})
+      .expect(200);
+    expect(ack.body).toMatchObject({ overdue: false, overdueNotified: true });
   });
 });

@@ -13,9 +13,14 @@ export interface HeadingProgress {
   /** Worst trigger level among the latest evaluated round of each stage of the heading */
   triggerLevel: 'green' | 'amber' | 'red' | null;
   /** The heading's latest handover: when it was sent and whether (when) it was acknowledged */
-  lastHandover?: { sentAt: string; acknowledgedAt: string | null } | null;
+  lastHandover?: {
+    sentAt: string;
+    acknowledgedAt: string | null;
+    ackDueAt: string;
+    overdue: boolean;
+  } | null;
 }
 
 export interface HeadingProgressPort {
-  progress(headingIds: string[]): Promise<Map<string, HeadingProgress>>;
+  progress(headingIds: string[], now?: Date): Promise<Map<string, HeadingProgress>>;
 }

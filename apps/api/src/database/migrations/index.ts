@@ -12,6 +12,7 @@ import { TokenVersion1796290000000 } from './1796290000000-TokenVersion.js';
 import { Hazards1796300000000 } from './1796300000000-Hazards.js';
 import { Handovers1796310000000 } from './1796310000000-Handovers.js';
 import { RoundSketch1796320000000 } from './1796320000000-RoundSketch.js';
+import { HandoverOverdue1796340000000 } from './1796340000000-HandoverOverdue.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -29,4 +30,5 @@ export const migrations = [
   Hazards1796300000000,
   Handovers1796310000000,
   RoundSketch1796320000000,
+  HandoverOverdue1796340000000,
 ];

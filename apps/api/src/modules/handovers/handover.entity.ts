@@ -107,6 +107,14 @@ export class Handover {
   @Column({ name: 'sent_at', type: 'datetime', precision: 3 })
   sentAt: Date;
 
+  /** By when the incoming supervisor should acknowledge (sent + the project's minutes, frozen when sent) */
+  @Column({ name: 'ack_due_at', type: 'datetime', precision: 3 })
+  ackDueAt: Date;
+
+  /** The notice that told the outgoing supervisor and the engineers it ran overdue (sent once) */
+  @Column({ name: 'overdue_notice_id', type: 'uuid', nullable: true })
+  overdueNoticeId: string | null;
+
   @Column({ name: 'acknowledged_at', type: 'datetime', precision: 3, nullable: true })
   acknowledgedAt: Date | null;
 

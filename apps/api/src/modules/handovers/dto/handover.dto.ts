@@ -230,6 +230,13 @@ export class HandoverDto {
   pdfReady: boolean;
   @ApiProperty({ type: String, format: 'date-time' })
   sentAt: string;
+  /** By when the incoming supervisor should acknowledge (sent + the project's handover minutes) */
+  @ApiProperty({ type: String, format: 'date-time' })
+  ackDueAt: string;
+  /** Not acknowledged and past ackDueAt */
+  overdue: boolean;
+  /** The outgoing supervisor and the engineers were told it ran overdue */
+  overdueNotified: boolean;
   @ApiProperty({ type: String, format: 'date-time', nullable: true })
   acknowledgedAt: string | null;
   @ApiProperty({ type: HandoverPersonDto, nullable: true })
