@@ -32,7 +32,7 @@ import {
   type Shift,
 } from '@roundbook/domain';
 import { EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import type { HeadingSummary, ProjectRole } from '@/api/contract';
 import {
   openHandoverPdf,
@@ -188,22 +188,19 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
   );
   const draft = useHandoverDraft(projectId, ordered);
   const compose = useComposeHandover(projectId);
-  const [shiftDate, setShiftDate] = useState('');
-  const [shift, setShift] = useState<Shift | ''>('');
-  const [incomingUserId, setIncoming] = useState('');
+  // null: not touched yet, so the draft's value shows (the shift now; the only other supervisor, if one).
+  const [shiftDateInput, setShiftDate] = useState<string | null>(null);
+  const [shiftInput, setShift] = useState<Shift | null>(null);
+  const [incomingInput, setIncoming] = useState<string | null>(null);
+  const shiftDate = shiftDateInput ?? draft.data?.shiftDate ?? '';
+  const shift: Shift | '' = shiftInput ?? draft.data?.shift ?? '';
+  const incomingUserId =
+    incomingInput ?? (draft.data?.supervisors.length === 1 ? draft.data.supervisors[0].userId : '');
   const [words, setWords] = useState<Record<string, HeadingWords>>({});
   const [generalNotes, setGeneralNotes] = useState('');
   const [extra, setExtra] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const [fields, setFields] = useState<Record<string, string>>({});
-
-  // The shift and the only possible incoming supervisor come from the draft, once.
-  useEffect(() => {
-    if (!draft.data) return;
-    setShiftDate((v) => v || draft.data.shiftDate);
-    setShift((v) => v || draft.data.shift);
-    setIncoming((v) => v || (draft.data.supervisors.length === 1 ? draft.data.supervisors[0].userId : ''));
-  }, [draft.data]);
 
   const wordsOf = (id: string): HeadingWords => words[id] ?? { cycleStage: '', notes: '' };
   const setWord = (id: string, patch: Partial<HeadingWords>) =>
