@@ -2,12 +2,16 @@
 // the notices outbox to the SMTP fake), acknowledge by the named incoming supervisor only, Received and
 // each heading's history. On a project of this file's own.
 import { readdirSync, readFileSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { INestApplication } from '@nestjs/common';
+import { simpleParser, type ParsedMail } from 'mailparser';
+import { SMTPServer } from 'smtp-server';
 import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
+import { NoticesService } from '../src/infrastructure/mail/notices.service';
 import { HandoversService } from '../src/modules/handovers/handovers.service';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { hashPassword } from '../src/modules/users/password';
@@ -417,5 +421,144 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       .send({})
       .expect(200);
     expect(ack.body).toMatchObject({ overdue: false, overdueNotified: true });
+  });
+});
+
+/** An SMTP server of this file's own, to take down and bring back (STARTTLS off, stack-notes §7). */
+class OwnSmtp {
+  readonly mails: ParsedMail[] = [];
+  private server: SMTPServer | null = null;
+  port = 0;
+
+  async start(port = 0): Promise<void> {
+    const server = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ['STARTTLS'],
+      logger: false,
+      closeTimeout: 200,
+      onData: (stream, _session, callback) => {
+        simpleParser(stream).then(
+          (m) => {
+            this.mails.push(m);
+            callback();
+          },
+          (e: Error) => callback(e),
+        );
+      },
+    });
+    await new Promise<void>((resolve, reject) => {
+      server.once('error', reject);
+      server.listen(port, '127.0.0.1', () => resolve());
+    });
+    this.port = (server.server.address() as AddressInfo).port;
+    this.server = server;
+  }
+
+  async stop(): Promise<void> {
+    const s = this.server;
+    this.server = null;
+    if (s) await new Promise<void>((resolve) => s.close(() => resolve()));
+  }
+}
+
+describe('Handovers with the mail server down (e2e, own SMTP server)', () => {
+  const smtp = new OwnSmtp();
+  let app: INestApplication;
+  let http: App;
+  let p: TestProject;
+  let incomingId: string;
+  const code2 = `HD${String(Date.now() % 1e6)}`;
+
+  beforeAll(async () => {
+    await smtp.start();
+    const port = smtp.port;
+    await smtp.stop(); // down from the start; the same port comes back later
+    smtp.port = port;
+    app = await createTestApp((c) => ({
+      ...c,
+      mail: { ...c.mail, driver: 'smtp', host: '127.0.0.1', port },
+      jobs: {
+        ...c.jobs,
+        workerEnabled: true,
+        pollIntervalMs: 20,
+        maxAttempts: 1000,
+        backoffBaseMs: 20,
+        backoffMaxMs: 150,
+      },
+    }));
+    http = app.getHttpServer() as App;
+    p = await makeProject(app, { code: code2 });
+    const ds = app.get(DataSource);
+    const user = await ds.getRepository(User).save({
+      email: `incoming.${code2.toLowerCase()}@roundbook.test`,
+      name: `Invented incoming ${code2}`,
+      passwordHash: await hashPassword(TEST_PASSWORD),
+    });
+    await ds
+      .getRepository(ProjectMember)
+      .save({ projectId: p.projectId, userId: user.id, role: 'supervisor' });
+    incomingId = user.id;
+  });
+
+  afterAll(async () => {
+    await app.close();
+    await smtp.stop();
+  });
+
+  it('saves the handover (201) while SMTP is down; the e-mail waits and is delivered exactly once when it is back', async () => {
+    const ds = app.get(DataSource);
+    const res = await request(http)
+      .post(`${p.base}/handovers`)
+      .set(p.as('supervisor'))
+      .send({
+        shiftDate: '2026-12-03',
+        shift: 'night',
+        incomingUserId: incomingId,
+        headings: [{ headingId: p.headingId, cycleStage: 'drilling' }],
+      })
+      .expect(201);
+    const id = res.body.id as string;
+    expect(res.body).toMatchObject({ status: 'sent', emailStatus: 'queued' });
+
+    // The PDF is made and the notice queued; its job keeps failing against the dead port and stays pending.
+    const noticeId = (
+      await until(
+        () =>
+          ds.query<Array<{ notice_id: string | null }>>('SELECT notice_id FROM handovers WHERE id = ?', [id]),
+        (r) => r[0]?.notice_id != null,
+      )
+    )[0].notice_id as string;
+    const waiting = await until(
+      () =>
+        ds.query<Array<{ state: string; attempts: number; last_error: string | null }>>(
+          'SELECT state, attempts, last_error FROM jobs WHERE dedupe_key = ?',
+          [`notice:${noticeId}`],
+        ),
+      (r) => r.length === 1 && r[0].attempts >= 3,
+    );
+    expect(['pending', 'running']).toContain(waiting[0].state);
+    expect(waiting[0].last_error ?? '').toMatch(/ECONNREFUSED/);
+    expect(smtp.mails).toHaveLength(0);
+    expect(
+      (await request(http).get(`${p.base}/handovers/${id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ emailStatus: 'queued', pdfReady: true });
+
+    // Back: delivered once, with the PDF attached; the job is done and nothing is sent again.
+    await smtp.start(smtp.port);
+    await until(
+      () =>
+        ds.query<Array<{ state: string }>>('SELECT state FROM jobs WHERE dedupe_key = ?', [
+          `notice:${noticeId}`,
+        ]),
+      (r) => r[0]?.state === 'done',
+    );
+    const mine = smtp.mails.filter((m) => (m.subject ?? '').includes(code2));
+    expect(mine).toHaveLength(1);
+    expect(mine[0].attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
+    expect(
+      (await request(http).get(`${p.base}/handovers/${id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ emailStatus: 'sent' });
+    await app.get(NoticesService).deliver(noticeId); // a rerun (a second process): already stamped sent
+    expect(smtp.mails.filter((m) => (m.subject ?? '').includes(code2))).toHaveLength(1);
   });
 });
