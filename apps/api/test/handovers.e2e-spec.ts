@@ -2,12 +2,17 @@
 // the notices outbox to the SMTP fake), acknowledge by the named incoming supervisor only, Received and
 // each heading's history. On a project of this file's own.
 import { readdirSync, readFileSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { INestApplication } from '@nestjs/common';
+import { simpleParser, type ParsedMail } from 'mailparser';
+import { SMTPServer } from 'smtp-server';
 import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { APP_CONFIG, type AppConfig } from '../src/config/app-config';
+import { NoticesService } from '../src/infrastructure/mail/notices.service';
+import { HandoversService } from '../src/modules/handovers/handovers.service';
 import { ProjectMember } from '../src/modules/projects/project-member.entity';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
@@ -22,6 +27,9 @@ type Body = Record<string, any>;
 const code = `HO${String(Date.now() % 1e6)}`;
 const CAUTION =
   'This handover supports the face-to-face briefing at shift change and does not replace it. The competent person on site decides whether the ground is safe to enter; nobody enters unsupported ground.';
+/** The red hazard as the e-mail and the PDF list it: level as a word, kind, range, description. */
+const HAZARD_LINE =
+  'Red — Wedge, 1+004.0 – 1+006.0: Invented: wedge of two joint sets in the right shoulder.';
 const flat = (s: string) => s.replace(/\s+/g, ' ');
 
 /** Waits for a condition with a bounded loop of short pauses (no fixed sleeps). */
@@ -128,6 +136,18 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       })
       .expect(200);
     await mapRound(1006);
+    // An open red hazard on the register (raised after the submits, so the rounds' alerts stay as they are).
+    await request(http)
+      .post(`${p.base}/headings/${p.headingId}/hazards`)
+      .set(p.as('geologist'))
+      .send({
+        kind: 'wedge',
+        fromChainage: 1006,
+        toChainage: 1004,
+        level: 'red',
+        description: 'Invented: wedge of two joint sets in the right shoulder.',
+      })
+      .expect(201);
   });
 
   afterAll(async () => {
@@ -153,6 +173,15 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       cycleStage: null,
       notes: '',
     });
+    expect(draft.headings[0].hazards).toEqual([
+      expect.objectContaining({
+        kind: 'wedge',
+        fromChainage: 1004,
+        toChainage: 1006,
+        level: 'red',
+        description: 'Invented: wedge of two joint sets in the right shoulder.',
+      }),
+    ]);
     expect(draft.headings[0].alerts).toEqual([
       expect.objectContaining({ level: 'amber', ownerRole: 'engineer', action: 'Tell the engineer.' }),
     ]);
@@ -190,7 +219,14 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       shift: 'day',
       incoming: { userId: incoming.id, email: incoming.email },
       outgoing: { userId: outgoingId },
-      headings: [{ faceChainage: 1006, cycleStage: 'mucking', lastConfirmed: { classCode: 'C1' } }],
+      headings: [
+        {
+          faceChainage: 1006,
+          cycleStage: 'mucking',
+          lastConfirmed: { classCode: 'C1' },
+          hazards: [expect.objectContaining({ kind: 'wedge', level: 'red' })],
+        },
+      ],
       acknowledgedAt: null,
     });
     expect(sent.recipients).toEqual([incoming.email, `site.office.${code.toLowerCase()}@roundbook.test`]);
@@ -211,6 +247,7 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       expect(part).toContain('Mucking out');
       expect(part).toContain('Scaling done at the crown');
       expect(part).toContain('Amber: ');
+      expect(part).toContain(HAZARD_LINE);
     }
     expect(flat(String(mail.text))).toContain(CAUTION);
     expect(String(mail.html)).toContain('max-width:560px');
@@ -230,6 +267,8 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect(text).toContain('C1 — Spot bolts');
     expect(text).toContain('3 m');
     expect(text).toContain('Mucking out');
+    expect(text).toContain('Open hazards');
+    expect(text).toContain(HAZARD_LINE);
     expect(text).toContain(CAUTION);
 
     // Listed with the handover: the stored PDF downloads, the e-mail reads as sent.
@@ -300,6 +339,226 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect((project.headings as Body[]).find((h) => h.id === p.headingId)!.lastHandover).toEqual({
       sentAt: second.sentAt,
       acknowledgedAt: null,
+      ackDueAt: second.ackDueAt,
+      overdue: false,
     });
+  });
+
+  it('flags an unacknowledged handover overdue after the project’s time, and tells the outgoing supervisor and the engineers once', async () => {
+    const ds = app.get(DataSource);
+    const service = app.get(HandoversService);
+    const projectUrl = p.base;
+    const before = (await request(http).get(projectUrl).set(p.as('admin')).expect(200)).body as Body;
+    expect(before.handoverAckMinutes).toBe(60); // our default
+    const tooShort = await request(http)
+      .patch(projectUrl)
+      .set(p.as('admin'))
+      .send({ handoverAckMinutes: 2, version: before.version })
+      .expect(400);
+    expect(JSON.stringify(tooShort.body)).toContain('at least 5 minutes');
+    await request(http)
+      .patch(projectUrl)
+      .set(p.as('supervisor'))
+      .send({ handoverAckMinutes: 30, version: before.version })
+      .expect(403);
+    await request(http)
+      .patch(projectUrl)
+      .set(p.as('admin'))
+      .send({ handoverAckMinutes: 30, version: before.version })
+      .expect(200);
+
+    const h = (await compose({ ...validBody(), extraRecipients: [] }).expect(201)).body as Body;
+    const sentAt = Date.parse(h.sentAt as string);
+    expect(Date.parse(h.ackDueAt as string) - sentAt).toBe(30 * 60_000);
+    expect(h).toMatchObject({ overdue: false, overdueNotified: false });
+    const overdueMails = () =>
+      mailFor(p.emailOf('supervisor')).filter((m) => String(m.subject).startsWith('Not acknowledged: '));
+    expect(overdueMails()).toHaveLength(0);
+
+    // Judged by a clock 29 minutes on: not yet due, nothing is sent.
+    await service.overdue(h.id as string, new Date(sentAt + 29 * 60_000));
+    expect(
+      (await request(http).get(`${p.base}/handovers/${h.id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ overdue: false, overdueNotified: false });
+
+    // Thirty-one minutes on: the due time is moved back (as if the half hour had passed) and the job made due.
+    await ds.query('UPDATE handovers SET ack_due_at = ? WHERE id = ?', [new Date(Date.now() - 60_000), h.id]);
+    await ds.query('UPDATE jobs SET next_attempt_at = ? WHERE dedupe_key = ?', [
+      new Date(),
+      `handover-overdue:${h.id}`,
+    ]);
+    const [mail] = await until(overdueMails, (m) => m.length > 0);
+    expect(mail.to).toEqual([p.emailOf('supervisor')]);
+    expect(mail.cc).toEqual([p.emailOf('engineer')]);
+    expect(String(mail.text)).toContain(`Invented incoming ${code} has not acknowledged the handover`);
+    expect(String(mail.text)).toContain(`/projects/${p.projectId}/headings/${p.headingId}`);
+    expect(flat(String(mail.text))).toContain(CAUTION);
+    expect(await latestAudit(app, h.id as string)).toMatchObject({ action: 'overdue', actorId: null });
+
+    // Flagged in the history and on the Board.
+    const history = (
+      await request(http).get(`${p.base}/headings/${p.headingId}/handovers`).set(p.as('viewer')).expect(200)
+    ).body as Body[];
+    expect(history[0]).toMatchObject({ id: h.id, overdue: true, overdueNotified: true });
+    const board = (await request(http).get(p.base).set(p.as('viewer')).expect(200)).body as Body;
+    expect((board.headings as Body[]).find((x) => x.id === p.headingId)!.lastHandover).toMatchObject({
+      sentAt: h.sentAt,
+      overdue: true,
+    });
+
+    // Run again (a retry, a second process): no second notice.
+    await service.overdue(h.id as string);
+    const notices = await ds.query<Array<{ n: string }>>(
+      "SELECT COUNT(*) AS n FROM notices WHERE kind = 'handover-overdue' AND project_id = ?",
+      [p.projectId],
+    );
+    expect(Number(notices[0].n)).toBe(1);
+
+    // Acknowledged late: no longer overdue (the notice stays on record).
+    const ack = await request(http)
+      .post(`${p.base}/handovers/${h.id}/acknowledge`)
+      .set({ Authorization: `Bearer ${incoming.token}` })
+      .send({})
+      .expect(200);
+    expect(ack.body).toMatchObject({ overdue: false, overdueNotified: true });
+  });
+});
+
+/** An SMTP server of this file's own, to take down and bring back (STARTTLS off, stack-notes §7). */
+class OwnSmtp {
+  readonly mails: ParsedMail[] = [];
+  private server: SMTPServer | null = null;
+  port = 0;
+
+  async start(port = 0): Promise<void> {
+    const server = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ['STARTTLS'],
+      logger: false,
+      closeTimeout: 200,
+      onData: (stream, _session, callback) => {
+        simpleParser(stream).then(
+          (m) => {
+            this.mails.push(m);
+            callback();
+          },
+          (e: Error) => callback(e),
+        );
+      },
+    });
+    await new Promise<void>((resolve, reject) => {
+      server.once('error', reject);
+      server.listen(port, '127.0.0.1', () => resolve());
+    });
+    this.port = (server.server.address() as AddressInfo).port;
+    this.server = server;
+  }
+
+  async stop(): Promise<void> {
+    const s = this.server;
+    this.server = null;
+    if (s) await new Promise<void>((resolve) => s.close(() => resolve()));
+  }
+}
+
+describe('Handovers with the mail server down (e2e, own SMTP server)', () => {
+  const smtp = new OwnSmtp();
+  let app: INestApplication;
+  let http: App;
+  let p: TestProject;
+  let incomingId: string;
+  const code2 = `HD${String(Date.now() % 1e6)}`;
+
+  beforeAll(async () => {
+    await smtp.start();
+    const port = smtp.port;
+    await smtp.stop(); // down from the start; the same port comes back later
+    smtp.port = port;
+    app = await createTestApp((c) => ({
+      ...c,
+      mail: { ...c.mail, driver: 'smtp', host: '127.0.0.1', port },
+      jobs: {
+        ...c.jobs,
+        workerEnabled: true,
+        pollIntervalMs: 20,
+        maxAttempts: 1000,
+        backoffBaseMs: 20,
+        backoffMaxMs: 150,
+      },
+    }));
+    http = app.getHttpServer() as App;
+    p = await makeProject(app, { code: code2 });
+    const ds = app.get(DataSource);
+    const user = await ds.getRepository(User).save({
+      email: `incoming.${code2.toLowerCase()}@roundbook.test`,
+      name: `Invented incoming ${code2}`,
+      passwordHash: await hashPassword(TEST_PASSWORD),
+    });
+    await ds
+      .getRepository(ProjectMember)
+      .save({ projectId: p.projectId, userId: user.id, role: 'supervisor' });
+    incomingId = user.id;
+  });
+
+  afterAll(async () => {
+    await app.close();
+    await smtp.stop();
+  });
+
+  it('saves the handover (201) while SMTP is down; the e-mail waits and is delivered exactly once when it is back', async () => {
+    const ds = app.get(DataSource);
+    const res = await request(http)
+      .post(`${p.base}/handovers`)
+      .set(p.as('supervisor'))
+      .send({
+        shiftDate: '2026-12-03',
+        shift: 'night',
+        incomingUserId: incomingId,
+        headings: [{ headingId: p.headingId, cycleStage: 'drilling' }],
+      })
+      .expect(201);
+    const id = res.body.id as string;
+    expect(res.body).toMatchObject({ status: 'sent', emailStatus: 'queued' });
+
+    // The PDF is made and the notice queued; its job keeps failing against the dead port and stays pending.
+    const noticeId = (
+      await until(
+        () =>
+          ds.query<Array<{ notice_id: string | null }>>('SELECT notice_id FROM handovers WHERE id = ?', [id]),
+        (r) => r[0]?.notice_id != null,
+      )
+    )[0].notice_id as string;
+    const waiting = await until(
+      () =>
+        ds.query<Array<{ state: string; attempts: number; last_error: string | null }>>(
+          'SELECT state, attempts, last_error FROM jobs WHERE dedupe_key = ?',
+          [`notice:${noticeId}`],
+        ),
+      (r) => r.length === 1 && r[0].attempts >= 3,
+    );
+    expect(['pending', 'running']).toContain(waiting[0].state);
+    expect(waiting[0].last_error ?? '').toMatch(/ECONNREFUSED/);
+    expect(smtp.mails).toHaveLength(0);
+    expect(
+      (await request(http).get(`${p.base}/handovers/${id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ emailStatus: 'queued', pdfReady: true });
+
+    // Back: delivered once, with the PDF attached; the job is done and nothing is sent again.
+    await smtp.start(smtp.port);
+    await until(
+      () =>
+        ds.query<Array<{ state: string }>>('SELECT state FROM jobs WHERE dedupe_key = ?', [
+          `notice:${noticeId}`,
+        ]),
+      (r) => r[0]?.state === 'done',
+    );
+    const mine = smtp.mails.filter((m) => (m.subject ?? '').includes(code2));
+    expect(mine).toHaveLength(1);
+    expect(mine[0].attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
+    expect(
+      (await request(http).get(`${p.base}/handovers/${id}`).set(p.as('viewer')).expect(200)).body,
+    ).toMatchObject({ emailStatus: 'sent' });
+    await app.get(NoticesService).deliver(noticeId); // a rerun (a second process): already stamped sent
+    expect(smtp.mails.filter((m) => (m.subject ?? '').includes(code2))).toHaveLength(1);
   });
 });

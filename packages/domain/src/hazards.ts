@@ -60,6 +60,15 @@ export interface HazardFact {
   description: string;
 }
 
+/** A hazard's range in the heading's chainage style: "1+003.0 – 1+006.0", or one chainage for a place. */
+export function formatHazardRange(
+  h: Pick<HazardFact, 'fromChainage' | 'toChainage'>,
+  heading: ChainageStyleOf,
+): string {
+  const from = formatChainageFor(h.fromChainage, heading);
+  return h.fromChainage === h.toChainage ? from : `${from} – ${formatChainageFor(h.toChainage, heading)}`;
+}
+
 /** The range as given, put in the drive's order: from is the end nearer the heading's start. */
 export function orderedRange(
   from: number,

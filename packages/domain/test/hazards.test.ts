@@ -1,4 +1,5 @@
 import {
+  formatHazardRange,
   compareHazards,
   HAZARD_AHEAD_LIMIT_M,
   hazardPlaceFromFace,
@@ -87,5 +88,19 @@ describe('hazards from the face and in order', () => {
       'a',
       'g',
     ]);
+  });
+});
+
+describe('formatHazardRange', () => {
+  it('gives a range in the heading’s style, or one chainage for a place', () => {
+    const km = { chainageStyle: 'km+m' as const, chainageDecimals: 1 };
+    expect(formatHazardRange({ fromChainage: 1004, toChainage: 1006 }, km)).toBe('1+004.0 – 1+006.0');
+    expect(formatHazardRange({ fromChainage: 1004, toChainage: 1004 }, km)).toBe('1+004.0');
+    expect(
+      formatHazardRange(
+        { fromChainage: 12.5, toChainage: 20 },
+        { chainageStyle: 'metres', chainageDecimals: 1 },
+      ),
+    ).toMatch(/^12\.5.* – 20\.0/);
   });
 });

@@ -45,6 +45,7 @@ export const harrowdale: ProjectSummary = {
   groundScale: 'isrm',
   distributionList: ['site-office@roundbook.test'],
   coordinateGrid: 'Harrowdale site grid',
+  handoverAckMinutes: 60,
   version: 3,
   headings: [
     {
@@ -66,7 +67,12 @@ export const harrowdale: ProjectSummary = {
       lastRoundAt: '2026-11-30T21:40:00Z',
       roundsToConfirm: 2,
       triggerLevel: 'amber',
-      lastHandover: { sentAt: '2026-11-30T18:05:00Z', acknowledgedAt: null },
+      lastHandover: {
+        sentAt: '2026-11-30T18:05:00Z',
+        acknowledgedAt: null,
+        ackDueAt: '2026-11-30T19:05:00Z',
+        overdue: false,
+      },
       supportOutstanding: true,
     },
     {

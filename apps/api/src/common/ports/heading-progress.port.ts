@@ -13,11 +13,16 @@ export interface HeadingProgress {
   /** Worst trigger level among the latest evaluated round of each stage of the heading */
   triggerLevel: 'green' | 'amber' | 'red' | null;
   /** The heading's latest handover: when it was sent and whether (when) it was acknowledged */
-  lastHandover?: { sentAt: string; acknowledgedAt: string | null } | null;
+  lastHandover?: {
+    sentAt: string;
+    acknowledgedAt: string | null;
+    ackDueAt: string;
+    overdue: boolean;
+  } | null;
   /** The latest confirmed round of a stage has support outstanding (support-records) */
   supportOutstanding?: boolean;
 }
 
 export interface HeadingProgressPort {
-  progress(headingIds: string[]): Promise<Map<string, HeadingProgress>>;
+  progress(headingIds: string[], now?: Date): Promise<Map<string, HeadingProgress>>;
 }

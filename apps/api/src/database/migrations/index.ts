@@ -13,6 +13,7 @@ import { Hazards1796300000000 } from './1796300000000-Hazards.js';
 import { Handovers1796310000000 } from './1796310000000-Handovers.js';
 import { RoundSketch1796320000000 } from './1796320000000-RoundSketch.js';
 import { SupportRecords1796330000000 } from './1796330000000-SupportRecords.js';
+import { HandoverOverdue1796340000000 } from './1796340000000-HandoverOverdue.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -31,4 +32,5 @@ export const migrations = [
   Handovers1796310000000,
   RoundSketch1796320000000,
   SupportRecords1796330000000,
+  HandoverOverdue1796340000000,
 ];

@@ -29,7 +29,7 @@ export class BoardService implements HeadingProgressPort {
     @Inject(SupportRecordsService) private readonly supportRecords: SupportRecordsService,
   ) {}
 
-  async progress(headingIds: string[]): Promise<Map<string, HeadingProgress>> {
+  async progress(headingIds: string[], now = new Date()): Promise<Map<string, HeadingProgress>> {
     if (headingIds.length === 0) return new Map();
     const rows = await this.dataSource
       .createQueryBuilder()
@@ -81,9 +81,10 @@ export class BoardService implements HeadingProgressPort {
     }
     // Each heading's latest handover (handovers.e2e-spec.ts), read from the handovers' own tables.
     const handovers = await this.dataSource.query<
-      Array<{ headingId: string; sentAt: Date; acknowledgedAt: Date | null }>
+      Array<{ headingId: string; sentAt: Date; acknowledgedAt: Date | null; ackDueAt: Date }>
     >(
-      `SELECT hh.heading_id AS headingId, h.sent_at AS sentAt, h.acknowledged_at AS acknowledgedAt
+      `SELECT hh.heading_id AS headingId, h.sent_at AS sentAt, h.acknowledged_at AS acknowledgedAt,
+              h.ack_due_at AS ackDueAt
          FROM handover_headings hh JOIN handovers h ON h.id = hh.handover_id
         WHERE hh.heading_id IN (${headingIds.map(() => '?').join(', ')})
           AND h.sent_at = (SELECT MAX(x.sent_at) FROM handovers x JOIN handover_headings xh
@@ -113,6 +114,8 @@ export class BoardService implements HeadingProgressPort {
       entry.lastHandover = {
         sentAt: new Date(h.sentAt).toISOString(),
         acknowledgedAt: h.acknowledgedAt ? new Date(h.acknowledgedAt).toISOString() : null,
+        ackDueAt: new Date(h.ackDueAt).toISOString(),
+        overdue: !h.acknowledgedAt && new Date(h.ackDueAt).getTime() <= now.getTime(),
       };
       out.set(h.headingId, entry);
     }

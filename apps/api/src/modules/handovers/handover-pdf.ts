@@ -20,7 +20,7 @@ export interface HandoverPdfInput {
 
 /**
  * The handover as an A4 PDF: who to whom, then per heading its face, cycle, last confirmed round, class,
- * next round length, alerts and notes, the general notes and the caution (on every page's foot as well).
+ * next round length, alerts, open hazards and notes, the general notes and the caution (on every page's foot as well).
  */
 export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   const s = input.snapshot;
@@ -83,6 +83,14 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
         .font('regular')
         .fontSize(10)
         .text(`• ${a}`, left + 10, doc.y, { width: width - 10 });
+    doc.moveDown(0.3);
+    doc.font('bold').fontSize(10).fillColor(INK).text('Open hazards', left, doc.y, { width });
+    if (h.hazards.length === 0) doc.font('regular').text('None', { width });
+    for (const z of h.hazards)
+      doc
+        .font('regular')
+        .fontSize(10)
+        .text(`• ${z}`, left + 10, doc.y, { width: width - 10 });
     if (h.notes) {
       doc.moveDown(0.3);
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });

@@ -2,7 +2,9 @@ import {
   cycleStageLabels,
   formatCalendarDate,
   formatChainageFor,
+  formatHazardRange,
   formatProjectTime,
+  hazardKindLabels,
   levelLabels,
   roleLabel,
   shiftLabels,
@@ -19,6 +21,8 @@ export interface HeadingFacts {
   title: string;
   facts: Array<[string, string]>;
   alerts: string[];
+  /** Open hazards, one line each: level as a word, kind, chainage range, description */
+  hazards: string[];
   notes: string;
 }
 
@@ -50,6 +54,10 @@ export function headingFacts(h: HandoverHeadingSnapshot): HeadingFacts {
     ],
     alerts: h.alerts.map(
       (a) => `${levelLabels[a.level]}: ${a.summary} — ${a.action} (owner: ${roleLabel(a.ownerRole)})`,
+    ),
+    hazards: (h.hazards ?? []).map(
+      (z) =>
+        `${levelLabels[z.level]} — ${hazardKindLabels[z.kind]}, ${formatHazardRange(z, h)}: ${z.description}`,
     ),
     notes: h.notes,
   };

@@ -1,3 +1,4 @@
+import { formatProjectTime } from '@roundbook/domain';
 import { escapeHtml } from '../../infrastructure/mail/templates/escape.js';
 import { HANDOVER_CAUTION, handoverHeader, handoverSubject, headingFacts } from './handover-text.js';
 import type { HandoverSnapshot } from './handover.entity.js';
@@ -9,6 +10,50 @@ export interface HandoverEmailInput {
   sentAt: Date;
   /** Where the incoming supervisor acknowledges it (after signing in) */
   link: string;
+}
+
+export interface HandoverOverdueInput extends Omit<HandoverEmailInput, 'link'> {
+  ackDueAt: Date;
+  /** The heading's page, where the handover is listed */
+  link: string;
+}
+
+/** Told to the outgoing supervisor and the engineers when the incoming supervisor has not acknowledged in time. */
+export function handoverOverdueEmail(e: HandoverOverdueInput): {
+  subject: string;
+  text: string;
+  html: string;
+} {
+  const s = e.snapshot;
+  const due = `${formatProjectTime(e.ackDueAt, s.timeZone)} (${s.timeZone} time)`;
+  const lead = `${s.incoming.name} has not acknowledged the handover from ${s.outgoing.name}; it was due by ${due}.`;
+  const ask = 'Check with the incoming shift that the handover was received and briefed face to face.';
+  const header = handoverHeader(s, e.shiftDate, e.shift, e.sentAt);
+  const text = [
+    lead,
+    '',
+    ...header.map(([k, v]) => `${k}: ${v}`),
+    '',
+    ask,
+    `Open the heading in Roundbook: ${e.link}`,
+    '',
+    HANDOVER_CAUTION,
+    '',
+    `Roundbook — ${s.projectName}`,
+  ].join('\n');
+  const html = `<div style="font-family:'Open Sans',Arial,sans-serif;font-size:16px;line-height:1.5;color:#1d2327;max-width:560px">
+<p style="font-size:18px"><strong>${escapeHtml(lead)}</strong></p>
+<table role="presentation" style="border-collapse:collapse;font-size:15px">${header
+    .map(
+      ([k, v]) =>
+        `<tr><td style="padding:2px 8px 2px 0;color:#4a555c">${escapeHtml(k)}</td><td><strong>${escapeHtml(v)}</strong></td></tr>`,
+    )
+    .join('')}</table>
+<p>${escapeHtml(ask)}</p>
+<p><a href="${escapeHtml(e.link)}" style="display:inline-block;padding:14px 22px;background:#1f5f7a;color:#ffffff;text-decoration:none;border-radius:6px">Open the heading</a></p>
+<p style="font-size:14px;padding:10px;border-left:4px solid #b26a00;background:#fff6e5">${escapeHtml(HANDOVER_CAUTION)}</p>
+</div>`;
+  return { subject: `Not acknowledged: ${handoverSubject(s, e.shiftDate, e.shift)}`, text, html };
 }
 
 /** The handover e-mail: plain text and a one-column HTML part that reads on a phone, with the same words. */
@@ -25,6 +70,9 @@ export function handoverEmail(e: HandoverEmailInput): { subject: string; text: s
       h.title,
       ...h.facts.map(([k, v]) => `  ${k}: ${v}`),
       ...(h.alerts.length ? ['  Alerts:', ...h.alerts.map((a) => `    - ${a}`)] : ['  Alerts: none']),
+      ...(h.hazards.length
+        ? ['  Open hazards:', ...h.hazards.map((z) => `    - ${z}`)]
+        : ['  Open hazards: none']),
       ...(h.notes ? [`  Notes: ${h.notes}`] : []),
       '',
     ]),
@@ -49,6 +97,8 @@ ${headings
 <table role="presentation" style="border-collapse:collapse;font-size:15px">${h.facts.map(row).join('')}</table>
 <p style="margin:6px 0 2px"><strong>Alerts</strong></p>
 ${h.alerts.length ? `<ul style="margin:0;padding-left:20px">${h.alerts.map((a) => `<li>${escapeHtml(a)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
+<p style="margin:6px 0 2px"><strong>Open hazards</strong></p>
+${h.hazards.length ? `<ul style="margin:0;padding-left:20px">${h.hazards.map((z) => `<li>${escapeHtml(z)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
 ${h.notes ? `<p style="margin:6px 0 0"><strong>Notes</strong><br>${para(h.notes)}</p>` : ''}
 </div>`,
   )

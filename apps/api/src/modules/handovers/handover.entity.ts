@@ -1,4 +1,4 @@
-import type { CycleStage, HandoverStatus, Shift, TriggerLevel } from '@roundbook/domain';
+import type { CycleStage, HandoverStatus, HazardKind, Shift, TriggerLevel } from '@roundbook/domain';
 import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import type { Stage } from '../headings/heading.entity.js';
@@ -9,6 +9,17 @@ export interface HandoverAlert {
   summary: string;
   action: string;
   ownerRole: string;
+}
+
+/** One open hazard of a heading as it stood when the handover was sent (from its register). */
+export interface HandoverHazard {
+  id: string;
+  kind: HazardKind;
+  /** The range's start-side end and far end, m */
+  fromChainage: number;
+  toChainage: number;
+  level: TriggerLevel;
+  description: string;
 }
 
 /** What was handed over for one heading, frozen when sent (figures from the data, words from the supervisor). */
@@ -37,6 +48,8 @@ export interface HandoverHeadingSnapshot {
   /** Trigger level of the last round handed in, and its fired rules */
   triggerLevel: TriggerLevel | null;
   alerts: HandoverAlert[];
+  /** The heading's open hazards, red first (absent on handovers sent before hazards were carried) */
+  hazards?: HandoverHazard[];
   cycleStage: CycleStage | null;
   notes: string;
 }
@@ -93,6 +106,14 @@ export class Handover {
 
   @Column({ name: 'sent_at', type: 'datetime', precision: 3 })
   sentAt: Date;
+
+  /** By when the incoming supervisor should acknowledge (sent + the project's minutes, frozen when sent) */
+  @Column({ name: 'ack_due_at', type: 'datetime', precision: 3 })
+  ackDueAt: Date;
+
+  /** The notice that told the outgoing supervisor and the engineers it ran overdue (sent once) */
+  @Column({ name: 'overdue_notice_id', type: 'uuid', nullable: true })
+  overdueNoticeId: string | null;
 
   @Column({ name: 'acknowledged_at', type: 'datetime', precision: 3, nullable: true })
   acknowledgedAt: Date | null;

@@ -45,6 +45,7 @@ export class HandoversController {
   @ProjectRoles('supervisor', 'admin')
   @ApiOkResponse({ type: HandoverDraftDto })
   draft(
+    @Param('projectId', ParseUUIDPipe) _projectId: string,
     @CurrentAccess() access: ProjectAccess,
     @CurrentUser() user: AuthUser,
     @Query() query: HandoverDraftQueryDto,
@@ -57,6 +58,7 @@ export class HandoversController {
   @ProjectRoles('supervisor', 'admin')
   @ApiCreatedResponse({ type: HandoverDto })
   compose(
+    @Param('projectId', ParseUUIDPipe) _projectId: string,
     @CurrentAccess() access: ProjectAccess,
     @CurrentUser() user: AuthUser,
     @Body() dto: ComposeHandoverDto,

@@ -2,13 +2,19 @@ import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { JobsModule } from '../../infrastructure/jobs/jobs.module.js';
 import { AuditModule } from '../audit/audit.module.js';
+import { HazardsModule } from '../hazards/hazards.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Handover, HandoverHeading } from './handover.entity.js';
 import { HandoversController, ReceivedHandoversController } from './handovers.controller.js';
 import { HandoversService } from './handovers.service.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Handover, HandoverHeading, ProjectMember]), JobsModule, AuditModule],
+  imports: [
+    TypeOrmModule.forFeature([Handover, HandoverHeading, ProjectMember]),
+    JobsModule,
+    AuditModule,
+    HazardsModule,
+  ],
   controllers: [HandoversController, ReceivedHandoversController],
   providers: [HandoversService],
   exports: [HandoversService],

@@ -15,6 +15,7 @@ import {
   StorageUnavailableError,
 } from '../../infrastructure/storage/storage.service.js';
 import { AuditService } from '../audit/audit.service.js';
+import { HazardsService } from '../hazards/hazards.service.js';
 import { Heading } from '../headings/heading.entity.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
@@ -31,7 +32,7 @@ import type {
 } from './dto/handover.dto.js';
 import { renderHandoverPdf } from './handover-pdf.js';
 import { HANDOVER_CAUTION } from './handover-text.js';
-import { handoverEmail } from './handover.email.js';
+import { handoverEmail, handoverOverdueEmail } from './handover.email.js';
 import {
   Handover,
   HandoverHeading,
@@ -40,10 +41,14 @@ import {
 } from './handover.entity.js';
 
 export const HANDOVER_DELIVER_JOB = 'handover.deliver';
+/** Runs when a handover's acknowledgement time is up: tells the outgoing supervisor and the engineers, once. */
+export const HANDOVER_OVERDUE_JOB = 'handover.overdue';
 /** Signed PDF addresses live this long. */
 export const PDF_URL_TTL_SECONDS = 300;
 
-type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes'>;
+type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes' | 'hazards'> & {
+  hazards: NonNullable<HandoverHeadingSnapshot['hazards']>;
+};
 
 /**
  * Shift handovers: the draft read from the data, the frozen snapshot saved when sent, its PDF and e-mail
@@ -58,11 +63,13 @@ export class HandoversService implements OnModuleInit {
     @Inject(JobHandlers) private readonly handlers: JobHandlers,
     @Inject(NoticesService) private readonly notices: NoticesService,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(HazardsService) private readonly hazards: HazardsService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
   onModuleInit(): void {
     this.handlers.register(HANDOVER_DELIVER_JOB, (payload) => this.deliver(String(payload.handoverId)));
+    this.handlers.register(HANDOVER_OVERDUE_JOB, (payload) => this.overdue(String(payload.handoverId)));
   }
 
   async draft(
@@ -130,6 +137,8 @@ export class HandoversService implements OnModuleInit {
           ...extra,
         ]),
       ];
+      const sentAt = new Date();
+      const ackDueAt = new Date(sentAt.getTime() + project.handoverAckMinutes * 60_000);
       const row = manager.create(Handover, {
         id,
         projectId: access.projectId,
@@ -142,7 +151,9 @@ export class HandoversService implements OnModuleInit {
         recipients,
         noticeId: null,
         pdfKey: null,
-        sentAt: new Date(),
+        sentAt,
+        ackDueAt,
+        overdueNoticeId: null,
         acknowledgedAt: null,
         acknowledgedBy: null,
         acknowledgeComment: null,
@@ -171,6 +182,12 @@ export class HandoversService implements OnModuleInit {
         kind: HANDOVER_DELIVER_JOB,
         payload: { handoverId: id },
         dedupeKey: `handover:${id}`,
+      });
+      await this.jobs.enqueue(manager, {
+        kind: HANDOVER_OVERDUE_JOB,
+        payload: { handoverId: id },
+        runAt: ackDueAt,
+        dedupeKey: `handover-overdue:${id}`,
       });
       return row;
     });
@@ -217,6 +234,56 @@ export class HandoversService implements OnModuleInit {
         attachments: [{ filename: pdfName(h), contentType: 'application/pdf', storageKey: key }],
       });
       await manager.update(Handover, { id: h.id }, { noticeId: notice.id, pdfKey: key });
+    });
+  }
+
+  /**
+   * The overdue job: a handover still not acknowledged when its time is up is reported once to the outgoing
+   * supervisor and the project's engineers (the row lock and overdue_notice_id make a rerun, or a second
+   * process, do nothing). `now` is the clock it is judged by (the job runs at ack_due_at).
+   */
+  async overdue(handoverId: string, now = new Date()): Promise<void> {
+    await this.dataSource.transaction(async (manager) => {
+      const h = await manager.findOne(Handover, {
+        where: { id: handoverId },
+        lock: { mode: 'pessimistic_write' },
+      });
+      if (!h || h.status !== 'sent' || h.overdueNoticeId) return;
+      if (h.ackDueAt.getTime() > now.getTime()) return;
+      const engineers = await manager
+        .createQueryBuilder(ProjectMember, 'm')
+        .innerJoin(User, 'u', 'u.id = m.user_id')
+        .select(['u.email AS email'])
+        .where("m.project_id = :projectId AND m.role = 'engineer'", { projectId: h.projectId })
+        .orderBy('u.email', 'ASC')
+        .getRawMany<{ email: string }>();
+      const outgoing = await manager.findOne(User, { where: { id: h.outgoingId } });
+      const to = outgoing?.email ?? h.snapshot.outgoing.email;
+      const cc = [...new Set(engineers.map((e) => e.email))].filter((e) => e !== to);
+      const message = handoverOverdueEmail({
+        snapshot: h.snapshot,
+        shiftDate: h.shiftDate,
+        shift: h.shift,
+        sentAt: h.sentAt,
+        ackDueAt: h.ackDueAt,
+        link: `${this.config.appUrl}/projects/${h.projectId}/headings/${h.snapshot.headings[0]?.headingId ?? ''}`,
+      });
+      const notice = await this.notices.queue(manager, {
+        kind: 'handover-overdue',
+        projectId: h.projectId,
+        to: [to],
+        cc,
+        ...message,
+      });
+      await manager.update(Handover, { id: h.id }, { overdueNoticeId: notice.id });
+      await this.audit.record(manager, {
+        projectId: h.projectId,
+        actorId: null,
+        entityType: 'handover',
+        entityId: h.id,
+        action: 'overdue',
+        after: { ackDueAt: h.ackDueAt.toISOString(), told: [to, ...cc] },
+      });
     });
   }
 
@@ -396,12 +463,20 @@ export class HandoversService implements OnModuleInit {
           action: f.action,
           ownerRole: f.ownerRole,
         })),
+        hazards: (await this.hazards.openForHeading(h.id, manager)).map((z) => ({
+          id: z.id,
+          kind: z.kind,
+          fromChainage: z.fromChainage,
+          toChainage: z.toChainage,
+          level: z.level,
+          description: z.description,
+        })),
       });
     }
     return out;
   }
 
-  private async toDtos(rows: Handover[]): Promise<HandoverDto[]> {
+  private async toDtos(rows: Handover[], now = new Date()): Promise<HandoverDto[]> {
     const ackIds = [...new Set(rows.map((r) => r.acknowledgedBy).filter((x): x is string => x !== null))];
     const users = ackIds.length
       ? await this.dataSource.getRepository(User).find({ where: { id: In(ackIds) } })
@@ -422,12 +497,15 @@ export class HandoversService implements OnModuleInit {
         status: h.status,
         outgoing: h.snapshot.outgoing,
         incoming: h.snapshot.incoming,
-        headings: h.snapshot.headings,
+        headings: h.snapshot.headings.map((x) => ({ ...x, hazards: x.hazards ?? [] })),
         generalNotes: h.snapshot.generalNotes,
         recipients: h.recipients,
         emailStatus: h.noticeId ? (status.get(h.noticeId) ?? 'queued') : 'queued',
         pdfReady: h.pdfKey !== null,
         sentAt: h.sentAt.toISOString(),
+        ackDueAt: h.ackDueAt.toISOString(),
+        overdue: h.status === 'sent' && h.ackDueAt.getTime() <= now.getTime(),
+        overdueNotified: h.overdueNoticeId !== null,
         acknowledgedAt: h.acknowledgedAt ? h.acknowledgedAt.toISOString() : null,
         acknowledgedBy: ack ? { userId: ack.id, name: ack.name, email: ack.email } : null,
         acknowledgeComment: h.acknowledgeComment,

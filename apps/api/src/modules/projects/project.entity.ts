@@ -43,6 +43,13 @@ export class Project {
   @Column({ name: 'distribution_list', type: 'json' })
   distributionList: string[];
 
+  /**
+   * Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue and the
+   * outgoing supervisor and the engineers are told (60 by default: our choice, not a published figure).
+   */
+  @Column({ name: 'handover_ack_minutes', type: 'int', default: 60 })
+  handoverAckMinutes: number;
+
   /** Name of the project's coordinate grid, for heading start coordinates. */
   @Column({ name: 'coordinate_grid', type: 'varchar', length: 120, default: '' })
   coordinateGrid: string;

@@ -51,6 +51,7 @@ export function toProjectSummary(
     groundScale: p.groundScale,
     distributionList: p.distributionList ?? [],
     coordinateGrid: p.coordinateGrid,
+    handoverAckMinutes: p.handoverAckMinutes,
     role,
     version: p.version,
     headings: [...(p.headings ?? [])]

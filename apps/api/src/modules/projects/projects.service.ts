@@ -114,6 +114,7 @@ export class ProjectsService {
         'distributionList',
         'coordinateGrid',
         'separationOfDuties',
+        'handoverAckMinutes',
       ] as const;
       const before: Record<string, unknown> = {};
       const after: Record<string, unknown> = {};

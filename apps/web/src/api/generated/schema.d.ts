@@ -1165,6 +1165,10 @@ export interface components {
         LastHandoverDto: {
             sentAt: string;
             acknowledgedAt: string | null;
+            /** @description By when the incoming supervisor should have acknowledged it */
+            ackDueAt: string;
+            /** @description Not acknowledged and past its time (the project's handover acknowledgement minutes) */
+            overdue: boolean;
         };
         HeadingSummaryDto: {
             /** @description How the heading writes its chainages (every chainage on the Board is shown in it) */
@@ -1213,6 +1217,8 @@ export interface components {
             distributionList: string[];
             /** @description Name of the project's coordinate grid */
             coordinateGrid: string;
+            /** @description Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (default 60) */
+            handoverAckMinutes: number;
             /** @description Optimistic-locking version; send it back when changing the project */
             version: number;
             headings: components["schemas"]["HeadingSummaryDto"][];
@@ -1237,6 +1243,8 @@ export interface components {
             coordinateGrid?: string;
             /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
             separationOfDuties?: boolean;
+            /** @description Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (5 to 720) */
+            handoverAckMinutes?: number;
             /** @description The version you last read; a stale version is refused with 409 STALE_VERSION */
             version: number;
         };
@@ -2400,6 +2408,16 @@ export interface components {
             /** @description The role that owns the alert (who acts on it) */
             ownerRole: string;
         };
+        HandoverHazardDto: {
+            kind: components["schemas"]["HazardKind"];
+            level: components["schemas"]["TriggerLevel"];
+            id: string;
+            /** @description The range's end nearer the heading's start, m */
+            fromChainage: number;
+            /** @description The range's far end along the drive, m */
+            toChainage: number;
+            description: string;
+        };
         /** @enum {string} */
         CycleStage: "drilling" | "charging" | "mucking" | "support" | "mapping";
         HandoverHeadingDto: {
@@ -2412,6 +2430,8 @@ export interface components {
             /** @description Trigger level of the last round handed in */
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             alerts: components["schemas"]["HandoverAlertDto"][];
+            /** @description The heading's open hazards, red first then amber then green, each by chainage */
+            hazards: components["schemas"]["HandoverHazardDto"][];
             cycleStage: components["schemas"]["CycleStage"] | null;
             headingId: string;
             code: string;
@@ -2470,6 +2490,11 @@ export interface components {
             emailStatus: components["schemas"]["HandoverEmailStatus"];
             /** Format: date-time */
             sentAt: string;
+            /**
+             * Format: date-time
+             * @description By when the incoming supervisor should acknowledge (sent + the project's handover minutes)
+             */
+            ackDueAt: string;
             /** Format: date-time */
             acknowledgedAt: string | null;
             acknowledgedBy: components["schemas"]["HandoverPersonDto"] | null;
@@ -2487,6 +2512,10 @@ export interface components {
             recipients: string[];
             /** @description The PDF is stored and can be downloaded */
             pdfReady: boolean;
+            /** @description Not acknowledged and past ackDueAt */
+            overdue: boolean;
+            /** @description The outgoing supervisor and the engineers were told it ran overdue */
+            overdueNotified: boolean;
             caution: string;
         };
         HandoverUrlDto: {
@@ -5243,7 +5272,9 @@ export interface operations {
                 headingIds: string;
             };
             header?: never;
-            path?: never;
+            path: {
+                projectId: string;
+            };
             cookie?: never;
         };
         requestBody?: never;
@@ -5276,7 +5307,9 @@ export interface operations {
         parameters: {
             query?: never;
             header?: never;
-            path?: never;
+            path: {
+                projectId: string;
+            };
             cookie?: never;
         };
         requestBody: {

@@ -8,6 +8,46 @@ import { apiClient, unwrap } from '@/lib/api-client';
 
 type Schemas = components['schemas'];
 export type Handover = Schemas['HandoverDto'];
+export type HandoverDraft = Schemas['HandoverDraftDto'];
+export type ComposeHandoverRequest = Schemas['ComposeHandoverDto'];
+
+/** GET /projects/{projectId}/headings/{headingId}/handovers: the heading's handovers, newest first. */
+export const headingHandoversQueryOptions = (projectId: string, headingId: string) =>
+  queryOptions({
+    queryKey: resourceKeys.headingHandovers(projectId, headingId),
+    queryFn: () =>
+      unwrap(
+        apiClient.GET('/api/projects/{projectId}/headings/{headingId}/handovers', {
+          params: { path: { projectId, headingId } },
+        }),
+      ),
+    // Delivery and acknowledgement change while the page is open.
+    refetchInterval: 30_000,
+  });
+
+/** GET /projects/{projectId}/handovers/draft: the composer's figures for the chosen headings. */
+export const handoverDraftQueryOptions = (projectId: string, headingIds: string[]) =>
+  queryOptions({
+    queryKey: [
+      ...resourceKeys.project(projectId),
+      'handover-draft',
+      [...headingIds].sort().join(','),
+    ] as const,
+    queryFn: () =>
+      unwrap(
+        apiClient.GET('/api/projects/{projectId}/handovers/draft', {
+          params: { path: { projectId }, query: { headingIds: headingIds.join(',') } },
+        }),
+      ),
+    enabled: headingIds.length > 0,
+    staleTime: 0,
+  });
+
+export function composeHandover(projectId: string, body: ComposeHandoverRequest): Promise<Handover> {
+  return unwrap(
+    apiClient.POST('/api/projects/{projectId}/handovers', { params: { path: { projectId } }, body }),
+  );
+}
 
 export function getReceivedHandovers(): Promise<Handover[]> {
   return unwrap(apiClient.GET('/api/handovers/received'));

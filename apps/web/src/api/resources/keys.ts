@@ -68,4 +68,7 @@ export const resourceKeys = {
   invitation: (token: string) => ['invitations', token] as const,
   /** Handovers addressed to the signed-in person, across projects (GET /handovers/received). */
   receivedHandovers: () => ['handovers', 'received'] as const,
+  /** A heading's handovers (GET …/headings/{headingId}/handovers). */
+  headingHandovers: (projectId: string, headingId: string) =>
+    [...resourceKeys.heading(projectId, headingId), 'handovers'] as const,
 };

@@ -10,6 +10,7 @@ import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
+import { HeadingHandovers } from '@/features/handovers/components/heading-handovers';
 import { HazardRegister } from '@/features/hazards/components/hazard-register';
 import { HeadingOrientation } from '@/features/orientation/components/heading-orientation';
 import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
@@ -35,7 +36,7 @@ const useStyles = makeStyles({
   back: { minHeight: `${TOUCH_TARGET_PX}px` },
 });
 
-/** Heading: its rounds, orientation and hazards (the other tabs come with later work). */
+/** Heading: its rounds, orientation, hazards and handovers (the long section comes with later work). */
 export function HeadingRoute() {
   const styles = useStyles();
   const navigate = useNavigate();
@@ -86,12 +87,19 @@ export function HeadingRoute() {
         <Tab className={styles.tab} value="hazards">
           Hazards
         </Tab>
-        <Tab className={styles.tab} value="handovers" disabled>
-          Handovers (coming)
+        <Tab className={styles.tab} value="handovers">
+          Handovers
         </Tab>
       </TabList>
       {tab === 'orientation' ? (
         <HeadingOrientation projectId={projectId} heading={heading} highContrast={mode === 'high-contrast'} />
+      ) : tab === 'handovers' ? (
+        <HeadingHandovers
+          projectId={projectId}
+          heading={heading}
+          headings={project.headings}
+          role={project.role}
+        />
       ) : tab === 'hazards' ? (
         <HazardRegister projectId={projectId} heading={heading} role={project.role} />
       ) : (

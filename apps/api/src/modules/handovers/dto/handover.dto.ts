@@ -1,6 +1,13 @@
 import { ApiProperty } from '@nestjs/swagger';
-import { CYCLE_STAGES, HANDOVER_STATUSES, SHIFTS, STAGES, TRIGGER_LEVELS } from '@roundbook/domain';
-import type { CycleStage, HandoverStatus, Shift, Stage, TriggerLevel } from '@roundbook/domain';
+import {
+  CYCLE_STAGES,
+  HANDOVER_STATUSES,
+  HAZARD_KINDS,
+  SHIFTS,
+  STAGES,
+  TRIGGER_LEVELS,
+} from '@roundbook/domain';
+import type { CycleStage, HandoverStatus, HazardKind, Shift, Stage, TriggerLevel } from '@roundbook/domain';
 import { Transform, Type } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -50,6 +57,20 @@ export class HandoverAlertDto {
   ownerRole: string;
 }
 
+/** An open hazard of the heading, carried forward on the handover (frozen when sent). */
+export class HandoverHazardDto {
+  id: string;
+  @ApiProperty({ enum: HAZARD_KINDS, enumName: 'HazardKind' })
+  kind: HazardKind;
+  /** The range's end nearer the heading's start, m */
+  fromChainage: number;
+  /** The range's far end along the drive, m */
+  toChainage: number;
+  @ApiProperty({ enum: TRIGGER_LEVELS, enumName: 'TriggerLevel' })
+  level: TriggerLevel;
+  description: string;
+}
+
 export class HandoverLastConfirmedDto {
   roundId: string;
   roundNumber: number;
@@ -91,6 +112,9 @@ export class HandoverHeadingDto {
   triggerLevel: TriggerLevel | null;
   @ApiProperty({ type: [HandoverAlertDto] })
   alerts: HandoverAlertDto[];
+  /** The heading's open hazards, red first then amber then green, each by chainage */
+  @ApiProperty({ type: [HandoverHazardDto] })
+  hazards: HandoverHazardDto[];
   @ApiProperty({ enum: CYCLE_STAGES, enumName: 'CycleStage', nullable: true })
   cycleStage: CycleStage | null;
   notes: string;
@@ -206,6 +230,13 @@ export class HandoverDto {
   pdfReady: boolean;
   @ApiProperty({ type: String, format: 'date-time' })
   sentAt: string;
+  /** By when the incoming supervisor should acknowledge (sent + the project's handover minutes) */
+  @ApiProperty({ type: String, format: 'date-time' })
+  ackDueAt: string;
+  /** Not acknowledged and past ackDueAt */
+  overdue: boolean;
+  /** The outgoing supervisor and the engineers were told it ran overdue */
+  overdueNotified: boolean;
   @ApiProperty({ type: String, format: 'date-time', nullable: true })
   acknowledgedAt: string | null;
   @ApiProperty({ type: HandoverPersonDto, nullable: true })

@@ -1,20 +1,21 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { CHAINAGE_STYLES } from '@roundbook/domain';
 import {
-  IsIn,
-  IsInt,
-  IsString,
-  Length,
-  Min,
-  Validate,
-  type ValidatorConstraintInterface,
-  ValidatorConstraint,
   ArrayMaxSize,
   ArrayUnique,
   IsArray,
   IsBoolean,
   IsEmail,
+  IsIn,
+  IsInt,
+  IsString,
+  Length,
   Matches,
+  Max,
+  Min,
+  Validate,
+  ValidatorConstraint,
+  type ValidatorConstraintInterface,
 } from 'class-validator';
 import { Optional } from '../../../common/dto/optional.js';
 import { ROLE_ENUM } from '../../auth/dto/token-response.dto.js';
@@ -23,6 +24,10 @@ import { PLANE_NOTATIONS, Q_TABLE_EDITIONS } from '../project.entity.js';
 export class LastHandoverDto {
   sentAt: string;
   acknowledgedAt: string | null;
+  /** By when the incoming supervisor should have acknowledged it */
+  ackDueAt: string;
+  /** Not acknowledged and past its time (the project's handover acknowledgement minutes) */
+  overdue: boolean;
 }
 
 export class HeadingSummaryDto {
@@ -82,6 +87,8 @@ export class ProjectSummaryDto {
   distributionList: string[];
   /** Name of the project's coordinate grid */
   coordinateGrid: string;
+  /** Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (default 60) */
+  handoverAckMinutes: number;
   /** The caller's role in this project */
   @ApiProperty({ enum: ROLE_ENUM, enumName: 'ProjectRole' })
   role: 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';
@@ -153,6 +160,13 @@ export class UpdateProjectDto {
   @Optional()
   @IsBoolean()
   separationOfDuties?: boolean;
+
+  /** Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (5 to 720) */
+  @Optional()
+  @IsInt({ message: 'handoverAckMinutes is a whole number of minutes.' })
+  @Min(5, { message: 'Allow at least 5 minutes to acknowledge a handover.' })
+  @Max(720, { message: 'Allow at most 720 minutes (12 hours, one shift) to acknowledge a handover.' })
+  handoverAckMinutes?: number;
 
   /** The version you last read; a stale version is refused with 409 STALE_VERSION */
   @IsInt()

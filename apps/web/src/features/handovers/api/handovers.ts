@@ -1,14 +1,43 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import {
   acknowledgeHandover,
+  composeHandover,
   getHandoverPdfUrl,
+  handoverDraftQueryOptions,
+  headingHandoversQueryOptions,
   receivedHandoversQueryOptions,
+  type ComposeHandoverRequest,
   type Handover,
+  type HandoverDraft,
 } from '@/api/resources/handovers';
 import { invalidateResource } from '@/api/resources/invalidate';
 import { resourceKeys } from '@/api/resources/keys';
 
-export type { Handover };
+export type { ComposeHandoverRequest, Handover, HandoverDraft };
+
+export function useHeadingHandovers(projectId: string, headingId: string) {
+  return useQuery(headingHandoversQueryOptions(projectId, headingId));
+}
+
+export function useHandoverDraft(projectId: string, headingIds: string[]) {
+  return useQuery(handoverDraftQueryOptions(projectId, headingIds));
+}
+
+/** Saves and sends a handover; the project (Board) and the handed-over headings' histories are read again. */
+export function useComposeHandover(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationKey: ['handovers', 'compose', projectId],
+    mutationFn: (body: ComposeHandoverRequest) => composeHandover(projectId, body),
+    onSuccess: (sent) =>
+      Promise.all([
+        invalidateResource(queryClient, resourceKeys.project(projectId)),
+        ...sent.headings.map((h) =>
+          invalidateResource(queryClient, resourceKeys.headingHandovers(projectId, h.headingId)),
+        ),
+      ]).then(() => undefined),
+  });
+}
 
 export function useReceivedHandovers() {
   return useQuery(receivedHandoversQueryOptions());

@@ -46,6 +46,7 @@ const handover = (over: Partial<Handover> = {}): Handover => ({
       alerts: [
         { level: 'amber', summary: 'Q below 20', action: 'Tell the engineer.', ownerRole: 'engineer' },
       ],
+      hazards: [],
       cycleStage: 'mucking',
       notes: 'Scaling done at the crown.',
     },
@@ -55,6 +56,9 @@ const handover = (over: Partial<Handover> = {}): Handover => ({
   emailStatus: 'sent',
   pdfReady: true,
   sentAt: '2026-12-03T17:55:00.000Z',
+  ackDueAt: '2026-12-03T18:55:00.000Z',
+  overdue: false,
+  overdueNotified: false,
   acknowledgedAt: null,
   acknowledgedBy: null,
   acknowledgeComment: null,

@@ -187,7 +187,11 @@ export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProp
             <>
               {`sent ${formatProjectTime(handover.sentAt, timeZone)}`}
               <br />
-              {handover.acknowledgedAt === null ? (
+              {handoverStatus === 'overdue' ? (
+                <span className={styles.attention}>
+                  {`overdue: not acknowledged, due ${formatProjectTime(handover.ackDueAt, timeZone)}`}
+                </span>
+              ) : handover.acknowledgedAt === null ? (
                 <span className={styles.attention}>not acknowledged yet</span>
               ) : (
                 `acknowledged ${formatProjectTime(handover.acknowledgedAt, timeZone)}`

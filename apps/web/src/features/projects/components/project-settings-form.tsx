@@ -214,6 +214,15 @@ export function ProjectSettingsForm({ project, canEdit }: ProjectSettingsFormPro
               <p>Every handover is also sent to these addresses.</p>
               <DistributionList disabled={!canEdit} />
             </div>
+            <FormikInputField
+              name="handoverAckMinutes"
+              label="Time to acknowledge a handover"
+              hint="After this many minutes unacknowledged, a handover is flagged overdue and the outgoing supervisor and the engineers are told (60 is our default)"
+              inputMode="numeric"
+              contentAfter="min"
+              required
+              disabled={!canEdit}
+            />
           </div>
           {problem !== null && (
             <div role="alert">

@@ -1,4 +1,4 @@
-import { array, mixed, object, string } from 'yup';
+import { array, mixed, number, object, string } from 'yup';
 import type { ObjectSchema } from 'yup';
 import type {
   GroundScale,
@@ -57,6 +57,15 @@ export const projectSettingsSchema: ObjectSchema<ProjectSettingsValues> = object
       (list) => new Set(list.map((a) => a.toLowerCase())).size === list.length,
     ),
   coordinateGrid: string().trim().max(120, 'Up to 120 characters.').default('').defined(),
+  handoverAckMinutes: number()
+    .transform((value: number, original: unknown) =>
+      typeof original === 'string' && original.trim() === '' ? Number.NaN : value,
+    )
+    .typeError('Give the time in whole minutes, e.g. 60.')
+    .required('Give the time in whole minutes, e.g. 60.')
+    .integer('Give the time in whole minutes, e.g. 60.')
+    .min(5, 'Allow at least 5 minutes to acknowledge a handover.')
+    .max(720, 'Allow at most 720 minutes (12 hours, one shift).'),
 });
 
 export function projectToSettingsValues(p: ProjectSummary): ProjectSettingsValues {
@@ -69,6 +78,7 @@ export function projectToSettingsValues(p: ProjectSummary): ProjectSettingsValue
     groundScale: p.groundScale,
     distributionList: [...p.distributionList],
     coordinateGrid: p.coordinateGrid,
+    handoverAckMinutes: p.handoverAckMinutes,
   };
 }
 
@@ -81,4 +91,5 @@ export const projectSettingsLabels: Partial<Record<keyof ProjectSettingsValues, 
   groundScale: 'Weathering and strength grades',
   distributionList: 'Handover distribution list',
   coordinateGrid: 'Coordinate grid',
+  handoverAckMinutes: 'Time to acknowledge a handover',
 };

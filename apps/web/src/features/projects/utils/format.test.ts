@@ -36,9 +36,13 @@ describe('formatProjectTime', () => {
 describe('handoverState', () => {
   it('tells apart none, waiting and acknowledged', () => {
     expect(handoverState(null)).toBe('none');
-    expect(handoverState({ sentAt: '2026-12-01T06:00:00Z', acknowledgedAt: null })).toBe('waiting');
-    expect(handoverState({ sentAt: '2026-12-01T06:00:00Z', acknowledgedAt: '2026-12-01T06:20:00Z' })).toBe(
-      'acknowledged',
-    );
+    const due = { ackDueAt: '2026-12-01T07:00:00Z', overdue: false };
+    expect(handoverState({ sentAt: '2026-12-01T06:00:00Z', acknowledgedAt: null, ...due })).toBe('waiting');
+    expect(
+      handoverState({ sentAt: '2026-12-01T06:00:00Z', acknowledgedAt: null, ...due, overdue: true }),
+    ).toBe('overdue');
+    expect(
+      handoverState({ sentAt: '2026-12-01T06:00:00Z', acknowledgedAt: '2026-12-01T06:20:00Z', ...due }),
+    ).toBe('acknowledged');
   });
 });

@@ -11,9 +11,10 @@ export function formatGradient(percent: number): string {
   return percent > 0 ? `rising +${value} %` : `falling −${value} %`;
 }
 
-export type HandoverState = 'none' | 'waiting' | 'acknowledged';
+export type HandoverState = 'none' | 'waiting' | 'overdue' | 'acknowledged';
 
 export function handoverState(handover: HandoverSummary | null): HandoverState {
   if (handover === null) return 'none';
-  return handover.acknowledgedAt === null ? 'waiting' : 'acknowledged';
+  if (handover.acknowledgedAt !== null) return 'acknowledged';
+  return handover.overdue ? 'overdue' : 'waiting';
 }

@@ -29,6 +29,7 @@ export const project: ProjectDetail = {
   qTableEdition: '2015',
   groundScale: 'isrm',
   distributionList: [],
+  handoverAckMinutes: 60,
   coordinateGrid: 'Harrowdale site grid',
   version: 1,
   headings: [],
