@@ -139,6 +139,21 @@ describe('Support as built (e2e, real MariaDB)', () => {
     expect(outstanding).toHaveLength(1);
     expect(outstanding[0]).toMatchObject({ roundId: confirmed.id, classCode: 'C2', recorded: false });
     expect(outstanding[0].items.map((i) => i.element)).toEqual(['probe-holes', 'sprayed-concrete', 'bolts']);
+    // The handover's draft carries the same items, one line each, in words (issue 15 item 2).
+    const handoverDraft = (
+      await request(http)
+        .get(`${p.base}/handovers/draft?headingIds=${p.headingId}`)
+        .set(p.as('supervisor'))
+        .expect(200)
+    ).body as Body;
+    const lines = handoverDraft.headings[0].supportOutstanding as string[];
+    expect(lines).toHaveLength(3);
+    const round = `Round ${confirmed.roundNumber as number} (`;
+    expect(lines.every((l) => l.startsWith(round) && l.includes('class C2'))).toBe(true);
+    expect(lines.find((l) => l.includes('Rock bolts'))).toMatch(
+      /planned Invented grouted bar, 1\.5 m × 1\.5 m.*nothing recorded/,
+    );
+    expect(lines.find((l) => l.includes('Sprayed concrete'))).toMatch(/50 mm/);
   });
 
   it('refuses a round that is not confirmed (409, in words), and a geologist (403)', async () => {

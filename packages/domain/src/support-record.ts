@@ -210,6 +210,32 @@ export function supportItemErrors(
   return errors;
 }
 
+/** One outstanding item of support as built, as the handover lists it (one line, words a supervisor reads). */
+export function outstandingSupportLine(o: {
+  roundNumber: number;
+  stageLabel: string;
+  classCode: string | null;
+  element: SupportElement;
+  planned: { quantity: number | null; length: number | null; text: string };
+  quantity: number | null;
+  length: number | null;
+  reason: string;
+}): string {
+  const plannedQuantity =
+    o.planned.quantity !== null
+      ? formatSupportQuantity(o.element, o.planned.quantity, o.planned.length)
+      : o.planned.length !== null
+        ? `${o.planned.length} m long`
+        : '';
+  const plan = [o.planned.text, plannedQuantity].filter(Boolean).join(', ');
+  const installed =
+    o.quantity === null
+      ? 'nothing recorded'
+      : `${formatSupportQuantity(o.element, o.quantity, o.length)} installed`;
+  const cls = o.classCode ? `, class ${o.classCode}` : '';
+  return `Round ${o.roundNumber} (${o.stageLabel}${cls}): ${supportElementLabels[o.element]} — ${plan ? `planned ${plan}; ` : ''}${installed}${o.reason ? ` (${o.reason})` : ''}`;
+}
+
 /** An installed quantity with its unit, for lists and the handover: "12 no. × 3 m", "50 mm", "24 m²". */
 export function formatSupportQuantity(
   element: SupportElement,

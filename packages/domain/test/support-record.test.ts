@@ -1,4 +1,9 @@
-import { plannedSupport, supportItemErrors, formatSupportQuantity } from '../src/support-record.js';
+import {
+  plannedSupport,
+  supportItemErrors,
+  formatSupportQuantity,
+  outstandingSupportLine,
+} from '../src/support-record.js';
 
 const c3 = {
   code: 'C3',
@@ -81,5 +86,39 @@ describe('supportItemErrors (one checklist item)', () => {
     expect(formatSupportQuantity('bolts', 12, 3)).toBe('12 no. × 3 m');
     expect(formatSupportQuantity('sprayed-concrete', 50, null)).toBe('50 mm');
     expect(formatSupportQuantity('mesh', null, null)).toBe('—');
+  });
+});
+
+describe('outstandingSupportLine (the handover lists each outstanding item in one line)', () => {
+  it('says the round, the stage, the class, the plan and what was installed', () => {
+    expect(
+      outstandingSupportLine({
+        roundNumber: 12,
+        stageLabel: 'top heading',
+        classCode: 'C3',
+        element: 'bolts',
+        planned: { quantity: null, length: 4, text: 'Invented grouted bar, 1.5 m × 1.5 m' },
+        quantity: 8,
+        length: 4,
+        reason: 'four left for the next shift',
+      }),
+    ).toBe(
+      'Round 12 (top heading, class C3): Rock bolts — planned Invented grouted bar, 1.5 m × 1.5 m, 4 m long; 8 no. × 4 m installed (four left for the next shift)',
+    );
+  });
+
+  it('says nothing recorded when no quantity was entered, and leaves out an empty plan', () => {
+    expect(
+      outstandingSupportLine({
+        roundNumber: 3,
+        stageLabel: 'full face',
+        classCode: null,
+        element: 'mesh',
+        planned: { quantity: null, length: null, text: '' },
+        quantity: null,
+        length: null,
+        reason: '',
+      }),
+    ).toBe('Round 3 (full face): Mesh — nothing recorded');
   });
 });

@@ -91,6 +91,14 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
         .font('regular')
         .fontSize(10)
         .text(`• ${z}`, left + 10, doc.y, { width: width - 10 });
+    doc.moveDown(0.3);
+    doc.font('bold').fontSize(10).fillColor(INK).text('Support outstanding', left, doc.y, { width });
+    if (h.supportOutstanding.length === 0) doc.font('regular').text('None recorded', { width });
+    for (const s of h.supportOutstanding)
+      doc
+        .font('regular')
+        .fontSize(10)
+        .text(`• ${s}`, left + 10, doc.y, { width: width - 10 });
     if (h.notes) {
       doc.moveDown(0.3);
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });

@@ -23,6 +23,8 @@ export interface HeadingFacts {
   alerts: string[];
   /** Open hazards, one line each: level as a word, kind, chainage range, description */
   hazards: string[];
+  /** Support as built still outstanding, one line per item */
+  supportOutstanding: string[];
   notes: string;
 }
 
@@ -59,6 +61,7 @@ export function headingFacts(h: HandoverHeadingSnapshot): HeadingFacts {
       (z) =>
         `${levelLabels[z.level]} — ${hazardKindLabels[z.kind]}, ${formatHazardRange(z, h)}: ${z.description}`,
     ),
+    supportOutstanding: h.supportOutstanding ?? [],
     notes: h.notes,
   };
 }

@@ -73,6 +73,9 @@ export function handoverEmail(e: HandoverEmailInput): { subject: string; text: s
       ...(h.hazards.length
         ? ['  Open hazards:', ...h.hazards.map((z) => `    - ${z}`)]
         : ['  Open hazards: none']),
+      ...(h.supportOutstanding.length
+        ? ['  Support outstanding:', ...h.supportOutstanding.map((s) => `    - ${s}`)]
+        : ['  Support outstanding: none recorded']),
       ...(h.notes ? [`  Notes: ${h.notes}`] : []),
       '',
     ]),
@@ -99,6 +102,8 @@ ${headings
 ${h.alerts.length ? `<ul style="margin:0;padding-left:20px">${h.alerts.map((a) => `<li>${escapeHtml(a)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
 <p style="margin:6px 0 2px"><strong>Open hazards</strong></p>
 ${h.hazards.length ? `<ul style="margin:0;padding-left:20px">${h.hazards.map((z) => `<li>${escapeHtml(z)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
+<p style="margin:6px 0 2px"><strong>Support outstanding</strong></p>
+${h.supportOutstanding.length ? `<ul style="margin:0;padding-left:20px">${h.supportOutstanding.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>` : '<p style="margin:0">None recorded</p>'}
 ${h.notes ? `<p style="margin:6px 0 0"><strong>Notes</strong><br>${para(h.notes)}</p>` : ''}
 </div>`,
   )

@@ -50,6 +50,8 @@ export interface HandoverHeadingSnapshot {
   alerts: HandoverAlert[];
   /** The heading's open hazards, red first (absent on handovers sent before hazards were carried) */
   hazards?: HandoverHazard[];
+  /** Support as built still outstanding on the heading's confirmed rounds, one line per item (absent before) */
+  supportOutstanding?: string[];
   cycleStage: CycleStage | null;
   notes: string;
 }

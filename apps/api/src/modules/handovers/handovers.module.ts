@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { JobsModule } from '../../infrastructure/jobs/jobs.module.js';
 import { AuditModule } from '../audit/audit.module.js';
 import { HazardsModule } from '../hazards/hazards.module.js';
+import { SupportRecordsModule } from '../support-records/support-records.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Handover, HandoverHeading } from './handover.entity.js';
 import { HandoversController, ReceivedHandoversController } from './handovers.controller.js';
@@ -14,6 +15,7 @@ import { HandoversService } from './handovers.service.js';
     JobsModule,
     AuditModule,
     HazardsModule,
+    SupportRecordsModule,
   ],
   controllers: [HandoversController, ReceivedHandoversController],
   providers: [HandoversService],

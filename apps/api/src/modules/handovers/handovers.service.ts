@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { shiftOf } from '@roundbook/domain';
+import { outstandingSupportLine, shiftOf, stageLabels } from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
@@ -16,6 +16,7 @@ import {
 } from '../../infrastructure/storage/storage.service.js';
 import { AuditService } from '../audit/audit.service.js';
 import { HazardsService } from '../hazards/hazards.service.js';
+import { SupportRecordsService } from '../support-records/support-records.service.js';
 import { Heading } from '../headings/heading.entity.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
@@ -46,8 +47,9 @@ export const HANDOVER_OVERDUE_JOB = 'handover.overdue';
 /** Signed PDF addresses live this long. */
 export const PDF_URL_TTL_SECONDS = 300;
 
-type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes' | 'hazards'> & {
+type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes' | 'hazards' | 'supportOutstanding'> & {
   hazards: NonNullable<HandoverHeadingSnapshot['hazards']>;
+  supportOutstanding: string[];
 };
 
 /**
@@ -64,6 +66,7 @@ export class HandoversService implements OnModuleInit {
     @Inject(NoticesService) private readonly notices: NoticesService,
     @Inject(AuditService) private readonly audit: AuditService,
     @Inject(HazardsService) private readonly hazards: HazardsService,
+    @Inject(SupportRecordsService) private readonly support: SupportRecordsService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
@@ -471,6 +474,20 @@ export class HandoversService implements OnModuleInit {
           level: z.level,
           description: z.description,
         })),
+        supportOutstanding: (await this.support.outstandingForHeading(h.id, manager)).flatMap((o) =>
+          o.items.map((i) =>
+            outstandingSupportLine({
+              roundNumber: o.roundNumber,
+              stageLabel: stageLabels[o.stage].toLowerCase(),
+              classCode: o.classCode,
+              element: i.element,
+              planned: i.planned,
+              quantity: i.quantity,
+              length: i.length,
+              reason: i.reason,
+            }),
+          ),
+        ),
       });
     }
     return out;
@@ -497,7 +514,11 @@ export class HandoversService implements OnModuleInit {
         status: h.status,
         outgoing: h.snapshot.outgoing,
         incoming: h.snapshot.incoming,
-        headings: h.snapshot.headings.map((x) => ({ ...x, hazards: x.hazards ?? [] })),
+        headings: h.snapshot.headings.map((x) => ({
+          ...x,
+          hazards: x.hazards ?? [],
+          supportOutstanding: x.supportOutstanding ?? [],
+        })),
         generalNotes: h.snapshot.generalNotes,
         recipients: h.recipients,
         emailStatus: h.noticeId ? (status.get(h.noticeId) ?? 'queued') : 'queued',

@@ -2432,6 +2432,8 @@ export interface components {
             alerts: components["schemas"]["HandoverAlertDto"][];
             /** @description The heading's open hazards, red first then amber then green, each by chainage */
             hazards: components["schemas"]["HandoverHazardDto"][];
+            /** @description Support as built still outstanding on the heading's confirmed rounds, one line per item */
+            supportOutstanding: string[];
             cycleStage: components["schemas"]["CycleStage"] | null;
             headingId: string;
             code: string;

@@ -115,6 +115,9 @@ export class HandoverHeadingDto {
   /** The heading's open hazards, red first then amber then green, each by chainage */
   @ApiProperty({ type: [HandoverHazardDto] })
   hazards: HandoverHazardDto[];
+  /** Support as built still outstanding on the heading's confirmed rounds, one line per item */
+  @ApiProperty({ type: [String] })
+  supportOutstanding: string[];
   @ApiProperty({ enum: CYCLE_STAGES, enumName: 'CycleStage', nullable: true })
   cycleStage: CycleStage | null;
   notes: string;

@@ -42,6 +42,7 @@ const draftHeading: HandoverDraft['headings'][number] = {
       description: 'Invented wedge in the right shoulder',
     },
   ],
+  supportOutstanding: ['Round 7 (full face, class C2): Rock bolts — planned 3 m bolts; nothing recorded'],
   cycleStage: null,
   notes: '',
 };
@@ -172,6 +173,11 @@ describe('HeadingHandovers', () => {
     expect(
       within(section).getByText(
         'Hazard Red: Wedge, 1+004.0 – 1+006.0 — Invented wedge in the right shoulder',
+      ),
+    ).toBeInTheDocument();
+    expect(
+      within(section).getByText(
+        'Support outstanding: Round 7 (full face, class C2): Rock bolts — planned 3 m bolts; nothing recorded',
       ),
     ).toBeInTheDocument();
     expect(within(section).getByText(/Alert Amber: Q below 20/)).toBeInTheDocument();

@@ -166,6 +166,11 @@ function DraftFacts({ h }: { h: HandoverDraft['headings'][number] }) {
           </li>
         ))
       )}
+      {h.supportOutstanding.length === 0 ? (
+        <li>No support outstanding recorded</li>
+      ) : (
+        h.supportOutstanding.map((line, i) => <li key={`s${i}`}>{`Support outstanding: ${line}`}</li>)
+      )}
     </ul>
   );
 }

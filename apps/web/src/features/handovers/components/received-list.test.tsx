@@ -47,6 +47,7 @@ const handover = (over: Partial<Handover> = {}): Handover => ({
         { level: 'amber', summary: 'Q below 20', action: 'Tell the engineer.', ownerRole: 'engineer' },
       ],
       hazards: [],
+      supportOutstanding: [],
       cycleStage: 'mucking',
       notes: 'Scaling done at the crown.',
     },
