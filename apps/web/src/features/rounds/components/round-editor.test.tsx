@@ -153,7 +153,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
       409,
     );
 
-  it('shows both versions side by side and, on "keep my changes", saves the typing on top of their version', async () => {
+  it('merges field by field: their face chainage comes in, my notes stay by default, and the merge is saved on their version', async () => {
     let calls = 0;
     mockApi({
       [JOINTS]: [],
@@ -165,32 +165,60 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     renderEditor();
     const user = setupUser();
     await user.type(distantField(), 'Crown only');
-    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
-    expect(notice).toHaveTextContent('Someone saved this round first.');
-    const rows = within(notice).getAllByRole('row');
-    expect(rows.map((r) => r.textContent)).toEqual(
-      expect.arrayContaining([
-        'Parts seen only from a distanceCrown onlyWhole face seen close up',
-        'Face chainage1253.51254',
-      ]),
-    );
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    expect(view).toHaveTextContent('Someone saved this round first.');
+    // Only they changed the face chainage: taken without a question.
+    expect(within(view).getByTestId('merged-theirs')).toHaveTextContent('Face chainage');
+    // Both changed the distant parts: both values shown, mine chosen until I say otherwise.
+    const fields = within(view).getAllByTestId('conflict-field');
+    expect(fields).toHaveLength(1);
+    expect(fields[0]).toHaveTextContent('Parts of the face seen only from a distance');
+    expect(within(fields[0]).getByRole('radio', { name: 'Yours: Crown only' })).toBeChecked();
+    expect(
+      within(fields[0]).getByRole('radio', { name: 'Theirs: Whole face seen close up' }),
+    ).not.toBeChecked();
     expect(screen.getByTestId('save-state')).toHaveTextContent('changed by someone else');
     expect(saves).toHaveLength(1);
 
-    await user.click(within(notice).getByRole('button', { name: 'Keep my changes' }));
+    // The main button is the merge (never "load theirs").
+    const primary = within(view).getByRole('button', { name: 'Save the merge' });
+    await user.click(primary);
     await waitFor(() => expect(saves).toHaveLength(2));
-    expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only' });
+    expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only', faceChainage: 1254 });
     await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'));
     expect(distantField()).toHaveValue('Crown only');
+    expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
   });
 
-  it('puts their version in the form on "load their version", without saving over it', async () => {
+  it('takes their value for a field when chosen, keeping the rest of the merge', async () => {
+    let calls = 0;
+    mockApi({
+      [JOINTS]: [],
+      [PUT]: saveHandler((body) => {
+        calls += 1;
+        return calls === 1 ? stale() : jsonResponse(savedFrom(body, theirs));
+      }),
+    });
+    renderEditor();
+    const user = setupUser();
+    await user.type(distantField(), 'Crown only');
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    await user.click(within(view).getByRole('radio', { name: 'Theirs: Whole face seen close up' }));
+    await user.click(within(view).getByRole('button', { name: 'Save the merge' }));
+    expect(distantField()).toHaveValue('Whole face seen close up');
+    // Nothing differs from their version any more: nothing needs sending.
+    await pass(1800);
+    expect(saves).toHaveLength(1);
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+  });
+
+  it('puts their version in the form only on the explicit discard, without saving over it', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler(stale) });
     renderEditor();
     const user = setupUser();
     await user.type(distantField(), 'Crown only');
-    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
-    await user.click(within(notice).getByRole('button', { name: 'Load their version' }));
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    await user.click(within(view).getByRole('button', { name: 'Discard my typing and load theirs' }));
     expect(distantField()).toHaveValue('Whole face seen close up');
     expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
@@ -288,8 +316,9 @@ describe('Round editor: a draft from this device that the server has moved past'
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
     expect(await screen.findByTestId('restored-note')).toHaveTextContent('saved again since then');
-    const notice = screen.getByTestId('stale-version-notice');
-    expect(notice).toHaveTextContent('Typed offline yesterday');
+    const view = screen.getByTestId('conflict-view');
+    // An old draft without its starting version: every difference is a question, mine chosen.
+    expect(within(view).getByRole('radio', { name: 'Yours: Typed offline yesterday' })).toBeChecked();
     expect(distantField()).toHaveValue('Typed offline yesterday');
     await pass(1800);
     expect(saves).toHaveLength(0);

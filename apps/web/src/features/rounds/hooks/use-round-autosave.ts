@@ -6,9 +6,12 @@ import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { formValuesOf, saveRequestOf } from '@/features/rounds/schemas/round-form';
 import { roundDifferences } from '@/features/rounds/utils/differences';
+import { sendPendingRound } from '@/features/rounds/utils/offline-round';
+import { readSession } from '@/lib/session';
 import type { SyncStatus } from '@/lib/sync/autosave';
 import { AutosaveEngine } from '@/lib/sync/autosave';
 import { localStorageDrafts } from '@/lib/sync/local-draft';
+import { syncState } from '@/lib/sync/sync-state';
 
 /** Unsaved typing of rounds, kept on this device until the server has it. */
 export const roundDrafts = localStorageDrafts<RoundFormValues>('roundbook.round-draft.');
@@ -57,10 +60,21 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
         editable: (round) => canEdit && (round.status === 'draft' || round.status === 'returned'),
         toDocument: formValuesOf,
         payload: (values) => payloadOf(values, fallback),
-        save: (values, version) => saveRound(projectId, roundId, { ...payloadOf(values, fallback), version }),
+        save: async (values, version) => {
+          // A round opened offline is created first (once; utils/offline-round), then saved on top.
+          const owner = readSession()?.user.id;
+          const created = owner === undefined ? null : await sendPendingRound(owner, roundId, queryClient);
+          return saveRound(projectId, roundId, {
+            ...payloadOf(values, fallback),
+            version: created?.version ?? version,
+          });
+        },
         reload: () => getRound(projectId, roundId),
         drafts: roundDrafts,
-        onServerRecord: (round) => void roundSaved(queryClient, projectId, round),
+        onServerRecord: (round) => {
+          syncState.synced();
+          void roundSaved(queryClient, projectId, round);
+        },
       }),
   );
   const sync = useSyncExternalStore(engine.subscribe, engine.getSnapshot);
@@ -71,11 +85,20 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
     engine.start();
     const online = () => engine.retryNow();
     window.addEventListener('online', online);
+    const offRetry = syncState.onRetry(() => void engine.flush());
     return () => {
+      offRetry();
       window.removeEventListener('online', online);
       engine.stop();
     };
   }, [engine]);
+
+  // The always-visible sync bar (app shell) shows this round's state wherever the person has scrolled.
+  const label = `Round ${initial.roundNumber}`;
+  useEffect(() => {
+    syncState.report(roundId, { status: sync.status, message: sync.error?.message ?? null, label });
+  }, [roundId, sync.status, sync.error, label]);
+  useEffect(() => () => syncState.report(roundId, null), [roundId]);
 
   const stale = useMemo<StaleRound | null>(() => {
     const conflict = sync.conflict;
@@ -92,6 +115,20 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
     };
   }, [sync.conflict, fallback, classCode]);
 
+  /** The conflict as form values, for the field-by-field merge (features/rounds/components/conflict-view). */
+  const conflict = useMemo(() => {
+    const c = sync.conflict;
+    if (c === null) return null;
+    return {
+      message: c.message ?? 'Someone saved this round after your typing began.',
+      base: c.base,
+      mine: c.mine,
+      theirs: formValuesOf(c.theirs),
+      theirRound: c.theirs,
+      state: c.state,
+    };
+  }, [sync.conflict]);
+
   const restored =
     sync.restored === null
       ? null
@@ -107,6 +144,7 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
     invalid: sync.error?.invalid ?? false,
     fieldErrors: sync.error?.fields ?? {},
     stale,
+    conflict,
     restored,
     /** The form's values when the editor opens (a draft restored from this device, or the server's). */
     initialValues: engine.document(),
@@ -119,6 +157,8 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
     keepMine: engine.keepMine,
     /** Their version for the form; my typing is dropped. Null when there is nothing to load. */
     takeTheirs: engine.takeTheirs,
+    /** Save a merge of both versions on top of theirs; returns the document for the form. */
+    resolve: engine.resolve,
     dismissStale: engine.dismissConflict,
     /** After submit, the server's answer becomes the base. */
     accept: engine.accept,
