@@ -267,6 +267,40 @@ export class AutosaveEngine<D, S extends Versioned> {
     return merged;
   };
 
+  /**
+   * The server's record seen by polling (another device saved). Newer than ours: with nothing unsaved
+   * here it becomes the document ('refreshed'); with unsaved typing the typing is never overwritten and
+   * the conflict is shown instead ('conflict'). Older or equal, or a save in flight: 'ignored'.
+   */
+  serverMoved = (theirs: S): 'refreshed' | 'conflict' | 'ignored' => {
+    if (theirs.version <= this.base.version || this.inFlight !== null || this.blocked) return 'ignored';
+    if (!this.editable || this.payloadOf(this.doc) === this.base.payload) {
+      this.setBase(theirs);
+      this.doc = this.options.toDocument(theirs);
+      this.docJson = JSON.stringify(this.doc);
+      this.clearTimer();
+      this.options.drafts.clear(this.options.key);
+      this.serverRecord(theirs);
+      this.update({ status: 'saved', error: null });
+      return 'refreshed';
+    }
+    this.blocked = true;
+    this.queued = false;
+    this.clearTimer();
+    this.update({
+      status: 'conflict',
+      conflict: {
+        reason: 'saved-first',
+        message: 'This round was saved on another device while you were typing here.',
+        mine: this.doc,
+        theirs,
+        base: this.baseDoc,
+        state: 'choose',
+      },
+    });
+    return 'conflict';
+  };
+
   /** Drops the typing for their version; returns the document to put in the form (null: no conflict). */
   takeTheirs = (): D | null => {
     const conflict = this.snapshot.conflict;

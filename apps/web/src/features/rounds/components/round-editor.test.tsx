@@ -464,3 +464,80 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     expect(requestedRoutes(api).filter((r) => r === JOINTS)).toHaveLength(1);
   });
 });
+
+describe('Round editor: another device saves the round (polling every 10 s)', () => {
+  const GET = 'GET /api/projects/p-1/rounds/r-1';
+  const AUDIT = 'GET /api/projects/p-1/audit';
+  const theirs: Round = {
+    ...draftRound,
+    version: draftRound.version + 1,
+    distantParts: 'Left wall behind the jumbo',
+  };
+  const audit = [
+    {
+      id: 'e-1',
+      entityType: 'round',
+      entityId: 'r-1',
+      action: 'update',
+      actorId: 'u-2',
+      actorName: 'Ailsa Drummond',
+      at: '2026-12-03T10:00:00Z',
+      lastAt: null,
+      coalesced: 0,
+      before: { distantParts: '' },
+      after: { distantParts: 'Left wall behind the jumbo' },
+    },
+  ];
+
+  it('takes their version when nothing is unsaved here, and says who changed what', async () => {
+    let version = draftRound;
+    const mock = mockApi({ [JOINTS]: [], [GET]: () => jsonResponse(version), [AUDIT]: audit });
+    renderEditor();
+    await pass(10_000);
+    expect(requestedRoutes(mock).filter((r) => r === GET)).toHaveLength(1);
+    expect(screen.queryByTestId('refreshed-note')).toBeNull();
+
+    version = theirs;
+    await pass(10_000);
+    const note = await screen.findByTestId('refreshed-note');
+    expect(note).toHaveTextContent('Ailsa Drummond saved this round');
+    expect(note).toHaveTextContent('changed: Parts of the face seen only from a distance');
+    expect(distantField()).toHaveValue('Left wall behind the jumbo');
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+  });
+
+  it('never overwrites unsaved typing: it shows the conflict with both values instead', async () => {
+    mockApi({
+      [JOINTS]: [],
+      [GET]: () => jsonResponse(theirs),
+      [AUDIT]: audit,
+      // The save cannot get through: the typing stays unsaved on this device.
+      [PUT]: () => Promise.reject(new TypeError('Failed to fetch')),
+    });
+    renderEditor();
+    const user = setupUser();
+    await user.type(distantField(), 'Crown only');
+    await pass(10_000);
+    const view = await screen.findByTestId('conflict-view');
+    expect(view).toHaveTextContent('Ailsa Drummond saved this round while you were typing');
+    expect(within(view).getByRole('radio', { name: 'Yours: Crown only' })).toBeChecked();
+    expect(
+      within(view).getByRole('radio', { name: 'Theirs: Left wall behind the jumbo' }),
+    ).toBeInTheDocument();
+    expect(distantField()).toHaveValue('Crown only');
+    expect(readLocalDraft('r-1')?.values.distantParts).toBe('Crown only');
+  });
+
+  it('does not ask while the browser is offline or the page is hidden', async () => {
+    const mock = mockApi({ [JOINTS]: [], [GET]: () => jsonResponse(theirs), [AUDIT]: audit });
+    const online = jest.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
+    renderEditor();
+    await pass(30_000);
+    online.mockReturnValue(true);
+    const hidden = jest.spyOn(document, 'visibilityState', 'get').mockReturnValue('hidden');
+    await pass(30_000);
+    expect(requestedRoutes(mock).filter((r) => r === GET)).toHaveLength(0);
+    hidden.mockRestore();
+    online.mockRestore();
+  });
+});

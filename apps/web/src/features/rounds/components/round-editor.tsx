@@ -177,7 +177,12 @@ function RoundEditorBody({
     if (theirs !== null) resetForm({ values: theirs });
   };
   const server = autosave.server;
-  const changedBy: string | null = null;
+  const changedBy = autosave.changedBy;
+  // Another device saved and nothing was unsaved here: their version goes into the form.
+  const refreshed = autosave.refreshed;
+  useEffect(() => {
+    if (refreshed !== null) resetForm({ values: refreshed.document });
+  }, [refreshed, resetForm]);
   const readOnly = !canEdit || !(server.status === 'draft' || server.status === 'returned');
 
   const face = chainageOf(values.faceChainage) ?? server.faceChainage;
@@ -292,6 +297,21 @@ function RoundEditorBody({
             <MessageBarBody>{autosave.restored}</MessageBarBody>
             <MessageBarActions>
               <Button size="large" onClick={autosave.dismissRestored}>
+                OK
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
+        )}
+        {refreshed !== null && (
+          <MessageBar intent="info" data-testid="refreshed-note">
+            <MessageBarBody>
+              <MessageBarTitle>Updated from another device</MessageBarTitle>
+              {`${refreshed.by ?? 'Someone'} saved this round`}
+              {refreshed.fields.length > 0 ? ` (changed: ${refreshed.fields.join(', ')})` : ''}
+              {'. The form now shows that version; you had nothing unsaved.'}
+            </MessageBarBody>
+            <MessageBarActions>
+              <Button size="large" onClick={autosave.dismissRefreshed}>
                 OK
               </Button>
             </MessageBarActions>

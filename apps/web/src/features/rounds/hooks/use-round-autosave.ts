@@ -1,10 +1,12 @@
 import type { VersionDifference } from '@roundbook/ui';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { getAuditEvents } from '@/api/resources/audit';
 import { getRound, roundQueryOptions, roundSaved, saveRound } from '@/api/resources/rounds';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { formValuesOf, saveRequestOf } from '@/features/rounds/schemas/round-form';
+import { auditFieldLabel } from '@/features/rounds/utils/conflict-labels';
 import { roundDifferences } from '@/features/rounds/utils/differences';
 import { sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { readSession } from '@/lib/session';
@@ -25,12 +27,38 @@ export interface StaleRound {
   state: 'choose' | 'loaded' | 'kept';
 }
 
+/** How often an open round asks whether another device saved it. */
+export const ROUND_POLL_MS = 10_000;
+
+export interface RoundRefresh {
+  document: RoundFormValues;
+  by: string | null;
+  /** The fields the other device changed, in words. */
+  fields: string[];
+  version: number;
+}
+
+/** The round's last change in the audit trail: who, and which fields (by their audit names). */
+async function whoChanged(
+  projectId: string,
+  roundId: string,
+): Promise<{ name: string | null; fields: string[] }> {
+  try {
+    const [last] = await getAuditEvents(projectId, { entityType: 'round', entityId: roundId, limit: 1 });
+    if (last === undefined) return { name: null, fields: [] };
+    return { name: last.actorName, fields: Object.keys(last.after ?? {}).map(auditFieldLabel) };
+  } catch {
+    return { name: null, fields: [] };
+  }
+}
+
 export interface AutosaveOptions {
   projectId: string;
   initial: Round;
   /** The person may edit rounds (geologist); the round's status decides the rest. */
   canEdit: boolean;
   classCode?: (id: string) => string;
+  pollMs?: number;
 }
 
 type Payload = Omit<SaveRoundRequest, 'version'>;
@@ -47,7 +75,13 @@ const when = (ms: number) => new Date(ms).toLocaleString('en-GB');
  * record read from the query cache (the engine writes each answer there), and the engine's snapshot
  * turned into what the editor shows. Feed it the form's values with `edit`.
  */
-export function useRoundAutosave({ projectId, initial, canEdit, classCode }: AutosaveOptions) {
+export function useRoundAutosave({
+  projectId,
+  initial,
+  canEdit,
+  classCode,
+  pollMs = ROUND_POLL_MS,
+}: AutosaveOptions) {
   const queryClient = useQueryClient();
   const roundId = initial.id;
   const fallback = initial.faceChainage;
@@ -92,6 +126,38 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
       engine.stop();
     };
   }, [engine]);
+
+  // Other devices: while the round is on screen, visible and online, ask the server for it every 10 s; when
+  // its version has moved on, take it (nothing unsaved here) or show the conflict (typing kept), and say who.
+  const [refreshed, setRefreshed] = useState<RoundRefresh | null>(null);
+  const [changedBy, setChangedBy] = useState<string | null>(null);
+  useEffect(() => {
+    let busy = false;
+    const tick = async () => {
+      if (busy || document.visibilityState !== 'visible' || !navigator.onLine) return;
+      busy = true;
+      try {
+        const theirs = await getRound(projectId, roundId);
+        const outcome = engine.serverMoved(theirs);
+        if (outcome === 'ignored') return;
+        const who = await whoChanged(projectId, roundId);
+        setChangedBy(who.name);
+        if (outcome === 'refreshed')
+          setRefreshed({
+            document: engine.document(),
+            by: who.name,
+            fields: who.fields,
+            version: theirs.version,
+          });
+      } catch {
+        // Not reachable or refused: the next tick asks again (the sync bar shows the connection).
+      } finally {
+        busy = false;
+      }
+    };
+    const id = setInterval(() => void tick(), pollMs);
+    return () => clearInterval(id);
+  }, [engine, projectId, roundId, pollMs]);
 
   // The always-visible sync bar (app shell) shows this round's state wherever the person has scrolled.
   const label = `Round ${initial.roundNumber}`;
@@ -138,6 +204,11 @@ export function useRoundAutosave({ projectId, initial, canEdit, classCode }: Aut
 
   return {
     server,
+    /** The round was refreshed from another device's save: put `document` into the form. */
+    refreshed,
+    dismissRefreshed: () => setRefreshed(null),
+    /** Who saved the version that moved on (from the audit trail), when known. */
+    changedBy,
     state: sync.status,
     /** Why the last save was refused (with state 'error'). */
     message: sync.error?.message ?? null,

@@ -94,3 +94,16 @@ export function conflictValue(value: unknown): string {
   }
   return JSON.stringify(value);
 }
+
+const API_FIELDS: Record<string, string> = {
+  ground: 'Ground',
+  qInput: 'Q inputs',
+  rmrInput: 'RMR89 inputs',
+  joints: 'Joints',
+  status: 'Status',
+};
+
+/** A field of the round as the audit trail names it (the API's names), in words. */
+export function auditFieldLabel(field: string): string {
+  return API_FIELDS[field] ?? FIELDS[field] ?? field;
+}
