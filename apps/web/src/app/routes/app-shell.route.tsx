@@ -28,7 +28,7 @@ import { SyncBarView, summarise, useNow, useOnline } from '@/app/sync-bar';
 import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { AccountDialog } from '@/features/auth/components/account-dialog';
 import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
-import { roundDrafts } from '@/features/rounds/hooks/use-round-autosave';
+import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
 import { sendPendingRounds } from '@/features/rounds/utils/offline-round';
 import { useConfig } from '@/features/system/api/get-config';
 import { clearSession, saveSession } from '@/lib/session';
@@ -285,7 +285,7 @@ function ShellSyncBar({ userId }: { userId: string }) {
   useEffect(() => {
     if (online && outbox.list(userId).length > 0) send();
   }, [online, userId, send]);
-  const summary = summarise(state, pending, roundDrafts.keys());
+  const summary = summarise(state, pending, roundDraftsFor(userId).keys());
   return (
     <SyncBarView
       {...summary}

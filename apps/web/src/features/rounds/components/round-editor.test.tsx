@@ -3,7 +3,7 @@ import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
 import { RoundEditor, type RoundEditorProps } from '@/features/rounds/components/round-editor';
-import { roundDrafts } from '@/features/rounds/hooks/use-round-autosave';
+import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
 import { formValuesOf } from '@/features/rounds/schemas/round-form';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import {
@@ -13,9 +13,11 @@ import {
   renderWithProviders,
   supportClasses,
 } from '@/features/rounds/testing/round-fixtures';
+import { clearSession, saveSession } from '@/lib/session';
 import type { LocalDraft } from '@/lib/sync/local-draft';
 import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/mock-api';
 
+const roundDrafts = roundDraftsFor(null);
 const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
 const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
 const writeLocalDraft = ({
@@ -539,5 +541,46 @@ describe('Round editor: another device saves the round (polling every 10 s)', ()
     expect(requestedRoutes(mock).filter((r) => r === GET)).toHaveLength(0);
     hidden.mockRestore();
     online.mockRestore();
+  });
+});
+
+describe('Round editor: typing kept after the session ran out offline', () => {
+  const session = (id: string, name: string) =>
+    saveSession({
+      accessToken: `token-${id}`,
+      expiresAt: '2099-01-01T00:00:00Z',
+      user: { id, name, email: `${id}@example.test` },
+    });
+  const keepDraftOf = (owner: string) =>
+    roundDraftsFor(owner).write({
+      key: 'r-1',
+      baseVersion: draftRound.version,
+      savedAt: Date.parse('2026-12-03T08:00:00Z'),
+      values: { ...formValuesOf(draftRound), distantParts: 'Typed before the session ran out' },
+    });
+  afterEach(() => clearSession());
+
+  it('is not restored or sent when a different person signs in on the device', async () => {
+    keepDraftOf('u-a');
+    session('u-b', 'Ailsa Drummond');
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(screen.queryByTestId('restored-note')).toBeNull();
+    expect(distantField()).toHaveValue(draftRound.distantParts);
+    await pass(1800);
+    expect(saves).toHaveLength(0);
+    // Still kept for its own person.
+    expect(roundDraftsFor('u-a').read('r-1')?.values.distantParts).toBe('Typed before the session ran out');
+  });
+
+  it('is restored and sent at the next sign-in of the same person', async () => {
+    keepDraftOf('u-a');
+    session('u-a', 'Tobin Maelor');
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(await screen.findByTestId('restored-note')).toBeInTheDocument();
+    await pass(200);
+    await waitFor(() => expect(saves).toHaveLength(1));
+    expect(saves[0]).toMatchObject({ distantParts: 'Typed before the session ran out' });
   });
 });

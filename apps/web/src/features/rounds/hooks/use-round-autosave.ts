@@ -15,8 +15,14 @@ import { AutosaveEngine } from '@/lib/sync/autosave';
 import { localStorageDrafts } from '@/lib/sync/local-draft';
 import { syncState } from '@/lib/sync/sync-state';
 
-/** Unsaved typing of rounds, kept on this device until the server has it. */
-export const roundDrafts = localStorageDrafts<RoundFormValues>('roundbook.round-draft.');
+/**
+ * Unsaved typing of rounds, kept on this device until the server has it, under the person who typed it:
+ * only their own next sign-in restores and sends it (a different person on the same tablet never does,
+ * even after the first one's session ran out underground). `null`: typed while signed out (tests).
+ */
+export function roundDraftsFor(owner: string | null) {
+  return localStorageDrafts<RoundFormValues>(`roundbook.round-draft.${owner ?? 'signed-out'}.`);
+}
 
 export type SaveState = SyncStatus;
 
@@ -104,7 +110,8 @@ export function useRoundAutosave({
           });
         },
         reload: () => getRound(projectId, roundId),
-        drafts: roundDrafts,
+        // Fixed when the round opens: typing after the session ran out still belongs to its person.
+        drafts: roundDraftsFor(readSession()?.user.id ?? null),
         onServerRecord: (round) => {
           syncState.synced();
           void roundSaved(queryClient, projectId, round);
