@@ -4,12 +4,17 @@ import '@fontsource/open-sans/latin-700.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
+import { registerSW } from 'virtual:pwa-register';
 import { AppProvider } from '@/app/provider';
 import { createAppRouter } from '@/app/router';
 import { createQueryClient } from '@/lib/query-client';
 
 const container = document.getElementById('root');
 if (container === null) throw new Error('index.html has no #root element');
+
+// The service worker keeps the app shell, fonts and the last answers of the API on this device, so the app
+// opens underground with no network (issue 17). Registered here, not by an inline script (strict CSP).
+if ('serviceWorker' in navigator) registerSW({ immediate: true });
 
 const queryClient = createQueryClient();
 const router = createAppRouter(queryClient);

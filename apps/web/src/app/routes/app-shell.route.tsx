@@ -11,7 +11,7 @@ import {
 import { RoleBadge, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { Suspense, useCallback, useState } from 'react';
+import { Suspense, useCallback, useEffect, useState, useSyncExternalStore } from 'react';
 import type { ReactElement } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
@@ -24,11 +24,16 @@ import { navigationFor, pickCurrentProject, rememberCurrentProject } from '@/app
 import { PageLoading } from '@/app/routes/page-loading';
 import { guarded } from '@/app/routes/session-guard';
 import type { ShellContext } from '@/app/shell-context';
+import { SyncBarView, summarise, useNow, useOnline } from '@/app/sync-bar';
 import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { AccountDialog } from '@/features/auth/components/account-dialog';
 import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
+import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
+import { sendPendingRounds } from '@/features/rounds/utils/offline-round';
 import { useConfig } from '@/features/system/api/get-config';
 import { clearSession, saveSession } from '@/lib/session';
+import { outbox } from '@/lib/sync/outbox';
+import { syncState } from '@/lib/sync/sync-state';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -246,10 +251,50 @@ export function AppShellRoute() {
         </Suspense>
       </main>
 
+      <ShellSyncBar userId={me.id} />
+
       <footer className={styles.footer}>
         <CautionNote />
         <Text size={200} className={styles.version}>{`Roundbook ${config.version}`}</Text>
       </footer>
     </div>
+  );
+}
+
+/** The sync bar of the signed-in frame; also sends the rounds opened offline when the connection is back. */
+function ShellSyncBar({ userId }: { userId: string }) {
+  const queryClient = useQueryClient();
+  const online = useOnline();
+  const now = useNow();
+  const state = useSyncExternalStore(syncState.subscribe, syncState.getSnapshot);
+  useSyncExternalStore(
+    (listener) => outbox.subscribe(listener),
+    () => outbox.version(),
+  );
+  const pending = outbox.list(userId).length;
+  const send = useCallback(() => {
+    syncState.sendingOutbox(true);
+    sendPendingRounds(userId, queryClient)
+      .then((sent) => {
+        if (sent > 0) syncState.synced();
+      })
+      // Still unreachable or refused: the entries stay; the next connection or Send now tries again.
+      .catch(() => undefined)
+      .finally(() => syncState.sendingOutbox(false));
+  }, [userId, queryClient]);
+  useEffect(() => {
+    if (online && outbox.list(userId).length > 0) send();
+  }, [online, userId, send]);
+  const summary = summarise(state, pending, roundDraftsFor(userId).keys());
+  return (
+    <SyncBarView
+      {...summary}
+      online={online}
+      now={now}
+      onRetry={() => {
+        syncState.retryAll();
+        send();
+      }}
+    />
   );
 }

@@ -8,6 +8,8 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
+import { supportClassesQueryOptions } from '@/api/resources/support-classes';
+import { triggerRulesQueryOptions } from '@/api/resources/trigger-rules';
 import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
 import { HeadingHandovers } from '@/features/handovers/components/heading-handovers';
@@ -27,6 +29,10 @@ export const clientLoader =
         queryClient.ensureQueryData(projectQueryOptions(projectId)),
         queryClient.ensureQueryData(headingQueryOptions(projectId, headingId)),
       ]);
+      // What a round of this heading needs, read now while there is a connection, so the service worker
+      // has it when a round is opened underground (field mode, issue 17). Not awaited.
+      void queryClient.prefetchQuery(supportClassesQueryOptions(projectId));
+      void queryClient.prefetchQuery(triggerRulesQueryOptions(projectId));
       return null;
     });
 

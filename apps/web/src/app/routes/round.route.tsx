@@ -24,8 +24,11 @@ import {
   useRoundSupportClasses,
 } from '@/features/rounds/api/get-round';
 import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { pendingRoundOf, sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { SketchSection } from '@/features/sketch';
 import { SupportRecordSection } from '@/features/support-records/components/support-record-section';
+import { isApiError } from '@/lib/api-client';
+import { readSession } from '@/lib/session';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -33,6 +36,16 @@ export const clientLoader =
     guarded(request, async () => {
       const projectId = params.projectId ?? '';
       const roundId = params.roundId ?? '';
+      // A round opened with no connection is not on the server yet: created now if the connection is
+      // back, otherwise shown from this device's outbox (field mode, issue 17).
+      const owner = readSession()?.user.id;
+      const pending = owner === undefined ? null : pendingRoundOf(owner, roundId);
+      if (owner !== undefined && pending !== null) {
+        await sendPendingRound(owner, roundId, queryClient).catch((error: unknown) => {
+          if (!isApiError(error) || error.status !== 0) throw error;
+          queryClient.setQueryData(roundQueryOptions(projectId, roundId).queryKey, pending.round);
+        });
+      }
       const [round] = await Promise.all([
         queryClient.ensureQueryData(roundQueryOptions(projectId, roundId)),
         queryClient.ensureQueryData(projectQueryOptions(projectId)),

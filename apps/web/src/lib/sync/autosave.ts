@@ -44,6 +44,8 @@ export interface SyncConflict<D, S> {
   mine: D;
   /** Their version, as the server has it. */
   theirs: S;
+  /** The document both started from (null when this device no longer knows it). */
+  base: D | null;
   /** choose: saving stops until `keepMine` or `takeTheirs`; kept / loaded: what was chosen. */
   state: 'choose' | 'kept' | 'loaded';
 }
@@ -115,6 +117,8 @@ export class AutosaveEngine<D, S extends Versioned> {
   private docJson: string;
   /** The server's version and the payload it holds. */
   private base: { version: number; payload: string };
+  /** The document the server holds at `base.version` (the common ancestor of a merge). */
+  private baseDoc: D;
   private inFlight: Promise<void> | null = null;
   /** A save was asked for while one was in flight: send the latest document when it ends. */
   private queued = false;
@@ -136,6 +140,7 @@ export class AutosaveEngine<D, S extends Versioned> {
     this.editable = options.editable(server);
     this.doc = options.document;
     this.base = { version: server.version, payload: this.payloadOf(options.document) };
+    this.baseDoc = options.document;
 
     let status: SyncStatus = 'saved';
     let conflict: SyncConflict<D, S> | null = null;
@@ -159,6 +164,7 @@ export class AutosaveEngine<D, S extends Versioned> {
           message: null,
           mine: draft.values,
           theirs: server,
+          base: draft.baseValues ?? null,
           state: 'choose',
         };
       }
@@ -239,13 +245,60 @@ export class AutosaveEngine<D, S extends Versioned> {
   keepMine = (): void => {
     const conflict = this.snapshot.conflict;
     if (conflict === null || conflict.state !== 'choose') return;
+    this.resolve(this.doc);
+  };
+
+  /**
+   * Settles a conflict with a document made from both versions (the field-by-field merge): it goes on
+   * top of their version and is sent. Returns it for the form; null when there is no conflict.
+   */
+  resolve = (merged: D): D | null => {
+    const conflict = this.snapshot.conflict;
+    if (conflict === null || conflict.state !== 'choose') return null;
     const { theirs } = conflict;
-    this.base = { version: theirs.version, payload: this.payloadOf(this.options.toDocument(theirs)) };
+    this.setBase(theirs);
+    this.doc = merged;
+    this.docJson = JSON.stringify(merged);
     this.blocked = false;
     this.serverRecord(theirs);
     this.writeDraft();
     this.update({ status: 'waiting', conflict: { ...conflict, state: 'kept' } });
     void this.send();
+    return merged;
+  };
+
+  /**
+   * The server's record seen by polling (another device saved). Newer than ours: with nothing unsaved
+   * here it becomes the document ('refreshed'); with unsaved typing the typing is never overwritten and
+   * the conflict is shown instead ('conflict'). Older or equal, or a save in flight: 'ignored'.
+   */
+  serverMoved = (theirs: S): 'refreshed' | 'conflict' | 'ignored' => {
+    if (theirs.version <= this.base.version || this.inFlight !== null || this.blocked) return 'ignored';
+    if (!this.editable || this.payloadOf(this.doc) === this.base.payload) {
+      this.setBase(theirs);
+      this.doc = this.options.toDocument(theirs);
+      this.docJson = JSON.stringify(this.doc);
+      this.clearTimer();
+      this.options.drafts.clear(this.options.key);
+      this.serverRecord(theirs);
+      this.update({ status: 'saved', error: null });
+      return 'refreshed';
+    }
+    this.blocked = true;
+    this.queued = false;
+    this.clearTimer();
+    this.update({
+      status: 'conflict',
+      conflict: {
+        reason: 'saved-first',
+        message: 'This round was saved on another device while you were typing here.',
+        mine: this.doc,
+        theirs,
+        base: this.baseDoc,
+        state: 'choose',
+      },
+    });
+    return 'conflict';
   };
 
   /** Drops the typing for their version; returns the document to put in the form (null: no conflict). */
@@ -255,6 +308,7 @@ export class AutosaveEngine<D, S extends Versioned> {
     const { theirs } = conflict;
     const doc = this.options.toDocument(theirs);
     this.base = { version: theirs.version, payload: this.payloadOf(doc) };
+    this.baseDoc = doc;
     this.doc = doc;
     this.docJson = JSON.stringify(doc);
     this.blocked = false;
@@ -277,13 +331,19 @@ export class AutosaveEngine<D, S extends Versioned> {
   /** The server's answer to something else (submit) becomes the base; the draft is done with. */
   accept = (server: S): void => {
     this.clearTimer();
-    this.base = { version: server.version, payload: this.payloadOf(this.options.toDocument(server)) };
+    this.setBase(server);
     this.options.drafts.clear(this.options.key);
     this.serverRecord(server);
     this.update({ status: 'saved', error: null });
   };
 
   // --- inside --------------------------------------------------------------------------------------
+
+  private setBase(server: S): void {
+    const doc = this.options.toDocument(server);
+    this.base = { version: server.version, payload: this.payloadOf(doc) };
+    this.baseDoc = doc;
+  }
 
   private payloadOf(doc: D): string {
     return JSON.stringify(this.options.payload(doc));
@@ -305,6 +365,7 @@ export class AutosaveEngine<D, S extends Versioned> {
       baseVersion: this.base.version,
       savedAt: this.now(),
       values: this.doc,
+      baseValues: this.baseDoc,
     });
   }
 
@@ -357,6 +418,7 @@ export class AutosaveEngine<D, S extends Versioned> {
       return;
     }
     this.base = { version: saved.version, payload };
+    this.baseDoc = doc;
     this.attempt = 0;
     this.serverRecord(saved);
     if (this.payloadOf(this.doc) === payload) {
@@ -389,6 +451,7 @@ export class AutosaveEngine<D, S extends Versioned> {
             message: failure.message,
             mine: this.doc,
             theirs,
+            base: this.baseDoc,
             state: 'choose',
           },
         });

@@ -11,6 +11,8 @@ export interface LocalDraft<D> {
   /** When the typing was last changed (ms since epoch). */
   savedAt: number;
   values: D;
+  /** The document as the server had it at `baseVersion` (for a field-by-field merge); absent in old drafts. */
+  baseValues?: D;
 }
 
 export interface DraftStore<D> {
@@ -23,6 +25,8 @@ export interface DraftStore<D> {
 export interface LocalStorageDrafts<D> extends DraftStore<D> {
   /** The localStorage key of a record's draft. */
   storageKey(key: string): string;
+  /** The records that have a draft here. */
+  keys(): string[];
 }
 
 /** Drafts in `window.localStorage` under `<prefix><key>`. */
@@ -30,6 +34,18 @@ export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
   const storageKey = (key: string) => `${prefix}${key}`;
   return {
     storageKey,
+    keys() {
+      const out: string[] = [];
+      try {
+        for (let i = 0; i < window.localStorage.length; i++) {
+          const k = window.localStorage.key(i);
+          if (k !== null && k.startsWith(prefix)) out.push(k.slice(prefix.length));
+        }
+      } catch {
+        // No storage: nothing kept.
+      }
+      return out;
+    },
     read(key) {
       try {
         const raw = window.localStorage.getItem(storageKey(key));
@@ -45,6 +61,9 @@ export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
           baseVersion: parsed.baseVersion,
           savedAt: typeof parsed.savedAt === 'number' ? parsed.savedAt : 0,
           values: parsed.values as D,
+          ...(typeof parsed.baseValues === 'object' && parsed.baseValues !== null
+            ? { baseValues: parsed.baseValues }
+            : {}),
         };
       } catch {
         return null;

@@ -49,7 +49,7 @@ export function NewRoundPanel({ projectId, heading, onCreated }: NewRoundPanelPr
   /** What the person typed; null while the suggestion from /next stands. */
   const [typed, setTyped] = useState<string | null>(null);
   const next = useNextRound(projectId, heading.id, open ? stage : null);
-  const create = useCreateRound(projectId, heading.id);
+  const create = useCreateRound(projectId, heading);
   const style = { style: heading.chainageStyle, decimals: heading.chainageDecimals };
 
   const face =
@@ -130,7 +130,7 @@ export function NewRoundPanel({ projectId, heading, onCreated }: NewRoundPanelPr
           onClick={() => {
             if (stage === null || chainage === null) return;
             create.mutate(
-              { stage, faceChainage: chainage },
+              { stage, faceChainage: chainage, next: next.data },
               {
                 onSuccess: (round) => {
                   setOpen(false);

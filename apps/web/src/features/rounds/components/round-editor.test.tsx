@@ -3,7 +3,7 @@ import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
 import { RoundEditor, type RoundEditorProps } from '@/features/rounds/components/round-editor';
-import { roundDrafts } from '@/features/rounds/hooks/use-round-autosave';
+import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
 import { formValuesOf } from '@/features/rounds/schemas/round-form';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
 import {
@@ -13,9 +13,11 @@ import {
   renderWithProviders,
   supportClasses,
 } from '@/features/rounds/testing/round-fixtures';
+import { clearSession, saveSession } from '@/lib/session';
 import type { LocalDraft } from '@/lib/sync/local-draft';
 import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/mock-api';
 
+const roundDrafts = roundDraftsFor(null);
 const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
 const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
 const writeLocalDraft = ({
@@ -153,7 +155,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
       409,
     );
 
-  it('shows both versions side by side and, on "keep my changes", saves the typing on top of their version', async () => {
+  it('merges field by field: their face chainage comes in, my notes stay by default, and the merge is saved on their version', async () => {
     let calls = 0;
     mockApi({
       [JOINTS]: [],
@@ -165,32 +167,60 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     renderEditor();
     const user = setupUser();
     await user.type(distantField(), 'Crown only');
-    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
-    expect(notice).toHaveTextContent('Someone saved this round first.');
-    const rows = within(notice).getAllByRole('row');
-    expect(rows.map((r) => r.textContent)).toEqual(
-      expect.arrayContaining([
-        'Parts seen only from a distanceCrown onlyWhole face seen close up',
-        'Face chainage1253.51254',
-      ]),
-    );
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    expect(view).toHaveTextContent('Someone saved this round first.');
+    // Only they changed the face chainage: taken without a question.
+    expect(within(view).getByTestId('merged-theirs')).toHaveTextContent('Face chainage');
+    // Both changed the distant parts: both values shown, mine chosen until I say otherwise.
+    const fields = within(view).getAllByTestId('conflict-field');
+    expect(fields).toHaveLength(1);
+    expect(fields[0]).toHaveTextContent('Parts of the face seen only from a distance');
+    expect(within(fields[0]).getByRole('radio', { name: 'Yours: Crown only' })).toBeChecked();
+    expect(
+      within(fields[0]).getByRole('radio', { name: 'Theirs: Whole face seen close up' }),
+    ).not.toBeChecked();
     expect(screen.getByTestId('save-state')).toHaveTextContent('changed by someone else');
     expect(saves).toHaveLength(1);
 
-    await user.click(within(notice).getByRole('button', { name: 'Keep my changes' }));
+    // The main button is the merge (never "load theirs").
+    const primary = within(view).getByRole('button', { name: 'Save the merge' });
+    await user.click(primary);
     await waitFor(() => expect(saves).toHaveLength(2));
-    expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only' });
+    expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only', faceChainage: 1254 });
     await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'));
     expect(distantField()).toHaveValue('Crown only');
+    expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
   });
 
-  it('puts their version in the form on "load their version", without saving over it', async () => {
+  it('takes their value for a field when chosen, keeping the rest of the merge', async () => {
+    let calls = 0;
+    mockApi({
+      [JOINTS]: [],
+      [PUT]: saveHandler((body) => {
+        calls += 1;
+        return calls === 1 ? stale() : jsonResponse(savedFrom(body, theirs));
+      }),
+    });
+    renderEditor();
+    const user = setupUser();
+    await user.type(distantField(), 'Crown only');
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    await user.click(within(view).getByRole('radio', { name: 'Theirs: Whole face seen close up' }));
+    await user.click(within(view).getByRole('button', { name: 'Save the merge' }));
+    expect(distantField()).toHaveValue('Whole face seen close up');
+    // Nothing differs from their version any more: nothing needs sending.
+    await pass(1800);
+    expect(saves).toHaveLength(1);
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+  });
+
+  it('puts their version in the form only on the explicit discard, without saving over it', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler(stale) });
     renderEditor();
     const user = setupUser();
     await user.type(distantField(), 'Crown only');
-    const notice = await screen.findByTestId('stale-version-notice', {}, { timeout: 4000 });
-    await user.click(within(notice).getByRole('button', { name: 'Load their version' }));
+    const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
+    await user.click(within(view).getByRole('button', { name: 'Discard my typing and load theirs' }));
     expect(distantField()).toHaveValue('Whole face seen close up');
     expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
@@ -288,8 +318,9 @@ describe('Round editor: a draft from this device that the server has moved past'
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
     expect(await screen.findByTestId('restored-note')).toHaveTextContent('saved again since then');
-    const notice = screen.getByTestId('stale-version-notice');
-    expect(notice).toHaveTextContent('Typed offline yesterday');
+    const view = screen.getByTestId('conflict-view');
+    // An old draft without its starting version: every difference is a question, mine chosen.
+    expect(within(view).getByRole('radio', { name: 'Yours: Typed offline yesterday' })).toBeChecked();
     expect(distantField()).toHaveValue('Typed offline yesterday');
     await pass(1800);
     expect(saves).toHaveLength(0);
@@ -433,5 +464,123 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
     expect(saves[0].setParameters).toEqual({ windowM: 0, count: 1 });
     expect(requestedRoutes(api).filter((r) => r === JOINTS)).toHaveLength(1);
+  });
+});
+
+describe('Round editor: another device saves the round (polling every 10 s)', () => {
+  const GET = 'GET /api/projects/p-1/rounds/r-1';
+  const AUDIT = 'GET /api/projects/p-1/audit';
+  const theirs: Round = {
+    ...draftRound,
+    version: draftRound.version + 1,
+    distantParts: 'Left wall behind the jumbo',
+  };
+  const audit = [
+    {
+      id: 'e-1',
+      entityType: 'round',
+      entityId: 'r-1',
+      action: 'update',
+      actorId: 'u-2',
+      actorName: 'Ailsa Drummond',
+      at: '2026-12-03T10:00:00Z',
+      lastAt: null,
+      coalesced: 0,
+      before: { distantParts: '' },
+      after: { distantParts: 'Left wall behind the jumbo' },
+    },
+  ];
+
+  it('takes their version when nothing is unsaved here, and says who changed what', async () => {
+    let version = draftRound;
+    const mock = mockApi({ [JOINTS]: [], [GET]: () => jsonResponse(version), [AUDIT]: audit });
+    renderEditor();
+    await pass(10_000);
+    expect(requestedRoutes(mock).filter((r) => r === GET)).toHaveLength(1);
+    expect(screen.queryByTestId('refreshed-note')).toBeNull();
+
+    version = theirs;
+    await pass(10_000);
+    const note = await screen.findByTestId('refreshed-note');
+    expect(note).toHaveTextContent('Ailsa Drummond saved this round');
+    expect(note).toHaveTextContent('changed: Parts of the face seen only from a distance');
+    expect(distantField()).toHaveValue('Left wall behind the jumbo');
+    expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
+  });
+
+  it('never overwrites unsaved typing: it shows the conflict with both values instead', async () => {
+    mockApi({
+      [JOINTS]: [],
+      [GET]: () => jsonResponse(theirs),
+      [AUDIT]: audit,
+      // The save cannot get through: the typing stays unsaved on this device.
+      [PUT]: () => Promise.reject(new TypeError('Failed to fetch')),
+    });
+    renderEditor();
+    const user = setupUser();
+    await user.type(distantField(), 'Crown only');
+    await pass(10_000);
+    const view = await screen.findByTestId('conflict-view');
+    expect(view).toHaveTextContent('Ailsa Drummond saved this round while you were typing');
+    expect(within(view).getByRole('radio', { name: 'Yours: Crown only' })).toBeChecked();
+    expect(
+      within(view).getByRole('radio', { name: 'Theirs: Left wall behind the jumbo' }),
+    ).toBeInTheDocument();
+    expect(distantField()).toHaveValue('Crown only');
+    expect(readLocalDraft('r-1')?.values.distantParts).toBe('Crown only');
+  });
+
+  it('does not ask while the browser is offline or the page is hidden', async () => {
+    const mock = mockApi({ [JOINTS]: [], [GET]: () => jsonResponse(theirs), [AUDIT]: audit });
+    const online = jest.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
+    renderEditor();
+    await pass(30_000);
+    online.mockReturnValue(true);
+    const hidden = jest.spyOn(document, 'visibilityState', 'get').mockReturnValue('hidden');
+    await pass(30_000);
+    expect(requestedRoutes(mock).filter((r) => r === GET)).toHaveLength(0);
+    hidden.mockRestore();
+    online.mockRestore();
+  });
+});
+
+describe('Round editor: typing kept after the session ran out offline', () => {
+  const session = (id: string, name: string) =>
+    saveSession({
+      accessToken: `token-${id}`,
+      expiresAt: '2099-01-01T00:00:00Z',
+      user: { id, name, email: `${id}@example.test` },
+    });
+  const keepDraftOf = (owner: string) =>
+    roundDraftsFor(owner).write({
+      key: 'r-1',
+      baseVersion: draftRound.version,
+      savedAt: Date.parse('2026-12-03T08:00:00Z'),
+      values: { ...formValuesOf(draftRound), distantParts: 'Typed before the session ran out' },
+    });
+  afterEach(() => clearSession());
+
+  it('is not restored or sent when a different person signs in on the device', async () => {
+    keepDraftOf('u-a');
+    session('u-b', 'Ailsa Drummond');
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(screen.queryByTestId('restored-note')).toBeNull();
+    expect(distantField()).toHaveValue(draftRound.distantParts);
+    await pass(1800);
+    expect(saves).toHaveLength(0);
+    // Still kept for its own person.
+    expect(roundDraftsFor('u-a').read('r-1')?.values.distantParts).toBe('Typed before the session ran out');
+  });
+
+  it('is restored and sent at the next sign-in of the same person', async () => {
+    keepDraftOf('u-a');
+    session('u-a', 'Tobin Maelor');
+    mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
+    renderEditor();
+    expect(await screen.findByTestId('restored-note')).toBeInTheDocument();
+    await pass(200);
+    await waitFor(() => expect(saves).toHaveLength(1));
+    expect(saves[0]).toMatchObject({ distantParts: 'Typed before the session ran out' });
   });
 });

@@ -12,12 +12,13 @@ import {
 } from '@fluentui/react-components';
 import type { RoundAssessment, RoundRecordInput, SketchDocument } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
-import { PageHeader, StaleVersionNotice } from '@roundbook/ui';
+import { PageHeader } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
 import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { submitRound } from '@/api/resources/rounds';
 import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
+import { RoundConflictView } from '@/features/rounds/components/conflict-view';
 import { GroundSection } from '@/features/rounds/components/ground-section';
 import { JointsSection } from '@/features/rounds/components/joints-section';
 import { PositionSection } from '@/features/rounds/components/position-section';
@@ -176,6 +177,12 @@ function RoundEditorBody({
     if (theirs !== null) resetForm({ values: theirs });
   };
   const server = autosave.server;
+  const changedBy = autosave.changedBy;
+  // Another device saved and nothing was unsaved here: their version goes into the form.
+  const refreshed = autosave.refreshed;
+  useEffect(() => {
+    if (refreshed !== null) resetForm({ values: refreshed.document });
+  }, [refreshed, resetForm]);
   const readOnly = !canEdit || !(server.status === 'draft' || server.status === 'returned');
 
   const face = chainageOf(values.faceChainage) ?? server.faceChainage;
@@ -295,15 +302,48 @@ function RoundEditorBody({
             </MessageBarActions>
           </MessageBar>
         )}
-        {autosave.stale !== null && (
-          <StaleVersionNotice
-            message={autosave.stale.message}
-            differences={autosave.stale.differences}
-            state={autosave.stale.state}
-            onLoadTheirs={takeTheirs}
-            onKeepMine={autosave.keepMine}
-            onDismiss={autosave.dismissStale}
+        {refreshed !== null && (
+          <MessageBar intent="info" data-testid="refreshed-note">
+            <MessageBarBody>
+              <MessageBarTitle>Updated from another device</MessageBarTitle>
+              {`${refreshed.by ?? 'Someone'} saved this round`}
+              {refreshed.fields.length > 0 ? ` (changed: ${refreshed.fields.join(', ')})` : ''}
+              {'. The form now shows that version; you had nothing unsaved.'}
+            </MessageBarBody>
+            <MessageBarActions>
+              <Button size="large" onClick={autosave.dismissRefreshed}>
+                OK
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
+        )}
+        {autosave.conflict !== null && autosave.conflict.state === 'choose' && !readOnly && (
+          <RoundConflictView
+            message={autosave.conflict.message}
+            changedBy={changedBy}
+            base={autosave.conflict.base}
+            mine={values}
+            theirs={autosave.conflict.theirs}
+            onApply={(merged) => {
+              const doc = autosave.resolve(merged);
+              if (doc !== null) resetForm({ values: doc });
+            }}
+            onTakeTheirs={takeTheirs}
           />
+        )}
+        {autosave.conflict !== null && autosave.conflict.state !== 'choose' && (
+          <MessageBar intent="success" data-testid="conflict-settled">
+            <MessageBarBody>
+              {autosave.conflict.state === 'kept'
+                ? 'Merged with their version; the merge is being saved.'
+                : 'Their version is now in the form.'}
+            </MessageBarBody>
+            <MessageBarActions>
+              <Button size="large" onClick={autosave.dismissStale}>
+                OK
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
         )}
         {server.status === 'submitted' && (
           <MessageBar intent="success" data-testid="submitted-note">
