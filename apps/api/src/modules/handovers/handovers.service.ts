@@ -16,12 +16,12 @@ import {
 } from '../../infrastructure/storage/storage.service.js';
 import { AuditService } from '../audit/audit.service.js';
 import { HazardsService } from '../hazards/hazards.service.js';
-import { SupportRecordsService } from '../support-records/support-records.service.js';
 import { Heading } from '../headings/heading.entity.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
 import { Round } from '../rounds/round.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
+import { SupportRecordsService } from '../support-records/support-records.service.js';
 import { User } from '../users/user.entity.js';
 import type {
   AcknowledgeHandoverDto,
