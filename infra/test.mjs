@@ -3,7 +3,7 @@
 // static checks, unit tests, API end-to-end tests, browser tests — and one closing line `N passed, N failed`.
 // Options: --only static|unit|e2e|browser (repeatable).
 
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import {
@@ -131,6 +131,10 @@ try {
         // The browser tests start from the freshly seeded demo, whatever the API tests left behind.
         step('Recreating the test database for the browser tests');
         recreateDatabase();
+        // And an empty inbox: the local mail view would list the API tests' e-mails beside the demo's.
+        const mailDir = env.LOCAL_MAIL_DIR;
+        for (const f of existsSync(mailDir) ? readdirSync(mailDir) : [])
+          rmSync(path.join(mailDir, f), { force: true });
         migrateAndSeed(env);
       }
       await startApi({ dataDir, env });

@@ -3,6 +3,9 @@ import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 
+// This spec is about the service worker: it opens the app from the worker's cache with the network cut.
+test.use({ serviceWorkers: 'allow' });
+
 // Field mode (issue 17): a geologist opens Roundbook once with a connection, goes underground (the network
 // is cut in the browser), reloads the page and still has the app, the heading and a new round.
 

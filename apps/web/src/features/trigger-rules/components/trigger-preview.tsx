@@ -74,7 +74,18 @@ function plural(n: number, one: string, many = `${one}s`): string {
 function Outcome({ result, level }: { result: TriggerPreview; level: TriggerLevel }) {
   const styles = useStyles();
   const checked = `Checked ${plural(result.evaluatedRounds, 'round')}, the latest of each heading (up to 50 each).`;
-  if (result.notEvaluated !== null) {
+  // Some rounds lack what the rule reads (a draft just opened, say): say so beside the outcome on the others,
+  // and alone only when none could be tried (a browser run found the outcome hidden by one empty draft).
+  const partly =
+    result.notEvaluated !== null ? (
+      <MessageBar intent="info" layout="multiline">
+        <MessageBarBody>
+          <MessageBarTitle>Not tried on every round</MessageBarTitle>
+          {result.notEvaluated}
+        </MessageBarBody>
+      </MessageBar>
+    ) : null;
+  if (result.notEvaluated !== null && result.evaluatedRounds === 0) {
     return (
       <MessageBar intent="info" layout="multiline">
         <MessageBarBody>
@@ -96,22 +107,28 @@ function Outcome({ result, level }: { result: TriggerPreview; level: TriggerLeve
   }
   if (result.matches.length === 0) {
     return (
-      <MessageBar intent="success" layout="multiline">
-        <MessageBarBody>
-          <MessageBarTitle>Would not have fired</MessageBarTitle>
-          {checked}
-        </MessageBarBody>
-      </MessageBar>
+      <>
+        <MessageBar intent="success" layout="multiline">
+          <MessageBarBody>
+            <MessageBarTitle>Would not have fired</MessageBarTitle>
+            {checked}
+          </MessageBarBody>
+        </MessageBar>
+        {partly}
+      </>
     );
   }
   return (
-    <div className={styles.summary} data-testid="trigger-preview-summary">
-      <LevelBadge level={level} />
-      <Text weight="semibold">
-        {`Would have fired on ${plural(result.matches.length, 'round')} of ${result.evaluatedRounds}.`}
-      </Text>
-      <Text className={styles.muted}>{checked}</Text>
-    </div>
+    <>
+      <div className={styles.summary} data-testid="trigger-preview-summary">
+        <LevelBadge level={level} />
+        <Text weight="semibold">
+          {`Would have fired on ${plural(result.matches.length, 'round')} of ${result.evaluatedRounds}.`}
+        </Text>
+        <Text className={styles.muted}>{checked}</Text>
+      </div>
+      {partly}
+    </>
   );
 }
 
@@ -139,7 +156,7 @@ export function TriggerPreviewResult({
         </MessageBar>
       )}
       <Outcome result={result} level={level} />
-      {result.notEvaluated === null && result.matches.length > 0 && (
+      {result.matches.length > 0 && (
         <>
           <div className={styles.wrap}>
             <Table size="small" aria-label="Rounds where the rule would have fired">

@@ -188,6 +188,24 @@ describe('TriggerRuleForm', () => {
       expect(result).toHaveTextContent('Checked 45 rounds');
       expect(within(result).queryByRole('table')).not.toBeInTheDocument();
 
+      // One empty draft among 30 rounds: the outcome on the 29 shows, with the note beside it.
+      answer = {
+        evaluatedRounds: 29,
+        matches: [],
+        notEvaluated: '1 of the 30 latest rounds lack what this rule reads, so it was not evaluated on them.',
+      };
+      await user.click(screen.getByRole('button', { name: 'Try on recent rounds' }));
+      await waitFor(() =>
+        expect(screen.getByRole('region', { name: 'Tried on recent rounds' })).toHaveTextContent(
+          'Would not have fired',
+        ),
+      );
+      const partly = screen.getByRole('region', { name: 'Tried on recent rounds' });
+      expect(partly).toHaveTextContent('Checked 29 rounds');
+      expect(partly).toHaveTextContent('Not tried on every round');
+      expect(partly).toHaveTextContent('1 of the 30 latest rounds lack what this rule reads');
+      expect(partly).not.toHaveTextContent('Cannot be tried yet');
+
       answer = {
         evaluatedRounds: 0,
         matches: [],
