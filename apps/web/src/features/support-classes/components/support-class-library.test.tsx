@@ -82,10 +82,16 @@ describe('SupportClassLibrary', () => {
     renderLibrary();
     const row = await screen.findByRole('row', { name: 'KA Sound rock, spot bolts' });
     await user.click(within(row).getByRole('button', { name: 'More for KA' }));
-    await user.click(await screen.findByRole('menuitem', { name: 'Delete…' }));
+    // Waits up to 5 s: under a full test run on two cores the menu and the dialog took over the default 1 s
+    // (failed twice on fresh clones, passes alone).
+    await user.click(await screen.findByRole('menuitem', { name: 'Delete…' }, { timeout: 5000 }));
     // hidden: true — in jsdom Fluent's focus manager marks an open dialog aria-hidden after a moment.
     expect(
-      await screen.findByRole('alertdialog', { name: 'Delete support class KA?', hidden: true }),
+      await screen.findByRole(
+        'alertdialog',
+        { name: 'Delete support class KA?', hidden: true },
+        { timeout: 5000 },
+      ),
     ).toHaveTextContent('leaves the library for good');
   });
 });
