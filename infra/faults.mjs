@@ -289,9 +289,7 @@ try {
   const headings = await geo.call('GET', `/api/projects/${project.id}/headings`);
   const heading = (headings.items ?? headings).find((h) => h.stages.length === 1) ?? headings[0];
   const classes = await geo.call('GET', `/api/projects/${project.id}/support-classes`);
-  const shortest = classes.classes.reduce((a, b) =>
-    a.maxRoundLength <= b.maxRoundLength ? a : b,
-  );
+  const shortest = classes.classes.reduce((a, b) => (a.maxRoundLength <= b.maxRoundLength ? a : b));
   const ctx = {
     projectId: project.id,
     headingId: heading.id,
