@@ -162,7 +162,7 @@ async function roundFlow(geo, ctx, { submit = true } = {}) {
     let r = await geo.call(
       'POST',
       `${p}/headings/${ctx.headingId}/rounds`,
-      { id: rec.id, stage: ctx.stage, faceChainage: (chainage += 3) },
+      { id: rec.id, stage: ctx.stage, faceChainage: (chainage += ctx.sense * 3) },
       { ...opts, headers: { 'idempotency-key': rec.key } },
     );
     if (r.id !== rec.id) throw new InfraError(`The create answered round ${r.id}, not ${rec.id}`);
@@ -295,7 +295,13 @@ try {
     headingId: heading.id,
     stage: heading.stages[0],
     classId: shortest.id,
+    sense: heading.chainageSense === 'decreasing' ? -1 : 1,
   };
+  const next = await geo.call(
+    'GET',
+    `/api/projects/${project.id}/headings/${heading.id}/rounds/next?stage=${heading.stages[0]}`,
+  );
+  chainage = next.previousChainage; // each round of the run advances 3 m from the heading's last face
   // A second supervisor to hand over to: the demo viewer takes the role on this throw-away instance.
   const team = await admin.call('GET', `/api/projects/${project.id}/team`);
   const incoming = team.members.find((m) => m.email === 'viewer@roundbook.test');
@@ -525,6 +531,10 @@ try {
     ],
     ['connections dropped only while the API process was down', defects.every((x) => !x.includes('dropped'))],
     ['the API recovered from the database outage without a restart', apiSurvivedDb],
+    [
+      `every round flow finished: created, saved and submitted (${count((r) => r.submitted)}/${loadRounds.length})`,
+      loadRounds.length > 0 && loadRounds.every((r) => r.submitted),
+    ],
     [
       'every round answered created, saved or submitted is so in the database; nothing half-written',
       problems.length === 0,
