@@ -271,7 +271,7 @@ function ShellSyncBar({ userId }: { userId: string }) {
     (listener) => outbox.subscribe(listener),
     () => outbox.version(),
   );
-  const pending = outbox.list(userId).length;
+  const pending = outbox.list(userId).map((entry) => entry.id);
   const send = useCallback(() => {
     syncState.sendingOutbox(true);
     sendPendingRounds(userId, queryClient)
