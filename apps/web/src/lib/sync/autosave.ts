@@ -414,8 +414,9 @@ export class AutosaveEngine<D, S extends Versioned> {
     try {
       saved = await this.options.save(doc, this.base.version);
     } catch (error) {
-      await this.failed(error);
-      return;
+      const landed = await this.failed(error, payload);
+      if (landed === null) return;
+      saved = landed;
     }
     this.base = { version: saved.version, payload };
     this.baseDoc = doc;
@@ -432,14 +433,22 @@ export class AutosaveEngine<D, S extends Versioned> {
     }
   }
 
-  private async failed(error: unknown): Promise<void> {
+  /**
+   * A refused or lost save. Returns the server's record when the refusal shows the save had landed after
+   * all (an earlier try whose answer was lost: the server is one version on and holds exactly what was
+   * sent), so it counts as saved rather than as someone else's change.
+   */
+  private async failed(error: unknown, sent: string): Promise<S | null> {
     const failure = this.classify(error);
     switch (failure.kind) {
       case 'stale': {
         const theirs = failure.current ?? (await this.options.reload().catch(() => null));
         if (theirs === null) {
           this.retryLater(null);
-          return;
+          return null;
+        }
+        if (theirs.version > this.base.version && this.payloadOf(this.options.toDocument(theirs)) === sent) {
+          return theirs;
         }
         this.blocked = true;
         this.queued = false;
@@ -455,20 +464,20 @@ export class AutosaveEngine<D, S extends Versioned> {
             state: 'choose',
           },
         });
-        return;
+        return null;
       }
       case 'retry':
         this.retryLater(failure.retryAfterMs);
-        return;
+        return null;
       case 'invalid':
         this.update({
           status: 'error',
           error: { invalid: true, message: failure.message, fields: failure.fields },
         });
-        return;
+        return null;
       case 'refused':
         this.update({ status: 'error', error: { invalid: false, message: failure.message, fields: {} } });
-        return;
+        return null;
     }
   }
 
