@@ -76,6 +76,8 @@ export interface AutosaveOptions<D, S extends Versioned> {
   /** Reads the record when a 409 does not carry the saved version. */
   reload: () => Promise<S>;
   drafts: DraftStore<D>;
+  /** Kept with each draft (where the record lives), for a sender that works with the editor closed. */
+  scope?: Record<string, string>;
   /** The server's record changed (saved, their version kept or loaded, submitted). */
   onServerRecord?: (server: S) => void;
   classify?: (error: unknown) => SaveFailure<S>;
@@ -366,6 +368,7 @@ export class AutosaveEngine<D, S extends Versioned> {
       savedAt: this.now(),
       values: this.doc,
       baseValues: this.baseDoc,
+      ...(this.options.scope === undefined ? {} : { scope: this.options.scope }),
     });
   }
 

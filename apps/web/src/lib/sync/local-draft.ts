@@ -16,6 +16,8 @@ export interface LocalDraft<D> {
   values: D;
   /** The document as the server had it at `baseVersion` (for a field-by-field merge); absent in old drafts. */
   baseValues?: D;
+  /** Where the record lives (e.g. its project), so it can be sent with its editor closed. */
+  scope?: Record<string, string>;
 }
 
 export interface DraftStore<D> {
@@ -61,6 +63,7 @@ export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
           ...(typeof parsed.baseValues === 'object' && parsed.baseValues !== null
             ? { baseValues: parsed.baseValues }
             : {}),
+          ...(typeof parsed.scope === 'object' && parsed.scope !== null ? { scope: parsed.scope } : {}),
         };
       } catch {
         return null;

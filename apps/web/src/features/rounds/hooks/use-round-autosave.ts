@@ -121,6 +121,7 @@ export function useRoundAutosave({
         reload: () => getRound(projectId, roundId),
         // Fixed when the round opens: typing after the session ran out still belongs to its person.
         drafts: roundDraftsFor(readSession()?.user.id ?? null),
+        scope: { projectId },
         onServerRecord: (round) => {
           syncState.synced();
           void roundSaved(queryClient, projectId, round);
