@@ -285,6 +285,19 @@ describe('autosave engine: someone saved first (409)', () => {
     expect(engine.getSnapshot().status).toBe('conflict');
   });
 
+  it('takes a polled version that holds exactly the typing waiting for a retry as saved, not as a conflict', async () => {
+    const api = manualServer();
+    const { engine } = engineWith(api.save);
+    engine.edit(note('crown wet'));
+    await jest.advanceTimersByTimeAsync(AUTOSAVE_DELAY_MS);
+    await api.fail(0, unreachable());
+    expect(engine.serverMoved({ id: 'n-1', version: 4, text: 'crown wet' })).toBe('ignored');
+    expect(engine.getSnapshot()).toMatchObject({ status: 'saved', version: 4, conflict: null });
+    await jest.advanceTimersByTimeAsync(RETRY_DELAYS_MS[0] * 2);
+    expect(api.save).toHaveBeenCalledTimes(1);
+    expect(drafts.read('n-1')).toBeNull();
+  });
+
   it('reads their version when the 409 does not carry it, and "take theirs" drops the typing', async () => {
     const api = manualServer();
     const reload = jest.fn(() => Promise.resolve(theirs));

@@ -276,6 +276,16 @@ export class AutosaveEngine<D, S extends Versioned> {
    */
   serverMoved = (theirs: S): 'refreshed' | 'conflict' | 'ignored' => {
     if (theirs.version <= this.base.version || this.inFlight !== null || this.blocked) return 'ignored';
+    // The server already holds exactly this typing (a save whose answer was lost landed): saved.
+    if (this.payloadOf(this.options.toDocument(theirs)) === this.payloadOf(this.doc)) {
+      this.setBase(theirs);
+      this.attempt = 0;
+      this.clearTimer();
+      this.options.drafts.clear(this.options.key);
+      this.serverRecord(theirs);
+      this.update({ status: 'saved', error: null });
+      return 'ignored';
+    }
     if (!this.editable || this.payloadOf(this.doc) === this.base.payload) {
       this.setBase(theirs);
       this.doc = this.options.toDocument(theirs);
