@@ -8,6 +8,7 @@ import { registerSW } from 'virtual:pwa-register';
 import { AppProvider } from '@/app/provider';
 import { createAppRouter } from '@/app/router';
 import { createQueryClient } from '@/lib/query-client';
+import { deviceStore } from '@/lib/sync/device-store';
 
 const container = document.getElementById('root');
 if (container === null) throw new Error('index.html has no #root element');
@@ -17,12 +18,16 @@ if (container === null) throw new Error('index.html has no #root element');
 if ('serviceWorker' in navigator) registerSW({ immediate: true });
 
 const queryClient = createQueryClient();
-const router = createAppRouter(queryClient);
 
-createRoot(container).render(
-  <StrictMode>
-    <AppProvider queryClient={queryClient}>
-      <RouterProvider router={router} />
-    </AppProvider>
-  </StrictMode>,
-);
+// Drafts and the outbox (IndexedDB) are read before the router runs its first loaders and the screens,
+// which read them synchronously.
+void deviceStore.open().then(() => {
+  const router = createAppRouter(queryClient);
+  createRoot(container).render(
+    <StrictMode>
+      <AppProvider queryClient={queryClient}>
+        <RouterProvider router={router} />
+      </AppProvider>
+    </StrictMode>,
+  );
+});

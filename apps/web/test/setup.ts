@@ -1,5 +1,6 @@
 import '@testing-library/jest-dom';
 import { configure } from '@testing-library/react';
+import { deviceStore } from '@/lib/sync/device-store';
 
 // `npm test` runs on 2 cores beside the database and the other tiers: give findBy*/waitFor room under load
 // (the default is 1 s) so a slow render is not mistaken for a missing element.
@@ -12,4 +13,6 @@ jest.retryTimes(1, { logErrorsBeforeRetry: true });
 
 afterEach(() => {
   window.localStorage.clear();
+  // Drafts and the outbox (in memory: the screens' tests do not open IndexedDB).
+  deviceStore.close();
 });

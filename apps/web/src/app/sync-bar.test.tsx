@@ -82,18 +82,30 @@ describe('summarise', () => {
     state.report('r1', { status: 'waiting', message: null, label: 'Round 1' });
     state.report('r2', { status: 'saved', message: null, label: 'Round 2' });
     state.report('r3', { status: 'error', message: 'Face chainage is out of range.', label: 'Round 3' });
-    const s = summarise(state.getSnapshot(), 2, ['r1', 'r4']);
+    const s = summarise(state.getSnapshot(), ['n1', 'n2'], ['r1', 'r4']);
     // r1 (open, waiting; its draft not counted twice), r3 (refused), r4 (closed draft), 2 outbox entries.
     expect(s.waiting).toBe(5);
     expect(s.syncing).toBe(false);
     expect(s.problems).toEqual(['Round 3: not saved — Face chainage is out of range.']);
   });
 
+  it('counts a round opened offline once: its outbox entry, its draft and its open editor are one change', () => {
+    const state = new SyncState();
+    state.report('r-new', { status: 'waiting', message: null, label: 'Round 19' });
+    expect(summarise(state.getSnapshot(), ['r-new'], ['r-new']).waiting).toBe(1);
+    // The same round once its editor is closed: still one.
+    state.report('r-new', null);
+    expect(summarise(state.getSnapshot(), ['r-new'], ['r-new']).waiting).toBe(1);
+    // And beside a round opened online whose typing waits: two.
+    state.report('r-1', { status: 'offline', message: null, label: 'Round 18' });
+    expect(summarise(state.getSnapshot(), ['r-new'], ['r-new', 'r-1']).waiting).toBe(2);
+  });
+
   it('is syncing while a save is out, and keeps the last sync time', () => {
     const state = new SyncState();
     state.report('r1', { status: 'saving', message: null, label: 'Round 1' });
     state.synced(NOW);
-    const s = summarise(state.getSnapshot(), 0, []);
+    const s = summarise(state.getSnapshot(), [], []);
     expect(s.syncing).toBe(true);
     expect(s.lastSyncedAt).toBe(NOW);
     expect(new SyncState().getSnapshot().lastSyncedAt).toBe(NOW);

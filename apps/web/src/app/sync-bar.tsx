@@ -137,13 +137,13 @@ const PENDING: SyncStatus[] = ['waiting', 'offline', 'saving', 'error', 'conflic
 /** Summary of the sync state for the bar (pure: tested without React). */
 export function summarise(
   state: SyncStateSnapshot,
-  outboxCount: number,
-  draftKeys: string[],
+  outboxKeys: readonly string[],
+  draftKeys: readonly string[],
 ): Pick<SyncBarViewProps, 'syncing' | 'waiting' | 'problems' | 'lastSyncedAt'> {
   const open = [...state.records.entries()];
   const openWaiting = open.filter(([, r]) => PENDING.includes(r.status)).map(([k]) => k);
-  // Typing kept from rounds no longer on screen counts too (its draft waits in this browser).
-  const closedDrafts = draftKeys.filter((k) => !state.records.has(k));
+  // Typing kept from rounds no longer on screen counts too (its draft waits in this browser). A round
+  // opened offline is in the outbox, usually has a draft and may be on screen: it is one change waiting.
   const problems = open.flatMap(([, r]) =>
     r.status === 'error'
       ? [`${r.label}: not saved — ${r.message ?? 'the server refused it'}`]
@@ -153,7 +153,7 @@ export function summarise(
   );
   return {
     syncing: state.sendingOutbox || open.some(([, r]) => r.status === 'saving'),
-    waiting: outboxCount + new Set([...openWaiting, ...closedDrafts]).size,
+    waiting: new Set([...outboxKeys, ...openWaiting, ...draftKeys.filter((k) => !state.records.has(k))]).size,
     problems,
     lastSyncedAt: state.lastSyncedAt,
   };

@@ -29,7 +29,7 @@ import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { AccountDialog } from '@/features/auth/components/account-dialog';
 import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
 import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
-import { sendPendingRounds } from '@/features/rounds/utils/offline-round';
+import { sendWaitingRounds } from '@/features/rounds/utils/background-sender';
 import { useConfig } from '@/features/system/api/get-config';
 import { clearSession, saveSession } from '@/lib/session';
 import { outbox } from '@/lib/sync/outbox';
@@ -261,6 +261,9 @@ export function AppShellRoute() {
   );
 }
 
+/** How often the shell tries again while changes wait and the browser says it is online. */
+const BACKGROUND_RETRY_MS = 60_000;
+
 /** The sync bar of the signed-in frame; also sends the rounds opened offline when the connection is back. */
 function ShellSyncBar({ userId }: { userId: string }) {
   const queryClient = useQueryClient();
@@ -271,21 +274,27 @@ function ShellSyncBar({ userId }: { userId: string }) {
     (listener) => outbox.subscribe(listener),
     () => outbox.version(),
   );
-  const pending = outbox.list(userId).length;
+  const pending = outbox.list(userId).map((entry) => entry.id);
   const send = useCallback(() => {
     syncState.sendingOutbox(true);
-    sendPendingRounds(userId, queryClient)
-      .then((sent) => {
+    // Rounds open in an editor are sent by their own engine; the rest (closed, or opened offline) here.
+    sendWaitingRounds(userId, { queryClient, isOpen: (id) => syncState.getSnapshot().records.has(id) })
+      .then(({ sent }) => {
         if (sent > 0) syncState.synced();
       })
-      // Still unreachable or refused: the entries stay; the next connection or Send now tries again.
+      // Still unreachable: the entries stay; the next connection, the next minute or Send now tries again.
       .catch(() => undefined)
       .finally(() => syncState.sendingOutbox(false));
   }, [userId, queryClient]);
+  const draftKeys = roundDraftsFor(userId).keys();
+  const waitingHere = pending.length > 0 || draftKeys.some((k) => !state.records.has(k));
   useEffect(() => {
-    if (online && outbox.list(userId).length > 0) send();
-  }, [online, userId, send]);
-  const summary = summarise(state, pending, roundDraftsFor(userId).keys());
+    if (!online || !waitingHere) return;
+    send();
+    const id = setInterval(send, BACKGROUND_RETRY_MS);
+    return () => clearInterval(id);
+  }, [online, waitingHere, send]);
+  const summary = summarise(state, pending, draftKeys);
   return (
     <SyncBarView
       {...summary}

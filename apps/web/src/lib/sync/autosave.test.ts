@@ -264,6 +264,40 @@ describe('autosave engine: someone saved first (409)', () => {
     expect(engine.getSnapshot()).toMatchObject({ status: 'saved', version: 5, conflict: { state: 'kept' } });
   });
 
+  it('counts a retry refused because its lost first try had landed as saved, not as a conflict', async () => {
+    const api = manualServer();
+    const { engine, onServerRecord } = engineWith(api.save);
+    engine.edit(note('crown wet'));
+    await jest.advanceTimersByTimeAsync(AUTOSAVE_DELAY_MS);
+    // The server committed version 4 but the answer was lost on the way back.
+    await api.fail(0, unreachable());
+    await jest.advanceTimersByTimeAsync(RETRY_DELAYS_MS[0]);
+    expect(api.calls[1].version).toBe(3);
+    await api.fail(1, stale({ id: 'n-1', version: 4, text: 'crown wet' }));
+
+    expect(engine.getSnapshot()).toMatchObject({ status: 'saved', version: 4, conflict: null });
+    expect(onServerRecord).toHaveBeenLastCalledWith({ id: 'n-1', version: 4, text: 'crown wet' });
+    expect(drafts.read('n-1')).toBeNull();
+    // Someone else's different text on the same retry would still be a conflict.
+    engine.edit(note('crown wet, invert dry'));
+    await jest.advanceTimersByTimeAsync(AUTOSAVE_DELAY_MS);
+    await api.fail(2, stale({ id: 'n-1', version: 5, text: 'something else' }));
+    expect(engine.getSnapshot().status).toBe('conflict');
+  });
+
+  it('takes a polled version that holds exactly the typing waiting for a retry as saved, not as a conflict', async () => {
+    const api = manualServer();
+    const { engine } = engineWith(api.save);
+    engine.edit(note('crown wet'));
+    await jest.advanceTimersByTimeAsync(AUTOSAVE_DELAY_MS);
+    await api.fail(0, unreachable());
+    expect(engine.serverMoved({ id: 'n-1', version: 4, text: 'crown wet' })).toBe('ignored');
+    expect(engine.getSnapshot()).toMatchObject({ status: 'saved', version: 4, conflict: null });
+    await jest.advanceTimersByTimeAsync(RETRY_DELAYS_MS[0] * 2);
+    expect(api.save).toHaveBeenCalledTimes(1);
+    expect(drafts.read('n-1')).toBeNull();
+  });
+
   it('reads their version when the 409 does not carry it, and "take theirs" drops the typing', async () => {
     const api = manualServer();
     const reload = jest.fn(() => Promise.resolve(theirs));

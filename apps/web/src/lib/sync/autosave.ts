@@ -76,6 +76,8 @@ export interface AutosaveOptions<D, S extends Versioned> {
   /** Reads the record when a 409 does not carry the saved version. */
   reload: () => Promise<S>;
   drafts: DraftStore<D>;
+  /** Kept with each draft (where the record lives), for a sender that works with the editor closed. */
+  scope?: Record<string, string>;
   /** The server's record changed (saved, their version kept or loaded, submitted). */
   onServerRecord?: (server: S) => void;
   classify?: (error: unknown) => SaveFailure<S>;
@@ -274,6 +276,16 @@ export class AutosaveEngine<D, S extends Versioned> {
    */
   serverMoved = (theirs: S): 'refreshed' | 'conflict' | 'ignored' => {
     if (theirs.version <= this.base.version || this.inFlight !== null || this.blocked) return 'ignored';
+    // The server already holds exactly this typing (a save whose answer was lost landed): saved.
+    if (this.payloadOf(this.options.toDocument(theirs)) === this.payloadOf(this.doc)) {
+      this.setBase(theirs);
+      this.attempt = 0;
+      this.clearTimer();
+      this.options.drafts.clear(this.options.key);
+      this.serverRecord(theirs);
+      this.update({ status: 'saved', error: null });
+      return 'ignored';
+    }
     if (!this.editable || this.payloadOf(this.doc) === this.base.payload) {
       this.setBase(theirs);
       this.doc = this.options.toDocument(theirs);
@@ -366,6 +378,7 @@ export class AutosaveEngine<D, S extends Versioned> {
       savedAt: this.now(),
       values: this.doc,
       baseValues: this.baseDoc,
+      ...(this.options.scope === undefined ? {} : { scope: this.options.scope }),
     });
   }
 
@@ -414,8 +427,9 @@ export class AutosaveEngine<D, S extends Versioned> {
     try {
       saved = await this.options.save(doc, this.base.version);
     } catch (error) {
-      await this.failed(error);
-      return;
+      const landed = await this.failed(error, payload);
+      if (landed === null) return;
+      saved = landed;
     }
     this.base = { version: saved.version, payload };
     this.baseDoc = doc;
@@ -432,14 +446,22 @@ export class AutosaveEngine<D, S extends Versioned> {
     }
   }
 
-  private async failed(error: unknown): Promise<void> {
+  /**
+   * A refused or lost save. Returns the server's record when the refusal shows the save had landed after
+   * all (an earlier try whose answer was lost: the server is one version on and holds exactly what was
+   * sent), so it counts as saved rather than as someone else's change.
+   */
+  private async failed(error: unknown, sent: string): Promise<S | null> {
     const failure = this.classify(error);
     switch (failure.kind) {
       case 'stale': {
         const theirs = failure.current ?? (await this.options.reload().catch(() => null));
         if (theirs === null) {
           this.retryLater(null);
-          return;
+          return null;
+        }
+        if (theirs.version > this.base.version && this.payloadOf(this.options.toDocument(theirs)) === sent) {
+          return theirs;
         }
         this.blocked = true;
         this.queued = false;
@@ -455,20 +477,20 @@ export class AutosaveEngine<D, S extends Versioned> {
             state: 'choose',
           },
         });
-        return;
+        return null;
       }
       case 'retry':
         this.retryLater(failure.retryAfterMs);
-        return;
+        return null;
       case 'invalid':
         this.update({
           status: 'error',
           error: { invalid: true, message: failure.message, fields: failure.fields },
         });
-        return;
+        return null;
       case 'refused':
         this.update({ status: 'error', error: { invalid: false, message: failure.message, fields: {} } });
-        return;
+        return null;
     }
   }
 

@@ -1,8 +1,11 @@
+import { deviceStore } from '@/lib/sync/device-store';
+
 /**
  * Unsaved typing kept in the browser until the server has it (it survives a reload or a dropped
- * connection), one entry per record, with the server version the typing started from. localStorage
- * for now; the same interface can sit on IndexedDB later.
+ * connection), one entry per record, with the server version the typing started from. Kept in the
+ * device store (IndexedDB, `device-store.ts`); the reads and writes stay synchronous for the engine.
  */
+
 export interface LocalDraft<D> {
   /** The record's id (a round id). */
   key: string;
@@ -13,6 +16,8 @@ export interface LocalDraft<D> {
   values: D;
   /** The document as the server had it at `baseVersion` (for a field-by-field merge); absent in old drafts. */
   baseValues?: D;
+  /** Where the record lives (e.g. its project), so it can be sent with its editor closed. */
+  scope?: Record<string, string>;
 }
 
 export interface DraftStore<D> {
@@ -23,34 +28,28 @@ export interface DraftStore<D> {
 }
 
 export interface LocalStorageDrafts<D> extends DraftStore<D> {
-  /** The localStorage key of a record's draft. */
+  /** The name of a record's draft in the device store (the localStorage key of earlier versions). */
   storageKey(key: string): string;
   /** The records that have a draft here. */
   keys(): string[];
 }
 
-/** Drafts in `window.localStorage` under `<prefix><key>`. */
+/** Drafts in the device store under `<prefix><key>` (the name keeps the localStorage key it had). */
 export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
   const storageKey = (key: string) => `${prefix}${key}`;
   return {
     storageKey,
     keys() {
-      const out: string[] = [];
-      try {
-        for (let i = 0; i < window.localStorage.length; i++) {
-          const k = window.localStorage.key(i);
-          if (k !== null && k.startsWith(prefix)) out.push(k.slice(prefix.length));
-        }
-      } catch {
-        // No storage: nothing kept.
-      }
-      return out;
+      return deviceStore
+        .draftIds()
+        .filter((k) => k.startsWith(prefix))
+        .map((k) => k.slice(prefix.length));
     },
     read(key) {
       try {
-        const raw = window.localStorage.getItem(storageKey(key));
-        if (raw === null) return null;
-        const parsed = JSON.parse(raw) as Partial<LocalDraft<D>> & { roundId?: unknown };
+        const stored = deviceStore.getDraft(storageKey(key));
+        if (typeof stored !== 'object' || stored === null) return null;
+        const parsed = stored as Partial<LocalDraft<D>> & { roundId?: unknown };
         // Drafts written before the engine moved here name their record `roundId`.
         const owner = parsed.key ?? parsed.roundId;
         if (owner !== key || typeof parsed.baseVersion !== 'number' || typeof parsed.values !== 'object') {
@@ -64,6 +63,7 @@ export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
           ...(typeof parsed.baseValues === 'object' && parsed.baseValues !== null
             ? { baseValues: parsed.baseValues }
             : {}),
+          ...(typeof parsed.scope === 'object' && parsed.scope !== null ? { scope: parsed.scope } : {}),
         };
       } catch {
         return null;
@@ -71,18 +71,40 @@ export function localStorageDrafts<D>(prefix: string): LocalStorageDrafts<D> {
     },
     write(draft) {
       try {
-        window.localStorage.setItem(storageKey(draft.key), JSON.stringify(draft));
-        return true;
+        return deviceStore.putDraft(storageKey(draft.key), draft);
       } catch {
-        return false;
+        return false; // Not cloneable: not kept.
       }
     },
     clear(key) {
-      try {
-        window.localStorage.removeItem(storageKey(key));
-      } catch {
-        // Nothing kept, nothing to clear.
-      }
+      deviceStore.deleteDraft(storageKey(key));
     },
   };
+}
+
+/**
+ * Drafts written before they were kept per person sit under `<legacyPrefix><recordId>` and name their
+ * record `roundId`. That version restored them to whoever opened the round next, so they go, once, to
+ * the person signed in now: moved under `<prefix><recordId>` (a newer draft already there wins) and the
+ * old key removed. Returns the records moved.
+ */
+export function adoptLegacyDrafts<D>(legacyPrefix: string, into: LocalStorageDrafts<D>): string[] {
+  const moved: string[] = [];
+  // Old names end in the bare record id (a UUID has no dots); per-person names have `<owner>.` first.
+  const legacyIds = deviceStore
+    .draftIds()
+    .filter((k) => k.startsWith(legacyPrefix) && !k.slice(legacyPrefix.length).includes('.'));
+  const old = localStorageDrafts<D>(legacyPrefix);
+  for (const id of legacyIds) {
+    const key = id.slice(legacyPrefix.length);
+    const draft = old.read(key);
+    if (draft === null) continue; // Not a draft of ours: left alone.
+    const current = into.read(key);
+    if ((current === null || current.savedAt < draft.savedAt) && !into.write(draft)) {
+      continue; // Not kept: the old one stays and is tried again next time.
+    }
+    old.clear(key);
+    moved.push(key);
+  }
+  return moved;
 }

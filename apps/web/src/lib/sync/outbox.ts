@@ -1,9 +1,12 @@
+import { deviceStore } from '@/lib/sync/device-store';
+
 /**
  * The outbox: requests made on this device that the server has not had yet (a round opened underground),
  * kept in the browser in the order they were made, under the person who made them. Only that person's
- * next sign-in sends them (a different person signing in on the same tablet never does). localStorage,
- * like the drafts; each entry is small (the typing itself stays in the drafts).
+ * next sign-in sends them (a different person signing in on the same tablet never does). Kept in the
+ * device store (IndexedDB) like the drafts; each entry is small (the typing itself stays in the drafts).
  */
+
 export interface OutboxEntry<P = unknown> {
   /** The id of the record the request creates (a client-made UUID: a retried create finds it). */
   id: string;
@@ -14,35 +17,17 @@ export interface OutboxEntry<P = unknown> {
   payload: P;
 }
 
-const PREFIX = 'roundbook.outbox.';
-
-const keyOf = (owner: string) => `${PREFIX}${owner}`;
-
 function readAll(owner: string): OutboxEntry[] {
-  try {
-    const parsed = JSON.parse(window.localStorage.getItem(keyOf(owner)) ?? '[]') as unknown;
-    return Array.isArray(parsed)
-      ? (parsed as OutboxEntry[]).filter((e) => typeof e?.id === 'string' && e.owner === owner)
-      : [];
-  } catch {
-    return [];
-  }
+  return deviceStore.outboxOf(owner).map(({ seq: _seq, ...entry }) => entry as unknown as OutboxEntry);
 }
 
 const listeners = new Set<() => void>();
 let version = 0;
 
-function writeAll(owner: string, entries: OutboxEntry[]): boolean {
-  try {
-    if (entries.length === 0) window.localStorage.removeItem(keyOf(owner));
-    else window.localStorage.setItem(keyOf(owner), JSON.stringify(entries));
-    return true;
-  } catch {
-    return false;
-  } finally {
-    version += 1;
-    for (const l of listeners) l();
-  }
+function changed(kept: boolean): boolean {
+  version += 1;
+  for (const l of listeners) l();
+  return kept;
 }
 
 export const outbox = {
@@ -55,14 +40,17 @@ export const outbox = {
   },
   /** Adds (or replaces, same id) an entry; false when the browser refused to keep it. */
   put<P>(entry: OutboxEntry<P>): boolean {
-    const rest = readAll(entry.owner).filter((e) => e.id !== entry.id);
-    return writeAll(entry.owner, [...rest, entry]);
+    let kept: boolean;
+    try {
+      kept = deviceStore.putEntry({ ...entry });
+    } catch {
+      kept = false; // Not cloneable: not kept.
+    }
+    return changed(kept);
   },
   remove(owner: string, id: string): void {
-    writeAll(
-      owner,
-      readAll(owner).filter((e) => e.id !== id),
-    );
+    if (deviceStore.outboxOf(owner).some((e) => e.id === id)) deviceStore.deleteEntry(id);
+    changed(true);
   },
   subscribe(listener: () => void): () => void {
     listeners.add(listener);

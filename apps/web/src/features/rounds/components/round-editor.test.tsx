@@ -19,7 +19,6 @@ import { jsonResponse, mockApi, requestedRoutes, restoreFetch } from '@/testing/
 
 const roundDrafts = roundDraftsFor(null);
 const readLocalDraft = (roundId: string) => roundDrafts.read(roundId);
-const localDraftKey = (roundId: string) => roundDrafts.storageKey(roundId);
 const writeLocalDraft = ({
   roundId,
   ...draft
@@ -110,7 +109,7 @@ describe('Round editor: nothing lost', () => {
       distantParts: 'Crown behind the jumbo',
       faceChainage: 1253.5,
     });
-    expect(window.localStorage.getItem(localDraftKey('r-1'))).toBeNull();
+    expect(readLocalDraft('r-1')).toBeNull();
   });
 
   it('restores unsaved typing after a reload, says so, and sends it', async () => {

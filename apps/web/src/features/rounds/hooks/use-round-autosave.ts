@@ -12,7 +12,7 @@ import { sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { readSession } from '@/lib/session';
 import type { SyncStatus } from '@/lib/sync/autosave';
 import { AutosaveEngine } from '@/lib/sync/autosave';
-import { localStorageDrafts } from '@/lib/sync/local-draft';
+import { adoptLegacyDrafts, localStorageDrafts } from '@/lib/sync/local-draft';
 import { syncState } from '@/lib/sync/sync-state';
 
 /**
@@ -21,8 +21,17 @@ import { syncState } from '@/lib/sync/sync-state';
  * even after the first one's session ran out underground). `null`: typed while signed out (tests).
  */
 export function roundDraftsFor(owner: string | null) {
-  return localStorageDrafts<RoundFormValues>(`roundbook.round-draft.${owner ?? 'signed-out'}.`);
+  const drafts = localStorageDrafts<RoundFormValues>(`${ROUND_DRAFT_PREFIX}${owner ?? 'signed-out'}.`);
+  // Drafts of the version before drafts were kept per person go to the first person signed in here.
+  if (owner !== null && !legacyAdopted) {
+    legacyAdopted = true;
+    adoptLegacyDrafts(ROUND_DRAFT_PREFIX, drafts);
+  }
+  return drafts;
 }
+
+const ROUND_DRAFT_PREFIX = 'roundbook.round-draft.';
+let legacyAdopted = false;
 
 export type SaveState = SyncStatus;
 
@@ -112,6 +121,7 @@ export function useRoundAutosave({
         reload: () => getRound(projectId, roundId),
         // Fixed when the round opens: typing after the session ran out still belongs to its person.
         drafts: roundDraftsFor(readSession()?.user.id ?? null),
+        scope: { projectId },
         onServerRecord: (round) => {
           syncState.synced();
           void roundSaved(queryClient, projectId, round);
