@@ -47,6 +47,9 @@ const useStyles = makeStyles({
   row: { height: '56px' },
   sortButton: { minHeight: `${TOUCH_TARGET_PX}px`, paddingInline: 0, fontWeight: tokens.fontWeightSemibold },
   link: {
+    // The theme's link colour: the browser's default blue read 2.2:1 on the high-contrast theme's black (axe).
+    color: tokens.colorBrandForeground1,
+    textDecorationThickness: '2px',
     fontWeight: tokens.fontWeightSemibold,
     fontSize: tokens.fontSizeBase400,
     display: 'inline-flex',
