@@ -8,13 +8,15 @@
 // shows that nothing was lost or duplicated, that every e-mail was sent once, and that the node
 // resynchronised (identical table checksums on all three). The cluster is made afresh at every start.
 import { randomUUID } from 'node:crypto';
-import { createWriteStream, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { createWriteStream, mkdirSync, rmSync } from 'node:fs';
 import path from 'node:path';
+import { signedIn } from './lib/api-client.mjs';
 import { startBalancer } from './lib/balancer.mjs';
 import { buildAll, ensureAptPackages, ensureNodeModules, migrateAndSeed } from './lib/bootstrap.mjs';
 import { profileEnv, root } from './lib/env.mjs';
 import { startCluster } from './lib/galera.mjs';
 import { InfraError, fail, info, step } from './lib/log.mjs';
+import { deliveryReport, receivedMail } from './lib/mailbox.mjs';
 import { startChild, stopAll, waitForLine } from './lib/proc.mjs';
 import { assertPortFree, startS3, startSmtp } from './lib/services.mjs';
 
@@ -135,52 +137,6 @@ async function startApiOn(i, node) {
 // ---------------------------------------------------------------------------------------------------------
 // The proof
 
-/**
- * A client as a tablet's sync would be: every request retried on a 502/503/504 or a dropped connection,
- * with the same body (a create carries its own round id, so a retry can never make a second round).
- */
-function client(token) {
-  const stats = { requests: 0, retries: 0, causes: {} };
-  async function call(method, url, body, { retry = true, until = 90000 } = {}) {
-    const deadline = Date.now() + until;
-    for (let attempt = 0; ; attempt++) {
-      stats.requests++;
-      let cause;
-      try {
-        const r = await fetch(`${balancer.url}${url}`, {
-          method,
-          headers: {
-            'content-type': 'application/json',
-            ...(token ? { authorization: `Bearer ${token}` } : {}),
-          },
-          body: body === undefined ? undefined : JSON.stringify(body),
-          signal: AbortSignal.timeout(30000),
-        });
-        const text = await r.text();
-        if (![502, 503, 504].includes(r.status)) {
-          if (!r.ok) throw new InfraError(`${method} ${url} → ${r.status} ${text.slice(0, 300)}`);
-          return text ? JSON.parse(text) : null;
-        }
-        cause = `${r.status}`;
-      } catch (err) {
-        if (err instanceof InfraError) throw err;
-        cause = err?.cause?.code ?? err?.name ?? 'error';
-      }
-      if (!retry || Date.now() > deadline) throw new InfraError(`${method} ${url} kept failing (${cause})`);
-      stats.retries++;
-      stats.causes[cause] = (stats.causes[cause] ?? 0) + 1;
-      await sleep(Math.min(1000, 100 * (attempt + 1)));
-    }
-  }
-  return { call, stats };
-}
-
-async function signIn(email) {
-  const { call } = client(null);
-  const r = await call('POST', '/api/auth/login', { email, password: env.DEMO_PASSWORD });
-  return r.accessToken;
-}
-
 async function runProof(nodes) {
   const ROUNDS = 150;
   const INVITES = 12;
@@ -188,8 +144,8 @@ async function runProof(nodes) {
   step(
     `Proof: ${ROUNDS} rounds and ${INVITES} invitations through the balancer; Galera node n2 killed and brought back`,
   );
-  const geologist = client(await signIn('geologist@roundbook.test'));
-  const admin = client(await signIn('admin@roundbook.test'));
+  const geologist = await signedIn(balancer.url, 'geologist@roundbook.test', env.DEMO_PASSWORD);
+  const admin = await signedIn(balancer.url, 'admin@roundbook.test', env.DEMO_PASSWORD);
   const projects = await geologist.call('GET', '/api/projects');
   const project = (projects.items ?? projects)[0];
   const headings = await geologist.call('GET', `/api/projects/${project.id}/headings`);
@@ -268,17 +224,10 @@ async function runProof(nodes) {
     .sql(`SELECT message_id FROM \`${db}\`.notices WHERE to_addresses LIKE '%proof-${runTag}-%'`)
     .split('\n')
     .filter(Boolean);
-  const received = readdirSync(env.LOCAL_MAIL_DIR)
-    .filter((f) => f.endsWith('.json'))
-    .map((f) => JSON.parse(readFileSync(path.join(env.LOCAL_MAIL_DIR, f), 'utf8')))
-    .filter((m) => m.to.some((t) => t.includes(`proof-${runTag}-`)));
-  const perId = new Map();
-  for (const m of received) perId.set(m.messageId, (perId.get(m.messageId) ?? 0) + 1);
-  const stripAngles = (s) => String(s ?? '').replace(/^<|>$/g, '');
-  const missingMail = messageIds.filter(
-    (id) => !perId.has(`<${stripAngles(id)}>`) && !perId.has(stripAngles(id)),
-  );
-  const duplicateMail = [...perId.values()].filter((n) => n > 1).length;
+  const received = receivedMail(env.LOCAL_MAIL_DIR, (m) => m.to.some((t) => t.includes(`proof-${runTag}-`)));
+  const delivery = deliveryReport(messageIds, received);
+  const missingMail = delivery.missing;
+  const duplicateMail = delivery.duplicated.length;
 
   // Every node: the same rounds, numbered once each, nothing half-written, identical checksums.
   await sleep(1000); // let the last write sets apply on every node (Galera applies asynchronously)

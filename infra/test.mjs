@@ -102,6 +102,10 @@ try {
     await jest('unit', 'packages/ui', 'packages/ui');
     await jest('unit', 'apps/api', 'apps/api', ['--config', 'jest.config.cjs']);
     await jest('unit', 'apps/web', 'apps/web');
+    await check('unit', 'infra supervisor back-off (node --test)', process.execPath, [
+      '--test',
+      path.join(root, 'infra/lib/supervise.test.mjs'),
+    ]);
   }
   if (want('e2e') || want('browser')) {
     checkEnvironment(env);

@@ -17,6 +17,15 @@ const profiles = {
     apiPort: 8081,
     dbName: 'roundbook_test',
   },
+  // `npm run faults`: an instance of its own, killed and restarted on purpose (infra/faults.mjs).
+  faults: {
+    dataDir: '.data/faults',
+    dbPort: 3309,
+    s3Port: 4571,
+    smtpPort: 2527,
+    apiPort: 8082,
+    dbName: 'roundbook_faults',
+  },
 };
 
 function readDotEnv(file) {
@@ -48,9 +57,11 @@ function localSecret(dataDir, name) {
 
 export function profileEnv(profileName) {
   const base = profiles[profileName];
-  // RB_TEST_PORT_OFFSET moves every test port by N, so that several checkouts on one machine can run their
-  // test tiers at once (each with its own RB_DATA_DIR). The local profile's ports come from .env instead.
-  const offset = profileName === 'test' ? Number(process.env.RB_TEST_PORT_OFFSET ?? 0) || 0 : 0;
+  // The test and faults profiles ignore .env: they always run on their own folder and loopback ports.
+  const isolated = profileName !== 'local';
+  // RB_TEST_PORT_OFFSET moves every test (and faults) port by N, so that several checkouts on one machine
+  // can run them at once (each with its own RB_DATA_DIR). The local profile's ports come from .env instead.
+  const offset = isolated ? Number(process.env.RB_TEST_PORT_OFFSET ?? 0) || 0 : 0;
   const p = {
     ...base,
     dbPort: base.dbPort + offset,
@@ -58,12 +69,12 @@ export function profileEnv(profileName) {
     smtpPort: base.smtpPort + offset,
     apiPort: base.apiPort + offset,
   };
-  const fromFile = profileName === 'test' ? {} : readDotEnv(path.join(root, '.env'));
+  const fromFile = isolated ? {} : readDotEnv(path.join(root, '.env'));
   const given = { ...fromFile, ...process.env };
   const dataDir = path.resolve(root, given.RB_DATA_DIR ?? p.dataDir);
-  const pick = (name, fallback) => (profileName === 'test' ? fallback : (given[name] ?? fallback));
+  const pick = (name, fallback) => (isolated ? fallback : (given[name] ?? fallback));
   const env = {
-    NODE_ENV: profileName === 'test' ? 'test' : (given.NODE_ENV ?? 'production'),
+    NODE_ENV: isolated ? 'test' : (given.NODE_ENV ?? 'production'),
     RB_DATA_DIR: dataDir,
     HOST: pick('HOST', '127.0.0.1'),
     PORT: pick('PORT', String(p.apiPort)),
@@ -92,9 +103,9 @@ export function profileEnv(profileName) {
     LOCAL_MAIL_DIR: pick('LOCAL_MAIL_DIR', path.join(dataDir, 'mail')),
     WEB_DIST_DIR: pick('WEB_DIST_DIR', path.join(root, 'apps/web/dist')),
     DEMO_PASSWORD: pick('DEMO_PASSWORD', 'rb-demo-2026'),
-    LOGIN_RATE_LIMIT: pick('LOGIN_RATE_LIMIT', profileName === 'test' ? '1000' : '10'),
+    LOGIN_RATE_LIMIT: pick('LOGIN_RATE_LIMIT', isolated ? '1000' : '10'),
     WORKER_ENABLED: pick('WORKER_ENABLED', 'true'),
-    JOBS_POLL_INTERVAL_MS: pick('JOBS_POLL_INTERVAL_MS', profileName === 'test' ? '50' : '1000'),
+    JOBS_POLL_INTERVAL_MS: pick('JOBS_POLL_INTERVAL_MS', isolated ? '50' : '1000'),
     // Local and test instances let anyone signed in create a project; the API's own default is operators.
     PROJECT_CREATION: pick('PROJECT_CREATION', 'anyone'),
   };

@@ -116,14 +116,24 @@ export async function startMariadb({ dataDir, env }) {
   });
   if (r.status !== 0) throw new InfraError(`Could not create the database and user: ${r.stderr.trim()}`);
   info(`MariaDB ready (PID ${child.pid}), database ${db}, user ${user}`);
+  const rootSql = (statement, args = []) =>
+    spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', ...args], {
+      input: statement,
+      encoding: 'utf8',
+    });
   return {
     child,
     socket,
-    rootSql: (statement) =>
-      spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot'], {
-        input: statement,
-        encoding: 'utf8',
-      }),
+    /** Rows of a query as root in the application's database: arrays of strings (NULL as 'NULL'). */
+    rows: (statement) => {
+      const r = rootSql(statement, ['-N', '-B', db]);
+      if (r.status !== 0) throw new InfraError(`Query failed: ${r.stderr.trim()}\n${statement}`);
+      return r.stdout
+        .split('\n')
+        .filter(Boolean)
+        .map((line) => line.split('\t'));
+    },
+    rootSql: (statement) => rootSql(statement),
   };
 }
 

@@ -7,21 +7,22 @@ export const backoffMs = (n, baseMs = 1000, maxMs = 30_000) => Math.min(maxMs, b
 /**
  * Watches `child` (from `start()`); on an exit while `isStopping()` is false it reports the exit, waits
  * with back-off and calls `start()` again. A process that stayed up `stableMs` starts the count afresh.
- * `start` resolves with the new ChildProcess. Returns a function that stops watching.
+ * `start` resolves with the new ChildProcess. Returns a function that stops watching. `timers` and `now`
+ * stand in for the clock in tests (infra/lib/supervise.test.mjs).
  */
 export function supervise(
   name,
   child,
   start,
-  { isStopping, logHint = '', stableMs = 60_000, timers = globalThis } = {},
+  { isStopping, logHint = '', stableMs = 60_000, timers = globalThis, now = Date.now } = {},
 ) {
   let restarts = 0;
-  let startedAt = Date.now();
+  let startedAt = now();
   let stopped = false;
   const watch = (c) =>
     c.once('exit', (code, signal) => {
       if (stopped || isStopping?.()) return;
-      if (Date.now() - startedAt > stableMs) restarts = 0;
+      if (now() - startedAt > stableMs) restarts = 0;
       const wait = backoffMs(restarts++);
       fail(
         `${name} stopped unexpectedly (${signal ?? `exit code ${code}`}); restarting in ${wait / 1000} s. ${logHint}`,
@@ -30,12 +31,15 @@ export function supervise(
         if (stopped || isStopping?.()) return;
         try {
           const next = await start();
-          startedAt = Date.now();
+          startedAt = now();
           info(`${name} is running again (PID ${next.pid})`);
           watch(next);
         } catch (err) {
           fail(`${name} could not be restarted: ${err?.message ?? err}`);
-          watch({ once: (_e, fn) => fn(1, null) }); // try again after the next back-off
+          // Try again after the next back-off: the failed start counts as a start that did not stay up
+          // (otherwise a process that once ran for long would be retried every second, without back-off).
+          startedAt = now();
+          watch({ once: (_e, fn) => fn(1, null) });
         }
       }, wait);
     });

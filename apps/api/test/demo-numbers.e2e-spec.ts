@@ -84,6 +84,45 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
     expect(good.filter((r) => r.triggerLevel === 'green').length).toBeGreaterThan(good.length / 2);
   });
 
+  it('reads true round by round: each round as long as the last round’s class allows, water rated from the one record, the sets the geologist counts found on the face, quadrant entries kept as typed (Bieniawski 1989 Table 4.1 A5; Barton et al. 1974 Jn table; common practice)', async () => {
+    for (const [code, count] of [
+      ['HR-U', 18],
+      ['HR-D', 10],
+    ] as const) {
+      const { heading, rounds } = await roundsOf(code, count);
+      const sense = heading.chainageSense === 'decreasing' ? -1 : 1;
+      let previous: Round | null = null;
+      for (const r of rounds) {
+        // The round length is the advance from the previous face, by the heading's sense.
+        expect(r.previousChainage).toBe(previous?.faceChainage ?? heading.startChainage);
+        expect(r.roundLength).toBeCloseTo(sense * (r.faceChainage - r.previousChainage!), 9);
+        // Before: the fault rounds of HR-U advanced 3.5 m under SC-D, which allows 1.5 m.
+        if (previous?.nextRoundLength != null)
+          expect(r.roundLength).toBeLessThanOrEqual(previous.nextRoundLength);
+        const warnings = r.assessment!.warnings.join(' ');
+        expect(warnings).not.toMatch(/allowed by the support class of the last round/);
+        // Before: 3 l/min per 10 m typed with the rating against 1.1 l/min over 3.5 m (3.14) in Ground.
+        expect(warnings).not.toMatch(/RMR89 groundwater reads the inflow recorded in Ground/);
+        // Before: S1 285/65 and S3 300/80 were 20° apart, one set to the set finder: "Jn 9 does not match
+        // the 2 sets found" on every round of HR-U; and HR-D round 1 (count 2) found one set of its two.
+        expect(warnings).not.toMatch(/Jn \d+ does not match/);
+        previous = r;
+      }
+      // Quadrant entries keep their notation: the text is the quadrant form and reads as the stored plane.
+      const quadrant = await ds
+        .getRepository(Joint)
+        .createQueryBuilder('j')
+        .where('j.heading_id = :id', { id: heading.id })
+        .andWhere("(j.orientation_text LIKE 'N%' OR j.orientation_text LIKE 'S%')")
+        .getMany();
+      expect(quadrant.length).toBeGreaterThan(0);
+      for (const j of quadrant) {
+        expect(j.orientationText).toMatch(/^[NS]\d+(\.\d)?[EW] \d+(\.\d)?[NESW]{1,2}$/);
+        expect(j.dipDirection).not.toBeNull();
+      }
+    }
+  });
+
   it('lets every demo user sign in with the demo password (the README’s logins)', async () => {
     // signIn in beforeAll expects 200 for each; here the role each holds on the demo project.
     for (const role of ['admin', 'engineer', 'viewer', 'supervisor'] as const) {

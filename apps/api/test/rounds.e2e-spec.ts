@@ -520,4 +520,23 @@ describe('Rounds (e2e, real MariaDB)', () => {
     const numbers = answers.map((a) => (a.body as Body).roundNumber as number).sort((a, b) => a - b);
     expect(numbers).toEqual(ids.map((_, i) => i + 1));
   });
+  it('rounds opened at once with Idempotency-Keys are all made, none refused for a deadlock', async () => {
+    // Found by `npm run faults`: with keys, concurrent creates on one heading deadlocked (each locked the gap
+    // of its unused key, then waited for the heading, then inserted its key into the other's gap) and
+    // answered 503s under an ordinary load of four clients.
+    const q = await makeProject(app, { code: `RK${stamp}`, heading: { stages: ['full-face'] } });
+    const ids = Array.from({ length: 12 }, () => randomUUID());
+    const answers = await Promise.all(
+      ids.map((id, i) =>
+        request(http)
+          .post(`${q.base}/headings/${q.headingId}/rounds`)
+          .set(q.as('geologist'))
+          .set('Idempotency-Key', randomUUID())
+          .send({ id, stage: 'full-face', faceChainage: 1003 + i }),
+      ),
+    );
+    expect(answers.map((a) => a.status)).toEqual(ids.map(() => 201));
+    const numbers = answers.map((a) => (a.body as Body).roundNumber as number).sort((a, b) => a - b);
+    expect(numbers).toEqual(ids.map((_, i) => i + 1));
+  });
 });

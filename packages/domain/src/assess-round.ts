@@ -39,7 +39,7 @@ import { SINGLE_FEATURE_KINDS, type JointKind } from './vocabulary.js';
 import { readWater, waterConditionWarning } from './water.js';
 
 /** The version of the rules that produced an assessment (stored with it; bump when a rule changes). */
-export const ASSESSMENT_VERSION = 'domain-4';
+export const ASSESSMENT_VERSION = 'domain-5';
 
 export interface GroundRecord {
   units: Array<{

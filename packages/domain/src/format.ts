@@ -1,6 +1,7 @@
 // Formatters shared by every screen, e-mail and report (one implementation each).
 import { formatChainage as geomathChainage, normalizeAzimuth } from '@roundbook/geomath';
 import type { ChainageStyle } from '@roundbook/geomath';
+import { levelLabels, type TriggerLevel } from './vocabulary.js';
 
 /** Azimuth as three digits and a degree sign: 47.4 → "047°"; with decimals: 132.5 → "132.5°". */
 export function formatAzimuth(degrees: number, decimals = 0): string {
@@ -49,6 +50,17 @@ export function formatQ(q: number): string {
  */
 export function roundedAsPrinted(value: number, what: 'q' | 'other' = 'other'): number {
   return what === 'q' ? Number(formatQ(value)) : Number(value.toPrecision(3));
+}
+
+/**
+ * A round's trigger level in words (issue 10, item 8): the level when it has one; "not evaluated (n rules)"
+ * while n enabled rules still lack their data, so a round without data never reads as green or as having no
+ * rules; "no rules" only when no rule applies.
+ */
+export function triggerLevelText(level: TriggerLevel | null, notEvaluated: number): string {
+  if (level !== null) return levelLabels[level];
+  if (notEvaluated > 0) return `not evaluated (${notEvaluated} ${notEvaluated === 1 ? 'rule' : 'rules'})`;
+  return 'no rules';
 }
 
 /** The Q-system's range and its message (Barton et al. 1974: Q from 0.001 to 1000). */

@@ -1,4 +1,12 @@
-import { formatAzimuth, formatChainageFor, formatQ, roundedAsPrinted, shiftOf } from '../src/index.js';
+import {
+  assessTriggers,
+  formatAzimuth,
+  formatChainageFor,
+  formatQ,
+  roundedAsPrinted,
+  shiftOf,
+  triggerLevelText,
+} from '../src/index.js';
 
 describe('formatters', () => {
   it('writes azimuths with three digits [common practice]', () => {
@@ -18,6 +26,38 @@ describe('formatters', () => {
     expect(formatQ(4.17)).toBe('4.2');
     expect(formatQ(33.3)).toBe('33');
     expect(roundedAsPrinted(0.1004, 'q')).toBe(0.1);
+  });
+
+  it('says "not evaluated (n rules)" for a round whose rules lack their data, never "no rules" (issue 10 item 8) [common practice]', () => {
+    // A Q rule and an inflow rule on a round with neither recorded: no level, two rules not evaluated.
+    const rule = (id: string, watch: 'q' | 'inflow-per-10m') => ({
+      id,
+      watch,
+      comparison: '<' as const,
+      threshold: 1,
+      level: 'amber' as const,
+      action: '',
+      ownerRole: 'engineer',
+      timeAllowedHours: 4,
+      enabled: true,
+    });
+    const facts = {
+      q: null,
+      rmr: null,
+      inflowPer10m: null,
+      overbreakM3: null,
+      faceChainage: 1000,
+      recommendedClassId: null,
+      previousClassId: undefined,
+      joints: [],
+    };
+    const heading = { driveTrend: 60, gradientPercent: 0, profileHeight: 6, profileWidth: 6, axisHeight: 3 };
+    const t = assessTriggers([rule('a', 'q'), rule('b', 'inflow-per-10m')], facts, heading);
+    expect(t.level).toBeNull();
+    expect(triggerLevelText(t.level, t.notEvaluated.length)).toBe('not evaluated (2 rules)');
+    expect(triggerLevelText(null, 1)).toBe('not evaluated (1 rule)');
+    expect(triggerLevelText(null, 0)).toBe('no rules');
+    expect(triggerLevelText('amber', 3)).toBe('Amber');
   });
 
   it('puts 02:00 in the night shift of the day before, in the project time zone', () => {

@@ -68,6 +68,11 @@ function densitySeeds(all: UnitVectors, significance: number): Vector3[] {
   for (let j = 0; j < n; j++) {
     for (let i = 0; i < n; i++) {
       const g = i + j * n;
+      // Cells outside the primitive repeat the rim's directions (densityNodes): they are compared with as
+      // neighbours but never seed a set, or a rim cell near a set's antipode seeds a set of its own.
+      const x = -1 + ((i + 0.5) * 2) / n;
+      const y = 1 - ((j + 0.5) * 2) / n;
+      if (x * x + y * y >= 1) continue;
       const v = raw[g];
       if (sigma > 0 && (v - expected) / sigma < significance) continue;
       let peak = true;

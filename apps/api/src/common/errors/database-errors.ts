@@ -11,6 +11,8 @@ export function dbErrno(error: unknown): number | undefined {
 export const isRowReferenced = (error: unknown): boolean => dbErrno(error) === 1451;
 /** ER_DUP_ENTRY (1062): a unique key already holds the value. */
 export const isDuplicateKey = (error: unknown): boolean => driverErrorOf(error)?.errno === 1062;
+/** ER_LOCK_DEADLOCK (1213): the transaction was rolled back for another; it may be run again from BEGIN. */
+export const isDeadlock = (error: unknown): boolean => driverErrorOf(error)?.errno === 1213;
 
 /** How the global filter answers a database error: status, code, message, and a retry hint for outages. */
 export interface DatabaseErrorAnswer {

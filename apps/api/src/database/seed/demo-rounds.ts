@@ -102,16 +102,15 @@ export async function seedDemoRounds(
     dip: number;
   }> = [];
   let previousClassId: string | null | undefined = undefined;
+  let previousFace = heading.startChainage;
+  // Each round is as long as the last round's class allows (its next round length): in the fault zone the
+  // heading advances by the short rounds its support class sets, not by the planned length.
+  let roundLength = plan.roundLength;
   for (let i = 1; i <= plan.count; i++) {
     const t = (i - 1) / Math.max(1, plan.count - 1);
     const faultHere = plan.fault !== null && i >= plan.fault.fromRound;
     // Chainage follows the heading's sense: on a heading driven against the chainage it decreases.
-    const previousFace = nextFaceChainage(
-      heading.startChainage,
-      (i - 1) * plan.roundLength,
-      heading.chainageSense,
-    );
-    const face = nextFaceChainage(previousFace, plan.roundLength, heading.chainageSense);
+    const face = nextFaceChainage(previousFace, roundLength, heading.chainageSense);
     const drive = driveOf({ ...heading, driveTrend: driveTrendAt(heading, face) });
     const mappedAt = new Date(lastMappedAt - (plan.count - i) * SHIFT_MS);
     const { shiftDate, shift } = shiftOf(mappedAt, project.timeZone);
@@ -128,7 +127,8 @@ export async function seedDemoRounds(
       fault?: boolean;
     }> = [];
     for (const [k, s] of plan.sets.entries()) {
-      const n = 2 + Math.floor(random() * 2);
+      // Three or four joints of each set on a face: enough for the sets to stand out of the density.
+      const n = 3 + Math.floor(random() * 2);
       for (let j = 0; j < n; j++) {
         entries.push({
           kind: k === 1 && plan.sets.length > 2 ? 'bedding' : 'joint',
@@ -139,6 +139,12 @@ export async function seedDemoRounds(
       }
     }
     if (faultHere && plan.fault) {
+      // The crushed rock beside the fault carries random joints besides the sets (Jn: three sets and random).
+      for (const plane of [
+        { dipDirection: Math.round(random() * 3600) / 10, dip: 20 + Math.round(random() * 60) },
+        { dipDirection: Math.round(random() * 3600) / 10, dip: 20 + Math.round(random() * 60) },
+      ])
+        entries.push({ kind: 'joint', plane, notation: 'dip-direction/dip', label: '' });
       entries.push({
         kind: 'fault',
         plane: jitter(plan.fault, 3),
@@ -148,6 +154,11 @@ export async function seedDemoRounds(
       });
     }
 
+    // On the first faces a dozen joints are too few for the sets to stand out of the density by themselves:
+    // the geologist says how many sets there are (as the Joints section asks); later faces pool their
+    // neighbours within the default window and need no count.
+    const setParameters =
+      i <= 3 ? { ...DEFAULT_SET_PARAMETERS, count: plan.sets.length } : DEFAULT_SET_PARAMETERS;
     const worst = plan.sets
       .map((s) => rmrOrientationInTunnel(s, drive).assessment)
       .reduce((a, b) => (ORDER[b] > ORDER[a] ? b : a), 'very favourable' as RmrOrientationAssessment);
@@ -171,6 +182,8 @@ export async function seedDemoRounds(
       ...(faultHere ? { jrRowId: 'jr-clay-zone' } : {}),
     };
     const is50 = Math.round((6.5 - 3.5 * t) * 10) / 10;
+    const inflowLpm = Math.round((faultHere ? 30 : Math.round(3 + 12 * t)) * roundLength) / 10;
+    const inflowPer10m = (inflowLpm * 10) / roundLength;
     const rmrInput: RmrRecord = {
       strength: { kind: 'point-load', is50 },
       rqd,
@@ -183,7 +196,9 @@ export async function seedDemoRounds(
             ? 'slightly-rough-slightly-weathered'
             : 'slightly-rough-highly-weathered',
       },
-      groundwater: { kind: 'inflow', litresPerMinutePer10m: faultHere ? 30 : Math.round(3 + 12 * t) },
+      // Water once: the rating reads the inflow per 10 m of the Ground record below (l/min to 0.1 over the
+      // round's length), so the value typed with the rating is that same number.
+      groundwater: { kind: 'inflow', litresPerMinutePer10m: Math.round(inflowPer10m * 10) / 10 },
       orientation: { kind: 'assessment', assessment: worst },
     };
     const ratings = computeRatings({ qInput, rmrInput, gsiObserved: null });
@@ -201,7 +216,7 @@ export async function seedDemoRounds(
       roundNumber: i,
       faceChainage: face,
       previousChainage: previousFace,
-      roundLength: plan.roundLength,
+      roundLength,
       shiftDate,
       shift,
       mappedBy,
@@ -220,12 +235,8 @@ export async function seedDemoRounds(
         pointLoadIs50: is50,
         pointLoadFactor: POINT_LOAD_FACTOR,
         // Water once: the inflow over the round's length; RMR89 A5 and the trigger read it.
-        inflowLpm:
-          Math.round(
-            (rmrInput.groundwater.kind === 'inflow' ? rmrInput.groundwater.litresPerMinutePer10m : 0) *
-              plan.roundLength,
-          ) / 10,
-        inflowLengthM: plan.roundLength,
+        inflowLpm,
+        inflowLengthM: roundLength,
         waterDescription:
           t < 0.4
             ? 'Damp patches'
@@ -244,7 +255,7 @@ export async function seedDemoRounds(
       recommendedClassId: recommended?.id ?? null,
       nextRoundLength: recommended ? Math.min(recommended.maxRoundLength, plan.roundLength) : null,
       recommendationReason: reason,
-      setParameters: DEFAULT_SET_PARAMETERS,
+      setParameters,
       status,
       revision: 1,
       submittedAt: status === 'draft' ? null : new Date(Math.min(mappedAt.getTime() + 3600_000, Date.now())),
@@ -296,7 +307,7 @@ export async function seedDemoRounds(
     const assessment = assessRound(
       {
         faceChainage: face,
-        roundLength: plan.roundLength,
+        roundLength,
         ground: saved.ground,
         joints: jointRows.map((j) => ({
           id: j.id,
@@ -317,7 +328,7 @@ export async function seedDemoRounds(
         rmrInput,
         gsiObserved: null,
         recommendedClassId: saved.recommendedClassId,
-        setParameters: DEFAULT_SET_PARAMETERS,
+        setParameters,
       },
       {
         heading: headingGeometry(heading, plan.stage, face),
@@ -397,6 +408,8 @@ export async function seedDemoRounds(
       );
     }
     previousClassId = saved.recommendedClassId;
+    previousFace = face;
+    roundLength = saved.nextRoundLength ?? plan.roundLength;
     for (const j of jointRows)
       if (j.dipDirection !== null && j.dip !== null && j.kind !== 'fault')
         earlier.push({

@@ -173,6 +173,45 @@ describe('JobsWorker', () => {
     expect(store.rows.get('b')!.lastError).toMatch(/No handler for job kind "unknown-kind"/);
   });
 
+  it('records a finished job once the database answers again, instead of leaving it running for the lease', async () => {
+    // Found by `npm run faults`: MariaDB killed while a notice was being sent left its job running (and the
+    // notice unsent) for the whole 5-minute lease; a finished job was even recorded as a failure.
+    handlers.register('test', () => Promise.resolve());
+    store.add('a');
+    const away = new Error('connect ECONNREFUSED 127.0.0.1:3306');
+    store.complete.mockRejectedValueOnce(away).mockRejectedValueOnce(away);
+    const sut = make({ recordRetryBaseMs: 1 });
+    await sut.tick();
+    await sut.idle();
+    expect(store.complete).toHaveBeenCalledTimes(3);
+    expect(store.fail).not.toHaveBeenCalled();
+    expect(store.rows.get('a')).toMatchObject({ state: 'done', attempts: 1 });
+  });
+
+  it('records a failed attempt once the database answers again, so the retry comes after its back-off', async () => {
+    handlers.register('test', () => Promise.reject(new Error('SMTP away')));
+    store.add('a');
+    store.fail.mockRejectedValueOnce(new Error('read ECONNRESET'));
+    const sut = make({ recordRetryBaseMs: 1 });
+    await sut.tick();
+    await sut.idle();
+    expect(store.fail).toHaveBeenCalledTimes(2);
+    expect(store.rows.get('a')).toMatchObject({ state: 'pending', attempts: 1, lastError: 'SMTP away' });
+  });
+
+  it('leaves the row to the lease when the database stays away for half of it', async () => {
+    handlers.register('test', () => Promise.resolve());
+    store.add('a');
+    store.complete.mockRejectedValue(new Error('connect ECONNREFUSED'));
+    let clock = now.getTime();
+    const sut = make({ recordRetryBaseMs: 1, leaseMs: 20, now: () => new Date((clock += 4)) });
+    await sut.tick();
+    await sut.idle();
+    expect(store.complete.mock.calls.length).toBeGreaterThan(1);
+    expect(store.complete.mock.calls.length).toBeLessThan(5);
+    expect(store.rows.get('a')!.state).toBe('running');
+  });
+
   it('refuses to register two handlers for one kind', () => {
     handlers.register('test', () => Promise.resolve());
     expect(() => handlers.register('test', () => Promise.resolve())).toThrow(/already registered/);

@@ -7,7 +7,7 @@ import {
   type BeforeApplicationShutdown,
   type OnApplicationBootstrap,
 } from '@nestjs/common';
-import { afterFailure, type RetryPolicy } from './backoff.js';
+import { afterFailure, type FailureOutcome, type RetryPolicy } from './backoff.js';
 import { JobHandlers, PermanentJobError } from './job-handlers.js';
 import type { Job } from './job.entity.js';
 import { JobsService } from './jobs.service.js';
@@ -20,11 +20,16 @@ export interface WorkerOptions {
   retry: RetryPolicy;
   /** How long stop() waits for running jobs before giving them back */
   shutdownGraceMs: number;
+  /** First pause before recording a job's outcome again while the database is away (default 500 ms) */
+  recordRetryBaseMs?: number;
   now?: () => Date;
   random?: () => number;
 }
 
 export const WORKER_OPTIONS = Symbol('WORKER_OPTIONS');
+
+/** Longest pause between tries to record a job's outcome while the database is away. */
+const RECORD_RETRY_MAX_MS = 10_000;
 
 /**
  * Runs due jobs: claims up to `concurrency` at a time, runs each with its kind's handler, marks it done or
@@ -38,6 +43,7 @@ export class JobsWorker implements OnApplicationBootstrap, BeforeApplicationShut
   private readonly abort = new AbortController();
   private loop: Promise<void> | null = null;
   private running = false;
+  private stopping = false;
   private wake: (() => void) | null = null;
   private lastReclaim = 0;
   private readonly now: () => Date;
@@ -66,6 +72,7 @@ export class JobsWorker implements OnApplicationBootstrap, BeforeApplicationShut
   start(): void {
     if (this.running) return;
     this.running = true;
+    this.stopping = false;
     this.loop = this.run();
   }
 
@@ -76,6 +83,7 @@ export class JobsWorker implements OnApplicationBootstrap, BeforeApplicationShut
   async stop(): Promise<void> {
     if (!this.running && !this.loop) return;
     this.running = false;
+    this.stopping = true;
     this.wake?.();
     await this.loop;
     this.loop = null;
@@ -152,12 +160,13 @@ export class JobsWorker implements OnApplicationBootstrap, BeforeApplicationShut
 
   private async execute(job: Job): Promise<void> {
     const handler = this.handlers.get(job.kind);
+    let outcome: FailureOutcome | 'done';
     try {
       if (!handler) throw new Error(`No handler for job kind "${job.kind}" on worker ${this.id}`);
       await handler(job.payload, { job, attempt: job.attempts, signal: this.abort.signal });
-      await this.jobs.complete(job.id, this.id, this.now());
+      outcome = 'done';
     } catch (error) {
-      const outcome = afterFailure(job.attempts, error, this.now(), this.options.retry, {
+      outcome = afterFailure(job.attempts, error, this.now(), this.options.retry, {
         permanent: error instanceof PermanentJobError,
         random: this.options.random,
       });
@@ -165,14 +174,50 @@ export class JobsWorker implements OnApplicationBootstrap, BeforeApplicationShut
         this.logger.error(
           `Job ${job.kind} ${job.id} gave up after ${job.attempts} attempt(s): ${outcome.lastError}`,
         );
+    }
+    await this.record(job, outcome);
+  }
+
+  /**
+   * Writes how the attempt ended. When the database is away, it tries again (0.5 s, 1 s, 2 s … up to 10 s)
+   * until it is back, for at most half the lease: a job left `running` would wait the whole lease before
+   * anyone took it again (found by `npm run faults`: a notice being sent when MariaDB was killed stayed
+   * unsent for the 5-minute lease), and a finished one would run twice. A worker told to stop gives up at
+   * once; the lease brings the row back.
+   */
+  private async record(job: Job, outcome: FailureOutcome | 'done'): Promise<void> {
+    const started = this.now().getTime();
+    for (let attempt = 0; ; attempt++) {
       try {
-        await this.jobs.fail(job.id, this.id, outcome, this.now());
+        if (outcome === 'done') await this.jobs.complete(job.id, this.id, this.now());
+        else await this.jobs.fail(job.id, this.id, outcome, this.now());
+        if (attempt > 0) this.logger.log(`Recorded job ${job.id} after ${attempt + 1} tries`);
+        return;
       } catch (e) {
-        // The row stays running; the lease brings it back.
-        this.logger.warn(
-          `Could not record the failure of job ${job.id}: ${e instanceof Error ? e.message : String(e)}`,
-        );
+        const message = e instanceof Error ? e.message : String(e);
+        const waitMs = Math.min(RECORD_RETRY_MAX_MS, (this.options.recordRetryBaseMs ?? 500) * 2 ** attempt);
+        const late = this.now().getTime() - started + waitMs > this.options.leaseMs / 2;
+        if (this.stopping || late) {
+          // The row stays running; the lease brings it back.
+          this.logger.warn(`Could not record how job ${job.id} ended: ${message}`);
+          return;
+        }
+        if (attempt === 0) this.logger.warn(`Could not record how job ${job.id} ended yet: ${message}`);
+        await this.delay(waitMs);
       }
     }
+  }
+
+  /** A pause that stop() cuts short. */
+  private delay(ms: number): Promise<void> {
+    return new Promise((resolve) => {
+      const done = (): void => {
+        clearTimeout(timer);
+        this.abort.signal.removeEventListener('abort', done);
+        resolve();
+      };
+      const timer = setTimeout(done, ms);
+      this.abort.signal.addEventListener('abort', done, { once: true });
+    });
   }
 }

@@ -17,7 +17,7 @@ import {
 } from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
-import { isDuplicateKey } from '../../common/errors/database-errors.js';
+import { isDeadlock, isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { priorResult, rememberResult } from '../../common/idempotency/idempotency.js';
 import { auditDiff, objectDiff } from '../audit/audit-diff.js';
@@ -167,14 +167,16 @@ export class RoundsCommands {
     // A duplicate key means another create won a race: two copies of one request (the loser then finds what
     // the winner made), or, on a Galera cluster, two rounds of the heading made at once on different nodes,
     // where the heading's row lock is local to each node and both read the same last round number (the loser
-    // reads again and takes the next one). Found by the cluster proof; a few tries settle it.
+    // reads again and takes the next one). Found by the cluster proof; a few tries settle it. A deadlock
+    // (1213) rolled the whole transaction back, so it is run again from BEGIN (stack-notes §13).
     for (let attempt = 1; ; attempt++) {
       try {
         return await this.createOnce(caller, access, headingId, dto, idempotencyKey);
       } catch (error) {
-        if (!isDuplicateKey(error) || (idempotencyKey === null && dto.id === undefined) || attempt >= 5)
-          throw error;
-        this.logger.warn(`A round create met a duplicate key (try ${attempt}): ${(error as Error).message}`);
+        const again =
+          isDeadlock(error) || (isDuplicateKey(error) && (idempotencyKey !== null || dto.id !== undefined));
+        if (!again || attempt >= 5) throw error;
+        this.logger.warn(`A round create met a conflict (try ${attempt}): ${(error as Error).message}`);
       }
     }
   }
@@ -187,6 +189,10 @@ export class RoundsCommands {
     idempotencyKey: string | null,
   ): Promise<RoundDto> {
     const id = await this.dataSource.transaction(async (manager) => {
+      // The heading's lock comes first, so creates on one heading queue there. Taken after the key's lock
+      // (a gap lock when the key is new), two creates each held a gap the other then inserted into: a
+      // deadlock, found by `npm run faults` with four clients sending Idempotency-Keys.
+      const heading = await this.queries.heading(access, headingId, manager, true);
       if (idempotencyKey !== null) {
         const prior = await priorResult(manager, caller.id, idempotencyKey, CREATE_SCOPE);
         if (prior !== null) return prior;
@@ -199,7 +205,6 @@ export class RoundsCommands {
           return existing.id;
         }
       }
-      const heading = await this.queries.heading(access, headingId, manager, true);
       if (!heading.stages.includes(dto.stage)) {
         throw new DomainException(
           ErrorCode.ValidationFailed,

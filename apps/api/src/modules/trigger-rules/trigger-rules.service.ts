@@ -169,7 +169,9 @@ export class TriggerRulesService {
     let evaluated = 0;
     for (const r of rows) {
       const heading = byId.get(r.headingId)!;
-      const outcome = evaluateRuleOutcome(rule, r.facts, headingGeometry(heading, r.stage));
+      // The heading as the round's own assessment read it: the drive at its face (the tangent of a curved
+      // alignment), not the drive at the heading's start.
+      const outcome = evaluateRuleOutcome(rule, r.facts, headingGeometry(heading, r.stage, r.faceChainage));
       if (outcome.state === 'fired' || outcome.state === 'clear') evaluated++;
       if (outcome.state === 'fired') {
         matches.push({
