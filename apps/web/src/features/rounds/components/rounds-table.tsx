@@ -17,6 +17,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
+import { triggerLevelText } from '@roundbook/domain';
 import { formatChainage, parseChainage } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX, TriggerLevelBadge } from '@roundbook/ui';
 import { useState } from 'react';
@@ -290,7 +291,10 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
                 </Badge>
               </TableCell>
               <TableCell data-testid="round-trigger">
-                <TriggerLevelBadge level={r.triggerLevel} noneLabel="no rules" />
+                <TriggerLevelBadge
+                  level={r.triggerLevel}
+                  noneLabel={triggerLevelText(r.triggerLevel, r.triggersNotEvaluated)}
+                />
               </TableCell>
             </TableRow>
           ))}
