@@ -117,7 +117,7 @@ test('a geologist draws the face with a finger, links a trace to a joint, and th
   );
   await waitSaved(page);
   await saved.catch(() => undefined);
-  await expect(sketch.getByRole('button', { name: /Joint 1 · 130\/50, traced on the sketch/ })).toBeVisible();
+  await expect(sketch.getByRole('button', { name: /Joint 1 · 130\/50.*Traced on the sketch/ })).toBeVisible();
   await page.screenshot({ path: `${shots}sketch-drawn-light.png`, fullPage: true });
 
   // reload: the round comes back from the API with the same drawing
@@ -142,7 +142,7 @@ test('a geologist draws the face with a finger, links a trace to a joint, and th
     .getByRole('tab', { name: 'Sketch' })
     .click();
   const again = page.getByRole('region', { name: 'Sketch', exact: true });
-  await expect(again.getByRole('button', { name: /Joint 1 · 130\/50, traced on the sketch/ })).toBeVisible();
+  await expect(again.getByRole('button', { name: /Joint 1 · 130\/50.*Traced on the sketch/ })).toBeVisible();
   // tapping the joint selects its trace and gives its length
   await again.getByRole('button', { name: /Joint 1 · 130\/50/ }).click();
   await expect(again.getByTestId('sketch-selection')).toContainText(/Trace · \d+\.\d\d m long/);

@@ -7,6 +7,9 @@ import { ThemePreferenceProvider, useThemePreference } from '@/app/theme-prefere
 
 const useStaticStyles = makeStaticStyles({
   body: { margin: 0 },
+  // Every plain link in the theme's link colour (the browser's default blue is 2.2:1 on the high-contrast
+  // theme's black, found by the accessibility scan); a component's own colour still wins (class > element).
+  a: { color: tokens.colorBrandForegroundLink },
 });
 
 const useStyles = makeStyles({

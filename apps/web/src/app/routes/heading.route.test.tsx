@@ -1,4 +1,4 @@
-import { screen } from '@testing-library/react';
+import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { heading, project } from '@/features/rounds/testing/round-fixtures';
 import { saveSession } from '@/lib/session';
@@ -55,7 +55,24 @@ describe('Heading screen', () => {
     expect(await screen.findByRole('img', { name: /stereonet: 8 poles/ })).toBeInTheDocument();
     expect(screen.getByRole('form', { name: 'Chainage window' })).toBeInTheDocument();
     await user.click(screen.getByRole('tab', { name: 'Rounds' }));
-    expect(screen.queryByRole('img', { name: /stereonet/ })).toBeNull();
+    await waitFor(() => expect(screen.queryByRole('img', { name: /stereonet/ })).toBeNull());
+  });
+
+  it('keeps the view in the address: a reload of ?view=orientation opens the stereonet (issue 19 item 9)', async () => {
+    mockApi({
+      'GET /api/auth/me': adminUser,
+      'GET /api/config': localConfig,
+      'GET /api/projects/p-1': project,
+      'GET /api/projects/p-1/headings/h-1': heading,
+      'GET /api/projects/p-1/headings/h-1/rounds': () =>
+        jsonResponse({ items: [roundRow], total: 1, page: 1, pageSize: 1 }),
+      'GET /api/projects/p-1/headings/h-1/joints': joints,
+    });
+    renderApp('/projects/p-1/headings/h-1?view=orientation');
+    expect(await screen.findByRole('img', { name: /stereonet: 8 poles/ })).toBeInTheDocument();
+    expect(screen.getByRole('tab', { name: 'Orientation' })).toHaveAttribute('aria-selected', 'true');
+    // No greyed tab for what does not exist yet (it read as active in high contrast, item 12).
+    expect(screen.queryByRole('tab', { name: /coming/ })).toBeNull();
   });
 
   it('opens the Hazards tab on the heading’s register', async () => {

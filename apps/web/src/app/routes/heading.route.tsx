@@ -3,9 +3,8 @@ import { ArrowLeftRegular } from '@fluentui/react-icons';
 import { formatAzimuth } from '@roundbook/domain';
 import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
@@ -42,14 +41,34 @@ const useStyles = makeStyles({
   back: { minHeight: `${TOUCH_TARGET_PX}px` },
 });
 
-/** Heading: its rounds, orientation, hazards and handovers (the long section comes with later work). */
+const VIEWS = ['rounds', 'orientation', 'hazards', 'handovers'] as const;
+type HeadingView = (typeof VIEWS)[number];
+const viewOf = (v: string | null): HeadingView =>
+  VIEWS.includes(v as HeadingView) ? (v as HeadingView) : 'rounds';
+
+/**
+ * Heading: its rounds, orientation, hazards and handovers. The view is kept in the address (`?view=`), so a
+ * reload, a shared link or the back button returns to it (issue 19 item 9). The long section has no tab
+ * until it exists: a greyed tab read as an active one in high contrast (item 12).
+ */
 export function HeadingRoute() {
   const styles = useStyles();
   const navigate = useNavigate();
   const { projectId = '', headingId = '' } = useParams();
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, headingId);
-  const [tab, setTab] = useState('rounds');
+  const [search, setSearch] = useSearchParams();
+  const tab = viewOf(search.get('view'));
+  const setTab = (next: string) =>
+    setSearch(
+      (s) => {
+        const n = new URLSearchParams(s);
+        if (next === 'rounds') n.delete('view');
+        else n.set('view', next);
+        return n;
+      },
+      { replace: true },
+    );
   const { mode } = useThemePreference();
   const drive = formatAzimuth(heading.driveTrend, 1);
   return (
@@ -83,9 +102,6 @@ export function HeadingRoute() {
       >
         <Tab className={styles.tab} value="rounds">
           Rounds
-        </Tab>
-        <Tab className={styles.tab} value="long-section" disabled>
-          Long section (coming)
         </Tab>
         <Tab className={styles.tab} value="orientation">
           Orientation

@@ -253,7 +253,7 @@ export function HazardRegister({ projectId, heading, role, faceChainage = null }
           until an engineer or supervisor closes them.
         </span>
       </div>
-      <h3>Open</h3>
+      <h2>Open</h2>
       {open.length === 0 ? (
         <EmptyState title="No open hazard on this heading" />
       ) : (
@@ -271,7 +271,7 @@ export function HazardRegister({ projectId, heading, role, faceChainage = null }
       )}
       {closed.length > 0 && (
         <div className={styles.section}>
-          <h3>Closed</h3>
+          <h2>Closed</h2>
           <ul className={styles.list} aria-label="Closed hazards">
             {closed.map((h) => (
               <HazardCard

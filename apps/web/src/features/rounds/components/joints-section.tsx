@@ -326,7 +326,8 @@ export function JointsSection({
                   />
                 )}
               </span>
-              <div className={styles.details}>
+              {/* The joint's further fields: a cell across the row (a row holds only cells; axe, ARIA 1.2). */}
+              <div role="cell" aria-colspan={11} className={styles.details}>
                 <Field label="JRC" size="small">
                   {numberInput(i, 'jrc', 'JRC')}
                 </Field>

@@ -265,9 +265,18 @@ function RoundEditorBody({
 
         {/* A round that is no longer a draft shows what it was submitted with, never a recomputation. */}
         {rules === undefined || readOnly ? (
-          <TriggerPanel level={server.triggerLevel} firings={server.triggerFirings} />
+          <TriggerPanel
+            level={server.triggerLevel}
+            firings={server.triggerFirings}
+            notEvaluated={server.triggersNotEvaluated}
+          />
         ) : (
-          <TriggerPanel level={assessment.triggers.level} firings={assessment.triggers.firings} live />
+          <TriggerPanel
+            level={assessment.triggers.level}
+            firings={assessment.triggers.firings}
+            notEvaluated={assessment.triggers.notEvaluated}
+            live
+          />
         )}
 
         {autosave.state === 'offline' && (

@@ -1,9 +1,10 @@
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import type { RoundPage, RoundSummary } from '@/features/rounds/api/types';
 import { RoundsTable } from '@/features/rounds/components/rounds-table';
 import { heading, renderWithProviders } from '@/features/rounds/testing/round-fixtures';
-import { mockApi, restoreFetch } from '@/testing/mock-api';
+import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
 
 afterEach(restoreFetch);
 
@@ -77,5 +78,41 @@ describe('RoundsTable', () => {
     expect(rows[0]).toHaveTextContent('C (changed)');
     expect(rows[1]).not.toHaveTextContent('changed');
     expect(rows[2]).toHaveTextContent('not yet');
+  });
+
+  it('reads its filters from the address and refuses a chainage it cannot read, with the reason (issue 19 item 9)', async () => {
+    const queries: string[] = [];
+    mockApi({
+      'GET /api/projects/p-1/headings/h-1/rounds': (request: Request) => {
+        queries.push(new URL(request.url).search);
+        return jsonResponse({ items: [summary(1, {})], total: 1, page: 1, pageSize: 25 });
+      },
+    });
+    renderWithProviders(
+      <MemoryRouter initialEntries={['/?status=submitted&from=1%2B000&sort=q']}>
+        <RoundsTable projectId="p-1" heading={heading} />
+      </MemoryRouter>,
+    );
+    await screen.findAllByTestId('round-row');
+    // The address's filters reach the server's query (a reload keeps them).
+    const first = new URLSearchParams(queries[0]);
+    expect(first.get('status')).toBe('submitted');
+    expect(first.get('fromChainage')).toBe('1000');
+    expect(first.get('sort')).toBe('q');
+    expect(screen.getByLabelText('From chainage')).toHaveValue('1+000');
+
+    const user = userEvent.setup();
+    const to = screen.getByLabelText('To chainage');
+    await user.type(to, 'xyz{Enter}');
+    expect(await screen.findByText(/xyz/)).toBeInTheDocument();
+    expect(to).toHaveAttribute('aria-invalid', 'true');
+    // Nothing was applied: no query with a "to" limit was sent.
+    expect(queries.some((q) => new URLSearchParams(q).has('toChainage'))).toBe(false);
+
+    await user.clear(to);
+    await user.type(to, '1+050{Enter}');
+    await waitFor(() =>
+      expect(queries.some((q) => new URLSearchParams(q).get('toChainage') === '1050')).toBe(true),
+    );
   });
 });

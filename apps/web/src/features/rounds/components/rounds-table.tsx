@@ -17,14 +17,14 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
-import { formatChainage } from '@roundbook/geomath';
+import { triggerLevelText } from '@roundbook/domain';
+import { formatChainage, parseChainage } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX, TriggerLevelBadge } from '@roundbook/ui';
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 import type { RoundListFilters } from '@/api/resources/keys';
 import { useRounds } from '@/features/rounds/api/get-round';
 import type { ChainageStyle, HeadingDetail, RoundStatus, Stage } from '@/features/rounds/api/types';
-import { chainageOf } from '@/features/rounds/schemas/round-form';
 import { shiftLabels, stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 
 export interface RoundsTableProps {
@@ -48,6 +48,9 @@ const useStyles = makeStyles({
   row: { height: '56px' },
   sortButton: { minHeight: `${TOUCH_TARGET_PX}px`, paddingInline: 0, fontWeight: tokens.fontWeightSemibold },
   link: {
+    // The theme's link colour: the browser's default blue read 2.2:1 on the high-contrast theme's black (axe).
+    color: tokens.colorBrandForeground1,
+    textDecorationThickness: '2px',
     fontWeight: tokens.fontWeightSemibold,
     fontSize: tokens.fontSizeBase400,
     display: 'inline-flex',
@@ -64,19 +67,89 @@ type SortKey = 'faceChainage' | 'shiftDate' | 'q' | 'rmr' | 'roundNumber';
 
 const formatQ = (q: number) => (q >= 10 ? q.toFixed(1) : q >= 1 ? q.toFixed(2) : q.toPrecision(2));
 
+const SORTS: readonly RoundListFilters['sort'][] = [
+  'faceChainage',
+  '-faceChainage',
+  'shiftDate',
+  '-shiftDate',
+  'q',
+  '-q',
+  'rmr',
+  '-rmr',
+  'roundNumber',
+  '-roundNumber',
+];
+
+/** A typed chainage filter: empty is no limit; anything else must read as a chainage (metres or km+m). */
+function readChainage(text: string): { value?: number; error?: string } {
+  if (text.trim() === '') return {};
+  try {
+    return { value: parseChainage(text) };
+  } catch (e) {
+    return { error: e instanceof Error ? e.message : 'Not a chainage.' };
+  }
+}
+
+/**
+ * The filters as the address holds them (`?status=&stage=&from=&to=&sort=&page=`), so a reload or a shared
+ * link keeps them (issue 19 item 9). Values that are not valid are left out, never guessed.
+ */
+function filtersOf(search: URLSearchParams, heading: HeadingDetail, pageSize: number): RoundListFilters {
+  const status = search.get('status') as RoundStatus | null;
+  const stage = search.get('stage') as Stage | null;
+  const sort = search.get('sort') as RoundListFilters['sort'] | null;
+  const page = Number(search.get('page'));
+  const from = readChainage(search.get('from') ?? '').value;
+  const to = readChainage(search.get('to') ?? '').value;
+  return {
+    page: Number.isInteger(page) && page >= 1 ? page : 1,
+    pageSize,
+    sort: sort !== null && SORTS.includes(sort) ? sort : '-faceChainage',
+    ...(status !== null && status in statusLabels ? { status } : {}),
+    ...(stage !== null && heading.stages.includes(stage) ? { stage } : {}),
+    ...(from !== undefined ? { fromChainage: from } : {}),
+    ...(to !== undefined ? { toChainage: to } : {}),
+  };
+}
+
 /** The Rounds tab: every round of the heading, paged, sorted and filtered by the server. */
 export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTableProps) {
   const styles = useStyles();
-  const [filters, setFilters] = useState<RoundListFilters>({ page: 1, pageSize, sort: '-faceChainage' });
-  const [from, setFrom] = useState('');
-  const [to, setTo] = useState('');
+  const [search, setSearch] = useSearchParams();
+  const filters = filtersOf(search, heading, pageSize);
+  const [from, setFrom] = useState(search.get('from') ?? '');
+  const [to, setTo] = useState(search.get('to') ?? '');
+  // A limit is checked when it is applied (leaving the field or Enter), then as it is corrected.
+  const [checked, setChecked] = useState(false);
+  const fromRead = checked ? readChainage(from) : {};
+  const toRead = checked ? readChainage(to) : {};
   const rounds = useRounds(projectId, heading.id, filters);
   const style: { style: ChainageStyle; decimals: number } = {
     style: heading.chainageStyle,
     decimals: heading.chainageDecimals,
   };
 
-  const update = (change: Partial<RoundListFilters>) => setFilters((f) => ({ ...f, page: 1, ...change }));
+  /** Writes the changed filters into the address (replacing the entry: filtering is not navigation). */
+  const write = (change: Record<string, string | undefined>) =>
+    setSearch(
+      (s) => {
+        const n = new URLSearchParams(s);
+        for (const [k, v] of Object.entries(change)) {
+          if (v === undefined || v === '') n.delete(k);
+          else n.set(k, v);
+        }
+        return n;
+      },
+      { replace: true },
+    );
+  const update = (change: Partial<RoundListFilters>) => {
+    const next: Record<string, string | undefined> = { page: undefined };
+    if ('status' in change) next.status = change.status;
+    if ('stage' in change) next.stage = change.stage;
+    if ('sort' in change) next.sort = change.sort === '-faceChainage' ? undefined : change.sort;
+    if (change.page !== undefined) next.page = change.page === 1 ? undefined : String(change.page);
+    write(next);
+  };
   const sortBy = (key: SortKey) =>
     update({
       sort: filters.sort === key ? `-${key}` : filters.sort === `-${key}` ? key : `-${key}`,
@@ -96,8 +169,11 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
     </TableHeaderCell>
   );
 
+  /** Applies both limits when each is empty or a chainage; a limit that is not is shown, not ignored. */
   const applyRange = () => {
-    update({ fromChainage: chainageOf(from) ?? undefined, toChainage: chainageOf(to) ?? undefined });
+    setChecked(true);
+    if (readChainage(from).error || readChainage(to).error) return;
+    write({ page: undefined, from: from.trim(), to: to.trim() });
   };
 
   const data = rounds.data;
@@ -134,7 +210,12 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
             ))}
           </Select>
         </Field>
-        <Field label="From chainage" size="large">
+        <Field
+          label="From chainage"
+          size="large"
+          validationState={fromRead.error ? 'error' : 'none'}
+          validationMessage={fromRead.error}
+        >
           <Input
             className={styles.input}
             value={from}
@@ -145,7 +226,12 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
             onKeyDown={(e) => e.key === 'Enter' && applyRange()}
           />
         </Field>
-        <Field label="To chainage" size="large">
+        <Field
+          label="To chainage"
+          size="large"
+          validationState={toRead.error ? 'error' : 'none'}
+          validationMessage={toRead.error}
+        >
           <Input
             className={styles.input}
             value={to}
@@ -205,7 +291,10 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
                 </Badge>
               </TableCell>
               <TableCell data-testid="round-trigger">
-                <TriggerLevelBadge level={r.triggerLevel} noneLabel="no rules" />
+                <TriggerLevelBadge
+                  level={r.triggerLevel}
+                  noneLabel={triggerLevelText(r.triggerLevel, r.triggersNotEvaluated)}
+                />
               </TableCell>
             </TableRow>
           ))}
@@ -221,7 +310,7 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
           className={styles.button}
           size="large"
           disabled={filters.page <= 1}
-          onClick={() => setFilters((f) => ({ ...f, page: f.page - 1 }))}
+          onClick={() => update({ page: filters.page - 1 })}
         >
           Previous page
         </Button>
@@ -234,7 +323,7 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
           className={styles.button}
           size="large"
           disabled={filters.page >= pages}
-          onClick={() => setFilters((f) => ({ ...f, page: f.page + 1 }))}
+          onClick={() => update({ page: filters.page + 1 })}
         >
           Next page
         </Button>

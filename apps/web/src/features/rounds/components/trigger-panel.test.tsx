@@ -101,4 +101,22 @@ describe('TriggerPanel', () => {
     expect(formatTimeAllowed(1.5)).toBe('within 1.5 h');
     expect(formatTimeAllowed(72)).toBe('within 72 h (3 days)');
   });
+
+  it('says "not evaluated (2 rules)" and which data are missing, never "no rules", when the project has rules (issue 10 item 8, issue 19 item 10)', () => {
+    renderWithProviders(
+      <TriggerPanel
+        level={null}
+        firings={[]}
+        live
+        notEvaluated={[
+          { summary: 'Q < 1 → amber', detail: 'Q is not recorded yet' },
+          { summary: 'Inflow per 10 m > 5 l/min → amber', detail: 'the inflow is not recorded yet' },
+        ]}
+      />,
+    );
+    const panel = screen.getByTestId('trigger-panel');
+    expect(within(panel).getByText('not evaluated (2 rules)')).toBeInTheDocument();
+    expect(panel).toHaveTextContent('Q < 1 → amber (Q is not recorded yet)');
+    expect(panel).not.toHaveTextContent('no trigger rules');
+  });
 });

@@ -1,4 +1,5 @@
 import { Button, Caption1, makeStyles, mergeClasses, Text, tokens } from '@fluentui/react-components';
+import { triggerLevelText } from '@roundbook/domain';
 import { roleLabels, TOUCH_TARGET_PX, TriggerLevelBadge } from '@roundbook/ui';
 import type { ProjectRole } from '@roundbook/ui';
 import { useId, useState } from 'react';
@@ -13,6 +14,8 @@ export interface TriggerPanelProps {
   shownAtFirst?: number;
   /** Worked out from the round as typed (true) or as the server found it at the last save. */
   live?: boolean;
+  /** Enabled rules this round lacks the input for: the level is not green until they are in. */
+  notEvaluated?: ReadonlyArray<{ summary: string; detail: string }>;
 }
 
 const useStyles = makeStyles({
@@ -96,7 +99,13 @@ function Firing({ firing }: { firing: TriggerFiring }) {
  * rules are read (the same assessment the server saves), as the server found them at the last save before.
  * Shown above the sections, so it is in sight whatever the geologist is filling in.
  */
-export function TriggerPanel({ level, firings, shownAtFirst = 2, live = false }: TriggerPanelProps) {
+export function TriggerPanel({
+  level,
+  firings,
+  shownAtFirst = 2,
+  live = false,
+  notEvaluated = [],
+}: TriggerPanelProps) {
   const styles = useStyles();
   const titleId = useId();
   const listId = useId();
@@ -107,11 +116,13 @@ export function TriggerPanel({ level, firings, shownAtFirst = 2, live = false }:
 
   const basis = live ? 'As typed; saved with the round.' : 'As of the last save.';
   const note =
-    level === null
-      ? 'The project has no trigger rules yet; an admin or engineer adds them in Setup.'
-      : firings.length === 0
-        ? `No rule fires on this round. ${basis}`
-        : `${firings.length} ${firings.length === 1 ? 'rule fires' : 'rules fire'}, worst first. ${basis}`;
+    level === null && notEvaluated.length > 0
+      ? `Not evaluated until the round has their data: ${notEvaluated.map((r) => `${r.summary} (${r.detail})`).join('; ')}. ${basis}`
+      : level === null
+        ? 'The project has no trigger rules yet; an admin or engineer adds them in Setup.'
+        : firings.length === 0
+          ? `No rule fires on this round. ${basis}`
+          : `${firings.length} ${firings.length === 1 ? 'rule fires' : 'rules fire'}, worst first. ${basis}`;
 
   return (
     <section
@@ -123,7 +134,11 @@ export function TriggerPanel({ level, firings, shownAtFirst = 2, live = false }:
         <h2 id={titleId} className={styles.title}>
           Trigger level
         </h2>
-        <TriggerLevelBadge level={level} noneLabel="no rules" size="extra-large" />
+        <TriggerLevelBadge
+          level={level}
+          noneLabel={triggerLevelText(level, notEvaluated.length)}
+          size="extra-large"
+        />
         <Caption1 className={styles.note}>{note}</Caption1>
       </div>
       {firings.length > 0 && (

@@ -477,7 +477,6 @@ export function SketchSection(props: SketchSectionProps) {
                 size="large"
                 appearance="subtle"
                 checked={selectedJoint === j.id}
-                aria-label={`${j.label}${tracedJoints.has(j.id) ? ', traced on the sketch' : ''}`}
                 data-testid={`sketch-joint-${j.id}`}
                 onClick={() => {
                   setSelectedJoint(selectedJoint === j.id ? null : j.id);
@@ -490,10 +489,14 @@ export function SketchSection(props: SketchSectionProps) {
                   {j.label}
                   {j.setLabel ? ` · ${j.setLabel}` : ''}
                 </span>
+                {/* The name is the visible text (axe label-content-name-mismatch): "Joint 1 · 130/50 · S1 Traced on the sketch" */}
                 {tracedJoints.has(j.id) && (
-                  <Badge appearance="tint" color="brand">
-                    Traced
-                  </Badge>
+                  <>
+                    {' '}
+                    <Badge appearance="tint" color="brand">
+                      Traced on the sketch
+                    </Badge>
+                  </>
                 )}
               </ToggleButton>
             );
