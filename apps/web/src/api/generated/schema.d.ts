@@ -2009,6 +2009,28 @@ export interface components {
             signedAt: string;
         };
         /** @enum {string} */
+        ChangeAspect: "class" | "q" | "rmr89" | "water" | "set" | "feature";
+        /** @enum {string} */
+        ChangeTrend: "worse" | "better" | "new" | "gone" | "changed" | "same" | "unknown";
+        RoundChangeDto: {
+            aspect: components["schemas"]["ChangeAspect"];
+            trend: components["schemas"]["ChangeTrend"];
+            label: string;
+            before: string;
+            after: string;
+            text: string;
+        };
+        SincePreviousDto: {
+            /** @description The previous round; null when there is none or it was never submitted (see note) */
+            previousRoundId: string | null;
+            previousRoundNumber: number | null;
+            /** @description The previous round's revision compared with */
+            previousRevision: number | null;
+            changes: components["schemas"]["RoundChangeDto"][];
+            /** @description Why nothing is compared, when nothing is */
+            note: string;
+        };
+        /** @enum {string} */
         ReviewSection: "position" | "ground" | "joints" | "ratings" | "support" | "triggers" | "general";
         ReviewCommentDto: {
             section: components["schemas"]["ReviewSection"];
@@ -2059,6 +2081,8 @@ export interface components {
             confirmedAt: string | null;
             /** @description The last confirmation, if the round is confirmed */
             confirmation: components["schemas"]["ReviewDecisionDto"] | null;
+            /** @description Changes since the previous round of the heading and stage; null before the round is submitted */
+            sincePrevious: components["schemas"]["SincePreviousDto"] | null;
             roundId: string;
             revision: number;
             version: number;
