@@ -257,6 +257,13 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       confirmedClassCode: 'C2',
     });
     expect(confirmed.decisions.map((d: Body) => d.decision)).toEqual(['return', 'confirm']);
+    // The Board's heading card shows the confirmed class (not the recommended one).
+    const projects = (await request(http).get('/api/projects').set(p.as('viewer')).expect(200))
+      .body as Body[];
+    const card = (projects.find((x) => x.id === p.projectId)!.headings as Body[]).find(
+      (h) => h.id === p.headingId,
+    )!;
+    expect(card.confirmedClass).toMatchObject({ code: 'C2', roundNumber: 1, stage: 'full-face' });
 
     // Locked: the geologist's save is refused.
     const locked = await saveRound(await getRound(submitted.id, 'geologist'), fairQ, 'C1', {}, 409);

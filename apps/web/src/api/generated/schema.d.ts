@@ -1170,6 +1170,12 @@ export interface components {
             /** @description Not acknowledged and past its time (the project's handover acknowledgement minutes) */
             overdue: boolean;
         };
+        ConfirmedClassDto: {
+            stage: components["schemas"]["Stage"];
+            code: string;
+            roundNumber: number;
+            confirmedAt: string;
+        };
         HeadingSummaryDto: {
             /** @description How the heading writes its chainages (every chainage on the Board is shown in it) */
             chainageStyle: components["schemas"]["ChainageStyle"];
@@ -1182,6 +1188,7 @@ export interface components {
             lastRoundAt: string | null;
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             lastHandover: components["schemas"]["LastHandoverDto"] | null;
+            confirmedClass: components["schemas"]["ConfirmedClassDto"] | null;
             id: string;
             code: string;
             name: string;
