@@ -257,6 +257,13 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       confirmedClassCode: 'C2',
     });
     expect(confirmed.decisions.map((d: Body) => d.decision)).toEqual(['return', 'confirm']);
+    // The Board's heading card shows the confirmed class (not the recommended one).
+    const projects = (await request(http).get('/api/projects').set(p.as('viewer')).expect(200))
+      .body as Body[];
+    const card = (projects.find((x) => x.id === p.projectId)!.headings as Body[]).find(
+      (h) => h.id === p.headingId,
+    )!;
+    expect(card.confirmedClass).toMatchObject({ code: 'C2', roundNumber: 1, stage: 'full-face' });
 
     // Locked: the geologist's save is refused.
     const locked = await saveRound(await getRound(submitted.id, 'geologist'), fairQ, 'C1', {}, 409);
@@ -479,6 +486,45 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       expect(overdue[0].text).toContain(`/projects/${p.projectId}/rounds/${r.id}`);
       expect(overdue[0].text).toContain(CAUTION);
       expect(overdue[0].html).toContain('Open the round');
+    } finally {
+      p = main;
+    }
+  });
+  it('the review says what changed since the previous round of the stage, from the frozen assessments', async () => {
+    const main = p;
+    p = await makeProject(app, { code: `${code}C`, rules: [] });
+    try {
+      const one = await mapRound(1003, fairQ, 'C1');
+      const firstReview = await getReview(one.id);
+      expect(firstReview.sincePrevious).toMatchObject({
+        previousRoundId: null,
+        changes: [],
+        note: expect.stringMatching(/first round/),
+      });
+      // A draft round is not compared (nothing frozen yet).
+      const two = await mapRound(1006, poorQ, 'C3', false);
+      expect((await getReview(two.id)).sincePrevious).toBeNull();
+      await request(http)
+        .post(`${p.base}/rounds/${two.id}/submit`)
+        .set(p.as('geologist'))
+        .send({ version: two.version })
+        .expect(200);
+      const since = (await getReview(two.id, 'viewer')).sincePrevious as Body;
+      expect(since).toMatchObject({
+        previousRoundId: one.id,
+        previousRoundNumber: 1,
+        previousRevision: 1,
+        note: '',
+      });
+      const of = (aspect: string) => (since.changes as Body[]).find((c) => c.aspect === aspect);
+      expect(of('class')).toMatchObject({
+        trend: 'changed',
+        before: 'C1 (recommended)',
+        after: 'C3 (recommended)',
+      });
+      // Q 11.25 → 0.11 (the comments beside fairQ and poorQ).
+      expect(of('q')).toMatchObject({ trend: 'worse', before: '11', after: '0.11' });
+      expect(of('water')).toMatchObject({ trend: 'same' });
     } finally {
       p = main;
     }

@@ -74,6 +74,12 @@ export const harrowdale: ProjectSummary = {
         overdue: false,
       },
       supportOutstanding: true,
+      confirmedClass: {
+        code: 'B',
+        roundNumber: 41,
+        stage: 'top-heading',
+        confirmedAt: '2026-11-30T16:10:00Z',
+      },
     },
     {
       id: 'h-2',
@@ -96,6 +102,7 @@ export const harrowdale: ProjectSummary = {
       triggerLevel: null,
       lastHandover: null,
       supportOutstanding: false,
+      confirmedClass: null,
     },
   ],
 };

@@ -19,6 +19,8 @@ export interface HeadingProgress {
     ackDueAt: string;
     overdue: boolean;
   } | null;
+  /** The class the engineer confirmed on the heading's most recently confirmed round */
+  confirmedClass?: { code: string; roundNumber: number; stage: string; confirmedAt: string } | null;
   /** The latest confirmed round of a stage has support outstanding (support-records) */
   supportOutstanding?: boolean;
 }

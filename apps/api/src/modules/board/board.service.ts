@@ -119,6 +119,28 @@ export class BoardService implements HeadingProgressPort {
       };
       out.set(h.headingId, entry);
     }
+    // The class being built: the one confirmed on the heading's most recently confirmed round.
+    const confirmed = await this.dataSource.query<
+      Array<{ headingId: string; code: string; roundNumber: number; stage: string; confirmedAt: Date }>
+    >(
+      `SELECT r.heading_id AS headingId, c.code AS code, r.round_number AS roundNumber, r.stage AS stage,
+              r.confirmed_at AS confirmedAt
+         FROM rounds r JOIN support_classes c ON c.id = r.confirmed_class_id
+        WHERE r.heading_id IN (${headingIds.map(() => '?').join(', ')}) AND r.status = 'confirmed'
+          AND r.confirmed_at = (SELECT MAX(x.confirmed_at) FROM rounds x
+                                 WHERE x.heading_id = r.heading_id AND x.status = 'confirmed')`,
+      headingIds,
+    );
+    for (const c of confirmed) {
+      const entry = out.get(c.headingId);
+      if (entry)
+        entry.confirmedClass = {
+          code: c.code,
+          roundNumber: Number(c.roundNumber),
+          stage: c.stage,
+          confirmedAt: new Date(c.confirmedAt).toISOString(),
+        };
+    }
     // Support as built: the latest confirmed round of a stage with items outstanding (support-records).
     const outstanding = await this.supportRecords.outstandingHeadings(headingIds);
     for (const [headingId, entry] of out) entry.supportOutstanding = outstanding.has(headingId);

@@ -31,6 +31,7 @@ export function toHeadingSummary(h: Heading, progress: HeadingProgress = NO_PROG
     plannedRoundLength: h.plannedRoundLength,
     ...progress,
     lastHandover: progress.lastHandover ?? null,
+    confirmedClass: progress.confirmedClass ?? null,
     supportOutstanding: progress.supportOutstanding ?? false,
   };
 }

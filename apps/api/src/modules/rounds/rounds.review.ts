@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { formatChainageFor, type TriggerFiring } from '@roundbook/domain';
+import { formatChainageFor, roundChanges, type FrozenRoundView, type TriggerFiring } from '@roundbook/domain';
 import { DataSource, In, IsNull, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
@@ -28,6 +28,7 @@ import type {
   ReviewQueueDto,
   ReviewQueueItemDto,
   RoundReviewDto,
+  SincePreviousDto,
 } from './dto/review.dto.js';
 import { Joint } from './joint.entity.js';
 import {
@@ -192,7 +193,62 @@ export class RoundsReview implements OnModuleInit {
           })
         : [],
       separationOfDuties: project.separationOfDuties,
+      sincePrevious: reviewable ? await this.sincePrevious(manager, round, classes) : null,
       caution: REVIEW_CAUTION,
+    };
+  }
+
+  /**
+   * What changed since the previous round of the heading and stage: this round's last frozen revision
+   * against the previous round's last frozen one (domain roundChanges). Nothing is recomputed.
+   */
+  private async sincePrevious(
+    manager: EntityManager,
+    round: Round,
+    classes: SupportClass[],
+  ): Promise<SincePreviousDto> {
+    const none = (note: string, prev?: Round): SincePreviousDto => ({
+      previousRoundId: prev?.id ?? null,
+      previousRoundNumber: prev?.roundNumber ?? null,
+      previousRevision: null,
+      changes: [],
+      note,
+    });
+    if (round.roundNumber <= 1) return none('This is the first round of the heading at this stage.');
+    const previous = await manager.findOne(Round, {
+      where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
+      select: { id: true, roundNumber: true },
+    });
+    if (!previous) return none('The previous round of this stage is not recorded.');
+    const latest = (roundId: string) =>
+      manager.findOne(RoundRevision, {
+        where: { roundId },
+        order: { revision: 'DESC', createdAt: 'DESC' },
+      });
+    const [mine, theirs] = await Promise.all([latest(round.id), latest(previous.id)]);
+    if (!theirs)
+      return none(
+        `Round ${previous.roundNumber} was never submitted: there is nothing frozen to compare.`,
+        previous,
+      );
+    if (!mine) return none('This round has no frozen revision yet.', previous);
+    const codeOf = (id: unknown) =>
+      typeof id === 'string' ? (classes.find((c) => c.id === id)?.code ?? null) : null;
+    const view = (rev: RoundRevision, roundNumber: number): FrozenRoundView => {
+      const confirmed = rev.status === 'confirmed' && typeof rev.record.confirmedClassId === 'string';
+      return {
+        roundNumber,
+        classCode: codeOf(confirmed ? rev.record.confirmedClassId : rev.record.recommendedClassId),
+        classConfirmed: confirmed,
+        assessment: rev.assessment,
+      };
+    };
+    return {
+      previousRoundId: previous.id,
+      previousRoundNumber: previous.roundNumber,
+      previousRevision: theirs.revision,
+      changes: roundChanges(view(theirs, previous.roundNumber), view(mine, round.roundNumber)),
+      note: '',
     };
   }
 

@@ -1170,6 +1170,12 @@ export interface components {
             /** @description Not acknowledged and past its time (the project's handover acknowledgement minutes) */
             overdue: boolean;
         };
+        ConfirmedClassDto: {
+            stage: components["schemas"]["Stage"];
+            code: string;
+            roundNumber: number;
+            confirmedAt: string;
+        };
         HeadingSummaryDto: {
             /** @description How the heading writes its chainages (every chainage on the Board is shown in it) */
             chainageStyle: components["schemas"]["ChainageStyle"];
@@ -1182,6 +1188,7 @@ export interface components {
             lastRoundAt: string | null;
             triggerLevel: components["schemas"]["TriggerLevel"] | null;
             lastHandover: components["schemas"]["LastHandoverDto"] | null;
+            confirmedClass: components["schemas"]["ConfirmedClassDto"] | null;
             id: string;
             code: string;
             name: string;
@@ -2009,6 +2016,28 @@ export interface components {
             signedAt: string;
         };
         /** @enum {string} */
+        ChangeAspect: "class" | "q" | "rmr89" | "water" | "set" | "feature";
+        /** @enum {string} */
+        ChangeTrend: "worse" | "better" | "new" | "gone" | "changed" | "same" | "unknown";
+        RoundChangeDto: {
+            aspect: components["schemas"]["ChangeAspect"];
+            trend: components["schemas"]["ChangeTrend"];
+            label: string;
+            before: string;
+            after: string;
+            text: string;
+        };
+        SincePreviousDto: {
+            /** @description The previous round; null when there is none or it was never submitted (see note) */
+            previousRoundId: string | null;
+            previousRoundNumber: number | null;
+            /** @description The previous round's revision compared with */
+            previousRevision: number | null;
+            changes: components["schemas"]["RoundChangeDto"][];
+            /** @description Why nothing is compared, when nothing is */
+            note: string;
+        };
+        /** @enum {string} */
         ReviewSection: "position" | "ground" | "joints" | "ratings" | "support" | "triggers" | "general";
         ReviewCommentDto: {
             section: components["schemas"]["ReviewSection"];
@@ -2059,6 +2088,8 @@ export interface components {
             confirmedAt: string | null;
             /** @description The last confirmation, if the round is confirmed */
             confirmation: components["schemas"]["ReviewDecisionDto"] | null;
+            /** @description Changes since the previous round of the heading and stage; null before the round is submitted */
+            sincePrevious: components["schemas"]["SincePreviousDto"] | null;
             roundId: string;
             revision: number;
             version: number;

@@ -42,7 +42,13 @@ describe('Board', () => {
       'outstanding on the last confirmed round',
     );
 
+    // The class being built: confirmed on the heading's most recently confirmed round.
+    expect(within(upstream).getByTestId('confirmed-class')).toHaveTextContent(
+      'B, confirmed on round 41 (top heading)',
+    );
+
     const downstream = within(board).getByRole('article', { name: 'Downstream drive from Adit 2' });
+    expect(downstream).toHaveTextContent('Support classnone confirmed yet');
     // Each heading's own chainage style (this one writes metres).
     expect(downstream).toHaveTextContent('no rounds yet (starts at 1000.0)');
     expect(downstream).toHaveTextContent('Support as builtnothing outstanding');

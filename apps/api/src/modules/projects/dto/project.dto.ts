@@ -30,6 +30,15 @@ export class LastHandoverDto {
   overdue: boolean;
 }
 
+/** The class confirmed on the heading's most recently confirmed round (the class being built) */
+export class ConfirmedClassDto {
+  code: string;
+  roundNumber: number;
+  @ApiProperty({ enum: ['full-face', 'top-heading', 'bench', 'invert'], enumName: 'Stage' })
+  stage: string;
+  confirmedAt: string;
+}
+
 export class HeadingSummaryDto {
   id: string;
   code: string;
@@ -65,6 +74,8 @@ export class HeadingSummaryDto {
   triggerLevel: 'green' | 'amber' | 'red' | null;
   @ApiProperty({ type: LastHandoverDto, nullable: true })
   lastHandover: LastHandoverDto | null;
+  @ApiProperty({ type: ConfirmedClassDto, nullable: true })
+  confirmedClass: ConfirmedClassDto | null;
   /** The latest confirmed round of a stage has support outstanding (or none recorded yet while its class names some) */
   supportOutstanding: boolean;
 }

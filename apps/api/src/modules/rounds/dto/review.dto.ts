@@ -1,5 +1,5 @@
 import { ApiProperty } from '@nestjs/swagger';
-import { ROUND_STATUSES, STAGES, TRIGGER_LEVELS } from '@roundbook/domain';
+import { CHANGE_ASPECTS, CHANGE_TRENDS, ROUND_STATUSES, STAGES, TRIGGER_LEVELS } from '@roundbook/domain';
 import { Type } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -127,6 +127,33 @@ export class ReviewPermissionDto {
 }
 
 /** The review of one round: the confirmation, the decisions, the open comments, and the caller's options. */
+/** One change from the previous round of the heading and stage to this one */
+export class RoundChangeDto {
+  @ApiProperty({ enum: CHANGE_ASPECTS, enumName: 'ChangeAspect' })
+  aspect: string;
+  label: string;
+  before: string;
+  after: string;
+  @ApiProperty({ enum: CHANGE_TRENDS, enumName: 'ChangeTrend' })
+  trend: string;
+  text: string;
+}
+
+/** What changed since the previous round of the heading and stage, from the two frozen assessments */
+export class SincePreviousDto {
+  /** The previous round; null when there is none or it was never submitted (see note) */
+  @ApiProperty({ type: String, nullable: true })
+  previousRoundId: string | null;
+  @ApiProperty({ type: Number, nullable: true })
+  previousRoundNumber: number | null;
+  /** The previous round's revision compared with */
+  @ApiProperty({ type: Number, nullable: true })
+  previousRevision: number | null;
+  changes: RoundChangeDto[];
+  /** Why nothing is compared, when nothing is */
+  note: string;
+}
+
 export class RoundReviewDto {
   roundId: string;
   @ApiProperty({ enum: ROUND_STATUSES, enumName: 'RoundStatus' })
@@ -158,6 +185,9 @@ export class RoundReviewDto {
   /** The geologist may mark return comments resolved */
   canResolve: boolean;
   separationOfDuties: boolean;
+  /** Changes since the previous round of the heading and stage; null before the round is submitted */
+  @ApiProperty({ type: SincePreviousDto, nullable: true })
+  sincePrevious: SincePreviousDto | null;
   caution: string;
 }
 

@@ -158,6 +158,15 @@ export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProp
         <Fact term="Last round">
           {heading.lastRoundAt === null ? 'none yet' : formatProjectTime(heading.lastRoundAt, timeZone)}
         </Fact>
+        <Fact term="Support class">
+          {heading.confirmedClass ? (
+            <span data-testid="confirmed-class">
+              {`${heading.confirmedClass.code}, confirmed on round ${heading.confirmedClass.roundNumber} (${stageLabels[heading.confirmedClass.stage].toLowerCase()})`}
+            </span>
+          ) : (
+            'none confirmed yet'
+          )}
+        </Fact>
         <Fact term="Waiting for review">
           {heading.roundsToConfirm > 0 && reviewTo ? (
             <Link className={mergeClasses(styles.attention, styles.link)} to={reviewTo}>

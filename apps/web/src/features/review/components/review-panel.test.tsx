@@ -112,6 +112,81 @@ describe('ReviewPanel', () => {
     );
   });
 
+  it('shows what changed since the previous round, each change in a word, or why nothing is compared', async () => {
+    mockApi({
+      [REVIEW]: submittedReview({
+        sincePrevious: {
+          previousRoundId: 'r-0',
+          previousRoundNumber: 11,
+          previousRevision: 1,
+          note: '',
+          changes: [
+            {
+              aspect: 'class',
+              label: 'Support class',
+              before: 'A (confirmed)',
+              after: 'B (recommended)',
+              trend: 'changed',
+              text: 'Support class A → B',
+            },
+            {
+              aspect: 'q',
+              label: 'Q',
+              before: '4',
+              after: '0.8',
+              trend: 'worse',
+              text: 'Q fell from 4 to 0.8',
+            },
+            {
+              aspect: 'water',
+              label: 'Inflow per 10 m',
+              before: '5 l/min',
+              after: '5 l/min',
+              trend: 'same',
+              text: 'Inflow per 10 m unchanged at 5 l/min',
+            },
+            {
+              aspect: 'set',
+              label: 'Set C',
+              before: '—',
+              after: '030/85',
+              trend: 'new',
+              text: 'New set C (030/85)',
+            },
+          ],
+        },
+      }),
+    });
+    panel();
+    const since = await screen.findByTestId('since-previous');
+    expect(within(since).getByRole('heading', { name: 'Since round 11' })).toBeInTheDocument();
+    const rows = within(since).getAllByRole('row').slice(1);
+    expect(rows.map((r) => r.textContent)).toEqual([
+      'Support classA (confirmed)B (recommended)changed',
+      'Q40.8worse',
+      'Inflow per 10 m5 l/min5 l/minunchanged',
+      'Set C—030/85new',
+    ]);
+  });
+
+  it('says why nothing is compared on the first round of a stage', async () => {
+    mockApi({
+      [REVIEW]: submittedReview({
+        sincePrevious: {
+          previousRoundId: null,
+          previousRoundNumber: null,
+          previousRevision: null,
+          note: 'This is the first round of the heading at this stage.',
+          changes: [],
+        },
+      }),
+    });
+    panel();
+    expect(await screen.findByTestId('since-previous')).toHaveTextContent(
+      'This is the first round of the heading at this stage.',
+    );
+  });
+
   it('shows the geologist the return comments to work through, and no decision', async () => {
     mockApi({ [REVIEW]: returnedReview() });
     panel();

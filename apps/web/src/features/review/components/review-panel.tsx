@@ -29,6 +29,7 @@ import type {
 import { useReviewAction, useRoundReview } from '@/features/review/api/review';
 import { ReviewCaution } from '@/features/review/components/review-caution';
 import { RevisionCompare } from '@/features/review/components/revision-compare';
+import { SincePreviousRound } from '@/features/review/components/since-previous';
 import { SubmittedSketch } from '@/features/review/components/submitted-sketch';
 import { TriggerPlan } from '@/features/review/components/trigger-plan';
 import { needsReason, SECTIONS, sectionLabels } from '@/features/review/utils/format';
@@ -388,6 +389,7 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
       <Subtitle1 as="h2">Review</Subtitle1>
       <ReviewCaution text={review.caution} />
       <SubmittedSketch projectId={projectId} roundId={roundId} />
+      {review.sincePrevious ? <SincePreviousRound since={review.sincePrevious} /> : null}
       {review.confirmation ? (
         <section aria-label="Confirmation">
           <Subtitle2 as="h3">{`Confirmed (revision ${review.confirmation.revision})`}</Subtitle2>

@@ -35,6 +35,7 @@ export function submittedReview(extra: Partial<RoundReview> = {}): RoundReview {
     canCorrect: refused('Only a confirmed round is corrected.'),
     canResolve: true,
     separationOfDuties: true,
+    sincePrevious: null,
     caution: CAUTION,
     ...extra,
   };

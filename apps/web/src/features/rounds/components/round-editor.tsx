@@ -258,6 +258,17 @@ function RoundEditorBody({
               >
                 {statusLabels[server.status]}
               </Badge>
+              {server.status === 'confirmed' && server.confirmedClassId !== null ? (
+                <Badge
+                  size="extra-large"
+                  appearance="filled"
+                  shape="rounded"
+                  color="brand"
+                  data-testid="confirmed-class"
+                >
+                  {`Class ${supportClasses.find((c) => c.id === server.confirmedClassId)?.code ?? '?'} confirmed`}
+                </Badge>
+              ) : null}
               <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
             </>
           }
