@@ -39,6 +39,9 @@ const env = {
   // No background jobs: every statement counted below comes from the requests themselves.
   WORKER_ENABLED: 'false',
   LOGIN_RATE_LIMIT: '1000',
+  // The liveness route is anonymous, and anonymous routes are limited per address (120 a minute by default):
+  // the load generator is one address, so the limit is lifted for this run only.
+  PUBLIC_RATE_LIMIT: '100000000',
   NODE_ENV: 'production',
 };
 const apiUrl = `http://127.0.0.1:${env.PORT}`;
@@ -205,12 +208,12 @@ try {
   ];
   routes[0].request.headers = {};
 
-  // Statements per request: MariaDB's Questions counter over 40 sequential requests of each route
+  // Statements per request: MariaDB's Questions counter over 20 sequential requests of each route
   // (the counter's own SELECT taken off), with no background worker running.
   const questions = () =>
     Number(db.rootSql(`SHOW GLOBAL STATUS LIKE 'Questions';`).stdout.trim().split('\n').pop().split('\t')[1]);
-  step('Counting SQL statements per request (40 sequential requests per route)');
-  const N = 40;
+  step('Counting SQL statements per request (20 sequential requests per route)');
+  const N = 20;
   for (const r of routes) {
     const before = questions();
     let bytes = 0;
