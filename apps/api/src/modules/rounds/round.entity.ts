@@ -42,6 +42,7 @@ export interface GroundRecord {
 @Index('IDX_rounds_heading_date', ['headingId', 'shiftDate'])
 @Index('IDX_rounds_heading_q', ['headingId', 'q'])
 @Index('IDX_rounds_heading_rmr', ['headingId', 'rmr'])
+@Index('IDX_rounds_heading_mapped', ['headingId', 'mappedAt'])
 // Covers the Board's per-heading aggregates (board.service, support-records outstandingHeadings).
 @Index('IDX_rounds_heading_progress', [
   'headingId',
