@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { LEVEL_RANK } from '@roundbook/domain';
 import { DataSource } from 'typeorm';
 import type { HeadingProgress, HeadingProgressPort } from '../../common/ports/heading-progress.port.js';
-import { Round } from '../rounds/round.entity.js';
+import { STAGES } from '../headings/heading.entity.js';
 import { SupportRecordsService } from '../support-records/support-records.service.js';
 
 const num = (v: string | null): number | null => (v === null ? null : Number(v));
@@ -31,47 +31,50 @@ export class BoardService implements HeadingProgressPort {
 
   async progress(headingIds: string[], now = new Date()): Promise<Map<string, HeadingProgress>> {
     if (headingIds.length === 0) return new Map();
-    const rows = await this.dataSource
-      .createQueryBuilder()
-      .from(Round, 'r')
-      .innerJoin('headings', 'h', 'h.id = r.heading_id')
-      .select('r.heading_id', 'headingId')
-      // The face furthest along the drive (the lowest chainage on a heading driven against the chainage),
-      // among rounds handed in; a draft's face apart, so a typo in a draft does not move the heading's face.
-      .addSelect(
-        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(IF(r.status <> 'draft', r.face_chainage, NULL)) ELSE MAX(IF(r.status <> 'draft', r.face_chainage, NULL)) END",
-        'faceChainage',
-      )
-      .addSelect(
-        "CASE WHEN h.chainage_sense = 'decreasing' THEN MIN(IF(r.status = 'draft', r.face_chainage, NULL)) ELSE MAX(IF(r.status = 'draft', r.face_chainage, NULL)) END",
-        'draftFaceChainage',
-      )
-      .addSelect('h.chainage_sense', 'chainageSense')
-      .addSelect('MAX(r.mapped_at)', 'lastRoundAt')
-      .addSelect("SUM(r.status = 'submitted')", 'toConfirm')
-      .where('r.heading_id IN (:...headingIds)', { headingIds })
-      .groupBy('r.heading_id')
-      .addGroupBy('h.chainage_sense')
-      .getRawMany<{
+    // One row per heading that has rounds, each figure read by an index seek (at 30,000 rounds the former
+    // GROUP BY read every round of the heading at every Board request; `npm run load`).
+    // The face furthest along the drive (the lowest chainage on a heading driven against the chainage),
+    // among rounds handed in; a draft's face apart, so a typo in a draft does not move the heading's face.
+    const face = (op: '<>' | '=', dir: 'ASC' | 'DESC') =>
+      `(SELECT r.face_chainage FROM rounds r WHERE r.heading_id = h.id AND r.status ${op} 'draft' ORDER BY r.face_chainage ${dir} LIMIT 1)`;
+    const rows = await this.dataSource.query<
+      Array<{
         headingId: string;
         faceChainage: string | null;
         draftFaceChainage: string | null;
         chainageSense: 'increasing' | 'decreasing';
-        lastRoundAt: Date | string;
+        lastRoundAt: Date | string | null;
         toConfirm: string;
-      }>();
+      }>
+    >(
+      `SELECT p.* FROM (
+         SELECT h.id AS headingId, h.chainage_sense AS chainageSense,
+                IF(h.chainage_sense = 'decreasing', ${face('<>', 'ASC')}, ${face('<>', 'DESC')}) AS faceChainage,
+                IF(h.chainage_sense = 'decreasing', ${face('=', 'ASC')}, ${face('=', 'DESC')}) AS draftFaceChainage,
+                (SELECT MAX(r.mapped_at) FROM rounds r WHERE r.heading_id = h.id) AS lastRoundAt,
+                (SELECT COUNT(*) FROM rounds r WHERE r.heading_id = h.id AND r.status = 'submitted') AS toConfirm
+           FROM headings h WHERE h.id IN (?)) p
+        WHERE p.lastRoundAt IS NOT NULL`,
+      [headingIds],
+    );
     // The heading's level is the worst among the latest evaluated round of each stage (top heading and bench
     // advance apart); a round whose rules still lack their data has no level and does not count as green.
-    const levels = await this.dataSource
-      .createQueryBuilder()
-      .from(Round, 'r')
-      .select('r.heading_id', 'headingId')
-      .addSelect('r.trigger_level', 'triggerLevel')
-      .where('r.heading_id IN (:...headingIds)', { headingIds })
-      .andWhere(
-        '(r.heading_id, r.stage, r.round_number) IN (SELECT x.heading_id, x.stage, MAX(x.round_number) FROM rounds x WHERE x.heading_id IN (:...headingIds) AND x.trigger_level IS NOT NULL GROUP BY x.heading_id, x.stage)',
-      )
-      .getRawMany<{ headingId: string; triggerLevel: HeadingProgress['triggerLevel'] }>();
+    // One seek per heading and stage: the unique (heading, stage, number) index read backwards.
+    const levels = await this.dataSource.query<
+      Array<{ headingId: string; triggerLevel: HeadingProgress['triggerLevel'] }>
+    >(
+      headingIds
+        .flatMap(() =>
+          STAGES.map(
+            () =>
+              `(SELECT r.heading_id AS headingId, r.trigger_level AS triggerLevel FROM rounds r
+                 WHERE r.heading_id = ? AND r.stage = ? AND r.trigger_level IS NOT NULL
+                 ORDER BY r.round_number DESC LIMIT 1)`,
+          ),
+        )
+        .join(' UNION ALL '),
+      headingIds.flatMap((id) => STAGES.flatMap((stage) => [id, stage])),
+    );
     const levelOf = new Map<string, HeadingProgress['triggerLevel']>();
     for (const l of levels) {
       const current = levelOf.get(l.headingId) ?? null;
@@ -97,7 +100,7 @@ export class BoardService implements HeadingProgressPort {
         {
           faceChainage: num(r.faceChainage),
           draftFaceChainage: beyond(r),
-          lastRoundAt: new Date(r.lastRoundAt).toISOString(),
+          lastRoundAt: new Date(r.lastRoundAt!).toISOString(),
           roundsToConfirm: Number(r.toConfirm),
           triggerLevel: levelOf.get(r.headingId) ?? null,
         },

@@ -40,6 +40,19 @@ export interface GroundRecord {
 @Index('IDX_rounds_heading_chainage', ['headingId', 'faceChainage'])
 @Index('IDX_rounds_heading_status', ['headingId', 'status'])
 @Index('IDX_rounds_heading_date', ['headingId', 'shiftDate'])
+@Index('IDX_rounds_heading_q', ['headingId', 'q'])
+@Index('IDX_rounds_heading_rmr', ['headingId', 'rmr'])
+@Index('IDX_rounds_heading_mapped', ['headingId', 'mappedAt'])
+// Covers the Board's per-heading aggregates (board.service, support-records outstandingHeadings).
+@Index('IDX_rounds_heading_progress', [
+  'headingId',
+  'status',
+  'stage',
+  'roundNumber',
+  'faceChainage',
+  'mappedAt',
+  'triggerLevel',
+])
 export class Round {
   /** Client-generated UUID (accepted on create) or made by the API. */
   @PrimaryColumn('uuid')

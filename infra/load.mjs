@@ -1,0 +1,343 @@
+#!/usr/bin/env node
+// `npm run load`: the load and speed proof (issue 20, item 4). Starts its own MariaDB (own data folder and
+// database), the S3 and SMTP fakes and the API on 127.0.0.1 (test ports moved by RB_TEST_PORT_OFFSET + 20),
+// seeds the demo and a large project (30,000 rounds, 450,000 joints, two headings; apps/api/src/bench/
+// load-seed.ts), counts the SQL statements each route sends, then runs autocannon one route at a time
+// (liveness first, as the reference measured in the same run) and a mixed phase, and prints req/s, p99 and
+// errors per route with the ratio to liveness. Exits 1 when a target is missed. Everything it started is
+// stopped by PID, also on failure or Ctrl-C.
+//
+// Options (environment): LOAD_SECONDS (per phase, default 20), LOAD_CONNECTIONS (default 50),
+// LOAD_ROUNDS (default 30000), LOAD_JSON=<file> (writes the figures as JSON too).
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { buildAll, ensureAptPackages, ensureNodeModules, migrateAndSeed } from './lib/bootstrap.mjs';
+import { profileEnv, root } from './lib/env.mjs';
+import { InfraError, fail, info, step } from './lib/log.mjs';
+import { run, stopAll } from './lib/proc.mjs';
+import { startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
+
+const SECONDS = Number(process.env.LOAD_SECONDS ?? 20);
+const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 50);
+/** Targets of issue 20 against the liveness route of the same run. */
+const MIN_RATIO = 0.25;
+const MAX_P99_FACTOR = 10;
+const TARGETED = ['projects', 'rounds-page', 'round-detail'];
+
+process.env.RB_DATA_DIR ??= path.join(root, '.data/load');
+const shift = 20; // apart from the e2e tier of the same checkout
+const base = profileEnv('test');
+const dataDir = base.dataDir;
+const env = {
+  ...base.env,
+  DB_NAME: 'roundbook_load',
+  DB_PORT: String(base.ports.db + shift),
+  S3_ENDPOINT: `http://127.0.0.1:${base.ports.s3 + shift}`,
+  SMTP_PORT: String(base.ports.smtp + shift),
+  PORT: String(base.ports.api + shift),
+  APP_URL: `http://127.0.0.1:${base.ports.api + shift}`,
+  // No background jobs: every statement counted below comes from the requests themselves.
+  WORKER_ENABLED: 'false',
+  LOGIN_RATE_LIMIT: '1000',
+  // The liveness route is anonymous, and anonymous routes are limited per address (120 a minute by default):
+  // the load generator is one address, so the limit is lifted for this run only.
+  PUBLIC_RATE_LIMIT: '100000000',
+  NODE_ENV: 'production',
+};
+const apiUrl = `http://127.0.0.1:${env.PORT}`;
+
+let stopping = false;
+async function shutdown(code) {
+  if (stopping) return;
+  stopping = true;
+  await stopAll();
+  process.exit(code);
+}
+process.on('SIGINT', () => void shutdown(130));
+process.on('SIGTERM', () => void shutdown(143));
+
+const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
+/** Deterministic choices, so two runs ask for the same pages and rounds (mulberry32). */
+function rng(seed) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+async function http(method, url, { token, body } = {}) {
+  const res = await fetch(`${apiUrl}${url}`, {
+    method,
+    headers: {
+      ...(token ? { authorization: `Bearer ${token}` } : {}),
+      ...(body ? { 'content-type': 'application/json' } : {}),
+    },
+    body: body ? JSON.stringify(body) : undefined,
+  });
+  const text = await res.text();
+  if (!res.ok) throw new InfraError(`${method} ${url} answered ${res.status}: ${text.slice(0, 300)}`);
+  return { json: text ? JSON.parse(text) : null, bytes: Buffer.byteLength(text) };
+}
+
+/** The fields of a joint a save takes (JointInputDto), from a joint as the round detail shows it. */
+const JOINT_INPUT = [
+  'id',
+  'kind',
+  'orientationText',
+  'notation',
+  'setLabel',
+  'setOverride',
+  'spacingM',
+  'persistenceM',
+  'apertureMm',
+  'jr',
+  'jrc',
+  'jrcMethod',
+  'infill',
+  'ja',
+  'water',
+  'thicknessM',
+  'notes',
+  'faceOffset',
+];
+const jointInput = (j) => Object.fromEntries(JOINT_INPUT.filter((k) => k in j).map((k) => [k, j[k]]));
+
+try {
+  step('Load run: checking what is installed');
+  ensureAptPackages(['mariadb-server', 'mariadb-client']);
+  ensureNodeModules();
+  buildAll({ web: false });
+  const { default: autocannon } = await import('autocannon');
+  const db = await startMariadb({ dataDir, env });
+  // LOAD_REUSE=1 keeps the database of the previous run (same seed) and only migrates it: for trying a
+  // change to the API without seeding again. Without it every run starts from an empty database.
+  const seedFile = path.join(dataDir, 'load-seed.json');
+  let seed;
+  if (process.env.LOAD_REUSE === '1' && existsSync(seedFile)) {
+    migrateAndSeed(env, { seed: false });
+    seed = JSON.parse(readFileSync(seedFile, 'utf8'));
+    info('Reusing the database seeded by the previous run (LOAD_REUSE=1)');
+  } else {
+    db.rootSql(
+      `DROP DATABASE IF EXISTS \`${env.DB_NAME}\`; CREATE DATABASE \`${env.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
+    );
+    migrateAndSeed(env);
+    step('Seeding the large project (bulk SQL)');
+    const seedOut = run(process.execPath, [path.join(root, 'apps/api/dist/bench/load-seed.js')], {
+      env: { ...process.env, ...env },
+      quiet: true,
+      hint: 'The load seed failed.',
+    });
+    seed = JSON.parse(seedOut.trim().split('\n').pop());
+    writeFileSync(seedFile, JSON.stringify(seed));
+  }
+  info(
+    `${seed.rounds.toLocaleString('en')} rounds and ${seed.joints.toLocaleString('en')} joints on ${seed.headingIds.length} headings (copies of ${seed.templates} demo rounds) in ${seed.seconds} s`,
+  );
+  await startS3({ dataDir, env });
+  await startSmtp({ dataDir, env });
+  await startApi({ dataDir, env });
+
+  const login = async (email) =>
+    (await http('POST', '/api/auth/login', { body: { email, password: env.DEMO_PASSWORD } })).json
+      .accessToken;
+  const viewer = await login('viewer@roundbook.test');
+  const geologist = await login('geologist@roundbook.test');
+  const p = `/api/projects/${seed.projectId}`;
+  const perHeading = Math.ceil(seed.rounds / seed.headingIds.length);
+  const pages = Math.ceil(perHeading / 50);
+  const random = rng(20);
+  const pick = (list) => list[Math.floor(random() * list.length)];
+  const SORTS = ['-faceChainage', '-faceChainage', '-faceChainage', 'q', '-shiftDate', 'rmr'];
+  const roundsPage = () =>
+    `${p}/headings/${pick(seed.headingIds)}/rounds?pageSize=50&page=${1 + Math.floor(random() * Math.min(pages, 40))}&sort=${pick(SORTS)}`;
+  const roundDetail = () => `${p}/rounds/${pick(seed.roundIds)}`;
+  const stereonet = () => {
+    // The joints of a 30 m window behind some face, as the round screen asks for finding sets.
+    const h = Math.floor(random() * seed.headingIds.length);
+    const face = (h + 1) * 100000 + Math.floor(random() * perHeading) * seed.plannedRoundLength;
+    return `${p}/headings/${seed.headingIds[h]}/joints?fromChainage=${face - 30}&toChainage=${face}`;
+  };
+
+  // The drafts the joint edits save: each connection takes its own draft (no two edit one round at once).
+  const drafts = [];
+  for (const id of seed.draftRoundIds) {
+    const { json } = await http('GET', `${p}/rounds/${id}`, { token: geologist });
+    drafts.push({ id, version: json.version, joints: json.joints.map(jointInput), edits: 0 });
+  }
+  let nextDraft = 0;
+  const editRequest = {
+    method: 'PUT',
+    headers: { authorization: `Bearer ${geologist}`, 'content-type': 'application/json' },
+    setupRequest: (req, context) => {
+      context.draft ??= drafts[nextDraft++ % drafts.length];
+      const d = context.draft;
+      d.edits += 1;
+      // One joint's orientation and notes change at each save; the rest are sent as they are.
+      const joints = d.joints.map((j, i) =>
+        i === d.edits % d.joints.length
+          ? {
+              ...j,
+              notes: `load edit ${d.edits}`,
+              orientationText: `${String(100 + (d.edits % 90)).padStart(3, '0')}/${40 + (d.edits % 30)}`,
+            }
+          : j,
+      );
+      return { ...req, path: `${p}/rounds/${d.id}`, body: JSON.stringify({ version: d.version, joints }) };
+    },
+    onResponse: (status, body, context) => {
+      if (status === 200) context.draft.version = JSON.parse(body).version;
+    },
+  };
+  const get = (token, makePath) => ({
+    method: 'GET',
+    headers: { authorization: `Bearer ${token}` },
+    setupRequest: (req) => ({ ...req, path: makePath() }),
+  });
+  const routes = [
+    { name: 'liveness', label: 'GET /api/health/live', request: get(null, () => '/api/health/live') },
+    { name: 'projects', label: "Board's projects list", request: get(viewer, () => '/api/projects') },
+    { name: 'rounds-page', label: 'Rounds page (50 rows)', request: get(viewer, roundsPage) },
+    { name: 'round-detail', label: "A round's detail", request: get(viewer, roundDetail) },
+    { name: 'stereonet', label: 'Stereonet data (30 m window)', request: get(viewer, stereonet) },
+    { name: 'joint-edit', label: 'Joint edits (PUT round)', request: editRequest },
+  ];
+  routes[0].request.headers = {};
+
+  // Statements per request: MariaDB's Questions counter over 20 sequential requests of each route
+  // (the counter's own SELECT taken off), with no background worker running.
+  const questions = () =>
+    Number(db.rootSql(`SHOW GLOBAL STATUS LIKE 'Questions';`).stdout.trim().split('\n').pop().split('\t')[1]);
+  step('Counting SQL statements per request (20 sequential requests per route)');
+  const N = 20;
+  for (const r of routes) {
+    const before = questions();
+    let bytes = 0;
+    for (let i = 0; i < N; i++) {
+      const req = r.request.setupRequest
+        ? r.request.setupRequest({ ...r.request }, (r.ctx ??= {}))
+        : r.request;
+      const res = await fetch(`${apiUrl}${req.path}`, {
+        method: req.method,
+        headers: req.headers,
+        body: req.body,
+      });
+      const text = await res.text();
+      if (!res.ok)
+        throw new InfraError(`${r.label}: ${req.method} ${req.path} answered ${res.status} ${text}`);
+      bytes += Buffer.byteLength(text);
+      r.request.onResponse?.(res.status, text, r.ctx);
+    }
+    const after = questions();
+    // Each SHOW STATUS through the socket counts once (the second one is in `after`).
+    r.queries = (after - before - 1) / N;
+    r.bytes = Math.round(bytes / N);
+    info(`${r.label}: ${r.queries.toFixed(1)} statements/request, ${r.bytes.toLocaleString('en')} bytes`);
+  }
+  // Connections of the counting pass gave back their drafts: the load phase hands them out afresh.
+  nextDraft = 0;
+
+  const runPhase = (name, requests) =>
+    new Promise((resolve, reject) => {
+      const instance = autocannon(
+        {
+          url: apiUrl,
+          connections: CONNECTIONS,
+          duration: SECONDS,
+          requests,
+          // Shorter than the phase, so a request that never answers counts as an error (timeout).
+          timeout: Math.max(1, Math.min(10, Math.floor(SECONDS / 2))),
+        },
+        (err, result) => (err ? reject(err) : resolve(result)),
+      );
+      // A phase never outlives its time by more than its timeout.
+      const guard = setTimeout(() => instance.stop(), (SECONDS + 15) * 1000);
+      instance.on('done', () => clearTimeout(guard));
+      void name;
+    });
+  const figures = [];
+  for (const r of routes) {
+    step(`${r.label}: ${CONNECTIONS} connections for ${SECONDS} s`);
+    const result = await runPhase(r.name, [r.request]);
+    const errors = result.errors + result.timeouts + result.non2xx;
+    figures.push({
+      route: r.name,
+      label: r.label,
+      rps: result.requests.average,
+      p99: result.latency.p99,
+      p50: result.latency.p50,
+      errors,
+      queries: r.queries,
+      bytes: r.bytes,
+      total: result.requests.total,
+    });
+    info(
+      `${Math.round(result.requests.average)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${errors} errors (${result.non2xx} non-2xx, ${result.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
+    );
+    await sleep(1000);
+  }
+  step(`Mixed: Board, Rounds pages, round details, stereonet data and joint edits, ${SECONDS} s`);
+  const mixed = await runPhase('mixed', [
+    routes[1].request,
+    routes[2].request,
+    routes[2].request,
+    routes[3].request,
+    routes[3].request,
+    routes[4].request,
+    routes[5].request,
+  ]);
+  const mixedErrors = mixed.errors + mixed.timeouts + mixed.non2xx;
+
+  const live = figures[0];
+  const rows = figures.map((f) => ({
+    ...f,
+    ratio: f.rps / live.rps,
+    p99Factor: f.p99 / Math.max(1, live.p99),
+  }));
+  console.log(
+    `\n  Load run: ${seed.rounds.toLocaleString('en')} rounds, ${seed.joints.toLocaleString('en')} joints, ${CONNECTIONS} connections, ${SECONDS} s per route\n`,
+  );
+  const pad = (s, n) => String(s).padEnd(n);
+  const padl = (s, n) => String(s).padStart(n);
+  console.log(
+    `  ${pad('route', 30)}${padl('req/s', 8)}${padl('ratio', 8)}${padl('p99 ms', 8)}${padl('×live', 7)}${padl('errors', 8)}${padl('SQL/req', 9)}${padl('bytes', 9)}  target`,
+  );
+  let ok = true;
+  for (const r of rows) {
+    const targeted = TARGETED.includes(r.route);
+    const pass =
+      r.total > 0 && r.errors === 0 && (!targeted || (r.ratio >= MIN_RATIO && r.p99Factor <= MAX_P99_FACTOR));
+    if (!pass) ok = false;
+    console.log(
+      `  ${pad(r.label, 30)}${padl(Math.round(r.rps), 8)}${padl(`${(r.ratio * 100).toFixed(1)}%`, 8)}${padl(r.p99, 8)}${padl(r.p99Factor.toFixed(1), 7)}${padl(r.errors, 8)}${padl(r.queries.toFixed(1), 9)}${padl(r.bytes, 9)}  ${targeted ? (pass ? 'met' : 'MISSED') : pass ? 'no errors' : r.total === 0 ? 'NO ANSWER' : 'ERRORS'}`,
+    );
+  }
+  console.log(
+    `  ${pad('Mixed (all but liveness)', 30)}${padl(Math.round(mixed.requests.average), 8)}${padl('', 8)}${padl(mixed.latency.p99, 8)}${padl('', 7)}${padl(mixedErrors, 8)}`,
+  );
+  if (mixedErrors > 0 || mixed.requests.total === 0) ok = false;
+  console.log(
+    `\n  Targets: Board projects list, Rounds page and round detail ≥ ${MIN_RATIO * 100}% of liveness req/s, p99 ≤ ${MAX_P99_FACTOR}× liveness p99, no errors anywhere.\n`,
+  );
+  if (process.env.LOAD_JSON)
+    writeFileSync(
+      process.env.LOAD_JSON,
+      JSON.stringify(
+        {
+          seed: { rounds: seed.rounds, joints: seed.joints },
+          rows,
+          mixed: { rps: mixed.requests.average, p99: mixed.latency.p99, errors: mixedErrors },
+        },
+        null,
+        2,
+      ),
+    );
+  await shutdown(ok ? 0 : 1);
+} catch (err) {
+  fail(err instanceof InfraError ? err.message : (err?.stack ?? String(err)));
+  await shutdown(1);
+}
