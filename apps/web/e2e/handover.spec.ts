@@ -116,7 +116,7 @@ for (const v of variants) {
     await form.getByRole('button', { name: 'Send handover' }).click();
     const sent = (await (await posted).json()) as Body;
     expect(sent.incoming.name).toBe(INCOMING_NAME);
-    await expect(outgoing.getByRole('status')).toContainText('Handover sent');
+    await expect(outgoing.getByText('Handover sent', { exact: true })).toBeVisible();
     const history = outgoing.getByRole('list', { name: 'Handovers of HR-U' });
     await expect(history.getByTestId('handover-history-item').first()).toContainText('Waiting — due by');
 
