@@ -14,7 +14,12 @@ type DraftHeading = HandoverDraft['headings'][number];
 
 const useStyles = makeStyles({
   facts: { margin: `${tokens.spacingVerticalXS} 0`, paddingLeft: '20px', rowGap: tokens.spacingVerticalXS },
-  group: { marginTop: tokens.spacingVerticalS },
+  group: {
+    marginTop: tokens.spacingVerticalS,
+    display: 'flex',
+    flexDirection: 'column',
+    rowGap: tokens.spacingVerticalXS,
+  },
   groupTitle: { fontWeight: tokens.fontWeightSemibold },
   items: {
     listStyle: 'none',
