@@ -36,7 +36,14 @@ async function openPage(browser: Browser, v: (typeof variants)[number], problems
     hasTouch: v.hasTouch,
     serviceWorkers: 'block',
   });
-  await context.addInitScript((theme) => window.localStorage.setItem('roundbook.theme', theme), v.theme);
+  // Runs in every frame; the mail view's sandboxed e-mail frame has no storage, and needs none.
+  await context.addInitScript((theme) => {
+    try {
+      window.localStorage.setItem('roundbook.theme', theme);
+    } catch {
+      /* a sandboxed frame */
+    }
+  }, v.theme);
   const page = await context.newPage();
   page.on('pageerror', (error) => problems.push(`page: ${error.message}`));
   page.on('response', (r) => {
