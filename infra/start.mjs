@@ -77,6 +77,7 @@ try {
     geologist@roundbook.test   shift geologist
     engineer@roundbook.test    site engineer
     supervisor@roundbook.test  shift supervisor
+    night-supervisor@roundbook.test  the other shift's supervisor
     viewer@roundbook.test      client's representative (read only)
 
   Data is kept in ${dataDir}. Press Ctrl-C to stop.

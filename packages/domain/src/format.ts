@@ -90,6 +90,35 @@ export function formatProjectTime(iso: string | Date, timeZone: string): string 
   }
 }
 
+/**
+ * A moment near `now` in the project's time zone: the clock time alone ("14:30") on the same calendar day,
+ * otherwise the date and time ("2 Dec 2026, 14:30"), so a time read on site is never a day out.
+ */
+export function formatProjectTimeNear(iso: string | Date, timeZone: string, now: Date = new Date()): string {
+  const date = typeof iso === 'string' ? new Date(iso) : iso;
+  if (Number.isNaN(date.getTime())) return String(iso);
+  const day = (d: Date, zone: string | undefined) =>
+    new Intl.DateTimeFormat('en-CA', {
+      timeZone: zone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    }).format(d);
+  let zone: string | undefined = timeZone;
+  try {
+    day(date, zone);
+  } catch {
+    zone = undefined;
+  }
+  if (day(date, zone) !== day(now, zone)) return formatProjectTime(date, timeZone);
+  return new Intl.DateTimeFormat('en-GB', {
+    hour: '2-digit',
+    minute: '2-digit',
+    hourCycle: 'h23',
+    timeZone: zone,
+  }).format(date);
+}
+
 /** A calendar date (YYYY-MM-DD, no time zone) as "2 Dec 2026". */
 export function formatCalendarDate(isoDate: string): string {
   const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(isoDate);

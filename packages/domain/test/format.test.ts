@@ -2,6 +2,7 @@ import {
   assessTriggers,
   formatAzimuth,
   formatChainageFor,
+  formatProjectTimeNear,
   formatQ,
   roundedAsPrinted,
   shiftOf,
@@ -65,5 +66,15 @@ describe('formatters', () => {
       shiftDate: '2026-12-01',
       shift: 'night',
     });
+  });
+
+  it('gives the clock time alone on the same day in the project zone, else the date too', () => {
+    const now = new Date('2026-12-03T15:00:00Z');
+    // 14:30 UTC is 14:30 in London in December (GMT) and 15:30 in Zurich (CET).
+    expect(formatProjectTimeNear('2026-12-03T14:30:00Z', 'Europe/London', now)).toBe('14:30');
+    expect(formatProjectTimeNear('2026-12-03T14:30:00Z', 'Europe/Zurich', now)).toBe('15:30');
+    expect(formatProjectTimeNear('2026-12-02T23:30:00Z', 'Europe/London', now)).toBe('2 Dec 2026, 23:30');
+    // 23:30 UTC on the 2nd is 00:30 on the 3rd in Zurich: the same day as now there.
+    expect(formatProjectTimeNear('2026-12-02T23:30:00Z', 'Europe/Zurich', now)).toBe('00:30');
   });
 });

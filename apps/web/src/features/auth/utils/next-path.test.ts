@@ -26,4 +26,11 @@ describe('signInPath', () => {
     expect(signInPath('/mail', 'expired')).toBe('/sign-in?next=%2Fmail&reason=expired');
     expect(signInPath('/')).toBe('/sign-in');
   });
+
+  it('keeps the query string of the page to return to (the handover e-mail’s link)', () => {
+    const path = signInPath('/received?handover=ho-1&x=a b');
+    expect(path).toBe('/sign-in?next=%2Freceived%3Fhandover%3Dho-1%26x%3Da+b');
+    const next = new URLSearchParams(path.split('?')[1]).get('next');
+    expect(safeNextPath(next)).toBe('/received?handover=ho-1&x=a b');
+  });
 });

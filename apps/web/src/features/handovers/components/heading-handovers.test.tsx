@@ -1,86 +1,24 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { HeadingHandovers } from './heading-handovers';
-import type { Handover, HandoverDraft } from '@/features/handovers/api/handovers';
+import type { Handover } from '@/features/handovers/api/handovers';
+import { acknowledged, CAUTION, draft, handover } from '@/features/handovers/testing/handover-fixtures';
 import { saveSession } from '@/lib/session';
 import { adminSession, harrowdale } from '@/testing/fixtures';
 import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render-with-providers';
 
-const CAUTION = 'This handover supports the face-to-face briefing at shift change and does not replace it.';
 const HISTORY = '/api/projects/p-1/headings/h-1/handovers';
-
-const draftHeading: HandoverDraft['headings'][number] = {
-  headingId: 'h-1',
-  code: 'HR-U',
-  name: 'Upstream drive from Adit 2',
-  chainageStyle: 'km+m',
-  chainageDecimals: 1,
-  faceChainage: 1006,
-  stage: 'full-face',
-  lastRoundNumber: 2,
-  lastConfirmed: {
-    roundId: 'r-1',
-    roundNumber: 1,
-    stage: 'full-face',
-    faceChainage: 1003,
-    classId: 'c-1',
-    classCode: 'C1',
-    className: 'Spot bolts',
-    nextRoundLength: 3,
-    confirmedAt: '2026-12-03T10:00:00.000Z',
-  },
-  triggerLevel: 'amber',
-  alerts: [{ level: 'amber', summary: 'Q below 20', action: 'Tell the engineer.', ownerRole: 'engineer' }],
-  hazards: [
-    {
-      id: 'z-1',
-      kind: 'wedge',
-      fromChainage: 1004,
-      toChainage: 1006,
-      level: 'red',
-      description: 'Invented wedge in the right shoulder',
-    },
-  ],
-  supportOutstanding: ['Round 7 (full face, class C2): Rock bolts — planned 3 m bolts; nothing recorded'],
-  cycleStage: null,
-  notes: '',
-};
-
-const draft: HandoverDraft = {
-  headings: [draftHeading],
-  shiftDate: '2026-12-03',
-  shift: 'day',
-  supervisors: [{ userId: 'u-in', name: 'Invented Incoming', email: 'in@roundbook.test' }],
-  distributionList: ['office@roundbook.test'],
-  caution: CAUTION,
-};
-
-const handover = (over: Partial<Handover> = {}): Handover => ({
-  id: 'ho-1',
-  projectId: 'p-1',
-  projectName: 'Invented headrace',
-  timeZone: 'UTC',
-  shiftDate: '2026-12-02',
-  shift: 'night',
-  status: 'sent',
-  outgoing: { userId: 'u-out', name: 'Invented Outgoing', email: 'out@roundbook.test' },
-  incoming: { userId: 'u-in', name: 'Invented Incoming', email: 'in@roundbook.test' },
-  headings: [{ ...draftHeading, cycleStage: 'mucking', notes: '' }],
-  generalNotes: '',
-  recipients: ['in@roundbook.test'],
-  emailStatus: 'sent',
-  pdfReady: true,
-  sentAt: '2026-12-02T18:00:00.000Z',
-  ackDueAt: '2026-12-02T19:00:00.000Z',
-  overdue: true,
-  overdueNotified: true,
-  acknowledgedAt: null,
-  acknowledgedBy: null,
-  acknowledgeComment: null,
-  caution: CAUTION,
-  ...over,
-});
+// The history's handover: sent on the night of the 2nd, not acknowledged within the hour.
+const late = (over: Partial<Handover> = {}): Handover =>
+  handover({
+    shiftDate: '2026-12-02',
+    sentAt: '2026-12-02T18:00:00.000Z',
+    ackDueAt: '2026-12-02T19:00:00.000Z',
+    overdue: true,
+    overdueNotified: true,
+    ...over,
+  });
 
 afterEach(restoreFetch);
 beforeEach(() => saveSession(adminSession));
@@ -89,14 +27,13 @@ describe('HeadingHandovers', () => {
   it('lists the history with overdue and acknowledged states, and filters by date and shift', async () => {
     mockApi({
       [`GET ${HISTORY}`]: [
-        handover(),
-        handover({
+        late({ emailStatus: 'failed' }),
+        acknowledged({
           id: 'ho-0',
           shiftDate: '2026-12-01',
           shift: 'day',
-          status: 'acknowledged',
-          overdue: false,
           acknowledgedAt: '2026-12-01T06:20:00.000Z',
+          acknowledgeComment: 'Is the probe rig back?',
           pdfReady: false,
           emailStatus: 'queued',
         }),
@@ -114,10 +51,16 @@ describe('HeadingHandovers', () => {
     const list = await screen.findByRole('list', { name: 'Handovers of HR-U' });
     const items = within(list).getAllByTestId('handover-history-item');
     expect(items).toHaveLength(2);
-    expect(within(items[0]).getByText('Overdue: not acknowledged')).toBeInTheDocument();
+    expect(within(items[0]).getByText('Overdue — was due by 2 Dec 2026, 19:00')).toBeInTheDocument();
+    expect(within(items[0]).getByTestId('handover-email-status')).toHaveTextContent(
+      'E-mail could not be sent',
+    );
     expect(within(items[0]).getByText(/Invented Outgoing → Invented Incoming/)).toBeInTheDocument();
     expect(within(items[0]).getByRole('button', { name: 'Open PDF' })).toBeEnabled();
-    expect(within(items[1]).getByText('Acknowledged 1 Dec 2026, 06:20')).toBeInTheDocument();
+    expect(
+      within(items[1]).getByText('Acknowledged 1 Dec 2026, 06:20 by Invented Incoming'),
+    ).toBeInTheDocument();
+    expect(within(items[1]).getByText('Comment back: “Is the probe rig back?”')).toBeInTheDocument();
     expect(within(items[1]).getByText(/E-mail waiting to be sent/)).toBeInTheDocument();
     expect(within(items[1]).getByRole('button', { name: 'PDF being made' })).toBeDisabled();
     // Viewers do not compose.
@@ -125,10 +68,10 @@ describe('HeadingHandovers', () => {
 
     await user.selectOptions(screen.getByRole('combobox', { name: 'Shift' }), 'day');
     expect(within(list).getAllByTestId('handover-history-item')).toHaveLength(1);
-    expect(screen.getByText('Acknowledged 1 Dec 2026, 06:20')).toBeInTheDocument();
+    expect(screen.getByText(/^Acknowledged 1 Dec 2026, 06:20/)).toBeInTheDocument();
     await user.selectOptions(screen.getByRole('combobox', { name: 'Shift' }), 'night');
     expect(within(list).getAllByTestId('handover-history-item')).toHaveLength(1);
-    expect(screen.getByText('Overdue: not acknowledged')).toBeInTheDocument();
+    expect(screen.getByText(/^Overdue — was due by/)).toBeInTheDocument();
     await user.type(screen.getByLabelText('Shift date'), '2026-12-01');
     expect(await screen.findByText('No handover for this date and shift')).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Clear filter' }));
@@ -141,16 +84,15 @@ describe('HeadingHandovers', () => {
     const bodies: unknown[] = [];
     let sent = false;
     mockApi({
-      [`GET ${HISTORY}`]: () =>
-        jsonResponse(sent ? [handover({ overdue: false, overdueNotified: false })] : []),
+      [`GET ${HISTORY}`]: () => jsonResponse(sent ? [late({ overdue: false, overdueNotified: false })] : []),
       'GET /api/projects/p-1/handovers/draft': (req) => {
         expect(new URL(req.url).searchParams.get('headingIds')).toBe('h-1');
-        return jsonResponse(draft);
+        return jsonResponse(draft());
       },
       'POST /api/projects/p-1/handovers': async (req) => {
         bodies.push(await req.json());
         sent = true;
-        return jsonResponse(handover({ overdue: false }), 201);
+        return jsonResponse(late({ overdue: false }), 201);
       },
     });
     const user = userEvent.setup();
@@ -170,17 +112,15 @@ describe('HeadingHandovers', () => {
     expect(
       within(section).getByText(/Last confirmed: round 1 at 1\+003.0, class C1, next round 3 m/),
     ).toBeInTheDocument();
-    expect(
-      within(section).getByText(
-        'Hazard Red: Wedge, 1+004.0 – 1+006.0 — Invented wedge in the right shoulder',
-      ),
-    ).toBeInTheDocument();
-    expect(
-      within(section).getByText(
-        'Support outstanding: Round 7 (full face, class C2): Rock bolts — planned 3 m bolts; nothing recorded',
-      ),
-    ).toBeInTheDocument();
-    expect(within(section).getByText(/Alert Amber: Q below 20/)).toBeInTheDocument();
+    expect(within(section).getByTestId('handover-hazard')).toHaveTextContent(
+      'RedWedge, 1+004.0 – 1+006.0 — Invented wedge in the right shoulder',
+    );
+    expect(within(section).getByTestId('handover-support-outstanding')).toHaveTextContent(
+      'Round 7 (full face, class C2): Rock bolts — planned 3 m bolts; nothing recorded',
+    );
+    expect(within(section).getByTestId('handover-alert')).toHaveTextContent(
+      'AmberQ below 20 — Tell the engineer. (owner: Engineer)',
+    );
     expect(within(form).getByText(CAUTION)).toBeInTheDocument();
     // Prefilled: the shift now and the only other supervisor.
     expect(within(form).getByLabelText(/^Shift date/)).toHaveValue('2026-12-03');
@@ -211,6 +151,6 @@ describe('HeadingHandovers', () => {
       },
     ]);
     await waitFor(() => expect(screen.getAllByTestId('handover-history-item')).toHaveLength(1));
-    expect(screen.getByText('Waiting for acknowledgement')).toBeInTheDocument();
+    expect(screen.getByText('Waiting — due by 2 Dec 2026, 19:00')).toBeInTheDocument();
   });
 });

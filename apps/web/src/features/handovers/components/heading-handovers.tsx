@@ -1,11 +1,11 @@
 import {
-  Badge,
   Button,
   Card,
   Checkbox,
   Field,
   Input,
   makeStyles,
+  mergeClasses,
   MessageBar,
   MessageBarBody,
   MessageBarTitle,
@@ -19,15 +19,9 @@ import {
   CYCLE_STAGES,
   cycleStageLabels,
   formatCalendarDate,
-  formatChainageFor,
-  formatHazardRange,
   formatProjectTime,
-  hazardKindLabels,
-  levelLabels,
-  roleLabel,
   SHIFTS,
   shiftLabels,
-  stageLabels,
   type CycleStage,
   type Shift,
 } from '@roundbook/domain';
@@ -40,77 +34,49 @@ import {
   useHandoverDraft,
   useHeadingHandovers,
   type Handover,
-  type HandoverDraft,
 } from '@/features/handovers/api/handovers';
+import { emailWords, HandoverStateBadge } from '@/features/handovers/components/handover-state';
+import { useHandoverStyles } from '@/features/handovers/components/handover-styles';
+import { HeadingFacts } from '@/features/handovers/components/heading-facts';
 import { isApiError } from '@/lib/api-client';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
-  bar: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'flex-end' },
-  button: { minHeight: `${TOUCH_TARGET_PX}px` },
-  control: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '180px' },
-  list: {
-    listStyle: 'none',
-    margin: 0,
-    padding: 0,
-    display: 'flex',
-    flexDirection: 'column',
-    rowGap: '12px',
-  },
-  card: { padding: tokens.spacingHorizontalL, rowGap: tokens.spacingVerticalS },
-  top: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalM },
-  title: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
-  muted: { color: tokens.colorNeutralForeground2 },
   form: { padding: tokens.spacingHorizontalL, rowGap: tokens.spacingVerticalM },
-  section: { borderTop: `1px solid ${tokens.colorNeutralStroke2}`, paddingTop: tokens.spacingVerticalS },
-  facts: { margin: `${tokens.spacingVerticalXS} 0`, paddingLeft: '20px' },
   checkbox: { minHeight: `${TOUCH_TARGET_PX}px`, alignItems: 'center' },
+  failed: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
 });
 
 type HeadingWords = { cycleStage: CycleStage | ''; notes: string };
 
-/** The shift's state of one handover, in words and as a badge colour. */
-function ackState(h: Handover): { label: string; color: 'success' | 'danger' | 'warning' } {
-  if (h.status === 'acknowledged')
-    return {
-      label: `Acknowledged ${h.acknowledgedAt ? formatProjectTime(h.acknowledgedAt, h.timeZone) : ''}`.trim(),
-      color: 'success',
-    };
-  if (h.overdue) return { label: 'Overdue: not acknowledged', color: 'danger' };
-  return { label: 'Waiting for acknowledgement', color: 'warning' };
-}
-
-const emailWords: Record<Handover['emailStatus'], string> = {
-  queued: 'E-mail waiting to be sent',
-  sent: 'E-mail sent',
-  failed: 'E-mail could not be sent',
-};
-
 function HistoryItem({ handover }: { handover: Handover }) {
+  const shared = useHandoverStyles();
   const styles = useStyles();
   const [pdfProblem, setPdfProblem] = useState<string | null>(null);
-  const state = ackState(handover);
-  const title = `${shiftLabels[handover.shift]} shift ${formatCalendarDate(handover.shiftDate)}`;
+  const title = `${shiftLabels[handover.shift]} ${formatCalendarDate(handover.shiftDate)}`;
   return (
-    <li data-testid="handover-history-item">
-      <Card className={styles.card} aria-label={title}>
-        <div className={styles.top}>
-          <Text className={styles.title}>{title}</Text>
-          <Badge size="extra-large" appearance="tint" color={state.color}>
-            {state.label}
-          </Badge>
+    <li data-testid="handover-history-item" aria-label={title}>
+      <Card className={mergeClasses(shared.card, handover.overdue && shared.overdue)}>
+        <div className={shared.top}>
+          <Text as="h3" className={shared.title}>
+            {title}
+          </Text>
+          <HandoverStateBadge handover={handover} />
         </div>
         <Text>{`${handover.outgoing.name} → ${handover.incoming.name} · sent ${formatProjectTime(handover.sentAt, handover.timeZone)}`}</Text>
-        <Text className={styles.muted}>
-          {`${emailWords[handover.emailStatus]} · headings ${handover.headings.map((h) => h.code).join(', ')}`}
-          {handover.status === 'sent' && !handover.overdue
-            ? ` · due by ${formatProjectTime(handover.ackDueAt, handover.timeZone)}`
-            : ''}
+        <Text className={shared.muted}>
+          <span
+            className={handover.emailStatus === 'failed' ? styles.failed : undefined}
+            data-testid="handover-email-status"
+          >
+            {emailWords[handover.emailStatus]}
+          </span>
+          {` · headings ${handover.headings.map((h) => h.code).join(', ')}`}
         </Text>
-        {handover.acknowledgeComment ? <Text>{`Comment: ${handover.acknowledgeComment}`}</Text> : null}
-        <div className={styles.bar}>
+        {handover.acknowledgeComment ? <Text>{`Comment back: “${handover.acknowledgeComment}”`}</Text> : null}
+        <div className={shared.bar}>
           <Button
-            className={styles.button}
+            className={shared.button}
             size="large"
             disabled={!handover.pdfReady}
             onClick={() => {
@@ -133,48 +99,6 @@ function HistoryItem({ handover }: { handover: Handover }) {
   );
 }
 
-/** What the data says of one heading now, as the draft gives it (read-only in the composer). */
-function DraftFacts({ h }: { h: HandoverDraft['headings'][number] }) {
-  const styles = useStyles();
-  const chainage = (m: number) => formatChainageFor(m, h);
-  const c = h.lastConfirmed;
-  return (
-    <ul className={styles.facts}>
-      <li>
-        {h.faceChainage === null
-          ? 'Face: no round handed in yet'
-          : `Face ${chainage(h.faceChainage)}${h.stage ? `, ${stageLabels[h.stage]}` : ''}`}
-      </li>
-      <li>
-        {c
-          ? `Last confirmed: round ${c.roundNumber} at ${chainage(c.faceChainage)}, class ${c.classCode ?? '—'}` +
-            `, next round ${c.nextRoundLength ?? '—'} m`
-          : 'No round confirmed yet'}
-      </li>
-      <li>{`Trigger level: ${h.triggerLevel ? levelLabels[h.triggerLevel] : 'not evaluated'}`}</li>
-      {h.alerts.map((a, i) => (
-        <li
-          key={`a${i}`}
-        >{`Alert ${levelLabels[a.level]}: ${a.summary} — ${a.action} (owner: ${roleLabel(a.ownerRole)})`}</li>
-      ))}
-      {h.hazards.length === 0 ? (
-        <li>No open hazards</li>
-      ) : (
-        h.hazards.map((z) => (
-          <li key={z.id}>
-            {`Hazard ${levelLabels[z.level]}: ${hazardKindLabels[z.kind]}, ${formatHazardRange(z, h)} — ${z.description}`}
-          </li>
-        ))
-      )}
-      {h.supportOutstanding.length === 0 ? (
-        <li>No support outstanding recorded</li>
-      ) : (
-        h.supportOutstanding.map((line, i) => <li key={`s${i}`}>{`Support outstanding: ${line}`}</li>)
-      )}
-    </ul>
-  );
-}
-
 interface ComposerProps {
   projectId: string;
   headings: HeadingSummary[];
@@ -185,6 +109,7 @@ interface ComposerProps {
 
 /** Compose and send: headings, shift, incoming supervisor, the cycle and notes per heading, recipients. */
 function Composer({ projectId, headings, headingId, onSent, onCancel }: ComposerProps) {
+  const shared = useHandoverStyles();
   const styles = useStyles();
   const [chosen, setChosen] = useState<string[]>([headingId]);
   const ordered = useMemo(
@@ -251,7 +176,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
 
   return (
     <Card className={styles.form} aria-label="Compose a handover">
-      <Text className={styles.title}>Compose a handover</Text>
+      <Text className={shared.title}>Compose a handover</Text>
       <fieldset>
         <legend>Headings to hand over</legend>
         {headings.map((h) => (
@@ -275,10 +200,10 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
       )}
       {draft.data && (
         <>
-          <div className={styles.bar}>
+          <div className={shared.bar}>
             <Field label="Shift date" required validationMessage={fields.shiftDate}>
               <Input
-                className={styles.control}
+                className={shared.control}
                 type="date"
                 value={shiftDate}
                 onChange={(_, d) => setShiftDate(d.value)}
@@ -286,7 +211,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             </Field>
             <Field label="Shift" required validationMessage={fields.shift}>
               <Select
-                className={styles.control}
+                className={shared.control}
                 value={shift}
                 onChange={(_, d) => setShift(d.value as Shift)}
               >
@@ -299,7 +224,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             </Field>
             <Field label="Incoming supervisor" required validationMessage={fields.incomingUserId}>
               <Select
-                className={styles.control}
+                className={shared.control}
                 value={incomingUserId}
                 onChange={(_, d) => setIncoming(d.value)}
               >
@@ -320,17 +245,17 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             </MessageBar>
           )}
           {draft.data.headings.map((h) => (
-            <section key={h.headingId} className={styles.section} aria-label={`${h.code} — ${h.name}`}>
+            <section key={h.headingId} className={shared.section} aria-label={`${h.code} — ${h.name}`}>
               <Text weight="semibold">{`${h.code} — ${h.name}`}</Text>
-              <DraftFacts h={h} />
-              <div className={styles.bar}>
+              <HeadingFacts h={h} />
+              <div className={shared.bar}>
                 <Field
                   label={`Cycle at ${h.code}`}
                   required
                   validationMessage={fields[`cycle-${h.headingId}`]}
                 >
                   <Select
-                    className={styles.control}
+                    className={shared.control}
                     value={wordsOf(h.headingId).cycleStage}
                     onChange={(_, d) => setWord(h.headingId, { cycleStage: d.value as CycleStage })}
                   >
@@ -371,7 +296,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             validationMessage={fields.extraRecipients}
           >
             <Input
-              className={styles.control}
+              className={shared.control}
               value={extra}
               placeholder="name@example.org, …"
               onChange={(_, d) => setExtra(d.value)}
@@ -390,9 +315,9 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
               </MessageBar>
             </div>
           )}
-          <div className={styles.bar}>
+          <div className={shared.bar}>
             <Button
-              className={styles.button}
+              className={shared.button}
               size="large"
               appearance="primary"
               disabled={compose.isPending || ordered.length === 0}
@@ -400,7 +325,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             >
               {compose.isPending ? 'Sending…' : 'Send handover'}
             </Button>
-            <Button className={styles.button} size="large" onClick={onCancel}>
+            <Button className={shared.button} size="large" onClick={onCancel}>
               Cancel
             </Button>
           </div>
@@ -420,6 +345,7 @@ export interface HeadingHandoversProps {
 
 /** The Handovers tab of a heading: its history (filter by date and shift) and, for supervisors, the composer. */
 export function HeadingHandovers({ projectId, heading, headings, role }: HeadingHandoversProps) {
+  const shared = useHandoverStyles();
   const styles = useStyles();
   const history = useHeadingHandovers(projectId, heading.id);
   const [composing, setComposing] = useState(false);
@@ -443,9 +369,9 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
         </div>
       )}
       {canCompose && !composing && (
-        <div className={styles.bar}>
+        <div className={shared.bar}>
           <Button
-            className={styles.button}
+            className={shared.button}
             size="large"
             appearance="primary"
             onClick={() => {
@@ -469,13 +395,13 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
           }}
         />
       )}
-      <div className={styles.bar} role="search" aria-label="Filter handovers">
+      <div className={shared.bar} role="search" aria-label="Filter handovers">
         <Field label="Shift date">
-          <Input className={styles.control} type="date" value={date} onChange={(_, d) => setDate(d.value)} />
+          <Input className={shared.control} type="date" value={date} onChange={(_, d) => setDate(d.value)} />
         </Field>
         <Field label="Shift">
           <Select
-            className={styles.control}
+            className={shared.control}
             value={shift}
             onChange={(_, d) => setShift(d.value as Shift | '')}
           >
@@ -489,7 +415,7 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
         </Field>
         {(date || shift) && (
           <Button
-            className={styles.button}
+            className={shared.button}
             size="large"
             onClick={() => {
               setDate('');
@@ -518,7 +444,7 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
           }
         />
       ) : (
-        <ul className={styles.list} aria-label={`Handovers of ${heading.code}`}>
+        <ul className={shared.list} aria-label={`Handovers of ${heading.code}`}>
           {shown.map((h) => (
             <HistoryItem key={h.id} handover={h} />
           ))}

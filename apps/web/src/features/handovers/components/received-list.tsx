@@ -1,146 +1,155 @@
 import {
-  Badge,
   Button,
   Card,
   Field,
   makeStyles,
+  mergeClasses,
   MessageBar,
   MessageBarBody,
+  MessageBarTitle,
   Spinner,
   Text,
   Textarea,
   tokens,
 } from '@fluentui/react-components';
-import {
-  cycleStageLabels,
-  formatCalendarDate,
-  formatChainageFor,
-  formatProjectTime,
-  levelLabels,
-  shiftLabels,
-  stageLabels,
-} from '@roundbook/domain';
-import { EmptyState, PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
-import { useState } from 'react';
+import { formatCalendarDate, formatProjectTime, shiftLabels } from '@roundbook/domain';
+import { EmptyState, PageHeader } from '@roundbook/ui';
+import { useEffect, useRef, useState } from 'react';
 import {
   openHandoverPdf,
   useAcknowledgeHandover,
   useReceivedHandovers,
   type Handover,
 } from '@/features/handovers/api/handovers';
+import { HandoverStateBadge, overdueFirst } from '@/features/handovers/components/handover-state';
+import { useHandoverStyles } from '@/features/handovers/components/handover-styles';
+import { HeadingFacts } from '@/features/handovers/components/heading-facts';
+import { isApiError } from '@/lib/api-client';
 
 const useStyles = makeStyles({
-  list: {
-    listStyle: 'none',
-    margin: 0,
-    padding: 0,
-    display: 'flex',
-    flexDirection: 'column',
-    rowGap: '12px',
+  item: { scrollMarginTop: '96px', scrollMarginBottom: '24px', borderRadius: tokens.borderRadiusLarge },
+  // The handover the e-mail's link named: a thick brand outline and its own words, not colour alone.
+  highlighted: {
+    outline: `4px solid ${tokens.colorBrandStroke1}`,
+    outlineOffset: '2px',
+    ':focus-visible': { outline: `4px solid ${tokens.colorStrokeFocus2}` },
   },
-  card: { padding: tokens.spacingHorizontalL, rowGap: tokens.spacingVerticalS },
-  top: { display: 'flex', flexWrap: 'wrap', alignItems: 'center', gap: tokens.spacingHorizontalM },
-  title: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
-  muted: { color: tokens.colorNeutralForeground2 },
-  heading: { borderTop: `1px solid ${tokens.colorNeutralStroke2}`, paddingTop: tokens.spacingVerticalS },
-  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'flex-end' },
-  button: { minHeight: `${TOUCH_TARGET_PX}px` },
+  fromLink: { color: tokens.colorBrandForeground1, fontWeight: tokens.fontWeightSemibold },
   comment: { flexGrow: 1, minWidth: '240px' },
   caution: { marginBottom: '12px' },
 });
 
-function HeadingLines({ h }: { h: Handover['headings'][number] }) {
-  const styles = useStyles();
-  const chainage = (m: number) => formatChainageFor(m, h);
-  const c = h.lastConfirmed;
-  return (
-    <div className={styles.heading}>
-      <Text weight="semibold">{`${h.code} — ${h.name}`}</Text>
-      <ul>
-        <li>
-          {h.faceChainage === null
-            ? 'Face: no round handed in yet'
-            : `Face ${chainage(h.faceChainage)}${h.stage ? `, ${stageLabels[h.stage]}` : ''}`}
-        </li>
-        <li>{`Cycle: ${h.cycleStage ? cycleStageLabels[h.cycleStage] : 'not given'}`}</li>
-        <li>
-          {c
-            ? `Last confirmed: round ${c.roundNumber} at ${chainage(c.faceChainage)}, class ${c.classCode ?? '—'}` +
-              `, next round ${c.nextRoundLength ?? '—'} m`
-            : 'No round confirmed yet'}
-        </li>
-        <li>{`Trigger level: ${h.triggerLevel ? levelLabels[h.triggerLevel] : 'not evaluated'}`}</li>
-        {h.alerts.map((a, i) => (
-          <li key={i}>{`${levelLabels[a.level]}: ${a.summary} — ${a.action}`}</li>
-        ))}
-        {h.notes ? <li>{`Notes: ${h.notes}`}</li> : null}
-      </ul>
-    </div>
-  );
+interface ReceivedItemProps {
+  handover: Handover;
+  /** Opened from the e-mail's link: scrolled to, outlined and focused once */
+  highlighted: boolean;
 }
 
-function ReceivedItem({ handover }: { handover: Handover }) {
+function ReceivedItem({ handover, highlighted }: ReceivedItemProps) {
+  const shared = useHandoverStyles();
   const styles = useStyles();
+  const itemRef = useRef<HTMLLIElement>(null);
   const [comment, setComment] = useState('');
+  const [pdfProblem, setPdfProblem] = useState<string | null>(null);
   const acknowledge = useAcknowledgeHandover();
   const waiting = handover.status === 'sent';
   const title = `${handover.headings.map((h) => h.code).join(', ')} · ${shiftLabels[handover.shift]} ${formatCalendarDate(handover.shiftDate)}`;
+
+  useEffect(() => {
+    if (!highlighted || !itemRef.current) return;
+    // jsdom has no scrollIntoView; browsers do.
+    itemRef.current.scrollIntoView?.({ block: 'start', behavior: 'auto' });
+    itemRef.current.focus({ preventScroll: true });
+  }, [highlighted]);
+
   return (
-    <li data-testid="received-item">
-      <Card className={styles.card} aria-label={title}>
-        <div className={styles.top}>
-          <Badge size="large" appearance="filled" color={waiting ? 'warning' : 'success'}>
-            {waiting ? 'Waiting for you' : 'Acknowledged'}
-          </Badge>
-          <Text className={styles.title}>{title}</Text>
+    <li
+      ref={itemRef}
+      data-testid="received-item"
+      data-highlighted={highlighted || undefined}
+      aria-current={highlighted || undefined}
+      tabIndex={highlighted ? -1 : undefined}
+      aria-label={title}
+      className={mergeClasses(styles.item, highlighted && styles.highlighted)}
+    >
+      <Card className={mergeClasses(shared.card, handover.overdue && shared.overdue)}>
+        {highlighted && <Text className={styles.fromLink}>Opened from your e-mail link</Text>}
+        <div className={shared.top}>
+          <HandoverStateBadge handover={handover} />
+          <Text as="h2" className={shared.title}>
+            {title}
+          </Text>
         </div>
-        <Text className={styles.muted}>
+        <Text className={shared.muted}>
           {`${handover.projectName} · from ${handover.outgoing.name} · sent ${formatProjectTime(handover.sentAt, handover.timeZone)}`}
         </Text>
         {handover.headings.map((h) => (
-          <HeadingLines key={h.headingId} h={h} />
+          <section key={h.headingId} className={shared.section} aria-label={`${h.code} — ${h.name}`}>
+            <Text weight="semibold" size={400}>{`${h.code} — ${h.name}`}</Text>
+            <HeadingFacts h={h} cycle={h.cycleStage} />
+            {h.notes ? <Text as="p">{`Notes: ${h.notes}`}</Text> : null}
+          </section>
         ))}
         {handover.generalNotes ? <Text>{`General notes: ${handover.generalNotes}`}</Text> : null}
-        <div className={styles.actions}>
+        <div className={shared.bar}>
           {handover.pdfReady ? (
             <Button
-              className={styles.button}
+              className={shared.button}
               appearance="secondary"
               size="large"
-              onClick={() => void openHandoverPdf(handover.projectId, handover.id)}
+              onClick={() => {
+                setPdfProblem(null);
+                openHandoverPdf(handover.projectId, handover.id).catch((e: unknown) =>
+                  setPdfProblem(isApiError(e) ? e.message : 'The PDF could not be opened.'),
+                );
+              }}
             >
               Open the PDF
             </Button>
           ) : (
-            <Text className={styles.muted}>The PDF is being made.</Text>
+            <Text className={shared.muted}>The PDF is being made.</Text>
           )}
           {waiting ? (
             <>
               <Field className={styles.comment} label="Comment or question back (optional)">
-                <Textarea value={comment} maxLength={2000} onChange={(_, d) => setComment(d.value)} />
+                <Textarea
+                  value={comment}
+                  maxLength={2000}
+                  resize="vertical"
+                  onChange={(_, d) => setComment(d.value)}
+                />
               </Field>
               <Button
-                className={styles.button}
+                className={shared.button}
                 appearance="primary"
                 size="large"
                 disabled={acknowledge.isPending}
                 onClick={() =>
-                  acknowledge.mutate({ projectId: handover.projectId, handoverId: handover.id, comment })
+                  acknowledge.mutate(
+                    { projectId: handover.projectId, handoverId: handover.id, comment },
+                    // The button goes away: keep the place, so a keyboard or screen reader is not lost.
+                    { onSuccess: () => itemRef.current?.focus({ preventScroll: true }) },
+                  )
                 }
               >
-                Acknowledge
+                {acknowledge.isPending ? 'Acknowledging…' : 'Acknowledge'}
               </Button>
             </>
-          ) : (
-            <Text>
-              {`Acknowledged ${handover.acknowledgedAt ? formatProjectTime(handover.acknowledgedAt, handover.timeZone) : ''}` +
-                (handover.acknowledgeComment ? ` — “${handover.acknowledgeComment}”` : '')}
-            </Text>
-          )}
+          ) : handover.acknowledgeComment ? (
+            <Text>{`Your comment: “${handover.acknowledgeComment}”`}</Text>
+          ) : null}
         </div>
-        {acknowledge.error ? (
+        {pdfProblem && (
           <MessageBar intent="error">
-            <MessageBarBody>{acknowledge.error.message}</MessageBarBody>
+            <MessageBarBody>{pdfProblem}</MessageBarBody>
+          </MessageBar>
+        )}
+        {acknowledge.error ? (
+          <MessageBar intent="error" layout="multiline">
+            <MessageBarBody>
+              <MessageBarTitle>Not acknowledged</MessageBarTitle>
+              {acknowledge.error.message}
+            </MessageBarBody>
           </MessageBar>
         ) : null}
       </Card>
@@ -148,13 +157,20 @@ function ReceivedItem({ handover }: { handover: Handover }) {
   );
 }
 
-/** Received: handovers addressed to the signed-in supervisor, those waiting for acknowledgement first. */
-export function ReceivedList() {
+export interface ReceivedListProps {
+  /** The handover the e-mail's link names (`/received?handover=<id>`), if any */
+  highlightId?: string | null;
+}
+
+/** Received: handovers addressed to the signed-in supervisor; overdue first, then waiting, then acknowledged. */
+export function ReceivedList({ highlightId = null }: ReceivedListProps) {
+  const shared = useHandoverStyles();
   const styles = useStyles();
   const { data, isPending, error } = useReceivedHandovers();
+  const missing = highlightId !== null && data !== undefined && !data.some((h) => h.id === highlightId);
   return (
     <>
-      <PageHeader title="Received" subtitle="Handovers to you: those waiting first." />
+      <PageHeader title="Received" subtitle="Handovers to you: overdue first, then those waiting." />
       {data?.[0] ? (
         <div className={styles.caution}>
           <MessageBar intent="warning" layout="multiline" data-testid="handover-caution">
@@ -162,6 +178,18 @@ export function ReceivedList() {
           </MessageBar>
         </div>
       ) : null}
+      {missing && (
+        <div className={styles.caution} role="alert">
+          <MessageBar intent="warning" layout="multiline">
+            <MessageBarBody>
+              <MessageBarTitle>The handover in your link is not here</MessageBarTitle>
+              It is not among the handovers sent to you: it may be addressed to another supervisor, or to a
+              project you are not a member of. Ask the outgoing supervisor, or check that you signed in with
+              the address the e-mail came to.
+            </MessageBarBody>
+          </MessageBar>
+        </div>
+      )}
       {isPending ? (
         <Spinner label="Reading the handovers sent to you…" />
       ) : error ? (
@@ -172,9 +200,9 @@ export function ReceivedList() {
           message="Handovers the outgoing supervisor sends to you come here until you acknowledge them."
         />
       ) : (
-        <ul className={styles.list} aria-label="Received handovers">
-          {data.map((h) => (
-            <ReceivedItem key={h.id} handover={h} />
+        <ul className={shared.list} aria-label="Received handovers">
+          {overdueFirst(data).map((h) => (
+            <ReceivedItem key={h.id} handover={h} highlighted={h.id === highlightId} />
           ))}
         </ul>
       )}
