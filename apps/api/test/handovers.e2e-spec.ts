@@ -270,6 +270,9 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect(text).toContain('Open hazards');
     expect(text).toContain(HAZARD_LINE);
     expect(text).toContain(CAUTION);
+    // The trigger summary's arrow is spelled out (Open Sans has no glyph for →), the words around it intact.
+    expect(text).toContain('Amber: Q < 20 -> amber — Tell the engineer. (owner: Engineer)');
+    expect(String(mail.text)).toContain('Q < 20 → amber'); // the e-mail keeps the arrow
 
     // Listed with the handover: the stored PDF downloads, the e-mail reads as sent.
     const got = (await request(http).get(`${p.base}/handovers/${sent.id}`).set(p.as('viewer')).expect(200))

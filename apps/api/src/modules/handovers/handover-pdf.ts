@@ -1,10 +1,30 @@
 import PDFDocument from 'pdfkit';
 import { HANDOVER_CAUTION, handoverHeader, handoverSubject, headingFacts } from './handover-text.js';
 import type { HandoverSnapshot } from './handover.entity.js';
+import { glyphCheckOf, pdfSafeText } from './pdf-safe-text.js';
 
 /** Open Sans (TTF from @expo-google-fonts/open-sans; pdfkit fails on WOFF2, stack-notes §9). */
 const FONT_REGULAR = require.resolve('@expo-google-fonts/open-sans/400Regular/OpenSans_400Regular.ttf');
 const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans_700Bold.ttf');
+/** Whether both weights can draw a character (read from the fonts' own glyph tables, once). */
+let drawable: ((codePoint: number) => boolean) | null = null;
+const safe = (t: string): string => pdfSafeText(t, (drawable ??= glyphCheckOf(FONT_REGULAR, FONT_BOLD)));
+
+/**
+ * Every string this document lays out goes through pdfSafeText first: a character Open Sans has no glyph
+ * for (the → of a trigger summary) would otherwise print blank with no error.
+ */
+function withSafeText(doc: PDFKit.PDFDocument): PDFKit.PDFDocument {
+  const text = doc.text.bind(doc) as (t: string, ...rest: unknown[]) => PDFKit.PDFDocument;
+  const height = doc.heightOfString.bind(doc) as (t: string, ...rest: unknown[]) => number;
+  const width = doc.widthOfString.bind(doc) as (t: string, ...rest: unknown[]) => number;
+  doc.text = ((t: string, ...rest: unknown[]) => text(safe(t), ...rest));
+  doc.heightOfString = ((t: string, ...rest: unknown[]) =>
+    height(safe(t), ...rest));
+  doc.widthOfString = ((t: string, ...rest: unknown[]) =>
+    width(safe(t), ...rest));
+  return doc;
+}
 
 const INK = '#1d2327';
 const MUTED = '#4a555c';
@@ -24,16 +44,18 @@ export interface HandoverPdfInput {
  */
 export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   const s = input.snapshot;
-  const doc = new PDFDocument({
-    size: 'A4',
-    margins: { top: 50, bottom: 70, left: 50, right: 50 },
-    bufferPages: true,
-    info: {
-      Title: handoverSubject(s, input.shiftDate, input.shift),
-      Author: s.outgoing.name,
-      Creator: 'Roundbook',
-    },
-  });
+  const doc = withSafeText(
+    new PDFDocument({
+      size: 'A4',
+      margins: { top: 50, bottom: 70, left: 50, right: 50 },
+      bufferPages: true,
+      info: {
+        Title: handoverSubject(s, input.shiftDate, input.shift),
+        Author: s.outgoing.name,
+        Creator: 'Roundbook',
+      },
+    }),
+  );
   doc.registerFont('regular', FONT_REGULAR);
   doc.registerFont('bold', FONT_BOLD);
   const chunks: Buffer[] = [];
