@@ -16,3 +16,4 @@ export * from './sketch.js';
 export * from './support-record.js';
 export * from './sketch-svg.js';
 export * from './sketch-frame.js';
+export * from './look-ahead.js';
