@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { drawPictures, type LoadedPictures } from './handover-pdf-images.js';
 import {
   HANDOVER_CAUTION,
   handoverHeader,
@@ -41,6 +42,8 @@ export interface HandoverPdfInput {
   shiftDate: string;
   shift: 'day' | 'night';
   sentAt: Date;
+  /** Each heading's pictures as read from storage, in the snapshot's order (absent: none drawn) */
+  pictures?: LoadedPictures[];
 }
 
 /** Column widths of the look-ahead table, as shares of the text width. */
@@ -143,7 +146,7 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   for (const [k, v] of handoverHeader(s, input.shiftDate, input.shift, input.sentAt)) fact(k, v);
   doc.moveDown(0.6);
 
-  for (const h of s.headings.map(headingFacts)) {
+  for (const [index, h] of s.headings.map(headingFacts).entries()) {
     if (doc.y > doc.page.height - 240) doc.addPage();
     doc
       .moveTo(left, doc.y)
@@ -198,6 +201,8 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });
       doc.font('regular').fontSize(10).text(h.notes, { width });
     }
+    const loaded = input.pictures?.[index];
+    if (loaded) drawPictures(doc, s.headings[index].pictures, loaded, left, width);
     doc.moveDown(0.8);
   }
 

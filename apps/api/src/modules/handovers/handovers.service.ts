@@ -38,6 +38,7 @@ import type {
   HandoverPersonDto,
   HandoverUrlDto,
 } from './dto/handover.dto.js';
+import { loadPictures } from './handover-pdf-images.js';
 import { renderHandoverPdf } from './handover-pdf.js';
 import { handoverPictures } from './handover-pictures.js';
 import { HANDOVER_CAUTION } from './handover-text.js';
@@ -231,7 +232,12 @@ export class HandoversService implements OnModuleInit {
     const h = await repo.findOne({ where: { id: handoverId } });
     if (!h) throw new PermanentJobError(`Handover ${handoverId} no longer exists`);
     if (h.noticeId) return;
+    // Storage away while reading the pictures throws, and the job retries; a missing picture is a line.
+    const pictures = await Promise.all(
+      h.snapshot.headings.map((x) => loadPictures(this.storage, x.pictures)),
+    );
     const pdf = await renderHandoverPdf({
+      pictures,
       snapshot: h.snapshot,
       shiftDate: h.shiftDate,
       shift: h.shift,
