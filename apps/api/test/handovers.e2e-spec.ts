@@ -30,6 +30,9 @@ const CAUTION =
 /** The red hazard as the e-mail and the PDF list it: level as a word, kind, range, description. */
 const HAZARD_LINE =
   'Red — Wedge, 1+004.0 – 1+006.0: Invented: wedge of two joint sets in the right shoulder.';
+/** The look-ahead as the e-mail lists it (round 2's fault, from its frozen assessment). */
+const LOOK_AHEAD_LINE =
+  'fault 1 (round 2), from the face centre: reaches the crown 1.7 m ahead of the face, in the next round — crown at 1+007.7, invert at 1+004.3 (passed)';
 const flat = (s: string) => s.replace(/\s+/g, ' ');
 
 /** Waits for a condition with a bounded loop of short pauses (no fixed sleeps). */
@@ -58,8 +61,8 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       .map((f) => JSON.parse(readFileSync(path.join(mailDir(), f), 'utf8')) as Body)
       .filter((m) => (m.to as string[]).includes(to));
 
-  /** Opens a round at the face, saves its record with class C1 and Q 11.25, and submits it. */
-  const mapRound = async (faceChainage: number): Promise<Body> => {
+  /** Opens a round at the face, saves its record with class C1 and Q 11.25 (and joints), and submits it. */
+  const mapRound = async (faceChainage: number, joints: Body[] = []): Promise<Body> => {
     const opened = (
       await request(http)
         .post(`${p.base}/headings/${p.headingId}/rounds`)
@@ -71,7 +74,7 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       await request(http)
         .put(`${p.base}/rounds/${opened.id}`)
         .set(p.as('geologist'))
-        .send(saveBody(opened, { recommendedClassId: classId('C1'), nextRoundLength: 3 }))
+        .send(saveBody(opened, { recommendedClassId: classId('C1'), nextRoundLength: 3, joints }))
         .expect(200)
     ).body as Body;
     return (
@@ -135,7 +138,29 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
         password: TEST_PASSWORD,
       })
       .expect(200);
-    await mapRound(1006);
+    // Round 2 maps a fault 240/60 through the face centre, dipping back against the drive (060): on the
+    // 3 m radius profile it reaches the crown 3/tan 60° = 1.732 m ahead and the invert 1.732 m behind
+    // (methods.md §6) [computed here].
+    await mapRound(1006, [
+      {
+        id: '6f1c1a52-2f0e-4d7a-9a43-0c5b7d1e0a01',
+        kind: 'fault',
+        orientationText: '240/60',
+        notation: 'dip-direction/dip',
+        setLabel: null,
+        spacingM: null,
+        persistenceM: 20,
+        apertureMm: 40,
+        jr: 1,
+        jrc: null,
+        jrcMethod: null,
+        infill: 'soft clay gouge',
+        ja: 8,
+        water: 'dripping',
+        thicknessM: 0.4,
+        notes: '',
+      },
+    ]);
     // An open red hazard on the register (raised after the submits, so the rounds' alerts stay as they are).
     await request(http)
       .post(`${p.base}/headings/${p.headingId}/hazards`)
@@ -182,6 +207,22 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
         description: 'Invented: wedge of two joint sets in the right shoulder.',
       }),
     ]);
+    // Look-ahead from the frozen assessment of round 2, counted in the confirmed next round length (3 m).
+    expect(draft.headings[0].lookAheadRoundLength).toBe(3);
+    expect(draft.headings[0].lookAhead).toEqual([
+      expect.objectContaining({
+        label: 'fault 1',
+        roundNumber: 2,
+        firstAt: 'crown',
+        roundsAhead: 1,
+        traceKnown: false,
+      }),
+    ]);
+    const reach = draft.headings[0].lookAhead[0] as Body;
+    expect(reach.crownChainage).toBeCloseTo(1007.732, 3);
+    expect(reach.invertChainage).toBeCloseTo(1004.268, 3);
+    expect(reach.nearestAhead).toBeCloseTo(1.732, 3);
+    expect(reach.invertAhead).toBeCloseTo(-1.732, 3);
     expect(draft.headings[0].alerts).toEqual([
       expect.objectContaining({ level: 'amber', ownerRole: 'engineer', action: 'Tell the engineer.' }),
     ]);
@@ -248,6 +289,7 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
       expect(part).toContain('Scaling done at the crown');
       expect(part).toContain('Amber: ');
       expect(part).toContain(HAZARD_LINE);
+      expect(part).toContain(LOOK_AHEAD_LINE);
     }
     expect(flat(String(mail.text))).toContain(CAUTION);
     expect(String(mail.html)).toContain('max-width:560px');
@@ -270,6 +312,21 @@ describe('Handovers (e2e, real MariaDB, S3 fake, jobs worker and SMTP fake)', ()
     expect(text).toContain('Open hazards');
     expect(text).toContain(HAZARD_LINE);
     expect(text).toContain(CAUTION);
+    // The look-ahead table: its header, the feature, its crown chainage, distance and round.
+    for (const cell of [
+      'Look-ahead',
+      'Ahead of the face',
+      'fault 1 (round 2), from the face centre',
+      '1+007.7',
+      '1+004.3 (passed)',
+      '1.7 m (crown)',
+      'in the next round',
+      'Coming rounds counted at 3 m each (the next round length confirmed).',
+    ])
+      expect(text).toContain(cell);
+    // The trigger summary's arrow is spelled out (Open Sans has no glyph for →), the words around it intact.
+    expect(text).toContain('Amber: Q < 20 -> amber — Tell the engineer. (owner: Engineer)');
+    expect(String(mail.text)).toContain('Q < 20 → amber'); // the e-mail keeps the arrow
 
     // Listed with the handover: the stored PDF downloads, the e-mail reads as sent.
     const got = (await request(http).get(`${p.base}/handovers/${sent.id}`).set(p.as('viewer')).expect(200))

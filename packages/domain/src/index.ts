@@ -16,4 +16,5 @@ export * from './sketch.js';
 export * from './support-record.js';
 export * from './sketch-svg.js';
 export * from './sketch-frame.js';
+export * from './look-ahead.js';
 export * from './round-changes.js';

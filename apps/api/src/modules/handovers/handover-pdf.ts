@@ -1,10 +1,36 @@
 import PDFDocument from 'pdfkit';
-import { HANDOVER_CAUTION, handoverHeader, handoverSubject, headingFacts } from './handover-text.js';
+import { drawPictures, type LoadedPictures } from './handover-pdf-images.js';
+import {
+  HANDOVER_CAUTION,
+  handoverHeader,
+  handoverSubject,
+  headingFacts,
+  LOOK_AHEAD_COLUMNS,
+  type LookAheadRow,
+} from './handover-text.js';
 import type { HandoverSnapshot } from './handover.entity.js';
+import { glyphCheckOf, pdfSafeText } from './pdf-safe-text.js';
 
 /** Open Sans (TTF from @expo-google-fonts/open-sans; pdfkit fails on WOFF2, stack-notes §9). */
 const FONT_REGULAR = require.resolve('@expo-google-fonts/open-sans/400Regular/OpenSans_400Regular.ttf');
 const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans_700Bold.ttf');
+/** Whether both weights can draw a character (read from the fonts' own glyph tables, once). */
+let drawable: ((codePoint: number) => boolean) | null = null;
+const safe = (t: string): string => pdfSafeText(t, (drawable ??= glyphCheckOf(FONT_REGULAR, FONT_BOLD)));
+
+/**
+ * Every string this document lays out goes through pdfSafeText first: a character Open Sans has no glyph
+ * for (the → of a trigger summary) would otherwise print blank with no error.
+ */
+function withSafeText(doc: PDFKit.PDFDocument): PDFKit.PDFDocument {
+  const text = doc.text.bind(doc) as (t: string, ...rest: unknown[]) => PDFKit.PDFDocument;
+  const height = doc.heightOfString.bind(doc) as (t: string, ...rest: unknown[]) => number;
+  const width = doc.widthOfString.bind(doc) as (t: string, ...rest: unknown[]) => number;
+  doc.text = (t: string, ...rest: unknown[]) => text(safe(t), ...rest);
+  doc.heightOfString = (t: string, ...rest: unknown[]) => height(safe(t), ...rest);
+  doc.widthOfString = (t: string, ...rest: unknown[]) => width(safe(t), ...rest);
+  return doc;
+}
 
 const INK = '#1d2327';
 const MUTED = '#4a555c';
@@ -16,6 +42,61 @@ export interface HandoverPdfInput {
   shiftDate: string;
   shift: 'day' | 'night';
   sentAt: Date;
+  /** Each heading's pictures as read from storage, in the snapshot's order (absent: none drawn) */
+  pictures?: LoadedPictures[];
+}
+
+/** Column widths of the look-ahead table, as shares of the text width. */
+const LOOK_AHEAD_SHARES: Record<keyof LookAheadRow, number> = {
+  feature: 0.3,
+  crown: 0.16,
+  invert: 0.16,
+  ahead: 0.18,
+  round: 0.2,
+};
+
+/** The look-ahead as a table with a shaded header row; rows never split across a page. */
+function lookAheadTable(doc: PDFKit.PDFDocument, rows: LookAheadRow[], left: number, width: number): void {
+  const pad = 4;
+  const widths = LOOK_AHEAD_COLUMNS.map(([k]) => LOOK_AHEAD_SHARES[k] * width);
+  const drawRow = (cells: string[], header: boolean, shade: string | null) => {
+    doc.font(header ? 'bold' : 'regular').fontSize(9);
+    const height =
+      Math.max(...cells.map((c, i) => doc.heightOfString(c, { width: widths[i] - 2 * pad }))) + 2 * pad;
+    if (doc.y + height > doc.page.height - doc.page.margins.bottom) doc.addPage();
+    const top = doc.y;
+    if (shade) doc.rect(left, top, width, height).fillColor(shade).fill();
+    let x = left;
+    cells.forEach((c, i) => {
+      doc
+        .fillColor(INK)
+        .font(header ? 'bold' : 'regular')
+        .fontSize(9)
+        .text(c, x + pad, top + pad, { width: widths[i] - 2 * pad });
+      x += widths[i];
+    });
+    doc
+      .moveTo(left, top + height)
+      .lineTo(left + width, top + height)
+      .strokeColor(LINE)
+      .lineWidth(0.5)
+      .stroke();
+    doc.x = left;
+    doc.y = top + height;
+  };
+  doc.y += 2;
+  drawRow(
+    LOOK_AHEAD_COLUMNS.map(([, title]) => title),
+    true,
+    '#e8eef1',
+  );
+  rows.forEach((r, i) =>
+    drawRow(
+      LOOK_AHEAD_COLUMNS.map(([k]) => r[k]),
+      false,
+      i % 2 === 1 ? '#f6f8f9' : null,
+    ),
+  );
 }
 
 /**
@@ -24,16 +105,18 @@ export interface HandoverPdfInput {
  */
 export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   const s = input.snapshot;
-  const doc = new PDFDocument({
-    size: 'A4',
-    margins: { top: 50, bottom: 70, left: 50, right: 50 },
-    bufferPages: true,
-    info: {
-      Title: handoverSubject(s, input.shiftDate, input.shift),
-      Author: s.outgoing.name,
-      Creator: 'Roundbook',
-    },
-  });
+  const doc = withSafeText(
+    new PDFDocument({
+      size: 'A4',
+      margins: { top: 50, bottom: 70, left: 50, right: 50 },
+      bufferPages: true,
+      info: {
+        Title: handoverSubject(s, input.shiftDate, input.shift),
+        Author: s.outgoing.name,
+        Creator: 'Roundbook',
+      },
+    }),
+  );
   doc.registerFont('regular', FONT_REGULAR);
   doc.registerFont('bold', FONT_BOLD);
   const chunks: Buffer[] = [];
@@ -63,7 +146,7 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   for (const [k, v] of handoverHeader(s, input.shiftDate, input.shift, input.sentAt)) fact(k, v);
   doc.moveDown(0.6);
 
-  for (const h of s.headings.map(headingFacts)) {
+  for (const [index, h] of s.headings.map(headingFacts).entries()) {
     if (doc.y > doc.page.height - 240) doc.addPage();
     doc
       .moveTo(left, doc.y)
@@ -99,11 +182,27 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
         .font('regular')
         .fontSize(10)
         .text(`• ${s}`, left + 10, doc.y, { width: width - 10 });
+    doc.moveDown(0.3);
+    doc.font('bold').fontSize(10).fillColor(INK).text('Look-ahead', left, doc.y, { width });
+    if (h.lookAheadRows.length === 0)
+      doc
+        .font('regular')
+        .text('No mapped fault or shear zone reaches the crown or invert ahead of the face.', { width });
+    else {
+      lookAheadTable(doc, h.lookAheadRows, left, width);
+      doc
+        .font('regular')
+        .fontSize(8.5)
+        .fillColor(MUTED)
+        .text(h.lookAheadBasis, left, doc.y + 2, { width });
+    }
     if (h.notes) {
       doc.moveDown(0.3);
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });
       doc.font('regular').fontSize(10).text(h.notes, { width });
     }
+    const loaded = input.pictures?.[index];
+    if (loaded) drawPictures(doc, s.headings[index].pictures, loaded, left, width);
     doc.moveDown(0.8);
   }
 

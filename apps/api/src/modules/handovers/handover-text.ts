@@ -7,6 +7,7 @@ import {
   hazardKindLabels,
   levelLabels,
   roleLabel,
+  roundsAheadLabel,
   shiftLabels,
   stageLabels,
 } from '@roundbook/domain';
@@ -25,8 +26,31 @@ export interface HeadingFacts {
   hazards: string[];
   /** Support as built still outstanding, one line per item */
   supportOutstanding: string[];
+  /** Features reaching the crown or invert ahead of the face, one line each (the e-mail) */
+  lookAhead: string[];
+  /** The same as table rows (the PDF): feature, crown, invert, ahead of the face, which round */
+  lookAheadRows: LookAheadRow[];
+  /** How the coming rounds were counted, e.g. "Rounds of 3 m (the next round length confirmed)." */
+  lookAheadBasis: string;
   notes: string;
 }
+
+export interface LookAheadRow {
+  feature: string;
+  crown: string;
+  invert: string;
+  ahead: string;
+  round: string;
+}
+
+/** The columns of the look-ahead table, in order. */
+export const LOOK_AHEAD_COLUMNS: Array<[keyof LookAheadRow, string]> = [
+  ['feature', 'Feature (mapped on)'],
+  ['crown', 'Crown at'],
+  ['invert', 'Invert at'],
+  ['ahead', 'Ahead of the face'],
+  ['round', 'Met'],
+];
 
 const metres = (m: number): string => `${Number(m.toFixed(2))} m`;
 
@@ -44,6 +68,24 @@ export function headingFacts(h: HandoverHeadingSnapshot): HeadingFacts {
     : 'No round confirmed yet';
   const supportClass = c?.classCode ? `${c.classCode} — ${c.className ?? ''}`.trim() : 'Not confirmed';
   const next = c?.nextRoundLength != null ? metres(c.nextRoundLength) : 'Not confirmed';
+  const place = (ch: number | null, ahead: number | null): string =>
+    ch === null ? 'runs along' : `${chainage(ch)}${ahead !== null && ahead <= 0 ? ' (passed)' : ''}`;
+  const lookAheadRows: LookAheadRow[] = (h.lookAhead ?? []).map((f) => ({
+    feature: `${f.label} (round ${f.roundNumber})${f.traceKnown ? '' : ', from the face centre'}`,
+    crown: place(f.crownChainage, f.crownAhead),
+    invert: place(f.invertChainage, f.invertAhead),
+    ahead: `${f.nearestAhead.toFixed(1)} m (${f.firstAt})`,
+    round: roundsAheadLabel(f.roundsAhead),
+  }));
+  const roundLength = h.lookAheadRoundLength ?? null;
+  const lookAheadBasis =
+    roundLength === null
+      ? 'No round length is known, so the coming rounds are not counted.'
+      : `Coming rounds counted at ${metres(roundLength)} each (${
+          c?.nextRoundLength != null
+            ? 'the next round length confirmed'
+            : 'the heading’s planned round length'
+        }). Worked out from the face maps of the latest rounds handed in.`;
   return {
     title: `${h.code} — ${h.name}`,
     facts: [
@@ -62,6 +104,12 @@ export function headingFacts(h: HandoverHeadingSnapshot): HeadingFacts {
         `${levelLabels[z.level]} — ${hazardKindLabels[z.kind]}, ${formatHazardRange(z, h)}: ${z.description}`,
     ),
     supportOutstanding: h.supportOutstanding ?? [],
+    lookAhead: (h.lookAhead ?? []).map(
+      (f, i) =>
+        `${lookAheadRows[i].feature}: reaches the ${f.firstAt} ${f.nearestAhead.toFixed(1)} m ahead of the face, ${lookAheadRows[i].round} — crown at ${lookAheadRows[i].crown}, invert at ${lookAheadRows[i].invert}`,
+    ),
+    lookAheadRows,
+    lookAheadBasis,
     notes: h.notes,
   };
 }

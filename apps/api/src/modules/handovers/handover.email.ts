@@ -76,6 +76,9 @@ export function handoverEmail(e: HandoverEmailInput): { subject: string; text: s
       ...(h.supportOutstanding.length
         ? ['  Support outstanding:', ...h.supportOutstanding.map((s) => `    - ${s}`)]
         : ['  Support outstanding: none recorded']),
+      ...(h.lookAhead.length
+        ? ['  Look-ahead:', ...h.lookAhead.map((l) => `    - ${l}`), `    ${h.lookAheadBasis}`]
+        : ['  Look-ahead: no mapped fault or shear zone reaches the crown or invert ahead']),
       ...(h.notes ? [`  Notes: ${h.notes}`] : []),
       '',
     ]),
@@ -104,6 +107,8 @@ ${h.alerts.length ? `<ul style="margin:0;padding-left:20px">${h.alerts.map((a) =
 ${h.hazards.length ? `<ul style="margin:0;padding-left:20px">${h.hazards.map((z) => `<li>${escapeHtml(z)}</li>`).join('')}</ul>` : '<p style="margin:0">None</p>'}
 <p style="margin:6px 0 2px"><strong>Support outstanding</strong></p>
 ${h.supportOutstanding.length ? `<ul style="margin:0;padding-left:20px">${h.supportOutstanding.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>` : '<p style="margin:0">None recorded</p>'}
+<p style="margin:6px 0 2px"><strong>Look-ahead</strong></p>
+${h.lookAhead.length ? `<ul style="margin:0;padding-left:20px">${h.lookAhead.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul><p style="margin:2px 0 0;font-size:13px;color:#4a555c">${escapeHtml(h.lookAheadBasis)}</p>` : '<p style="margin:0">No mapped fault or shear zone reaches the crown or invert ahead</p>'}
 ${h.notes ? `<p style="margin:6px 0 0"><strong>Notes</strong><br>${para(h.notes)}</p>` : ''}
 </div>`,
   )

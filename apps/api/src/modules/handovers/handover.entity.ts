@@ -22,6 +22,40 @@ export interface HandoverHazard {
   description: string;
 }
 
+/** A mapped fault or shear zone whose crown or invert crossing lies ahead of the face (packages/domain headingLookAhead). */
+export interface HandoverLookAhead {
+  label: string;
+  /** The round whose face map gave it */
+  roundNumber: number;
+  crownChainage: number | null;
+  invertChainage: number | null;
+  /** Along the drive from the face, m (negative: passed); null where it runs along the tunnel */
+  crownAhead: number | null;
+  invertAhead: number | null;
+  nearestAhead: number;
+  firstAt: 'crown' | 'invert';
+  /** 1: met in the next round, 2: the one after, …; null without a round length */
+  roundsAhead: number | null;
+  traceKnown: boolean;
+}
+
+/** What the PDF draws for a heading (object keys and plot data, frozen when sent; bytes read by the PDF job). */
+export interface HandoverPictures {
+  /** The latest handed-in round's sketch render (PNG), if it was sketched */
+  sketch: { roundNumber: number; key: string } | null;
+  /** The latest handed-in round (whose sketch was looked for); null before the first */
+  sketchRound: number | null;
+  /** Up to six photos of the recent rounds, newest round first; key null while the thumbnail is not made */
+  photos: Array<{ roundNumber: number; caption: string; key: string | null }>;
+  /** Poles of the recent rounds' joints by set, the latest round's set means and the drive; null: none mapped */
+  stereonet: {
+    rounds: number[];
+    driveTrend: number;
+    poles: Array<{ dipDirection: number; dip: number; set: string | null }>;
+    sets: Array<{ label: string; dipDirection: number; dip: number; count: number }>;
+  } | null;
+}
+
 /** What was handed over for one heading, frozen when sent (figures from the data, words from the supervisor). */
 export interface HandoverHeadingSnapshot {
   headingId: string;
@@ -52,6 +86,12 @@ export interface HandoverHeadingSnapshot {
   hazards?: HandoverHazard[];
   /** Support as built still outstanding on the heading's confirmed rounds, one line per item (absent before) */
   supportOutstanding?: string[];
+  /** Features reaching the crown or invert ahead of the face, nearest first (absent before look-ahead was carried) */
+  lookAhead?: HandoverLookAhead[];
+  /** The round length the coming rounds were counted in, m (the last confirmed round's next, else planned) */
+  lookAheadRoundLength?: number | null;
+  /** What the PDF draws (absent before pictures were carried, and in the composer's draft) */
+  pictures?: HandoverPictures;
   cycleStage: CycleStage | null;
   notes: string;
 }

@@ -1,7 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { outstandingSupportLine, shiftOf, stageLabels } from '@roundbook/domain';
+import {
+  headingLookAhead,
+  outstandingSupportLine,
+  shiftOf,
+  stageLabels,
+  type LookAheadSource,
+} from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
@@ -19,6 +25,7 @@ import { HazardsService } from '../hazards/hazards.service.js';
 import { Heading } from '../headings/heading.entity.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
+import { RoundRevision } from '../rounds/round-revision.entity.js';
 import { Round } from '../rounds/round.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
 import { SupportRecordsService } from '../support-records/support-records.service.js';
@@ -31,13 +38,16 @@ import type {
   HandoverPersonDto,
   HandoverUrlDto,
 } from './dto/handover.dto.js';
+import { loadPictures } from './handover-pdf-images.js';
 import { renderHandoverPdf } from './handover-pdf.js';
+import { handoverPictures } from './handover-pictures.js';
 import { HANDOVER_CAUTION } from './handover-text.js';
 import { handoverEmail, handoverOverdueEmail } from './handover.email.js';
 import {
   Handover,
   HandoverHeading,
   type HandoverHeadingSnapshot,
+  type HandoverPictures,
   type HandoverSnapshot,
 } from './handover.entity.js';
 
@@ -47,9 +57,25 @@ export const HANDOVER_OVERDUE_JOB = 'handover.overdue';
 /** Signed PDF addresses live this long. */
 export const PDF_URL_TTL_SECONDS = 300;
 
-type Figures = Omit<HandoverHeadingSnapshot, 'cycleStage' | 'notes' | 'hazards' | 'supportOutstanding'> & {
+/** The look-ahead reads the frozen assessments of this many of a heading's latest handed-in rounds. */
+export const LOOK_AHEAD_ROUNDS = 5;
+
+type Figures = Omit<
+  HandoverHeadingSnapshot,
+  | 'cycleStage'
+  | 'notes'
+  | 'hazards'
+  | 'supportOutstanding'
+  | 'lookAhead'
+  | 'lookAheadRoundLength'
+  | 'pictures'
+> & {
   hazards: NonNullable<HandoverHeadingSnapshot['hazards']>;
   supportOutstanding: string[];
+  lookAhead: NonNullable<HandoverHeadingSnapshot['lookAhead']>;
+  lookAheadRoundLength: number | null;
+  /** Only when composing (the draft does not need them) */
+  pictures?: HandoverPictures;
 };
 
 /**
@@ -117,7 +143,7 @@ export class HandoversService implements OnModuleInit {
     const id = randomUUID();
     const saved = await this.dataSource.transaction(async (manager) => {
       const project = await this.project(manager, access.projectId);
-      const figures = await this.figures(manager, access.projectId, ids);
+      const figures = await this.figures(manager, access.projectId, ids, true);
       const outgoing = await manager.findOneOrFail(User, { where: { id: caller.id } });
       const extra = (dto.extraRecipients ?? []).map((e) => e.trim().toLowerCase());
       const snapshot: HandoverSnapshot = {
@@ -206,7 +232,12 @@ export class HandoversService implements OnModuleInit {
     const h = await repo.findOne({ where: { id: handoverId } });
     if (!h) throw new PermanentJobError(`Handover ${handoverId} no longer exists`);
     if (h.noticeId) return;
+    // Storage away while reading the pictures throws, and the job retries; a missing picture is a line.
+    const pictures = await Promise.all(
+      h.snapshot.headings.map((x) => loadPictures(this.storage, x.pictures)),
+    );
     const pdf = await renderHandoverPdf({
+      pictures,
       snapshot: h.snapshot,
       shiftDate: h.shiftDate,
       shift: h.shift,
@@ -413,20 +444,27 @@ export class HandoversService implements OnModuleInit {
   }
 
   /** Each heading's figures from the data, in the order asked; an id not of this project is a 404. */
-  private async figures(manager: EntityManager, projectId: string, headingIds: string[]): Promise<Figures[]> {
+  private async figures(
+    manager: EntityManager,
+    projectId: string,
+    headingIds: string[],
+    withPictures = false,
+  ): Promise<Figures[]> {
     const headings = await manager.find(Heading, { where: { id: In(headingIds), projectId } });
     const byId = new Map(headings.map((h) => [h.id, h]));
     const out: Figures[] = [];
     for (const id of headingIds) {
       const h = byId.get(id);
       if (!h) throw DomainException.notFound('The heading');
-      const last = await manager
+      const recent = await manager
         .getRepository(Round)
         .createQueryBuilder('r')
         .where('r.heading_id = :id AND r.status <> :draft', { id, draft: 'draft' })
         .orderBy('r.mapped_at', 'DESC')
         .addOrderBy('r.round_number', 'DESC')
-        .getOne();
+        .take(LOOK_AHEAD_ROUNDS)
+        .getMany();
+      const last = recent[0] ?? null;
       const confirmed = await manager
         .getRepository(Round)
         .createQueryBuilder('r')
@@ -434,6 +472,7 @@ export class HandoversService implements OnModuleInit {
         .orderBy('r.confirmed_at', 'DESC')
         .addOrderBy('r.mapped_at', 'DESC')
         .getOne();
+      const lookAheadRoundLength = confirmed?.confirmedRoundLength ?? h.plannedRoundLength ?? null;
       const cls = confirmed?.confirmedClassId
         ? await manager.findOne(SupportClass, { where: { id: confirmed.confirmedClassId } })
         : null;
@@ -474,6 +513,17 @@ export class HandoversService implements OnModuleInit {
           level: z.level,
           description: z.description,
         })),
+        lookAhead: last
+          ? headingLookAhead(await this.frozenLookAhead(manager, recent), {
+              faceChainage: last.faceChainage,
+              chainageSense: h.chainageSense === 'decreasing' ? -1 : 1,
+              roundLength: lookAheadRoundLength,
+            })
+          : [],
+        lookAheadRoundLength,
+        ...(withPictures
+          ? { pictures: await handoverPictures(manager, projectId, h.driveTrend, recent) }
+          : {}),
         supportOutstanding: (await this.support.outstandingForHeading(h.id, manager)).flatMap((o) =>
           o.items.map((i) =>
             outstandingSupportLine({
@@ -491,6 +541,23 @@ export class HandoversService implements OnModuleInit {
       });
     }
     return out;
+  }
+
+  /** Each round's look-ahead as frozen in its newest revision (a submit, confirm or return), newest round first. */
+  private async frozenLookAhead(manager: EntityManager, rounds: Round[]): Promise<LookAheadSource[]> {
+    if (rounds.length === 0) return [];
+    const revisions = await manager.getRepository(RoundRevision).find({
+      where: { roundId: In(rounds.map((r) => r.id)) },
+      select: { roundId: true, revision: true, assessment: true },
+      order: { revision: 'DESC' },
+    });
+    const newest = new Map<string, RoundRevision>();
+    for (const r of revisions) if (!newest.has(r.roundId)) newest.set(r.roundId, r);
+    return rounds.map((r) => ({
+      roundNumber: r.roundNumber,
+      faceChainage: r.faceChainage,
+      reaches: newest.get(r.id)?.assessment?.lookAhead ?? [],
+    }));
   }
 
   private async toDtos(rows: Handover[], now = new Date()): Promise<HandoverDto[]> {
@@ -514,10 +581,12 @@ export class HandoversService implements OnModuleInit {
         status: h.status,
         outgoing: h.snapshot.outgoing,
         incoming: h.snapshot.incoming,
-        headings: h.snapshot.headings.map((x) => ({
+        headings: h.snapshot.headings.map(({ pictures: _pictures, ...x }) => ({
           ...x,
           hazards: x.hazards ?? [],
           supportOutstanding: x.supportOutstanding ?? [],
+          lookAhead: x.lookAhead ?? [],
+          lookAheadRoundLength: x.lookAheadRoundLength ?? null,
         })),
         generalNotes: h.snapshot.generalNotes,
         recipients: h.recipients,

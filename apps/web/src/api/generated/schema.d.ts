@@ -2449,6 +2449,31 @@ export interface components {
             toChainage: number;
             description: string;
         };
+        /**
+         * @description Where it is met first
+         * @enum {string}
+         */
+        LookAheadPlace: "crown" | "invert";
+        HandoverLookAheadDto: {
+            /** @description Where it reaches the crown and the invert, m (null: runs along the tunnel there) */
+            crownChainage: number | null;
+            invertChainage: number | null;
+            /** @description Along the drive from the face, m (negative: already passed there) */
+            crownAhead: number | null;
+            invertAhead: number | null;
+            /** @description Where it is met first */
+            firstAt: components["schemas"]["LookAheadPlace"];
+            /** @description 1: in the next round, 2: the one after, …; null when no round length is known */
+            roundsAhead: number | null;
+            /** @description The feature as the round names it, e.g. "fault 1" */
+            label: string;
+            /** @description The round whose face map gave it */
+            roundNumber: number;
+            /** @description The nearer crossing still ahead, m */
+            nearestAhead: number;
+            /** @description Whether its trace on the face was recorded (else measured from the face centre) */
+            traceKnown: boolean;
+        };
         /** @enum {string} */
         CycleStage: "drilling" | "charging" | "mucking" | "support" | "mapping";
         HandoverHeadingDto: {
@@ -2465,6 +2490,10 @@ export interface components {
             hazards: components["schemas"]["HandoverHazardDto"][];
             /** @description Support as built still outstanding on the heading's confirmed rounds, one line per item */
             supportOutstanding: string[];
+            /** @description Features of the latest handed-in rounds reaching the crown or invert ahead of the face, nearest first */
+            lookAhead: components["schemas"]["HandoverLookAheadDto"][];
+            /** @description The round length the coming rounds are counted in, m (last confirmed round's next, else planned) */
+            lookAheadRoundLength: number | null;
             cycleStage: components["schemas"]["CycleStage"] | null;
             headingId: string;
             code: string;

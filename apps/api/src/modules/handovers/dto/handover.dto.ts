@@ -71,6 +71,34 @@ export class HandoverHazardDto {
   description: string;
 }
 
+/** A mapped fault or shear zone whose crown or invert crossing lies ahead of the face (frozen when sent). */
+export class HandoverLookAheadDto {
+  /** The feature as the round names it, e.g. "fault 1" */
+  label: string;
+  /** The round whose face map gave it */
+  roundNumber: number;
+  /** Where it reaches the crown and the invert, m (null: runs along the tunnel there) */
+  @ApiProperty({ type: Number, nullable: true })
+  crownChainage: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  invertChainage: number | null;
+  /** Along the drive from the face, m (negative: already passed there) */
+  @ApiProperty({ type: Number, nullable: true })
+  crownAhead: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  invertAhead: number | null;
+  /** The nearer crossing still ahead, m */
+  nearestAhead: number;
+  /** Where it is met first */
+  @ApiProperty({ enum: ['crown', 'invert'], enumName: 'LookAheadPlace' })
+  firstAt: 'crown' | 'invert';
+  /** 1: in the next round, 2: the one after, …; null when no round length is known */
+  @ApiProperty({ type: Number, nullable: true })
+  roundsAhead: number | null;
+  /** Whether its trace on the face was recorded (else measured from the face centre) */
+  traceKnown: boolean;
+}
+
 export class HandoverLastConfirmedDto {
   roundId: string;
   roundNumber: number;
@@ -118,6 +146,12 @@ export class HandoverHeadingDto {
   /** Support as built still outstanding on the heading's confirmed rounds, one line per item */
   @ApiProperty({ type: [String] })
   supportOutstanding: string[];
+  /** Features of the latest handed-in rounds reaching the crown or invert ahead of the face, nearest first */
+  @ApiProperty({ type: [HandoverLookAheadDto] })
+  lookAhead: HandoverLookAheadDto[];
+  /** The round length the coming rounds are counted in, m (last confirmed round's next, else planned) */
+  @ApiProperty({ type: Number, nullable: true })
+  lookAheadRoundLength: number | null;
   @ApiProperty({ enum: CYCLE_STAGES, enumName: 'CycleStage', nullable: true })
   cycleStage: CycleStage | null;
   notes: string;
