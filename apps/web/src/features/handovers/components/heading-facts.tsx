@@ -2,6 +2,7 @@ import { makeStyles, Text, tokens } from '@fluentui/react-components';
 import {
   cycleStageLabels,
   formatChainageFor,
+  roundsAheadLabel,
   formatHazardRange,
   hazardKindLabels,
   roleLabel,
@@ -88,6 +89,22 @@ export function HeadingFacts({ h, cycle }: HeadingFactsProps) {
             {h.supportOutstanding.map((line, i) => (
               <li key={i} data-testid="handover-support-outstanding">
                 {line}
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <section className={styles.group} aria-label={`Look-ahead at ${h.code}`}>
+        <Text className={styles.groupTitle}>Look-ahead: mapped features ahead of the face</Text>
+        {h.lookAhead.length === 0 ? (
+          <Text as="p">None reaching the crown or invert ahead of the face</Text>
+        ) : (
+          <ul className={styles.items}>
+            {h.lookAhead.map((f, i) => (
+              <li key={i} data-testid="handover-look-ahead">
+                {`${f.label} (round ${f.roundNumber}): reaches the ${f.firstAt} ${f.nearestAhead.toFixed(1)} m ahead, ${roundsAheadLabel(f.roundsAhead)}` +
+                  ` — crown ${f.crownChainage === null ? 'runs along' : chainage(f.crownChainage)}, invert ${f.invertChainage === null ? 'runs along' : chainage(f.invertChainage)}` +
+                  (f.traceKnown ? '' : ' (from the face centre)')}
               </li>
             ))}
           </ul>

@@ -53,6 +53,10 @@ describe('ReceivedList', () => {
     expect(heading).toHaveTextContent('Face 1+006.0, Full face');
     expect(heading).toHaveTextContent('Cycle: Mucking out');
     expect(heading).toHaveTextContent('Last confirmed: round 1 at 1+003.0, class C1, next round 3 m');
+    // Look-ahead: where a mapped fault reaches the crown ahead of the face, and in which coming round.
+    expect(within(heading).getByTestId('handover-look-ahead')).toHaveTextContent(
+      'Fault 1 (round 2): reaches the crown 1.7 m ahead, in the next round — crown 1+007.7, invert 1+002.3',
+    );
     // Hazards: level, kind, chainage range, description.
     const hazard = within(heading).getByTestId('handover-hazard');
     expect(hazard).toHaveTextContent('Red');

@@ -29,6 +29,21 @@ export const draftHeading = (over: Partial<DraftHeading> = {}): DraftHeading => 
     confirmedAt: '2026-12-03T10:00:00.000Z',
   },
   triggerLevel: 'amber',
+  lookAhead: [
+    {
+      label: 'Fault 1',
+      roundNumber: 2,
+      crownChainage: 1007.7,
+      invertChainage: 1002.3,
+      crownAhead: 1.7,
+      invertAhead: -3.7,
+      firstAt: 'crown',
+      nearestAhead: 1.7,
+      roundsAhead: 1,
+      traceKnown: true,
+    },
+  ],
+  lookAheadRoundLength: 3,
   alerts: [{ level: 'amber', summary: 'Q below 20', action: 'Tell the engineer.', ownerRole: 'engineer' }],
   hazards: [
     {
