@@ -134,7 +134,7 @@ test('every screen has no serious accessibility violation, in both themes', asyn
   const supervisor = await signIn(browser, 'supervisor@roundbook.test');
   await eachTheme(supervisor, async (theme) => {
     await supervisor.goto('/received');
-    await expect(supervisor.getByRole('heading', { name: 'Received' })).toBeVisible();
+    await expect(supervisor.getByRole('heading', { name: 'Received', exact: true })).toBeVisible();
     await scan(supervisor, 'received', theme);
   });
 
