@@ -1,4 +1,11 @@
-import type { CycleStage, HandoverStatus, HazardKind, Shift, TriggerLevel } from '@roundbook/domain';
+import type {
+  CycleStage,
+  HandoverStatus,
+  HazardKind,
+  LookAheadItem,
+  Shift,
+  TriggerLevel,
+} from '@roundbook/domain';
 import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
 import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import type { Stage } from '../headings/heading.entity.js';
@@ -22,22 +29,8 @@ export interface HandoverHazard {
   description: string;
 }
 
-/** A mapped fault or shear zone whose crown or invert crossing lies ahead of the face (packages/domain headingLookAhead). */
-export interface HandoverLookAhead {
-  label: string;
-  /** The round whose face map gave it */
-  roundNumber: number;
-  crownChainage: number | null;
-  invertChainage: number | null;
-  /** Along the drive from the face, m (negative: passed); null where it runs along the tunnel */
-  crownAhead: number | null;
-  invertAhead: number | null;
-  nearestAhead: number;
-  firstAt: 'crown' | 'invert';
-  /** 1: met in the next round, 2: the one after, …; null without a round length */
-  roundsAhead: number | null;
-  traceKnown: boolean;
-}
+/** A mapped fault or shear zone whose crown or invert crossing lies ahead of the face, as the domain gives it. */
+export type HandoverLookAhead = LookAheadItem;
 
 /** What the PDF draws for a heading (object keys and plot data, frozen when sent; bytes read by the PDF job). */
 export interface HandoverPictures {
