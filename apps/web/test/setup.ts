@@ -6,9 +6,11 @@ import { deviceStore } from '@/lib/sync/device-store';
 // (the default is 1 s) so a slow render is not mistaken for a missing element.
 configure({ asyncUtilTimeout: 5000 });
 
-// One retry, logged: on fresh clones under the whole run, a Fluent dialog opened by a click failed to appear
-// within 5 s in a different test each time (support-class delete, heading drive change), and each passes
-// alone. A test that fails twice still fails the run; the cause is still open (see the closing note).
+// One retry, logged. The failures that led to it (a Fluent dialog "not found" in the support-class delete and
+// heading drive tests) had a cause: the dialog was open, but tabster marks its surface aria-hidden a moment
+// after it opens in jsdom, which takes its accessible name away; those tests now find dialogs by title with
+// `findDialog` (src/testing/dialogs.ts). The retry stays for slow renders under load; a test that fails
+// twice still fails the run.
 jest.retryTimes(1, { logErrorsBeforeRetry: true });
 
 afterEach(() => {

@@ -3,6 +3,7 @@ import userEvent from '@testing-library/user-event';
 import type { Heading } from '@/api/contract';
 import { HeadingForm } from '@/features/headings/components/heading-form';
 import { saveSession } from '@/lib/session';
+import { findDialog } from '@/testing/dialogs';
 import { adminSession } from '@/testing/fixtures';
 import { jsonResponse, mockApi, restoreFetch } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render-with-providers';
@@ -215,8 +216,8 @@ describe('HeadingForm', () => {
     }
 
     // In jsdom, Fluent's focus manager marks an open dialog aria-hidden shortly after it opens (in a
-    // browser it does not: the e2e test finds the dialog and its buttons by role), so the dialog and
-    // its buttons are looked up with `hidden: true`.
+    // browser it does not: the e2e test finds the dialog and its buttons by role), so the dialog is found
+    // by its title (findDialog) and its buttons are looked up with `hidden: true`.
     async function changeDrive(user: ReturnType<typeof userEvent.setup>) {
       const drive = screen.getByLabelText(/^Drive direction/);
       await user.clear(drive);
@@ -232,10 +233,7 @@ describe('HeadingForm', () => {
       const onSaved = renderForm({ heading });
       await changeDrive(user);
 
-      const dialog = await screen.findByRole('alertdialog', {
-        name: 'Change the drive direction of KT-N?',
-        hidden: true,
-      });
+      const dialog = await findDialog('Change the drive direction of KT-N?');
       expect(dialog).toHaveTextContent(question.message);
       expect(within(dialog).getByTestId('recompute-rounds')).toHaveTextContent('23');
       expect(onSaved).not.toHaveBeenCalled();
@@ -255,7 +253,7 @@ describe('HeadingForm', () => {
       const onSaved = renderForm({ heading });
       const drive = await changeDrive(user);
 
-      const dialog = await screen.findByRole('alertdialog', { hidden: true });
+      const dialog = await findDialog('Change the drive direction of KT-N?');
       await user.click(within(dialog).getByRole('button', { name: "Don't save", hidden: true }));
       await waitFor(() =>
         expect(screen.queryByRole('alertdialog', { hidden: true })).not.toBeInTheDocument(),
