@@ -6,6 +6,7 @@ import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
+import type { AppConfig } from '../src/config/app-config';
 import { hashPassword } from '../src/modules/users/password';
 import { User } from '../src/modules/users/user.entity';
 import { makeProject, TEST_PASSWORD, type TestProject } from './factories';
@@ -250,6 +251,9 @@ describe('hardening: sign-in limits per account and per address, trust proxy (e2
     const passwordHash = await hashPassword(TEST_PASSWORD);
     for (const role of ['viewer', 'geologist', 'engineer'])
       await users.save({ email: emailOf(role), name: `Invented ${role} ${run}`, passwordHash });
+    // Address tallies are kept in the database for the whole instance: start this address from nothing
+    // (earlier e2e files of the run failed sign-ins from the same loopback address).
+    await app.get(DataSource).query("DELETE FROM `sign_in_tallies` WHERE `tally_key` LIKE 'ip:%'");
   });
   afterAll(async () => {
     await app.close();
@@ -269,6 +273,44 @@ describe('hardening: sign-in limits per account and per address, trust proxy (e2
     for (let i = 0; i < 3; i++)
       await login(`nobody${i}@roundbook.test`, 'wrong-password', `192.0.2.${i}`).expect(401);
     await login(emailOf('engineer'), TEST_PASSWORD, '192.0.2.200').expect(429);
+  });
+});
+
+describe('hardening: sign-in tallies are shared by every API process and survive a restart (e2e)', () => {
+  const email = `shared.limits${Date.now() % 1e6}@roundbook.test`;
+  const limits = (c: AppConfig): AppConfig => ({
+    ...c,
+    trustProxy: false,
+    auth: { ...c.auth, loginRateLimit: 4, loginAddressLimit: 1000 },
+  });
+
+  it('two processes split the failures and still lock the account at the allowance; a new process keeps the block', async () => {
+    // Replays: POST /api/auth/login with a wrong password, alternating between two API processes on one
+    // database. When each process counted in its own memory, 4 failures split 2 + 2 left both under the
+    // allowance of 4, and a restart forgot every block.
+    const first = await createTestApp(limits);
+    const second = await createTestApp(limits);
+    const users = first.get(DataSource).getRepository(User);
+    await users.save({ email, name: 'Invented Shared', passwordHash: await hashPassword(TEST_PASSWORD) });
+    const login = (app: INestApplication, password: string) =>
+      request(app.getHttpServer() as App)
+        .post('/api/auth/login')
+        .send({ email, password });
+    try {
+      for (const app of [first, second, first, second]) await login(app, 'wrong-password').expect(401);
+      const locked = await login(second, TEST_PASSWORD).expect(429);
+      expect(Number(locked.headers['retry-after'])).toBeGreaterThanOrEqual(29);
+      await login(first, TEST_PASSWORD).expect(429);
+    } finally {
+      await first.close();
+      await second.close();
+    }
+    const restarted = await createTestApp(limits);
+    try {
+      await login(restarted, TEST_PASSWORD).expect(429);
+    } finally {
+      await restarted.close();
+    }
   });
 });
 

@@ -50,8 +50,12 @@ export class AuthController {
   @Header('Cache-Control', 'no-store')
   @HttpCode(200)
   @ApiOkResponse({ type: TokenResponseDto })
-  changePassword(@CurrentUser() user: AuthUser, @Body() body: ChangePasswordDto): Promise<TokenResponseDto> {
-    return this.auth.changePassword(user, body.currentPassword, body.newPassword);
+  changePassword(
+    @CurrentUser() user: AuthUser,
+    @Body() body: ChangePasswordDto,
+    @Ip() address: string,
+  ): Promise<TokenResponseDto> {
+    return this.auth.changePassword(user, body.currentPassword, body.newPassword, address);
   }
 
   /** The signed-in user and their project memberships */

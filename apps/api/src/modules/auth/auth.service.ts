@@ -33,18 +33,18 @@ export class AuthService {
 
   async login(email: string, password: string, address = 'unknown'): Promise<TokenResponseDto> {
     email = email.trim().toLowerCase();
-    this.attempts.assertAllowed(email, address);
+    await this.attempts.assertAllowed(email, address);
     const user = await this.users.findOne({ where: { email: email.trim().toLowerCase() } });
     // Verify even when the user is unknown, so response time does not reveal which e-mails exist.
     const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), password);
     if (!user || !ok) {
-      this.attempts.failed(email, address);
+      await this.attempts.failed(email, address);
       throw new DomainException(
         ErrorCode.InvalidCredentials,
         'That e-mail and password do not match an account.',
       );
     }
-    this.attempts.succeeded(email);
+    await this.attempts.succeeded(email);
     return this.issue(user);
   }
 
@@ -91,11 +91,17 @@ export class AuthService {
    * A new password: the current one is asked again, every earlier token is revoked, and this device gets a
    * new token so it stays signed in.
    */
-  async changePassword(caller: AuthUser, current: string, next: string): Promise<TokenResponseDto> {
+  async changePassword(
+    caller: AuthUser,
+    current: string,
+    next: string,
+    address = 'unknown',
+  ): Promise<TokenResponseDto> {
     const user = await this.users.findOneOrFail({ where: { id: caller.id } });
-    this.attempts.assertAllowed(user.email, 'password-change');
+    // Counted with sign-in failures: per account, and per the caller's address (not one bucket for everyone).
+    await this.attempts.assertAllowed(user.email, address);
     if (!(await verifyPassword(user.passwordHash, current))) {
-      this.attempts.failed(user.email, 'password-change');
+      await this.attempts.failed(user.email, address);
       throw new DomainException(ErrorCode.ValidationFailed, 'Your current password is not right.', {
         currentPassword: 'Type the password you signed in with.',
       });
@@ -104,7 +110,7 @@ export class AuthService {
       throw new DomainException(ErrorCode.ValidationFailed, 'Choose a password other than the current one.', {
         newPassword: 'Choose a new password.',
       });
-    this.attempts.succeeded(user.email);
+    await this.attempts.succeeded(user.email);
     await this.users.update(
       { id: user.id },
       { passwordHash: await hashPassword(next), tokenVersion: () => 'token_version + 1' },

@@ -1,36 +1,40 @@
 import { Inject, Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import type { DataSource } from 'typeorm';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
-
-interface Tally {
-  failures: number;
-  /** No attempt is heard before this time (ms since epoch) */
-  blockedUntil: number;
-  lastFailure: number;
-}
 
 /** Failures are forgotten this long after the last one. */
 const FORGET_AFTER_MS = 15 * 60_000;
 /** The first block lasts this long and doubles with every further failure, up to the cap. */
 const FIRST_BLOCK_MS = 30_000;
 const MAX_BLOCK_MS = 15 * 60_000;
-/** Tallies kept at most (oldest dropped), so a flood of invented e-mails cannot fill the memory. */
-const MAX_TALLIES = 50_000;
+/** Forgotten tallies removed per failure at most, so the table stays as small as the last 15 minutes. */
+const PRUNE_BATCH = 200;
 
 /**
  * Failed sign-ins counted per account and per client address, each with its own allowance and a block that
  * doubles with every failure past it. One person's typos block that account only; an address is blocked
  * only after many more failures (a site behind one address keeps working). A success clears the account.
+ *
+ * The tallies live in MariaDB (`sign_in_tallies`), so every API process behind the same database counts the
+ * same failures and a restart forgets no block. Each count is one atomic upsert (no read-then-write, and no
+ * `FOR UPDATE` on a row that may not exist yet, whose gap lock deadlocks two first failures).
  */
 @Injectable()
 export class LoginAttempts {
-  private readonly tallies = new Map<string, Tally>();
-
-  constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
+  constructor(
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @InjectDataSource() private readonly db: DataSource,
+  ) {}
 
   /** Throws 429 with a retry hint when the account or the address is blocked. */
-  assertAllowed(email: string, address: string, now = Date.now()): void {
-    const wait = Math.max(this.blockedFor(`a:${email}`, now), this.blockedFor(`ip:${address}`, now));
+  async assertAllowed(email: string, address: string, now = Date.now()): Promise<void> {
+    const rows = await this.db.query<{ blockedUntil: string | number }[]>(
+      'SELECT `blocked_until_ms` AS blockedUntil FROM `sign_in_tallies` WHERE `tally_key` IN (?, ?)',
+      [accountKey(email), addressKey(address)],
+    );
+    const wait = Math.max(0, ...rows.map((r) => Number(r.blockedUntil) - now));
     if (wait > 0) {
       const seconds = Math.ceil(wait / 1000);
       throw new DomainException(
@@ -42,35 +46,39 @@ export class LoginAttempts {
     }
   }
 
-  failed(email: string, address: string, now = Date.now()): void {
-    this.count(`a:${email}`, this.config.auth.loginRateLimit, now);
-    this.count(`ip:${address}`, this.config.auth.loginAddressLimit, now);
+  async failed(email: string, address: string, now = Date.now()): Promise<void> {
+    await this.count(accountKey(email), this.config.auth.loginRateLimit, now);
+    await this.count(addressKey(address), this.config.auth.loginAddressLimit, now);
+    await this.db.query(
+      'DELETE FROM `sign_in_tallies` WHERE `last_failure_ms` < ? AND `blocked_until_ms` <= ? LIMIT ' +
+        String(PRUNE_BATCH),
+      [now - FORGET_AFTER_MS, now],
+    );
   }
 
-  succeeded(email: string): void {
-    this.tallies.delete(`a:${email}`);
+  async succeeded(email: string): Promise<void> {
+    await this.db.query('DELETE FROM `sign_in_tallies` WHERE `tally_key` = ?', [accountKey(email)]);
   }
 
-  private blockedFor(key: string, now: number): number {
-    const t = this.tallies.get(key);
-    if (!t) return 0;
-    if (now - t.lastFailure > FORGET_AFTER_MS && now >= t.blockedUntil) {
-      this.tallies.delete(key);
-      return 0;
-    }
-    return Math.max(0, t.blockedUntil - now);
-  }
-
-  private count(key: string, allowance: number, now: number): void {
-    let t = this.tallies.get(key);
-    if (t && now - t.lastFailure > FORGET_AFTER_MS && now >= t.blockedUntil) t = undefined;
-    t ??= { failures: 0, blockedUntil: 0, lastFailure: now };
-    t.failures++;
-    t.lastFailure = now;
-    const over = t.failures - allowance;
-    if (over >= 0) t.blockedUntil = now + Math.min(MAX_BLOCK_MS, FIRST_BLOCK_MS * 2 ** Math.min(over, 20));
-    this.tallies.delete(key); // re-insert: the Map stays in order of last use
-    this.tallies.set(key, t);
-    if (this.tallies.size > MAX_TALLIES) this.tallies.delete(this.tallies.keys().next().value!);
+  private async count(key: string, allowance: number, now: number): Promise<void> {
+    // A tally whose last failure is over 15 minutes old and whose block has run out starts again at 1.
+    // `failures` is assigned before `last_failure_ms`, so it reads the old value whether MariaDB assigns
+    // left to right (its default) or simultaneously (SIMULTANEOUS_ASSIGNMENT).
+    await this.db.query(
+      'INSERT INTO `sign_in_tallies` (`tally_key`, `failures`, `last_failure_ms`, `blocked_until_ms`) VALUES (?, 1, ?, 0) ' +
+        'ON DUPLICATE KEY UPDATE ' +
+        '`failures` = IF(`last_failure_ms` < ? AND `blocked_until_ms` <= ?, 1, `failures` + 1), ' +
+        '`last_failure_ms` = ?',
+      [key, now, now - FORGET_AFTER_MS, now, now],
+    );
+    // The block follows the count just written (a second statement, so it never reads a stale count).
+    await this.db.query(
+      'UPDATE `sign_in_tallies` SET `blocked_until_ms` = ? + LEAST(?, ? * POW(2, LEAST(CAST(`failures` AS SIGNED) - ?, 20))) ' +
+        'WHERE `tally_key` = ? AND `failures` >= ?',
+      [now, MAX_BLOCK_MS, FIRST_BLOCK_MS, allowance, key, allowance],
+    );
   }
 }
+
+const accountKey = (email: string) => `a:${email.slice(0, 330)}`;
+const addressKey = (address: string) => `ip:${address.slice(0, 330)}`;
