@@ -256,6 +256,8 @@ describe('hardening: sign-in limits per account and per address, trust proxy (e2
     await app.get(DataSource).query("DELETE FROM `sign_in_tallies` WHERE `tally_key` LIKE 'ip:%'");
   });
   afterAll(async () => {
+    // This test blocks the loopback address on purpose; unblock it for the e2e files that follow.
+    await app.get(DataSource).query("DELETE FROM `sign_in_tallies` WHERE `tally_key` LIKE 'ip:%'");
     await app.close();
   });
 
