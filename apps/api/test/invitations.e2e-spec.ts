@@ -407,6 +407,52 @@ describe('Team and invitations (e2e, real MariaDB, the jobs worker and the SMTP 
       await login(email, 'a-long-enough-pw');
     });
 
+    it('two projects invite one new address and both links are accepted at once: one account, the other link says sign in first and still works after (issue 18 item 4)', async () => {
+      // Replays: POST /api/invitations/{token}/accept for two projects' invitations to one new address, at
+      // the same moment, both without a session. Both transactions find no account and create one; the
+      // second's insert hit the unique e-mail key and answered 500.
+      const owner = await makeUser('owner-race');
+      const projects = [
+        await makeProject(owner.token, `RA${run}`),
+        await makeProject(owner.token, `RB${run}`),
+      ];
+      const email = `race.${run}@roundbook.test`;
+      for (const p of projects)
+        await request(http)
+          .post(`/api/projects/${p}/invitations`)
+          .set(bearer(owner.token))
+          .send({ email, role: 'geologist', name: 'Invented Racer' })
+          .expect(201);
+      await tokenFor(email, 2);
+      const links = mailFor(email).map((m) => /\/invitation\/([A-Za-z0-9_-]+)/.exec(m.text as string)![1]);
+      expect(new Set(links).size).toBe(2);
+
+      const answers = await Promise.all(
+        links.map((t) =>
+          request(http).post(`/api/invitations/${t}/accept`).send({ password: 'a-long-enough-pw' }),
+        ),
+      );
+      expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
+      const refused = answers.findIndex((a) => a.status === 409);
+      expect(answers[refused].body.message).toMatch(/already has a Roundbook account\. Sign in/);
+
+      // One account and one membership; the refused link wrote nothing and is still open.
+      const db = app.get(DataSource);
+      const accounts = await db.getRepository(User).find({ where: { email } });
+      expect(accounts).toHaveLength(1);
+      expect(await db.getRepository(ProjectMember).count({ where: { userId: accounts[0].id } })).toBe(1);
+      await request(http).get(`/api/invitations/${links[refused]}`).expect(200);
+
+      // Signed in with the account just made, the refused link joins the second project.
+      const session = await login(email, 'a-long-enough-pw');
+      await request(http)
+        .post(`/api/invitations/${links[refused]}/accept`)
+        .set(bearer(session))
+        .send({})
+        .expect(200);
+      expect(await db.getRepository(ProjectMember).count({ where: { userId: accounts[0].id } })).toBe(2);
+    });
+
     it('an invitation does not reveal whether the address has an account, nor its holder’s name', async () => {
       const owner = await makeUser('owner3');
       const p = await makeProject(owner.token, `NR${run}`);
