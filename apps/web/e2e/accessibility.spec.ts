@@ -100,7 +100,12 @@ test('every screen has no serious accessibility violation, in both themes', asyn
     await geologist.goto('/');
     await expect(geologist.getByRole('heading', { level: 1 })).toBeVisible();
     await scan(geologist, 'board', theme);
-    await geologist.getByTestId('heading-card').filter({ hasText: 'HR-U' }).getByRole('link').first().click();
+    await geologist
+      .getByTestId('heading-card')
+      .filter({ hasText: 'HR-U' })
+      .getByRole('heading', { level: 3 })
+      .getByRole('link')
+      .click();
     const views = geologist.getByRole('tablist', { name: 'Heading views' });
     await expect(views).toBeVisible();
     const headingUrl = geologist.url();

@@ -172,11 +172,43 @@ for (const { role, nav } of roles) {
     }
 
     if (role === 'geologist') {
+      // The last handover's state by mark and words (issue 15 item 6). The demo has no handover yet, so the
+      // browser answers /api/projects with the API's own body plus an overdue and an acknowledged one.
+      const hour = 3_600_000;
+      const at = (h: number) => new Date(Date.now() + h * hour).toISOString();
+      await page.route('**/api/projects', async (route) => {
+        const response = await route.fetch();
+        const body = (await response.json()) as { headings: Record<string, unknown>[] }[];
+        const [first, second] = body[0].headings;
+        first.lastHandover = { sentAt: at(-3), acknowledgedAt: null, ackDueAt: at(-2), overdue: true };
+        if (second)
+          second.lastHandover = {
+            sentAt: at(-15),
+            acknowledgedAt: at(-14.5),
+            ackDueAt: at(-14),
+            overdue: false,
+          };
+        await route.fulfill({ response, json: body });
+      });
+      await page.reload();
+      const states = page.getByTestId('handover-state');
+      await expect(states.first()).toHaveAttribute('data-state', 'overdue');
+      await expect(states.first()).toContainText('Overdue: not acknowledged, was due by');
+      await expect(states.nth(1)).toHaveAttribute('data-state', 'acknowledged');
+      const toHandovers = page.getByRole('link', { name: /^sent / });
+      await expect(toHandovers).toHaveCount(2);
+      for (const link of await toHandovers.all()) {
+        await expect(link).toHaveAttribute('href', /\/headings\/[^/?]+\?view=handovers$/);
+        expect((await link.boundingBox())?.height ?? 0).toBeGreaterThanOrEqual(44);
+      }
+      await page.screenshot({ path: `${shots}board-geologist-handovers.png`, fullPage: true });
+
       await page.getByRole('switch', { name: 'High contrast' }).click();
       await expect(page.locator('[data-theme-mode="high-contrast"]')).toBeVisible();
-      await page.screenshot({ path: `${shots}board-geologist-high-contrast.png` });
+      await page.screenshot({ path: `${shots}board-geologist-high-contrast.png`, fullPage: true });
       await page.reload();
       await expect(page.getByRole('switch', { name: 'High contrast' })).toBeChecked();
+      await page.unrouteAll();
     }
 
     if (role === 'viewer') {

@@ -33,7 +33,8 @@ test('the app opens offline from its cache with the heading, and a round can be 
   // Online once: the heading and the new-round panel (its /next answer) are read through the worker.
   await page.reload();
   const card = page.getByTestId('heading-card').filter({ hasText: 'HR-U' });
-  await card.getByRole('link').click();
+  // The card's title (its other links lead to the review count and the handovers).
+  await card.getByRole('heading', { level: 3 }).getByRole('link').click();
   await expect(page).toHaveURL(/\/projects\/[^/]+\/headings\/[^/]+$/);
   const headingUrl = page.url();
   await expect(page.getByRole('heading', { level: 1 })).toContainText('HR-U');

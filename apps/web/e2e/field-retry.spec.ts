@@ -33,7 +33,8 @@ test('a create and a save whose answers were lost are retried without a duplicat
   test.setTimeout(90_000);
   await signIn(page);
   const card = page.getByTestId('heading-card').filter({ hasText: 'HR-U' });
-  await card.getByRole('link').click();
+  // The card's title (its other links lead to the review count and the handovers).
+  await card.getByRole('heading', { level: 3 }).getByRole('link').click();
   await expect(page).toHaveURL(/\/projects\/[^/]+\/headings\/[^/]+$/);
   const [, , projectId, , headingId] = new URL(page.url()).pathname.split('/');
   const token = await page.evaluate(

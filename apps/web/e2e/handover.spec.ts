@@ -85,7 +85,12 @@ async function expectTouchTargets(scope: Locator): Promise<void> {
 }
 
 async function openHeadingHandovers(page: Page): Promise<void> {
-  await page.getByTestId('heading-card').filter({ hasText: 'HR-U' }).getByRole('link').click();
+  await page
+    .getByTestId('heading-card')
+    .filter({ hasText: 'HR-U' })
+    .getByRole('heading', { level: 3 })
+    .getByRole('link')
+    .click();
   await expect(page).toHaveURL(/\/projects\/[^/]+\/headings\/[^/]+$/);
   await page.getByRole('tab', { name: 'Handovers' }).click();
 }

@@ -31,7 +31,12 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   await expect(page).toHaveURL(/\/$/);
 
   // The card's first link is the heading itself (the count of rounds to review links to To confirm).
-  await page.getByTestId('heading-card').filter({ hasText: 'HR-U' }).getByRole('link').first().click();
+  await page
+    .getByTestId('heading-card')
+    .filter({ hasText: 'HR-U' })
+    .getByRole('heading', { level: 3 })
+    .getByRole('link')
+    .click();
   await expect(page).toHaveURL(/\/projects\/[^/]+\/headings\/[^/]+$/);
   await page.getByRole('tab', { name: 'Orientation' }).click();
   await expect(page.getByRole('tab', { name: 'Orientation' })).toHaveAttribute('aria-selected', 'true');

@@ -71,7 +71,8 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
 
   // Board → the HR-U card's title leads to the heading.
   const card = page.getByTestId('heading-card').filter({ hasText: 'HR-U' });
-  await card.getByRole('link').click();
+  // The card's title (its other links lead to the review count and the handovers).
+  await card.getByRole('heading', { level: 3 }).getByRole('link').click();
   await expect(page).toHaveURL(/\/projects\/[^/]+\/headings\/[^/]+$/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText('HR-U');
   await expect(page.getByRole('tab', { name: 'Rounds' })).toHaveAttribute('aria-selected', 'true');

@@ -67,7 +67,12 @@ test('a geologist draws the face with a finger, links a trace to a joint, and th
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/$/);
-  await page.getByTestId('heading-card').filter({ hasText: 'HR-U' }).getByRole('link').click();
+  await page
+    .getByTestId('heading-card')
+    .filter({ hasText: 'HR-U' })
+    .getByRole('heading', { level: 3 })
+    .getByRole('link')
+    .click();
   await page.getByRole('button', { name: 'New round' }).click();
   const dialog = page.getByRole('region', { name: 'New round on HR-U' });
   const stages = dialog.getByRole('radio');

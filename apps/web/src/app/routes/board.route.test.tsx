@@ -36,7 +36,19 @@ describe('Board', () => {
     expect(upstream).toHaveTextContent('30 Nov 2026, 21:40');
     expect(upstream).toHaveTextContent('2 rounds');
     expect(upstream).toHaveTextContent('sent 30 Nov 2026, 18:05');
-    expect(upstream).toHaveTextContent('not acknowledged yet');
+    expect(within(upstream).getByTestId('handover-state')).toHaveTextContent(
+      'Waiting for acknowledgement, due by 30 Nov 2026, 19:05',
+    );
+    // The last handover leads to the heading's Handovers tab (issue 15 item 6).
+    expect(within(upstream).getByRole('link', { name: 'sent 30 Nov 2026, 18:05' })).toHaveAttribute(
+      'href',
+      '/projects/p-1/headings/h-1?view=handovers',
+    );
+    // Not an engineer: the count leads to the heading's rounds handed in, not to an empty queue.
+    expect(within(upstream).getByRole('link', { name: '2 rounds' })).toHaveAttribute(
+      'href',
+      '/projects/p-1/headings/h-1?status=submitted',
+    );
     // Support as built (issue 15, item 2): the last confirmed round still has support outstanding.
     expect(within(upstream).getByTestId('support-outstanding')).toHaveTextContent(
       'outstanding on the last confirmed round',
@@ -132,6 +144,19 @@ describe('Board', () => {
         .map((l) => l.textContent),
     ).toEqual(['Board', 'Setup']);
     expect(await screen.findAllByText('Read only')).not.toHaveLength(0);
+    // New project follows the API's rule (PROJECT_CREATION), which here lets anyone create one.
+    expect(screen.getByRole('button', { name: 'New project' })).toBeInTheDocument();
+  });
+
+  it('does not offer a viewer New project where the API would refuse it', async () => {
+    mockApi({
+      'GET /api/auth/me': { ...viewerUser, canCreateProjects: false },
+      'GET /api/config': localConfig,
+      'GET /api/projects': [{ ...harrowdale, role: 'viewer' }],
+    });
+    renderApp('/');
+    expect(await screen.findByRole('article', { name: 'Upstream drive from Adit 2' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'New project' })).not.toBeInTheDocument();
   });
 
   it('says so when the person has no project yet', async () => {

@@ -72,11 +72,12 @@ export function BoardRoute() {
         <ProjectBoard
           key={project.id}
           project={project}
-          // The engineer's count leads to their queue, filtered to the heading.
-          reviewHref={
+          // The engineer's count leads to their queue, filtered to the heading (issue 19 item 13); the queue
+          // holds only what the caller reviews, so everyone else sees the heading's rounds handed in.
+          reviewHref={(headingId) =>
             project.role === 'engineer'
-              ? (headingId) => `/to-confirm?heading=${encodeURIComponent(headingId)}`
-              : undefined
+              ? `/to-confirm?heading=${encodeURIComponent(headingId)}`
+              : `/projects/${project.id}/headings/${headingId}?status=submitted`
           }
         />
       ))}

@@ -154,3 +154,60 @@ describe('HeadingHandovers', () => {
     expect(screen.getByText('Waiting — due by 2 Dec 2026, 19:00')).toBeInTheDocument();
   });
 });
+
+/**
+ * The tallest minimum height (or height) the page's style rules give an element, in px. jsdom lays nothing
+ * out and does not order Griffel's style buckets as a browser does (a reset rule can outrank a class that
+ * the browser lets win), so this reads the rules that match rather than the computed style; handover.spec.ts
+ * measures the real boxes in Chromium.
+ */
+function styledMinHeight(el: Element): number {
+  let px = 0;
+  for (const sheet of Array.from(document.styleSheets))
+    for (const rule of Array.from(sheet.cssRules)) {
+      // Pseudo-elements (placeholders, scrollbars) are not the element.
+      if (!(rule instanceof CSSStyleRule) || rule.selectorText.includes('::')) continue;
+      if (!el.matches(rule.selectorText)) continue;
+      for (const prop of ['min-height', 'height'])
+        px = Math.max(px, parseFloat(rule.style.getPropertyValue(prop)) || 0);
+    }
+  return px;
+}
+
+describe('HeadingHandovers composer, gloved hands', () => {
+  it('gives every control of the composer a target of at least 44 px', async () => {
+    mockApi({
+      [`GET ${HISTORY}`]: [],
+      'GET /api/projects/p-1/handovers/draft': draft(),
+    });
+    const user = userEvent.setup();
+    renderWithProviders(
+      <HeadingHandovers
+        projectId="p-1"
+        heading={harrowdale.headings[0]}
+        headings={harrowdale.headings}
+        role="supervisor"
+      />,
+    );
+    await user.click(await screen.findByRole('button', { name: 'Compose handover' }));
+    const form = await screen.findByLabelText('Compose a handover');
+    await within(form).findByRole('combobox', { name: /Incoming supervisor/ });
+    const selects = within(form).getAllByRole('combobox');
+    // Shift, incoming supervisor and the cycle of the one heading.
+    expect(selects).toHaveLength(3);
+    const wrapped = [...form.querySelectorAll('input')];
+    // A <select> or <textarea> is the target itself; an <input> fills Fluent's root wrapper.
+    const boxes = [
+      ...[...selects, ...form.querySelectorAll('textarea')].map((el) => ({ el, box: el })),
+      ...wrapped.map((el) => ({ el, box: el.parentElement! })),
+      ...within(form)
+        .getAllByRole('button')
+        .map((el) => ({ el, box: el })),
+    ];
+    expect(boxes.length).toBeGreaterThanOrEqual(10);
+    const small = boxes
+      .filter(({ box }) => styledMinHeight(box) < 44)
+      .map(({ el }) => (el as HTMLInputElement).labels?.[0]?.textContent ?? el.textContent);
+    expect(small).toEqual([]);
+  });
+});

@@ -44,6 +44,11 @@ const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
   form: { padding: tokens.spacingHorizontalL, rowGap: tokens.spacingVerticalM },
   checkbox: { minHeight: `${TOUCH_TARGET_PX}px`, alignItems: 'center' },
+  /**
+   * A Select's root is a wrapper: the <select> inside keeps Fluent's height (40 px at large) whatever the
+   * root's, so the touch target is set on the <select> itself (gloves: 48 px, as the round's forms).
+   */
+  select: { minWidth: '180px', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   failed: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
 });
 
@@ -183,6 +188,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
           <Checkbox
             key={h.id}
             className={styles.checkbox}
+            size="large"
             label={`${h.code} — ${h.name}`}
             checked={chosen.includes(h.id)}
             onChange={(_, d) => setChosen((c) => (d.checked ? [...c, h.id] : c.filter((x) => x !== h.id)))}
@@ -204,6 +210,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             <Field label="Shift date" required validationMessage={fields.shiftDate}>
               <Input
                 className={shared.control}
+                size="large"
                 type="date"
                 value={shiftDate}
                 onChange={(_, d) => setShiftDate(d.value)}
@@ -211,7 +218,8 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             </Field>
             <Field label="Shift" required validationMessage={fields.shift}>
               <Select
-                className={shared.control}
+                className={styles.select}
+                size="large"
                 value={shift}
                 onChange={(_, d) => setShift(d.value as Shift)}
               >
@@ -224,7 +232,8 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
             </Field>
             <Field label="Incoming supervisor" required validationMessage={fields.incomingUserId}>
               <Select
-                className={shared.control}
+                className={styles.select}
+                size="large"
                 value={incomingUserId}
                 onChange={(_, d) => setIncoming(d.value)}
               >
@@ -255,7 +264,8 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
                   validationMessage={fields[`cycle-${h.headingId}`]}
                 >
                   <Select
-                    className={shared.control}
+                    className={styles.select}
+                    size="large"
                     value={wordsOf(h.headingId).cycleStage}
                     onChange={(_, d) => setWord(h.headingId, { cycleStage: d.value as CycleStage })}
                   >
@@ -270,6 +280,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
               </div>
               <Field label={`Notes for ${h.code}`}>
                 <Textarea
+                  size="large"
                   resize="vertical"
                   value={wordsOf(h.headingId).notes}
                   maxLength={4000}
@@ -280,6 +291,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
           ))}
           <Field label="General notes">
             <Textarea
+              size="large"
               resize="vertical"
               value={generalNotes}
               maxLength={8000}
@@ -297,6 +309,7 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
           >
             <Input
               className={shared.control}
+              size="large"
               value={extra}
               placeholder="name@example.org, …"
               onChange={(_, d) => setExtra(d.value)}
@@ -397,11 +410,18 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
       )}
       <div className={shared.bar} role="search" aria-label="Filter handovers">
         <Field label="Shift date">
-          <Input className={shared.control} type="date" value={date} onChange={(_, d) => setDate(d.value)} />
+          <Input
+            className={shared.control}
+            size="large"
+            type="date"
+            value={date}
+            onChange={(_, d) => setDate(d.value)}
+          />
         </Field>
         <Field label="Shift">
           <Select
-            className={shared.control}
+            className={styles.select}
+            size="large"
             value={shift}
             onChange={(_, d) => setShift(d.value as Shift | '')}
           >

@@ -1,14 +1,16 @@
 import { Badge, Card, makeStyles, mergeClasses, Subtitle2, Text, tokens } from '@fluentui/react-components';
+import { CheckmarkCircleFilled, ClockRegular, WarningFilled } from '@fluentui/react-icons';
 import { formatAzimuth, formatChainageFor } from '@roundbook/domain';
 import { TriggerLevelBadge } from '@roundbook/ui';
-import type { ReactNode } from 'react';
+import type { ReactElement, ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import type { HeadingSummary } from '@/api/contract';
+import type { HandoverSummary, HeadingSummary } from '@/api/contract';
 import {
   formatGradient,
   formatProjectTime,
   handoverState,
   stageLabels,
+  type HandoverState,
 } from '@/features/projects/utils/format';
 
 export interface HeadingCardProps {
@@ -19,6 +21,8 @@ export interface HeadingCardProps {
   to?: string;
   /** Where the "waiting for review" count leads (the queue, filtered to this heading). */
   reviewTo?: string;
+  /** Where the last handover leads (the heading's Handovers tab, newest first). */
+  handoversTo?: string;
 }
 
 const useStyles = makeStyles({
@@ -40,6 +44,17 @@ const useStyles = makeStyles({
     display: 'inline-flex',
     alignItems: 'center',
     minHeight: '48px',
+    textDecorationThickness: '2px',
+  },
+  /**
+   * A link among the facts: a 46 px touch target (gloves) from padding that a negative margin takes back, so
+   * the text stays on its term's line.
+   */
+  factLink: {
+    color: tokens.colorBrandForeground1,
+    display: 'inline-block',
+    paddingBlock: '12px',
+    marginBlock: '-12px',
     textDecorationThickness: '2px',
   },
   code: {
@@ -78,7 +93,80 @@ const useStyles = makeStyles({
   detail: { margin: 0, fontSize: tokens.fontSizeBase400, fontWeight: tokens.fontWeightSemibold },
   stages: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXS },
   attention: { color: tokens.colorPaletteDarkOrangeForeground1 },
+  handover: {
+    display: 'flex',
+    flexDirection: 'column',
+    alignItems: 'flex-start',
+    rowGap: tokens.spacingVerticalS,
+  },
+  /** The acknowledgement state: a mark of its own shape and its word, the colour only a third cue. */
+  handoverLine: {
+    display: 'inline-flex',
+    alignItems: 'flex-start',
+    columnGap: tokens.spacingHorizontalS,
+    fontWeight: tokens.fontWeightSemibold,
+  },
+  handoverMark: { fontSize: '20px', flexShrink: 0, marginTop: '1px' },
+  acknowledged: { color: tokens.colorPaletteGreenForeground1 },
+  waiting: { color: tokens.colorPaletteDarkOrangeForeground1 },
+  overdue: { color: tokens.colorPaletteRedForeground1 },
 });
+
+type ShownHandoverState = Exclude<HandoverState, 'none'>;
+
+/** A check in a circle, a clock, a warning triangle: three shapes for the three states. */
+const handoverMarks: Record<ShownHandoverState, ReactElement> = {
+  acknowledged: <CheckmarkCircleFilled />,
+  waiting: <ClockRegular />,
+  overdue: <WarningFilled />,
+};
+
+function handoverWords(state: ShownHandoverState, h: HandoverSummary, timeZone: string): string {
+  switch (state) {
+    case 'acknowledged':
+      return `Acknowledged ${formatProjectTime(h.acknowledgedAt ?? h.sentAt, timeZone)}`;
+    case 'waiting':
+      return `Waiting for acknowledgement, due by ${formatProjectTime(h.ackDueAt, timeZone)}`;
+    case 'overdue':
+      return `Overdue: not acknowledged, was due by ${formatProjectTime(h.ackDueAt, timeZone)}`;
+  }
+}
+
+function LastHandover({
+  handover,
+  timeZone,
+  to,
+}: {
+  handover: HandoverSummary;
+  timeZone: string;
+  to?: string;
+}) {
+  const styles = useStyles();
+  const state = handoverState(handover);
+  if (state === 'none') return null;
+  const sent = `sent ${formatProjectTime(handover.sentAt, timeZone)}`;
+  return (
+    <span className={styles.handover}>
+      {to === undefined ? (
+        sent
+      ) : (
+        <Link className={styles.factLink} to={to}>
+          {sent}
+        </Link>
+      )}
+      <span
+        className={mergeClasses(styles.handoverLine, styles[state])}
+        data-testid="handover-state"
+        data-state={state}
+      >
+        <span className={styles.handoverMark} aria-hidden="true">
+          {handoverMarks[state]}
+        </span>
+        <span>{handoverWords(state, handover, timeZone)}</span>
+      </span>
+    </span>
+  );
+}
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {
   const styles = useStyles();
@@ -91,10 +179,9 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 }
 
 /** One heading on the Board: where the face is and what is waiting on it. */
-export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProps) {
+export function HeadingCard({ heading, timeZone, to, reviewTo, handoversTo }: HeadingCardProps) {
   const styles = useStyles();
   const handover = heading.lastHandover;
-  const handoverStatus = handoverState(handover);
   const titleId = `heading-${heading.id}-title`;
 
   return (
@@ -169,7 +256,7 @@ export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProp
         </Fact>
         <Fact term="Waiting for review">
           {heading.roundsToConfirm > 0 && reviewTo ? (
-            <Link className={mergeClasses(styles.attention, styles.link)} to={reviewTo}>
+            <Link className={mergeClasses(styles.factLink, styles.attention)} to={reviewTo}>
               {`${heading.roundsToConfirm} ${heading.roundsToConfirm === 1 ? 'round' : 'rounds'}`}
             </Link>
           ) : (
@@ -190,22 +277,10 @@ export function HeadingCard({ heading, timeZone, to, reviewTo }: HeadingCardProp
           )}
         </Fact>
         <Fact term="Last handover">
-          {handover === null || handoverStatus === 'none' ? (
+          {handover === null ? (
             'none yet'
           ) : (
-            <>
-              {`sent ${formatProjectTime(handover.sentAt, timeZone)}`}
-              <br />
-              {handoverStatus === 'overdue' ? (
-                <span className={styles.attention}>
-                  {`overdue: not acknowledged, due ${formatProjectTime(handover.ackDueAt, timeZone)}`}
-                </span>
-              ) : handover.acknowledgedAt === null ? (
-                <span className={styles.attention}>not acknowledged yet</span>
-              ) : (
-                `acknowledged ${formatProjectTime(handover.acknowledgedAt, timeZone)}`
-              )}
-            </>
+            <LastHandover handover={handover} timeZone={timeZone} to={handoversTo} />
           )}
         </Fact>
       </dl>

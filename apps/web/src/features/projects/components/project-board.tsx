@@ -5,7 +5,10 @@ import { HeadingCard } from '@/features/projects/components/heading-card';
 
 export interface ProjectBoardProps {
   project: ProjectSummary;
-  /** Where a heading's "waiting for review" count leads (composed by the app: the To confirm queue). */
+  /**
+   * Where a heading's "waiting for review" count leads (composed by the app: the engineer's To confirm
+   * queue, or the heading's rounds that were handed in).
+   */
   reviewHref?: (headingId: string) => string;
 }
 
@@ -35,15 +38,19 @@ export function ProjectBoard({ project, reviewHref }: ProjectBoardProps) {
         />
       ) : (
         <div className={styles.grid}>
-          {project.headings.map((heading) => (
-            <HeadingCard
-              key={heading.id}
-              heading={heading}
-              timeZone={project.timeZone}
-              to={`/projects/${project.id}/headings/${heading.id}`}
-              reviewTo={reviewHref?.(heading.id)}
-            />
-          ))}
+          {project.headings.map((heading) => {
+            const to = `/projects/${project.id}/headings/${heading.id}`;
+            return (
+              <HeadingCard
+                key={heading.id}
+                heading={heading}
+                timeZone={project.timeZone}
+                to={to}
+                reviewTo={reviewHref?.(heading.id)}
+                handoversTo={`${to}?view=handovers`}
+              />
+            );
+          })}
         </div>
       )}
     </section>
