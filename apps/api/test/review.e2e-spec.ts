@@ -334,6 +334,7 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       expect(res.body.message).toMatch(/separation of duties/);
       // With the project's setting turned off (by its admin), the same person may confirm.
       const project = (await request(http).get(p.base).set(p.as('admin')).expect(200)).body as Body;
+      expect(project.separationOfDuties).toBe(true); // on by default
       await request(http)
         .patch(p.base)
         .set(p.as('admin'))

@@ -159,7 +159,9 @@ export class RoundsReview implements OnModuleInit {
         : !canTransition(round.status, 'confirm')
           ? refused(`Only a submitted round can be confirmed; this one is ${round.status}.`)
           : separation
-            ? refused('You mapped or submitted this round: another engineer confirms it.')
+            ? refused(
+                'You mapped or submitted this round, and the project keeps separation of duties (Setup): another engineer of the project confirms it. You may still return it with comments.',
+              )
             : allowed,
       canReturn: !engineer
         ? notEngineer

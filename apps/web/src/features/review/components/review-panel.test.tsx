@@ -301,4 +301,17 @@ describe('ReviewPanel', () => {
     await user.selectOptions(screen.getByRole('combobox', { name: 'From' }), 'v-3');
     expect(await screen.findByText('No field differs between these two.')).toBeInTheDocument();
   });
+
+  it('separation of duties: the engineer who mapped the round is told why Confirm is not offered, and may return it', async () => {
+    const reason =
+      'You mapped or submitted this round, and the project keeps separation of duties (Setup): another engineer of the project confirms it. You may still return it with comments.';
+    mockApi({ [REVIEW]: submittedReview({ canConfirm: { allowed: false, reason } }) });
+    panel();
+    const why = await screen.findByTestId('no-confirm-reason');
+    expect(why).toHaveTextContent('Why Confirm is not offered to you');
+    expect(why).toHaveTextContent(reason);
+    expect(screen.queryByRole('tab', { name: 'Confirm' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Confirm the round' })).not.toBeInTheDocument();
+    expect(screen.getByRole('form', { name: 'Return the round' })).toBeInTheDocument();
+  });
 });

@@ -6,6 +6,7 @@ import {
   makeStyles,
   MessageBar,
   MessageBarBody,
+  MessageBarTitle,
   Select,
   Spinner,
   Subtitle1,
@@ -384,6 +385,9 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
       </MessageBar>
     );
   const decides = review.canConfirm.allowed || review.canReturn.allowed;
+  // An engineer who may return but not confirm (separation of duties): no Confirm tab, and why not.
+  const returnOnly = !review.canConfirm.allowed && review.canReturn.allowed;
+  const shown = returnOnly ? 'return' : mode;
   return (
     <Card className={styles.root} aria-label="Review" data-testid="review-panel">
       <Subtitle1 as="h2">Review</Subtitle1>
@@ -404,21 +408,31 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
             : review.canConfirm.reason}
         </Text>
       ) : null}
+      {returnOnly ? (
+        <MessageBar intent="info" layout="multiline" data-testid="no-confirm-reason">
+          <MessageBarBody>
+            <MessageBarTitle>Why Confirm is not offered to you</MessageBarTitle>
+            {review.canConfirm.reason}
+          </MessageBarBody>
+        </MessageBar>
+      ) : null}
       {decides ? (
         <>
           <TabList
-            selectedValue={mode}
+            selectedValue={shown}
             onTabSelect={(_, d) => setMode(d.value as 'confirm' | 'return')}
             size="large"
           >
-            <Tab className={styles.tab} value="confirm">
-              Confirm
-            </Tab>
+            {returnOnly ? null : (
+              <Tab className={styles.tab} value="confirm">
+                Confirm
+              </Tab>
+            )}
             <Tab className={styles.tab} value="return">
               Return with comments
             </Tab>
           </TabList>
-          {mode === 'confirm' ? (
+          {shown === 'confirm' ? (
             review.canConfirm.allowed ? (
               <ConfirmForm projectId={projectId} review={review} classes={supportClasses} />
             ) : (
