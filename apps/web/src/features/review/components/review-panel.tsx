@@ -344,30 +344,44 @@ function Decision({
 function OpenComments({ projectId, review }: { projectId: string; review: RoundReview }) {
   const styles = useStyles();
   const action = useReviewAction(projectId, review.roundId);
-  if (review.openComments.length === 0) return null;
+  // At the next review the engineer reads the last return's comments, resolved and open; the geologist
+  // (and anyone else) reads the open ones to work through.
+  const atReview = review.status === 'submitted' && review.returnComments.length > 0;
+  const list = atReview ? review.returnComments : review.openComments;
+  if (list.length === 0) return null;
   return (
     <section aria-label="Return comments">
-      <Subtitle2 as="h3">Return comments to work through</Subtitle2>
+      <Subtitle2 as="h3">
+        {atReview ? 'Comments of the last return' : 'Return comments to work through'}
+      </Subtitle2>
       <ul className={styles.list}>
-        {review.openComments.map((c) => (
+        {list.map((c) => (
           <li key={c.id} className={styles.comment} data-testid="return-comment">
             <Text weight="semibold">{sectionLabels[c.section]}</Text>
             <Text>{c.text}</Text>
             <Text className={styles.muted}>{`— ${c.authorName}, revision ${c.revision}`}</Text>
-            {review.canResolve ? (
+            {c.resolvedAt !== null ? (
+              <Text weight="semibold">{`Resolved${c.resolvedByName ? ` by ${c.resolvedByName}` : ''}`}</Text>
+            ) : atReview ? (
+              <Text weight="semibold">Still open</Text>
+            ) : null}
+            {c.resolvedAt === null && review.canResolve ? (
               <Button
                 className={styles.button}
                 icon={<CheckmarkCircleRegular />}
                 disabled={action.isPending}
                 onClick={() => action.mutate({ kind: 'resolve', commentId: c.id })}
               >
-                Mark done
+                Resolve
               </Button>
             ) : null}
           </li>
         ))}
       </ul>
-      <Text className={styles.muted}>Submitting the round again marks the rest done.</Text>
+      <Text className={styles.muted}>
+        Each comment is also shown at the top of the section it concerns, and stays open until it is marked
+        resolved.
+      </Text>
     </section>
   );
 }
@@ -449,6 +463,9 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
         projectId={projectId}
         roundId={roundId}
         rules={review.rules}
+        accepted={review.acceptedRules}
+        lapsed={review.lapsedAcceptances}
+        canWithdraw={review.canAcceptConditions}
         when={(iso) => when(iso, timeZone)}
       />
       {review.canCorrect.allowed ? <CorrectForm projectId={projectId} review={review} /> : null}
