@@ -11,8 +11,11 @@ const code = `AC${String(Date.now() % 1e6)}`;
 
 // Drive 060 (the factory heading): joints dipping about 70° toward 150 strike along the drive and dip
 // steeply, very unfavourable (Bieniawski 1989, Table 4.1F) — the adverse-orientation rule fires.
-const along = ['150/70', '152/68', '148/72'].map((o) => testJoint(o));
-const steeper = ['150/82', '151/83', '149/81'].map((o) => testJoint(o));
+// Named S1 by the geologist (three joints alone are not clustered into a set), with no pooling of nearby
+// rounds' joints (window 0), so each round's set is its own joints.
+const s1 = { setLabel: 'S1', setOverride: true };
+const along = ['150/70', '152/68', '148/72'].map((o) => testJoint(o, s1));
+const steeper = ['150/82', '151/83', '149/81'].map((o) => testJoint(o, s1));
 
 describe('Accepting a standing condition (e2e, real MariaDB): range, reason, re-raise, withdraw, audit', () => {
   let app: INestApplication;
@@ -48,7 +51,14 @@ describe('Accepting a standing condition (e2e, real MariaDB): range, reason, re-
       await request(http)
         .put(`${p.base}/rounds/${r.id}`)
         .set(p.as('geologist'))
-        .send(saveBody(r, { recommendedClassId: classId('C1'), nextRoundLength: 2, ...extra }))
+        .send(
+          saveBody(r, {
+            recommendedClassId: classId('C1'),
+            nextRoundLength: 2,
+            setParameters: { windowM: 0, count: null },
+            ...extra,
+          }),
+        )
         .expect(200)
     ).body as Body;
   const review = async (id: string) =>
