@@ -97,6 +97,9 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'POST /api/projects/{projectId}/rounds/{roundId}/return': ENGINEER,
   'POST /api/projects/{projectId}/rounds/{roundId}/correct': GEOLOGIST_OR_ENGINEER,
   'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge': MEMBERS,
+  // Accepting a standing condition, and withdrawing the acceptance, is the engineer's (item 3).
+  'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/accept': ENGINEER,
+  'POST /api/projects/{projectId}/rounds/{roundId}/acceptances/{acceptanceId}/withdraw': ENGINEER,
   'POST /api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve':
     GEOLOGIST_OR_ENGINEER,
   // The queue lists what the caller reviews as an engineer, across projects; empty for everyone else.

@@ -139,6 +139,7 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/rounds/{roundId}/return',
   'POST /api/projects/{projectId}/rounds/{roundId}/correct',
   'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/acknowledge',
+  'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/accept',
   'POST /api/projects/{projectId}/rounds/{roundId}/photos',
   'POST /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}/complete',
   'PATCH /api/projects/{projectId}/rounds/{roundId}/photos/{photoId}',
@@ -372,6 +373,12 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
         url: `${p.base}/rounds/${round.id}/triggers/${rule.id}/acknowledge`,
         as: p.as('engineer'),
         body: { actionTaken: 'Probed ahead.', note: '' },
+      },
+      {
+        key: 'POST /api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/accept',
+        url: `${p.base}/rounds/${round.id}/triggers/${rule.id}/accept`,
+        as: p.as('engineer'),
+        body: { fromChainage: 1000, toChainage: 1030, until: null, reason: 'Covered by the class.' },
       },
       // Photos (issue 14): the body is checked before the photo is looked up.
       {

@@ -186,7 +186,7 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
     expect(back[0].text).toContain(CAUTION);
     expect(back[0].text).toContain(`/projects/${p.projectId}/rounds/${submitted.id}`);
 
-    // The geologist resolves one comment, edits and resubmits: the rest is resolved by the submit.
+    // The geologist resolves one comment, edits and resubmits: the other stays open until resolved.
     const resolved = (
       await request(http)
         .post(`${p.base}/rounds/${submitted.id}/review/comments/${seen.openComments[0].id}/resolve`)
@@ -205,7 +205,14 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
         .expect(200)
     ).body as Body;
     expect(resubmitted).toMatchObject({ status: 'submitted', revision: 2 });
-    expect((await getReview(submitted.id)).openComments).toEqual([]);
+    // The next review shows the last return's comments: which were resolved (by whom) and which are open.
+    const next = await getReview(submitted.id);
+    expect(next.openComments.map((c: Body) => c.section)).toEqual(['ratings']);
+    expect(next.returnComments.map((c: Body) => [c.section, c.resolvedByName])).toEqual([
+      ['ground', `Test geologist ${code}`],
+      ['ratings', null],
+    ]);
+    expect(next.returnComments[0].resolvedAt).toEqual(expect.any(String));
 
     // Refusals: a geologist cannot confirm; a class other than the recommendation needs a reason; the
     // sign-off needs the engineer's own password.
@@ -334,6 +341,7 @@ describe('Review: confirm, return, correct, the queue and the notices (e2e, real
       expect(res.body.message).toMatch(/separation of duties/);
       // With the project's setting turned off (by its admin), the same person may confirm.
       const project = (await request(http).get(p.base).set(p.as('admin')).expect(200)).body as Body;
+      expect(project.separationOfDuties).toBe(true); // on by default
       await request(http)
         .patch(p.base)
         .set(p.as('admin'))

@@ -103,5 +103,16 @@ test('the engineer confirms one round with another class and returns another; th
     'Say where the water at the crown comes from.',
   );
   await shot(geologist, 'review-geologist-returned');
+  // The comment is also at the top of the Ground section, where the geologist resolves it.
+  await geologist
+    .getByRole('tablist', { name: 'Sections of the round' })
+    .getByRole('tab', { name: 'Ground' })
+    .click();
+  const callout = geologist.getByTestId('section-comments-ground');
+  await expect(callout).toContainText('Say where the water at the crown comes from.');
+  await shot(geologist, 'review-geologist-comment-beside-ground');
+  await callout.getByRole('button', { name: 'Resolve' }).click();
+  await expect(callout).toHaveCount(0);
+  await expect(geologist.getByTestId('return-comment')).toHaveCount(0);
   expect(problems).toEqual([]);
 });

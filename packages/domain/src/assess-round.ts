@@ -2,6 +2,7 @@
 // the browser runs live, the API runs on save (and freezes at submit), and the reports read back.
 import { driveOf, Q_TABLE_EDITION, rmrOrientationInTunnel } from '@roundbook/geomath';
 import type { GroundScale, Plane, RmrOrientationResult } from '@roundbook/geomath';
+import { applyAcceptances, type TriggerAcceptanceInput } from './acceptances.js';
 import {
   conditionWarnings,
   governingDiscontinuity,
@@ -38,8 +39,12 @@ import {
 import { SINGLE_FEATURE_KINDS, type JointKind } from './vocabulary.js';
 import { readWater, waterConditionWarning } from './water.js';
 
-/** The version of the rules that produced an assessment (stored with it; bump when a rule changes). */
-export const ASSESSMENT_VERSION = 'domain-5';
+/**
+ * The version of the rules that produced an assessment (stored with it; bump when a rule changes).
+ * domain-6: the trigger level leaves out fired rules held by an engineer's acceptance of a standing
+ * condition (listed in triggers.accepted), so the same record can read a lower level than under domain-5.
+ */
+export const ASSESSMENT_VERSION = 'domain-6';
 
 export interface GroundRecord {
   units: Array<{
@@ -104,6 +109,11 @@ export interface AssessmentContext {
   groundScale?: GroundScale;
   /** The heading's open hazards (the register); absent: not read, so the open-red-hazard rule is not evaluated. */
   openHazards?: HazardFact[];
+  /**
+   * The heading's active acceptances of standing conditions, and the time they are judged at (ISO 8601);
+   * absent: none read, every fired rule raises the level.
+   */
+  acceptances?: { list: TriggerAcceptanceInput[]; at: string };
 }
 
 export interface FeatureAssessment {
@@ -137,6 +147,8 @@ export interface RoundAssessment {
   /** What the trigger rules read, as worked out here. */
   facts: RoundFacts;
   triggers: TriggerAssessment;
+  /** The acceptances the triggers were read against (absent in assessments made without them). */
+  acceptances?: TriggerAcceptanceInput[];
 }
 
 export function roundWarnings(
@@ -309,7 +321,17 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     suggestion: explainSuggestion(context.supportClasses, ratings.q.value, ratings.rmr.value),
     warnings,
     facts,
-    triggers: assessTriggers(context.rules, facts, context.heading),
+    triggers: context.acceptances
+      ? applyAcceptances(
+          assessTriggers(context.rules, facts, context.heading),
+          context.rules,
+          facts,
+          context.heading,
+          context.acceptances.list,
+          new Date(context.acceptances.at),
+        )
+      : assessTriggers(context.rules, facts, context.heading),
+    ...(context.acceptances ? { acceptances: context.acceptances.list } : {}),
   };
 }
 

@@ -7,6 +7,7 @@ export * from './sets.js';
 export * from './support.js';
 export * from './water.js';
 export * from './triggers.js';
+export * from './acceptances.js';
 export * from './assess-round.js';
 export * from './heading.js';
 export * from './ground.js';

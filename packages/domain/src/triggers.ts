@@ -11,6 +11,7 @@ import {
   surfaceFacing,
 } from '@roundbook/geomath';
 import type { Plane } from '@roundbook/geomath';
+import type { AcceptedFiring, LapsedAcceptance } from './acceptances.js';
 import {
   formatChainage,
   formatDipDirectionDip,
@@ -209,8 +210,17 @@ export function setMeans(joints: FactJoint[]): Array<{ label: string; plane: Pla
 const readable = (j: FactJoint): j is FactJoint & { dipDirection: number; dip: number } =>
   j.dipDirection !== null && j.dip !== null;
 
-/** Adverse sets and significant single features: RMR89 assessment against the drive, and sliding out of the face. */
-export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): string[] {
+/** One set or significant single feature found adverse to the drive, with its plane and why. */
+export interface AdverseItem {
+  label: string;
+  /** 'set' for a set of joints, 'feature' for a fault or shear zone judged on its own. */
+  kind: 'set' | 'feature';
+  plane: Plane;
+  reasons: string[];
+}
+
+/** Adverse sets and significant single features, as data: RMR89 assessment against the drive, and sliding out of the face. */
+export function adverseItems(round: RoundFacts, heading: HeadingGeometry): AdverseItem[] {
   const drive = driveOf(heading);
   const sets = round.sets ?? setMeans(round.joints);
   const features = round.joints
@@ -218,22 +228,33 @@ export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): st
     .filter(readable)
     .map((j, i) => ({
       label: `${j.kind === 'fault' ? 'fault' : 'shear zone'} ${i + 1}`,
+      kind: 'feature' as const,
       plane: { dipDirection: j.dipDirection, dip: j.dip },
     }));
-  const out: string[] = [];
+  const out: AdverseItem[] = [];
   const face = { facing: surfaceFacing(drive, 'face'), inclination: 90 };
   const friction = heading.frictionAngle ?? 30;
-  for (const item of [...sets.map((s) => ({ label: s.label, plane: s.plane })), ...features]) {
-    const shown = { dipDirection: Math.round(item.plane.dipDirection), dip: Math.round(item.plane.dip) };
+  for (const item of [
+    ...sets.map((s) => ({ label: s.label, kind: 'set' as const, plane: s.plane })),
+    ...features,
+  ]) {
     const r = rmrOrientationInTunnel(item.plane, drive);
     const reasons: string[] = [];
     if (r.assessment === 'unfavourable' || r.assessment === 'very unfavourable')
       reasons.push(`is ${r.assessment} for the drive`);
     const slide = planarSlidingOut(item.plane, face, friction, 20);
     if (slide.flagged) reasons.push(`dips out of the face and can slide (friction ${friction}°)`);
-    if (reasons.length) out.push(`${item.label} (${formatDipDirectionDip(shown)}) ${reasons.join(' and ')}`);
+    if (reasons.length) out.push({ ...item, reasons });
   }
   return out;
+}
+
+/** Adverse sets and significant single features in words (the adverse-orientation rule's detail). */
+export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): string[] {
+  return adverseItems(round, heading).map((item) => {
+    const shown = { dipDirection: Math.round(item.plane.dipDirection), dip: Math.round(item.plane.dip) };
+    return `${item.label} (${formatDipDirectionDip(shown)}) ${item.reasons.join(' and ')}`;
+  });
 }
 
 /** Where a mapped fault or shear zone meets the stage's part of the profile ahead of (or behind) the face. */
@@ -467,6 +488,10 @@ export interface TriggerAssessment {
   waiting: Array<{ ruleId: string; summary: string; detail: string }>;
   /** Enabled rules that were evaluated (fired or clear). */
   evaluated: number;
+  /** Fired rules held by an engineer's acceptance of a standing condition (they do not raise the level). */
+  accepted?: AcceptedFiring[];
+  /** Fired rules whose acceptance no longer holds, and why. */
+  lapsed?: LapsedAcceptance[];
 }
 
 /** The trigger level of a round from the project's enabled rules, firings red first. */

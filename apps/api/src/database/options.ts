@@ -14,6 +14,7 @@ import { Joint } from '../modules/rounds/joint.entity.js';
 import {
   RoundComment,
   RoundDecision,
+  TriggerAcceptance,
   TriggerAcknowledgement,
 } from '../modules/rounds/round-review.entity.js';
 import { RoundRevision } from '../modules/rounds/round-revision.entity.js';
@@ -40,6 +41,7 @@ export const entities = [
   RoundDecision,
   RoundComment,
   TriggerAcknowledgement,
+  TriggerAcceptance,
   IdempotencyKey,
   Job,
   Notice,

@@ -46,6 +46,7 @@ export const harrowdale: ProjectSummary = {
   distributionList: ['site-office@roundbook.test'],
   coordinateGrid: 'Harrowdale site grid',
   handoverAckMinutes: 60,
+  separationOfDuties: true,
   version: 3,
   headings: [
     {

@@ -53,6 +53,7 @@ export function toProjectSummary(
     distributionList: p.distributionList ?? [],
     coordinateGrid: p.coordinateGrid,
     handoverAckMinutes: p.handoverAckMinutes,
+    separationOfDuties: p.separationOfDuties,
     role,
     version: p.version,
     headings: [...(p.headings ?? [])]

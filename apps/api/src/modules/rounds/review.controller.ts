@@ -12,6 +12,7 @@ import { CurrentAccess, CurrentUser } from '../../common/auth/current-user.decor
 import { ProjectRoles } from '../../common/auth/project-roles.decorator.js';
 import { ErrorResponseDto } from '../../common/dto/error-response.dto.js';
 import {
+  AcceptConditionDto,
   AcknowledgeRuleDto,
   ConfirmRoundDto,
   CorrectRoundDto,
@@ -20,13 +21,17 @@ import {
   ReviewQueueQueryDto,
   RoundReviewDto,
 } from './dto/review.dto.js';
+import { RoundsAcceptances } from './rounds.acceptances.js';
 import { RoundsReview } from './rounds.review.js';
 
 @ApiTags('review')
 @ApiBearerAuth()
 @Controller('projects/:projectId/rounds/:roundId')
 export class RoundReviewController {
-  constructor(@Inject(RoundsReview) private readonly review: RoundsReview) {}
+  constructor(
+    @Inject(RoundsReview) private readonly review: RoundsReview,
+    @Inject(RoundsAcceptances) private readonly acceptances: RoundsAcceptances,
+  ) {}
 
   /** The round's review: confirmation, decisions, open return comments and what the caller may do (any member) */
   @Get('review')
@@ -116,6 +121,45 @@ export class RoundReviewController {
     @Body() body: AcknowledgeRuleDto,
   ): Promise<RoundReviewDto> {
     return this.review.acknowledge(user, access, roundId, ruleId, body);
+  }
+
+  /** Accepts a fired rule's standing condition for a chainage range or until a date, with a reason (engineers) */
+  @Post('triggers/:ruleId/accept')
+  @HttpCode(200)
+  @ProjectRoles('engineer')
+  @ApiOkResponse({ type: RoundReviewDto })
+  @ApiBadRequestResponse({
+    type: ErrorResponseDto,
+    description: 'No range or date, a date passed, or no reason (a red rule needs a written one)',
+  })
+  @ApiConflictResponse({
+    type: ErrorResponseDto,
+    description: 'The round is not submitted or confirmed, or the rule is already accepted on it',
+  })
+  accept(
+    @Param('projectId') _p: string,
+    @Param('roundId', ParseUUIDPipe) roundId: string,
+    @Param('ruleId', ParseUUIDPipe) ruleId: string,
+    @CurrentUser() user: AuthUser,
+    @CurrentAccess() access: ProjectAccess,
+    @Body() body: AcceptConditionDto,
+  ): Promise<RoundReviewDto> {
+    return this.acceptances.accept(user, access, roundId, ruleId, body);
+  }
+
+  /** Withdraws an acceptance of a standing condition: the rule raises the level again (engineers) */
+  @Post('acceptances/:acceptanceId/withdraw')
+  @HttpCode(200)
+  @ProjectRoles('engineer')
+  @ApiOkResponse({ type: RoundReviewDto })
+  withdraw(
+    @Param('projectId') _p: string,
+    @Param('roundId', ParseUUIDPipe) roundId: string,
+    @Param('acceptanceId', ParseUUIDPipe) acceptanceId: string,
+    @CurrentUser() user: AuthUser,
+    @CurrentAccess() access: ProjectAccess,
+  ): Promise<RoundReviewDto> {
+    return this.acceptances.withdraw(user, access, roundId, acceptanceId);
   }
 
   /** Marks a return comment resolved (geologists, engineers); the next submit resolves the rest */

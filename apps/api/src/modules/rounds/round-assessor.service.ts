@@ -9,6 +9,7 @@ import { HeadingsService } from '../headings/headings.service.js';
 import { ProjectsService } from '../projects/projects.service.js';
 import { SupportClassesService } from '../support-classes/support-classes.service.js';
 import { TriggerRulesService } from '../trigger-rules/trigger-rules.service.js';
+import { activeAcceptances } from './acceptances.read.js';
 import { Joint } from './joint.entity.js';
 import { classOfRound } from './review-rules.js';
 import { Round } from './round.entity.js';
@@ -70,7 +71,7 @@ export class RoundAssessor {
     heading?: Heading,
   ): Promise<RoundAssessment> {
     const parameters = round.setParameters ?? DEFAULT_SET_PARAMETERS;
-    const [h, classes, rules, project, previous, nearby, openHazards] = await Promise.all([
+    const [h, classes, rules, project, previous, nearby, openHazards, acceptances] = await Promise.all([
       heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
       // Every read through `manager`: inside a transaction a second pooled connection could wait forever
       // once every connection is held by a transaction waiting for the heading's lock (twelve rounds opened
@@ -86,6 +87,7 @@ export class RoundAssessor {
         : Promise.resolve(null),
       nearbyPlanes(manager, round, parameters.windowM),
       this.hazards.openForHeading(round.headingId, manager),
+      activeAcceptances(manager, round.headingId),
     ]);
     if (!h) throw new Error(`Heading ${round.headingId} of round ${round.id} is missing`);
     return assessRound(
@@ -135,6 +137,8 @@ export class RoundAssessor {
           toChainage: z.toChainage,
           description: z.description,
         })),
+        // The engineers' accepted standing conditions on the heading, judged now (range, date, condition).
+        acceptances: { list: acceptances, at: new Date().toISOString() },
       },
     );
   }

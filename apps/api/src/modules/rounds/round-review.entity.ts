@@ -1,3 +1,4 @@
+import type { ConditionSnapshot } from '@roundbook/domain';
 import { Column, CreateDateColumn, Entity, Index, PrimaryColumn } from 'typeorm';
 import { decimal } from '../../common/dto/numeric.transformer.js';
 
@@ -155,4 +156,80 @@ export class TriggerAcknowledgement {
 
   @Column({ name: 'acknowledged_at', type: 'datetime', precision: 3 })
   acknowledgedAt: Date;
+}
+
+/**
+ * An engineer's acceptance of a fired rule's standing condition on a heading, for a chainage range or until
+ * a date, with the reason and a snapshot of what fired; while it holds the rule does not raise the level of
+ * the heading's rounds (packages/domain applyAcceptances). Withdrawn ones are kept.
+ */
+@Entity('trigger_acceptances')
+@Index('IDX_trigger_acceptances_heading', ['headingId', 'withdrawnAt'])
+@Index('IDX_trigger_acceptances_round', ['roundId'])
+export class TriggerAcceptance {
+  @PrimaryColumn('uuid')
+  id: string;
+
+  @Column({ name: 'project_id', type: 'uuid' })
+  projectId: string;
+
+  @Column({ name: 'heading_id', type: 'uuid' })
+  headingId: string;
+
+  @Column({ name: 'rule_id', type: 'uuid' })
+  ruleId: string;
+
+  /** The round (and revision) the condition was assessed and accepted on. */
+  @Column({ name: 'round_id', type: 'uuid' })
+  roundId: string;
+
+  @Column({ type: 'int' })
+  revision: number;
+
+  @Column({ type: 'enum', enum: ['green', 'amber', 'red'] })
+  level: 'green' | 'amber' | 'red';
+
+  @Column({
+    name: 'from_chainage',
+    type: 'decimal',
+    precision: 12,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  fromChainage: number | null;
+
+  @Column({
+    name: 'to_chainage',
+    type: 'decimal',
+    precision: 12,
+    scale: 3,
+    nullable: true,
+    transformer: decimal,
+  })
+  toChainage: number | null;
+
+  @Column({ type: 'datetime', precision: 3, nullable: true })
+  until: Date | null;
+
+  @Column({ type: 'text' })
+  reason: string;
+
+  @Column({ type: 'json' })
+  snapshot: ConditionSnapshot;
+
+  @Column({ name: 'accepted_by', type: 'uuid' })
+  acceptedBy: string;
+
+  @Column({ name: 'accepted_name', type: 'varchar', length: 120 })
+  acceptedName: string;
+
+  @Column({ name: 'accepted_at', type: 'datetime', precision: 3 })
+  acceptedAt: Date;
+
+  @Column({ name: 'withdrawn_at', type: 'datetime', precision: 3, nullable: true })
+  withdrawnAt: Date | null;
+
+  @Column({ name: 'withdrawn_by', type: 'uuid', nullable: true })
+  withdrawnBy: string | null;
 }

@@ -13,10 +13,16 @@ import { TriggerRulesModule } from '../trigger-rules/trigger-rules.module.js';
 import { Joint } from './joint.entity.js';
 import { ReviewQueueController, RoundReviewController } from './review.controller.js';
 import { RoundAssessor } from './round-assessor.service.js';
-import { RoundComment, RoundDecision, TriggerAcknowledgement } from './round-review.entity.js';
+import {
+  RoundComment,
+  RoundDecision,
+  TriggerAcceptance,
+  TriggerAcknowledgement,
+} from './round-review.entity.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
 import { RoundsReadAdapter } from './rounds-read.adapter.js';
+import { RoundsAcceptances } from './rounds.acceptances.js';
 import { RoundsCommands } from './rounds.commands.js';
 import { RoundsController } from './rounds.controller.js';
 import { RoundsQueries } from './rounds.queries.js';
@@ -38,6 +44,7 @@ import { SketchRenders } from './sketch-render.service.js';
       RoundDecision,
       RoundComment,
       TriggerAcknowledgement,
+      TriggerAcceptance,
       IdempotencyKey,
       ProjectMember,
       Heading,
@@ -55,6 +62,7 @@ import { SketchRenders } from './sketch-render.service.js';
     RoundsQueries,
     RoundsCommands,
     RoundsReview,
+    RoundsAcceptances,
     RoundsReadAdapter,
     SketchRenders,
     { provide: ROUNDS_READ, useExisting: RoundsReadAdapter },

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { formatChainageFor, roundChanges, type FrozenRoundView, type TriggerFiring } from '@roundbook/domain';
-import { DataSource, In, IsNull, type EntityManager } from 'typeorm';
+import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
@@ -23,6 +23,7 @@ import type {
   ConfirmRoundDto,
   CorrectRoundDto,
   ReturnRoundDto,
+  ReviewCommentDto,
   ReviewDecisionDto,
   ReviewPermissionDto,
   ReviewQueueDto,
@@ -42,6 +43,7 @@ import {
   RoundComment,
   RoundDecision,
   REVIEW_SECTIONS,
+  TriggerAcceptance,
   TriggerAcknowledgement,
   type ReviewDecision,
 } from './round-review.entity.js';
@@ -87,14 +89,41 @@ export class RoundsReview implements OnModuleInit {
     const [project, decisions, comments, authors, acks] = await Promise.all([
       manager.findOneByOrFail(Project, { id: access.projectId }),
       manager.find(RoundDecision, { where: { roundId }, order: { signedAt: 'ASC' } }),
-      manager.find(RoundComment, {
-        where: { roundId, resolvedAt: IsNull() },
-        order: { createdAt: 'ASC' },
-      }),
+      manager.find(RoundComment, { where: { roundId }, order: { createdAt: 'ASC' } }),
       this.authorsOf(manager, round),
       manager.find(TriggerAcknowledgement, { where: { roundId, revision: round.revision } }),
     ]);
     const acked = new Map(acks.map((a) => [a.ruleId, a]));
+    const resolverIds = [...new Set(comments.map((c) => c.resolvedBy).filter((id): id is string => !!id))];
+    const resolvers = resolverIds.length
+      ? await manager.find(User, { where: { id: In(resolverIds) }, select: { id: true, name: true } })
+      : [];
+    // In the order of the round's sections, as the screen shows them.
+    const toComment = (c: RoundComment): ReviewCommentDto => ({
+      id: c.id,
+      section: c.section,
+      text: c.text,
+      revision: c.revision,
+      authorName: c.authorName,
+      createdAt: c.createdAt.toISOString(),
+      resolvedAt: c.resolvedAt?.toISOString() ?? null,
+      resolvedByName: c.resolvedBy ? (resolvers.find((u) => u.id === c.resolvedBy)?.name ?? '') : null,
+    });
+    const ordered = [...comments].sort(
+      (a, b) =>
+        a.revision - b.revision ||
+        REVIEW_SECTIONS.indexOf(a.section) - REVIEW_SECTIONS.indexOf(b.section) ||
+        a.createdAt.getTime() - b.createdAt.getTime(),
+    );
+    const lastReturned = Math.max(0, ...comments.map((c) => c.revision));
+    const acceptedHere = new Set(
+      (
+        await manager.find(TriggerAcceptance, {
+          where: { roundId: round.id },
+          select: { id: true },
+        })
+      ).map((a) => a.id),
+    );
     const firings = round.triggerFirings ?? [];
     const reviewable = round.status === 'submitted' || round.status === 'confirmed';
     const clocks = round.submittedAt
@@ -137,29 +166,16 @@ export class RoundsReview implements OnModuleInit {
       confirmedAt: round.confirmedAt?.toISOString() ?? null,
       confirmation: round.status === 'confirmed' && lastConfirm ? toDecision(lastConfirm) : null,
       decisions: decisions.map(toDecision),
-      // In the order of the round's sections, as the screen shows them.
-      openComments: [...comments]
-        .sort(
-          (a, b) =>
-            a.revision - b.revision ||
-            REVIEW_SECTIONS.indexOf(a.section) - REVIEW_SECTIONS.indexOf(b.section) ||
-            a.createdAt.getTime() - b.createdAt.getTime(),
-        )
-        .map((c) => ({
-          id: c.id,
-          section: c.section,
-          text: c.text,
-          revision: c.revision,
-          authorName: c.authorName,
-          createdAt: c.createdAt.toISOString(),
-          resolvedAt: null,
-        })),
+      openComments: ordered.filter((c) => c.resolvedAt === null).map(toComment),
+      returnComments: ordered.filter((c) => c.revision === lastReturned).map(toComment),
       canConfirm: !engineer
         ? notEngineer
         : !canTransition(round.status, 'confirm')
           ? refused(`Only a submitted round can be confirmed; this one is ${round.status}.`)
           : separation
-            ? refused('You mapped or submitted this round: another engineer confirms it.')
+            ? refused(
+                'You mapped or submitted this round, and the project keeps separation of duties (Setup): another engineer of the project confirms it. You may still return it with comments.',
+              )
             : allowed,
       canReturn: !engineer
         ? notEngineer
@@ -173,6 +189,7 @@ export class RoundsReview implements OnModuleInit {
             ? refused('Only a confirmed round is corrected.')
             : allowed,
       canResolve: access.role === 'geologist' || access.role === 'engineer',
+      canAcceptConditions: engineer,
       rules: reviewable
         ? clocks.map((c) => {
             const a = acked.get(c.ruleId);
@@ -189,9 +206,27 @@ export class RoundsReview implements OnModuleInit {
                   }
                 : null,
               canAcknowledge: !a && access.role === c.ownerRole,
+              canAccept: engineer,
             };
           })
         : [],
+      acceptedRules: reviewable
+        ? (round.assessment?.triggers.accepted ?? []).map((a) => ({
+            ruleId: a.ruleId,
+            level: a.level,
+            summary: a.summary,
+            detail: a.detail,
+            acceptanceId: a.acceptanceId,
+            reason: a.reason,
+            acceptedByName: a.acceptedByName,
+            acceptedAt: a.acceptedAt,
+            fromChainage: a.fromChainage,
+            toChainage: a.toChainage,
+            until: a.until,
+            acceptedHere: acceptedHere.has(a.acceptanceId),
+          }))
+        : [],
+      lapsedAcceptances: reviewable ? (round.assessment?.triggers.lapsed ?? []) : [],
       separationOfDuties: project.separationOfDuties,
       sincePrevious: reviewable ? await this.sincePrevious(manager, round, classes) : null,
       caution: REVIEW_CAUTION,
@@ -444,7 +479,7 @@ export class RoundsReview implements OnModuleInit {
         entityType: 'round',
         entityId: roundId,
         action: 'resolve-comment',
-        after: { commentId, section: comment.section },
+        after: { commentId, section: comment.section, revision: comment.revision, text: comment.text },
       });
     });
     return this.review(caller, access, roundId);
@@ -512,15 +547,11 @@ export class RoundsReview implements OnModuleInit {
   }
 
   /**
-   * Called by submit inside its transaction: the comments of the last return are resolved by the new
-   * submit, and the project's engineers are told a round waits for them.
+   * Called by submit inside its transaction: the project's engineers are told a round waits for them. The
+   * return comments stay as they are: each stays open until someone marks it resolved, and the next review
+   * shows which were resolved and which are still open.
    */
   async onSubmitted(manager: EntityManager, round: Round, caller: AuthUser): Promise<void> {
-    await manager.update(
-      RoundComment,
-      { roundId: round.id, resolvedAt: IsNull() },
-      { resolvedAt: new Date(), resolvedBy: caller.id },
-    );
     const engineers = await manager
       .createQueryBuilder(ProjectMember, 'm')
       .innerJoin(User, 'u', 'u.id = m.user_id')

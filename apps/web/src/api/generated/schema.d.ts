@@ -597,6 +597,40 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/accept": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Accepts a fired rule's standing condition for a chainage range or until a date, with a reason (engineers) */
+        post: operations["RoundReviewController_accept"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/projects/{projectId}/rounds/{roundId}/acceptances/{acceptanceId}/withdraw": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Withdraws an acceptance of a standing condition: the rule raises the level again (engineers) */
+        post: operations["RoundReviewController_withdraw"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/rounds/{roundId}/review/comments/{commentId}/resolve": {
         parameters: {
             query?: never;
@@ -1226,6 +1260,8 @@ export interface components {
             coordinateGrid: string;
             /** @description Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (default 60) */
             handoverAckMinutes: number;
+            /** @description Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+            separationOfDuties: boolean;
             /** @description Optimistic-locking version; send it back when changing the project */
             version: number;
             headings: components["schemas"]["HeadingSummaryDto"][];
@@ -2042,6 +2078,8 @@ export interface components {
         ReviewCommentDto: {
             section: components["schemas"]["ReviewSection"];
             resolvedAt: string | null;
+            /** @description Who marked it resolved (null while open) */
+            resolvedByName: string | null;
             id: string;
             text: string;
             revision: number;
@@ -2063,6 +2101,8 @@ export interface components {
             detail: string;
             /** @description The caller owns this rule and may acknowledge it now */
             canAcknowledge: boolean;
+            /** @description The caller is an engineer and may accept this rule's standing condition */
+            canAccept: boolean;
             ruleId: string;
             summary: string;
             action: string;
@@ -2073,6 +2113,26 @@ export interface components {
             minutesLeft: number;
             /** @description Past its time without its owner's acknowledgement */
             overdue: boolean;
+        };
+        AcceptedRuleDto: {
+            level: components["schemas"]["TriggerLevel"];
+            fromChainage: number | null;
+            toChainage: number | null;
+            until: string | null;
+            ruleId: string;
+            summary: string;
+            detail: string;
+            acceptanceId: string;
+            reason: string;
+            acceptedByName: string;
+            acceptedAt: string;
+            /** @description The acceptance was taken on this round (it may be withdrawn here) */
+            acceptedHere: boolean;
+        };
+        LapsedAcceptanceDto: {
+            ruleId: string;
+            acceptanceId: string;
+            why: string;
         };
         ReviewPermissionDto: {
             allowed: boolean;
@@ -2095,15 +2155,23 @@ export interface components {
             version: number;
             /** @description Every decision, oldest first */
             decisions: components["schemas"]["ReviewDecisionDto"][];
-            /** @description Return comments not yet resolved */
+            /** @description Return comments not yet resolved, of any return */
             openComments: components["schemas"]["ReviewCommentDto"][];
+            /** @description Every comment of the last return, resolved or open (what the next review shows) */
+            returnComments: components["schemas"]["ReviewCommentDto"][];
             /** @description The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
             rules: components["schemas"]["RoundRuleDto"][];
+            /** @description Fired rules held by an engineer's acceptance of the standing condition (not raising the level) */
+            acceptedRules: components["schemas"]["AcceptedRuleDto"][];
+            /** @description Fired rules whose acceptance lapsed (range ended, date passed, condition changed), with why */
+            lapsedAcceptances: components["schemas"]["LapsedAcceptanceDto"][];
             canConfirm: components["schemas"]["ReviewPermissionDto"];
             canReturn: components["schemas"]["ReviewPermissionDto"];
             canCorrect: components["schemas"]["ReviewPermissionDto"];
             /** @description The geologist may mark return comments resolved */
             canResolve: boolean;
+            /** @description The caller is an engineer: may accept a fired rule's standing condition, or withdraw an acceptance */
+            canAcceptConditions: boolean;
             separationOfDuties: boolean;
             caution: string;
         };
@@ -2141,6 +2209,16 @@ export interface components {
             /** @description What was done about it (e.g. "Probe holes drilled, no water") */
             actionTaken: string;
             note: string;
+        };
+        AcceptConditionDto: {
+            /** @description Start of the chainage range the acceptance holds for, m (null: open at that end) */
+            fromChainage?: number | null;
+            /** @description End of the chainage range, m (null: open at that end) */
+            toChainage?: number | null;
+            /** @description The acceptance holds until this time (ISO 8601), when given */
+            until?: string | null;
+            /** @description Why the condition is accepted (a red rule needs a written reason of at least 20 characters) */
+            reason: string;
         };
         RuleClockDto: {
             level: components["schemas"]["TriggerLevel"];
@@ -4418,6 +4496,102 @@ export interface operations {
                 content: {
                     "application/json": components["schemas"]["ErrorResponseDto"];
                 };
+            };
+        };
+    };
+    RoundReviewController_accept: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                ruleId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AcceptConditionDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description No range or date, a date passed, or no reason (a red rule needs a written one) */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description The round is not submitted or confirmed, or the rule is already accepted on it */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+        };
+    };
+    RoundReviewController_withdraw: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                roundId: string;
+                acceptanceId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoundReviewDto"];
+                };
+            };
+            /** @description Member without one of the roles: engineer */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
             };
         };
     };

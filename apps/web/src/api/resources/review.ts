@@ -117,6 +117,34 @@ export function acknowledgeRule(
   );
 }
 
+/** An engineer accepts a fired rule's standing condition for a chainage range or until a date. */
+export function acceptCondition(
+  projectId: string,
+  roundId: string,
+  ruleId: string,
+  body: Schemas['AcceptConditionDto'],
+): Promise<RoundReview> {
+  return unwrap(
+    apiClient.POST('/api/projects/{projectId}/rounds/{roundId}/triggers/{ruleId}/accept', {
+      params: { path: { projectId, roundId, ruleId } },
+      body,
+    }),
+  );
+}
+
+/** An engineer withdraws an acceptance: the rule raises the level again. */
+export function withdrawAcceptance(
+  projectId: string,
+  roundId: string,
+  acceptanceId: string,
+): Promise<RoundReview> {
+  return unwrap(
+    apiClient.POST('/api/projects/{projectId}/rounds/{roundId}/acceptances/{acceptanceId}/withdraw', {
+      params: { path: { projectId, roundId, acceptanceId } },
+    }),
+  );
+}
+
 /**
  * After a review decision: the answer is the review; the round itself (status, revision, lock), the
  * queue and the Board's counts are read again.

@@ -17,6 +17,7 @@ import { RoundOrientationPanel } from '@/features/orientation/components/round-o
 import { SET_COLOURS_LIGHT } from '@/features/orientation/scene/palette';
 import { PhotosSection } from '@/features/photos';
 import { ReviewPanel } from '@/features/review/components/review-panel';
+import { SectionComments } from '@/features/review/components/section-comments';
 import {
   useRound,
   useRoundHeading,
@@ -103,6 +104,11 @@ export function RoundRoute() {
         heading={heading}
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
+        sectionNoteSlot={
+          round.status === 'draft' && round.revision === 1
+            ? undefined
+            : (place) => <SectionComments projectId={projectId} roundId={round.id} place={place} />
+        }
         orientationSlot={({ joints, assessment, faceChainage }) => (
           <RoundOrientationPanel
             joints={joints}

@@ -100,6 +100,8 @@ export class ProjectSummaryDto {
   coordinateGrid: string;
   /** Minutes the incoming supervisor has to acknowledge a handover before it is flagged overdue (default 60) */
   handoverAckMinutes: number;
+  /** Separation of duties: whoever mapped or submitted a round may not confirm it (on by default) */
+  separationOfDuties: boolean;
   /** The caller's role in this project */
   @ApiProperty({ enum: ROLE_ENUM, enumName: 'ProjectRole' })
   role: 'admin' | 'geologist' | 'engineer' | 'supervisor' | 'viewer';

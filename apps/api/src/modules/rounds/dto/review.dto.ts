@@ -2,6 +2,8 @@ import { ApiProperty } from '@nestjs/swagger';
 import { CHANGE_ASPECTS, CHANGE_TRENDS, ROUND_STATUSES, STAGES, TRIGGER_LEVELS } from '@roundbook/domain';
 import { Type } from 'class-transformer';
 import {
+  IsISO8601,
+  IsOptional,
   ArrayMaxSize,
   ArrayMinSize,
   IsArray,
@@ -97,6 +99,9 @@ export class ReviewCommentDto {
   createdAt: string;
   @ApiProperty({ type: String, nullable: true })
   resolvedAt: string | null;
+  /** Who marked it resolved (null while open) */
+  @ApiProperty({ type: String, nullable: true })
+  resolvedByName: string | null;
 }
 
 export class ReviewDecisionDto {
@@ -175,15 +180,23 @@ export class RoundReviewDto {
   confirmation: ReviewDecisionDto | null;
   /** Every decision, oldest first */
   decisions: ReviewDecisionDto[];
-  /** Return comments not yet resolved */
+  /** Return comments not yet resolved, of any return */
   openComments: ReviewCommentDto[];
+  /** Every comment of the last return, resolved or open (what the next review shows) */
+  returnComments: ReviewCommentDto[];
   /** The fired trigger rules with their clocks (from the submit) and acknowledgements; empty before submit */
   rules: RoundRuleDto[];
+  /** Fired rules held by an engineer's acceptance of the standing condition (not raising the level) */
+  acceptedRules: AcceptedRuleDto[];
+  /** Fired rules whose acceptance lapsed (range ended, date passed, condition changed), with why */
+  lapsedAcceptances: LapsedAcceptanceDto[];
   canConfirm: ReviewPermissionDto;
   canReturn: ReviewPermissionDto;
   canCorrect: ReviewPermissionDto;
   /** The geologist may mark return comments resolved */
   canResolve: boolean;
+  /** The caller is an engineer: may accept a fired rule's standing condition, or withdraw an acceptance */
+  canAcceptConditions: boolean;
   separationOfDuties: boolean;
   /** Changes since the previous round of the heading and stage; null before the round is submitted */
   @ApiProperty({ type: SincePreviousDto, nullable: true })
@@ -225,6 +238,60 @@ export class AcknowledgeRuleDto {
   note: string;
 }
 
+export class AcceptConditionDto {
+  /** Start of the chainage range the acceptance holds for, m (null: open at that end) */
+  @IsOptional()
+  @IsNumber({}, { message: 'Give the chainage in metres, e.g. 1012.5.' })
+  @Min(-100000)
+  @Max(1000000)
+  fromChainage?: number | null;
+
+  /** End of the chainage range, m (null: open at that end) */
+  @IsOptional()
+  @IsNumber({}, { message: 'Give the chainage in metres, e.g. 1030.' })
+  @Min(-100000)
+  @Max(1000000)
+  toChainage?: number | null;
+
+  /** The acceptance holds until this time (ISO 8601), when given */
+  @IsOptional()
+  @IsISO8601({}, { message: 'Give the date as 2026-12-31 (or a full ISO 8601 time).' })
+  until?: string | null;
+
+  /** Why the condition is accepted (a red rule needs a written reason of at least 20 characters) */
+  @IsString()
+  @MaxLength(2000)
+  reason: string;
+}
+
+/** A fired rule held by an acceptance of its standing condition: listed, not raising the level. */
+export class AcceptedRuleDto {
+  ruleId: string;
+  @ApiProperty({ enum: TRIGGER_LEVELS, enumName: 'TriggerLevel' })
+  level: 'green' | 'amber' | 'red';
+  summary: string;
+  detail: string;
+  acceptanceId: string;
+  reason: string;
+  acceptedByName: string;
+  acceptedAt: string;
+  @ApiProperty({ type: Number, nullable: true })
+  fromChainage: number | null;
+  @ApiProperty({ type: Number, nullable: true })
+  toChainage: number | null;
+  @ApiProperty({ type: String, nullable: true })
+  until: string | null;
+  /** The acceptance was taken on this round (it may be withdrawn here) */
+  acceptedHere: boolean;
+}
+
+/** A fired rule whose acceptance no longer holds, and why (it raises the level again). */
+export class LapsedAcceptanceDto {
+  ruleId: string;
+  acceptanceId: string;
+  why: string;
+}
+
 export class RuleAcknowledgementDto {
   actionTaken: string;
   note: string;
@@ -241,6 +308,8 @@ export class RoundRuleDto extends RuleClockDto {
   acknowledgement: RuleAcknowledgementDto | null;
   /** The caller owns this rule and may acknowledge it now */
   canAcknowledge: boolean;
+  /** The caller is an engineer and may accept this rule's standing condition */
+  canAccept: boolean;
 }
 
 export class ReviewQueueItemDto {

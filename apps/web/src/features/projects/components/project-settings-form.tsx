@@ -1,5 +1,6 @@
 import {
   Button,
+  Checkbox,
   Field,
   Input,
   makeStyles,
@@ -60,6 +61,8 @@ const useStyles = makeStyles({
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%' },
   button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   actions: { display: 'flex', gap: tokens.spacingHorizontalM },
+  checkbox: { minHeight: `${TOUCH_TARGET_PX}px` },
+  explain: { margin: 0, color: tokens.colorNeutralForeground2 },
 });
 
 function DistributionList({ disabled }: { disabled: boolean }) {
@@ -122,6 +125,30 @@ function DistributionList({ disabled }: { disabled: boolean }) {
         </div>
       )}
     </FieldArray>
+  );
+}
+
+/** Separation of duties as a checkbox, with what it means in plain words. */
+function SeparationOfDuties({ disabled }: { disabled: boolean }) {
+  const styles = useStyles();
+  const formik = useFormikContext<ProjectSettingsValues>();
+  return (
+    <div className={styles.wide}>
+      <Checkbox
+        className={styles.checkbox}
+        name="separationOfDuties"
+        size="large"
+        label="Separation of duties: the person who mapped or submitted a round does not confirm it"
+        checked={formik.values.separationOfDuties}
+        disabled={disabled}
+        onChange={(_, data) => void formik.setFieldValue('separationOfDuties', data.checked === true)}
+      />
+      <p className={styles.explain}>
+        On (the default): a geologist who also holds the engineer role may return their own round but
+        another engineer of the project confirms it. Off: any engineer may confirm any round, their own
+        included. Either way every decision is signed and kept in the audit trail.
+      </p>
+    </div>
   );
 }
 
@@ -223,6 +250,9 @@ export function ProjectSettingsForm({ project, canEdit }: ProjectSettingsFormPro
               required
               disabled={!canEdit}
             />
+          </div>
+          <div className={styles.group}>
+            <SeparationOfDuties disabled={!canEdit} />
           </div>
           {problem !== null && (
             <div role="alert">

@@ -1,4 +1,4 @@
-import { array, mixed, number, object, string } from 'yup';
+import { array, boolean, mixed, number, object, string } from 'yup';
 import type { ObjectSchema } from 'yup';
 import type {
   GroundScale,
@@ -8,8 +8,8 @@ import type {
   UpdateProjectRequest,
 } from '@/api/contract';
 
-/** The settings this form edits (separation of duties is set through the API, not on this form yet). */
-export type ProjectSettingsValues = Required<Omit<UpdateProjectRequest, 'version' | 'separationOfDuties'>>;
+/** The settings this form edits. */
+export type ProjectSettingsValues = Required<Omit<UpdateProjectRequest, 'version'>>;
 
 export const PLANE_NOTATIONS: PlaneNotation[] = ['dip-direction/dip', 'dip/dip-direction', 'strike/dip-rhr'];
 export const notationLabels: Record<PlaneNotation, string> = {
@@ -66,6 +66,7 @@ export const projectSettingsSchema: ObjectSchema<ProjectSettingsValues> = object
     .integer('Give the time in whole minutes, e.g. 60.')
     .min(5, 'Allow at least 5 minutes to acknowledge a handover.')
     .max(720, 'Allow at most 720 minutes (12 hours, one shift).'),
+  separationOfDuties: boolean().required(),
 });
 
 export function projectToSettingsValues(p: ProjectSummary): ProjectSettingsValues {
@@ -79,6 +80,7 @@ export function projectToSettingsValues(p: ProjectSummary): ProjectSettingsValue
     distributionList: [...p.distributionList],
     coordinateGrid: p.coordinateGrid,
     handoverAckMinutes: p.handoverAckMinutes,
+    separationOfDuties: p.separationOfDuties,
   };
 }
 
@@ -92,4 +94,5 @@ export const projectSettingsLabels: Partial<Record<keyof ProjectSettingsValues, 
   distributionList: 'Handover distribution list',
   coordinateGrid: 'Coordinate grid',
   handoverAckMinutes: 'Time to acknowledge a handover',
+  separationOfDuties: 'Separation of duties',
 };

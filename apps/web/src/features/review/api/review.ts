@@ -2,11 +2,13 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { components } from '@/api/generated/schema';
 import { resourceKeys } from '@/api/resources/keys';
 import {
+  acceptCondition,
   acknowledgeRule,
   confirmRound,
   correctRound,
   resolveComment,
   returnRound,
+  withdrawAcceptance,
   roundRevisionsQueryOptions,
   reviewChanged,
   reviewQueueQueryOptions,
@@ -20,6 +22,8 @@ export type RuleClock = Schemas['RuleClockDto'];
 export type ReviewSection = Schemas['ReviewSection'];
 export type ReviewDecision = Schemas['ReviewDecisionDto'];
 export type RoundRule = Schemas['RoundRuleDto'];
+export type AcceptedRule = Schemas['AcceptedRuleDto'];
+export type LapsedAcceptance = Schemas['LapsedAcceptanceDto'];
 export type RoundRevision = Schemas['RoundRevisionDto'];
 export type SupportClassOption = Pick<
   Schemas['SupportClassDto'],
@@ -43,7 +47,9 @@ export type ReviewAction =
   | { kind: 'return'; body: Schemas['ReturnRoundDto'] }
   | { kind: 'correct'; body: Schemas['CorrectRoundDto'] }
   | { kind: 'resolve'; commentId: string }
-  | { kind: 'acknowledge'; ruleId: string; body: Schemas['AcknowledgeRuleDto'] };
+  | { kind: 'acknowledge'; ruleId: string; body: Schemas['AcknowledgeRuleDto'] }
+  | { kind: 'accept'; ruleId: string; body: Schemas['AcceptConditionDto'] }
+  | { kind: 'withdraw'; acceptanceId: string };
 
 function run(projectId: string, roundId: string, action: ReviewAction) {
   switch (action.kind) {
@@ -57,6 +63,10 @@ function run(projectId: string, roundId: string, action: ReviewAction) {
       return resolveComment(projectId, roundId, action.commentId);
     case 'acknowledge':
       return acknowledgeRule(projectId, roundId, action.ruleId, action.body);
+    case 'accept':
+      return acceptCondition(projectId, roundId, action.ruleId, action.body);
+    case 'withdraw':
+      return withdrawAcceptance(projectId, roundId, action.acceptanceId);
   }
 }
 

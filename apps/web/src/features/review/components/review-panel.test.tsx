@@ -193,7 +193,7 @@ describe('ReviewPanel', () => {
     const comment = await screen.findByTestId('return-comment');
     expect(comment).toHaveTextContent('Ground');
     expect(comment).toHaveTextContent('Say where the water comes from.');
-    expect(within(comment).getByRole('button', { name: 'Mark done' })).toBeInTheDocument();
+    expect(within(comment).getByRole('button', { name: 'Resolve' })).toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Confirm the round' })).not.toBeInTheDocument();
     expect(screen.queryByRole('tab', { name: 'Confirm' })).not.toBeInTheDocument();
     expect(screen.getByTestId('review-caution')).toHaveTextContent(CAUTION);
@@ -229,6 +229,7 @@ describe('ReviewPanel', () => {
       acknowledgedAt: null,
       acknowledgement: null,
       canAcknowledge: true,
+      canAccept: false,
     };
     const acknowledged = submittedReview({
       rules: [
@@ -300,5 +301,77 @@ describe('ReviewPanel', () => {
     ).toEqual(['ground › waterDescription—Drips from the crown joint']);
     await user.selectOptions(screen.getByRole('combobox', { name: 'From' }), 'v-3');
     expect(await screen.findByText('No field differs between these two.')).toBeInTheDocument();
+  });
+
+  it('separation of duties: the engineer who mapped the round is told why Confirm is not offered, and may return it', async () => {
+    const reason =
+      'You mapped or submitted this round, and the project keeps separation of duties (Setup): another engineer of the project confirms it. You may still return it with comments.';
+    mockApi({ [REVIEW]: submittedReview({ canConfirm: { allowed: false, reason } }) });
+    panel();
+    const why = await screen.findByTestId('no-confirm-reason');
+    expect(why).toHaveTextContent('Why Confirm is not offered to you');
+    expect(why).toHaveTextContent(reason);
+    expect(screen.queryByRole('tab', { name: 'Confirm' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Confirm the round' })).not.toBeInTheDocument();
+    expect(screen.getByRole('form', { name: 'Return the round' })).toBeInTheDocument();
+  });
+
+  it('the engineer accepts a red rule as a standing condition for a range with a written reason, and may withdraw it', async () => {
+    const rule = {
+      ruleId: 'rule-adv',
+      level: 'red' as const,
+      summary: 'A set or feature adverse to the drive → red',
+      detail: 'S1 (150/70) is very unfavourable for the drive',
+      action: 'Tell the engineer.',
+      ownerRole: 'engineer',
+      timeAllowedHours: 2,
+      dueAt: '2026-11-30T12:00:00.000Z',
+      minutesLeft: 60,
+      overdue: false,
+      acknowledgedAt: null,
+      acknowledgement: null,
+      canAcknowledge: false,
+      canAccept: true,
+    };
+    const acceptedRule = {
+      ruleId: 'rule-adv',
+      level: 'red' as const,
+      summary: rule.summary,
+      detail: rule.detail,
+      acceptanceId: 'acc-1',
+      reason: 'S1 along the drive is covered by the class B bolting.',
+      acceptedByName: 'Edda Ravenshaw',
+      acceptedAt: '2026-11-30T11:00:00.000Z',
+      fromChainage: 1000,
+      toChainage: 1015,
+      until: null,
+      acceptedHere: true,
+    };
+    const api = mockApi({
+      [REVIEW]: submittedReview({ rules: [rule] }),
+      'POST /api/projects/p-1/rounds/r-1/triggers/rule-adv/accept': () =>
+        jsonResponse(submittedReview({ rules: [], acceptedRules: [acceptedRule] })),
+      'POST /api/projects/p-1/rounds/r-1/acceptances/acc-1/withdraw': () =>
+        jsonResponse(submittedReview({ rules: [rule] })),
+    });
+    panel();
+    const user = userEvent.setup();
+    const item = await screen.findByTestId('round-rule');
+    await user.click(within(item).getByRole('button', { name: 'Accept as a standing condition…' }));
+    const form = within(item).getByRole('form', { name: /Accept the standing condition/ });
+    expect(form).toHaveTextContent('A red rule is accepted only with your written reason');
+    await user.type(within(form).getByRole('textbox', { name: /From chainage/ }), '1000');
+    await user.type(within(form).getByRole('textbox', { name: /To chainage/ }), '1015');
+    await user.type(within(form).getByRole('textbox', { name: /Your reason/ }), acceptedRule.reason);
+    await user.click(within(form).getByRole('button', { name: 'Accept the condition' }));
+    const accepted = await screen.findByTestId('accepted-rule');
+    expect(accepted).toHaveTextContent('Accepted (red, not raising the level)');
+    expect(accepted).toHaveTextContent('chainage 1000 to 1015 m');
+    expect(await bodiesOf(api, '/api/projects/p-1/rounds/r-1/triggers/rule-adv/accept')).toEqual([
+      { fromChainage: 1000, toChainage: 1015, until: null, reason: acceptedRule.reason },
+    ]);
+    await user.click(within(accepted).getByRole('button', { name: 'Withdraw the acceptance' }));
+    await waitFor(() => expect(screen.queryByTestId('accepted-rule')).not.toBeInTheDocument());
+    expect(screen.getByTestId('round-rule')).toBeInTheDocument();
   });
 });

@@ -6,6 +6,7 @@ import {
   makeStyles,
   MessageBar,
   MessageBarBody,
+  MessageBarTitle,
   Select,
   Spinner,
   Subtitle1,
@@ -343,30 +344,44 @@ function Decision({
 function OpenComments({ projectId, review }: { projectId: string; review: RoundReview }) {
   const styles = useStyles();
   const action = useReviewAction(projectId, review.roundId);
-  if (review.openComments.length === 0) return null;
+  // At the next review the engineer reads the last return's comments, resolved and open; the geologist
+  // (and anyone else) reads the open ones to work through.
+  const atReview = review.status === 'submitted' && review.returnComments.length > 0;
+  const list = atReview ? review.returnComments : review.openComments;
+  if (list.length === 0) return null;
   return (
     <section aria-label="Return comments">
-      <Subtitle2 as="h3">Return comments to work through</Subtitle2>
+      <Subtitle2 as="h3">
+        {atReview ? 'Comments of the last return' : 'Return comments to work through'}
+      </Subtitle2>
       <ul className={styles.list}>
-        {review.openComments.map((c) => (
+        {list.map((c) => (
           <li key={c.id} className={styles.comment} data-testid="return-comment">
             <Text weight="semibold">{sectionLabels[c.section]}</Text>
             <Text>{c.text}</Text>
             <Text className={styles.muted}>{`— ${c.authorName}, revision ${c.revision}`}</Text>
-            {review.canResolve ? (
+            {c.resolvedAt !== null ? (
+              <Text weight="semibold">{`Resolved${c.resolvedByName ? ` by ${c.resolvedByName}` : ''}`}</Text>
+            ) : atReview ? (
+              <Text weight="semibold">Still open</Text>
+            ) : null}
+            {c.resolvedAt === null && review.canResolve ? (
               <Button
                 className={styles.button}
                 icon={<CheckmarkCircleRegular />}
                 disabled={action.isPending}
                 onClick={() => action.mutate({ kind: 'resolve', commentId: c.id })}
               >
-                Mark done
+                Resolve
               </Button>
             ) : null}
           </li>
         ))}
       </ul>
-      <Text className={styles.muted}>Submitting the round again marks the rest done.</Text>
+      <Text className={styles.muted}>
+        Each comment is also shown at the top of the section it concerns, and stays open until it is marked
+        resolved.
+      </Text>
     </section>
   );
 }
@@ -384,6 +399,9 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
       </MessageBar>
     );
   const decides = review.canConfirm.allowed || review.canReturn.allowed;
+  // An engineer who may return but not confirm (separation of duties): no Confirm tab, and why not.
+  const returnOnly = !review.canConfirm.allowed && review.canReturn.allowed;
+  const shown = returnOnly ? 'return' : mode;
   return (
     <Card className={styles.root} aria-label="Review" data-testid="review-panel">
       <Subtitle1 as="h2">Review</Subtitle1>
@@ -404,21 +422,31 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
             : review.canConfirm.reason}
         </Text>
       ) : null}
+      {returnOnly ? (
+        <MessageBar intent="info" layout="multiline" data-testid="no-confirm-reason">
+          <MessageBarBody>
+            <MessageBarTitle>Why Confirm is not offered to you</MessageBarTitle>
+            {review.canConfirm.reason}
+          </MessageBarBody>
+        </MessageBar>
+      ) : null}
       {decides ? (
         <>
           <TabList
-            selectedValue={mode}
+            selectedValue={shown}
             onTabSelect={(_, d) => setMode(d.value as 'confirm' | 'return')}
             size="large"
           >
-            <Tab className={styles.tab} value="confirm">
-              Confirm
-            </Tab>
+            {returnOnly ? null : (
+              <Tab className={styles.tab} value="confirm">
+                Confirm
+              </Tab>
+            )}
             <Tab className={styles.tab} value="return">
               Return with comments
             </Tab>
           </TabList>
-          {mode === 'confirm' ? (
+          {shown === 'confirm' ? (
             review.canConfirm.allowed ? (
               <ConfirmForm projectId={projectId} review={review} classes={supportClasses} />
             ) : (
@@ -435,6 +463,9 @@ export function ReviewPanel({ projectId, roundId, supportClasses, timeZone }: Re
         projectId={projectId}
         roundId={roundId}
         rules={review.rules}
+        accepted={review.acceptedRules}
+        lapsed={review.lapsedAcceptances}
+        canWithdraw={review.canAcceptConditions}
         when={(iso) => when(iso, timeZone)}
       />
       {review.canCorrect.allowed ? <CorrectForm projectId={projectId} review={review} /> : null}

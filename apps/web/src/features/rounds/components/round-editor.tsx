@@ -97,6 +97,11 @@ export interface RoundEditorProps {
     assessment: RoundAssessment;
     faceChainage: number;
   }) => ReactNode;
+  /**
+   * Notes that concern a section (app/routes composes them, e.g. the review's open return comments), shown
+   * at the top of that section; 'round' is shown above the sections (comments on the round as a whole).
+   */
+  sectionNoteSlot?: (section: RoundSection | 'round') => ReactNode;
 }
 
 const useStyles = makeStyles({
@@ -160,6 +165,7 @@ function RoundEditorBody({
   initialSection,
   orientationSlot,
   sketchSlot,
+  sectionNoteSlot,
   autosave,
 }: RoundEditorProps & { autosave: RoundAutosave }) {
   const styles = useStyles();
@@ -280,12 +286,14 @@ function RoundEditorBody({
             level={server.triggerLevel}
             firings={server.triggerFirings}
             notEvaluated={server.triggersNotEvaluated}
+            accepted={(server.assessment as Partial<RoundAssessment>).triggers?.accepted}
           />
         ) : (
           <TriggerPanel
             level={assessment.triggers.level}
             firings={assessment.triggers.firings}
             notEvaluated={assessment.triggers.notEvaluated}
+            accepted={assessment.triggers.accepted}
             live
           />
         )}
@@ -374,6 +382,7 @@ function RoundEditorBody({
           </MessageBar>
         )}
 
+        {sectionNoteSlot?.('round')}
         <div className={styles.nav}>
           <TabList
             size="large"
@@ -394,6 +403,7 @@ function RoundEditorBody({
           </TabList>
         </div>
 
+        {sectionNoteSlot?.(section)}
         {section === 'position' && (
           <PositionSection round={server} chainage={chainageStyle} timeZone={project.timeZone} />
         )}

@@ -119,4 +119,24 @@ describe('TriggerPanel', () => {
     expect(panel).toHaveTextContent('Q < 1 → amber (Q is not recorded yet)');
     expect(panel).not.toHaveTextContent('no trigger rules');
   });
+
+  it('lists the accepted standing conditions apart, as not raising the level', () => {
+    renderWithProviders(
+      <TriggerPanel
+        level="amber"
+        firings={[firing(2, 'amber')]}
+        accepted={[
+          {
+            ruleId: 'rule-1',
+            summary: 'A set or feature adverse to the drive → red',
+            reason: 'Covered by the class bolting.',
+            acceptedByName: 'Edda Ravenshaw',
+          },
+        ]}
+      />,
+    );
+    expect(screen.getByTestId('accepted-conditions')).toHaveTextContent(
+      'Accepted, not raising the level: A set or feature adverse to the drive → red — Edda Ravenshaw: Covered by the class bolting.',
+    );
+  });
 });

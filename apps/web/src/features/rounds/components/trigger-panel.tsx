@@ -16,6 +16,8 @@ export interface TriggerPanelProps {
   live?: boolean;
   /** Enabled rules this round lacks the input for: the level is not green until they are in. */
   notEvaluated?: ReadonlyArray<{ summary: string; detail: string }>;
+  /** Fired rules held by an engineer's acceptance of a standing condition: listed, not raising the level. */
+  accepted?: ReadonlyArray<{ ruleId: string; summary: string; reason: string; acceptedByName: string }>;
 }
 
 const useStyles = makeStyles({
@@ -105,6 +107,7 @@ export function TriggerPanel({
   shownAtFirst = 2,
   live = false,
   notEvaluated = [],
+  accepted = [],
 }: TriggerPanelProps) {
   const styles = useStyles();
   const titleId = useId();
@@ -159,6 +162,19 @@ export function TriggerPanel({
         >
           {folded ? `Show ${hidden} more ${hidden === 1 ? 'rule' : 'rules'}` : 'Show fewer'}
         </Button>
+      )}
+      {accepted.length > 0 && (
+        <ul
+          className={styles.list}
+          aria-label="Accepted standing conditions"
+          data-testid="accepted-conditions"
+        >
+          {accepted.map((a) => (
+            <li key={a.ruleId} className={styles.note}>
+              {`Accepted, not raising the level: ${a.summary} — ${a.acceptedByName}: ${a.reason}`}
+            </li>
+          ))}
+        </ul>
       )}
     </section>
   );

@@ -30,6 +30,7 @@ export const project: ProjectDetail = {
   groundScale: 'isrm',
   distributionList: [],
   handoverAckMinutes: 60,
+  separationOfDuties: true,
   coordinateGrid: 'Harrowdale site grid',
   version: 1,
   headings: [],

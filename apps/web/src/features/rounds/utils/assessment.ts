@@ -86,7 +86,15 @@ export function assessmentContextOf(setup: AssessmentSetup, faceChainage: number
     rules: setup.rules,
     qTableEdition: setup.project.qTableEdition,
     groundScale: setup.project.groundScale,
+    // The heading's accepted standing conditions as the last save read them, judged now.
+    ...acceptancesOf(setup.round),
   };
+}
+
+/** The acceptances the API read at the round's last save (absent before there were any). */
+function acceptancesOf(round: Round): Pick<AssessmentContext, 'acceptances'> {
+  const list = (round.assessment as Partial<RoundAssessment>).acceptances;
+  return Array.isArray(list) ? { acceptances: { list, at: new Date().toISOString() } } : {};
 }
 
 /** The round's assessment from the form as typed: packages/domain's assessRound, as the API runs it on save. */
