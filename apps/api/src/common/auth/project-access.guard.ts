@@ -24,14 +24,12 @@ export class ProjectAccessGuard implements CanActivate {
   ) {}
 
   async canActivate(context: ExecutionContext): Promise<boolean> {
-    const req = context
-      .switchToHttp()
-      .getRequest<{
-        user: AuthUser;
-        params: Record<string, string>;
-        projectAccess?: ProjectAccess;
-        membershipOfRequest?: MembershipOfRequest;
-      }>();
+    const req = context.switchToHttp().getRequest<{
+      user: AuthUser;
+      params: Record<string, string>;
+      projectAccess?: ProjectAccess;
+      membershipOfRequest?: MembershipOfRequest;
+    }>();
     const projectId = req.params.projectId;
     if (!projectId || !UUID.test(projectId)) throw DomainException.notFound('The project');
     // Read with the account by the JWT strategy in this same request when it could (same project): no second

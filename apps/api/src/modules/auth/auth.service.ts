@@ -78,10 +78,9 @@ export class AuthService {
       .select(['u.id AS id', 'u.email AS email', 'u.name AS name', 'u.token_version AS tokenVersion'])
       .where('u.id = :id', { id: payload.sub });
     if (projectId)
-      qb.leftJoin(ProjectMember, 'm', 'm.user_id = u.id AND m.project_id = :projectId', { projectId }).addSelect(
-        'm.role',
-        'role',
-      );
+      qb.leftJoin(ProjectMember, 'm', 'm.user_id = u.id AND m.project_id = :projectId', {
+        projectId,
+      }).addSelect('m.role', 'role');
     const row = await qb.getRawOne<{
       id: string;
       email: string;

@@ -1,7 +1,13 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { RoundAssessment, Stage } from '@roundbook/domain';
-import { Brackets, DataSource, type EntityManager, type SelectQueryBuilder } from 'typeorm';
+import {
+  Brackets,
+  DataSource,
+  type EntityManager,
+  type ObjectLiteral,
+  type SelectQueryBuilder,
+} from 'typeorm';
 import type { ProjectAccess } from '../../common/auth/auth-user.js';
 import { DomainException } from '../../common/errors/domain.exception.js';
 import type { Heading } from '../headings/heading.entity.js';
@@ -116,7 +122,7 @@ export class RoundsQueries {
     // and only those 50 rows read in full with their names (`npm run load`: with the joins in the same query
     // an offset of 2,000 read 2,050 rows of a 600 MB table and their users and classes to throw away all
     // but 50). The count reads the index only, without joins that cannot change it.
-    const filtered = (qb: SelectQueryBuilder<object>) => {
+    const filtered = <T extends ObjectLiteral>(qb: SelectQueryBuilder<T>) => {
       qb.from(Round, 'k').where('k.heading_id = :headingId', { headingId });
       if (query.status) qb.andWhere('k.status = :status', { status: query.status });
       if (query.stage) qb.andWhere('k.stage = :stage', { stage: query.stage });
