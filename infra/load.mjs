@@ -291,6 +291,9 @@ try {
     routes[5].request,
   ]);
   const mixedErrors = mixed.errors + mixed.timeouts + mixed.non2xx;
+  info(
+    `mixed: ${Math.round(mixed.requests.average)} req/s, p99 ${mixed.latency.p99} ms, ${mixedErrors} errors (${mixed.non2xx} non-2xx, ${mixed.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(mixed.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
+  );
 
   const live = figures[0];
   const rows = figures.map((f) => ({

@@ -73,6 +73,25 @@ describe('sessions: revoking tokens (e2e, real MariaDB)', () => {
     await me(await tokenOf('viewer', 'a-new-password-2026')).expect(200);
   });
 
+  it("on a project's route the account and the membership are read together, afresh at every request: a role change and a revoked token count at the very next one", async () => {
+    // `npm run load` (issue 20 item 4): one statement reads both, nothing is kept between requests.
+    const supervisor = await tokenOf('supervisor');
+    const project = () => request(http).get(p.base).set('Authorization', `Bearer ${supervisor}`);
+    expect(((await project().expect(200)).body as Body).role).toBe('supervisor');
+    const team = (await request(http).get(`${p.base}/team`).set(p.as('admin')).expect(200)).body as Body;
+    const member = (team.members as Body[]).find((m) => m.role === 'supervisor')!;
+    const memberUrl = `${p.base}/members/${member.memberId as string}`;
+    await request(http).patch(memberUrl).set(p.as('admin')).send({ role: 'viewer' }).expect(200);
+    expect(((await project().expect(200)).body as Body).role).toBe('viewer');
+    await request(http).patch(memberUrl).set(p.as('admin')).send({ role: 'supervisor' }).expect(200);
+    expect(((await project().expect(200)).body as Body).role).toBe('supervisor');
+    await request(http)
+      .post('/api/auth/sign-out-everywhere')
+      .set('Authorization', `Bearer ${supervisor}`)
+      .expect(204);
+    expect(((await project().expect(401)).body as Body).message).toMatch(/session has ended/);
+  });
+
   it('removed from their last project, a member has no session left', async () => {
     const supervisor = await tokenOf('supervisor');
     const team = (await request(http).get(`${p.base}/team`).set(p.as('admin')).expect(200)).body as Body;
@@ -82,6 +101,8 @@ describe('sessions: revoking tokens (e2e, real MariaDB)', () => {
       .set(p.as('admin'))
       .expect(200);
     await me(supervisor).expect(401);
+    // on the project's own route too (account and membership read in one statement)
+    await request(http).get(p.base).set('Authorization', `Bearer ${supervisor}`).expect(401);
   });
 
   it('two apps in one process, each with its own secret, accept only their own tokens (passport strategy per app)', async () => {

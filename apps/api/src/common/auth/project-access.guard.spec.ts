@@ -69,4 +69,27 @@ describe('ProjectAccessGuard', () => {
     const { ctx } = context({ projectId: PROJECT }, []);
     await expect(sut.canActivate(ctx)).resolves.toBe(true);
   });
+
+  it('takes the membership the JWT strategy read with the account in this request, asking nothing more', async () => {
+    const { ctx, req } = context({ projectId: PROJECT }, ['engineer']);
+    req.membershipOfRequest = { projectId: PROJECT, role: 'engineer' };
+    await expect(sut.canActivate(ctx)).resolves.toBe(true);
+    expect(req.projectAccess).toEqual({ projectId: PROJECT, role: 'engineer' });
+    expect(findOne).not.toHaveBeenCalled();
+  });
+
+  it('answers 404 when the membership read with the account says the caller is no member', async () => {
+    const { ctx, req } = context({ projectId: PROJECT }, undefined);
+    req.membershipOfRequest = { projectId: PROJECT, role: null };
+    await expect(sut.canActivate(ctx)).rejects.toMatchObject({ code: 'NOT_FOUND' });
+    expect(findOne).not.toHaveBeenCalled();
+  });
+
+  it('asks the database when the membership on the request is of another project', async () => {
+    findOne.mockResolvedValue(null);
+    const { ctx, req } = context({ projectId: PROJECT }, undefined);
+    req.membershipOfRequest = { projectId: '3f1b2c4d-2222-4222-8333-944455556666', role: 'admin' };
+    await expect(sut.canActivate(ctx)).rejects.toMatchObject({ code: 'NOT_FOUND' });
+    expect(findOne).toHaveBeenCalledTimes(1);
+  });
 });

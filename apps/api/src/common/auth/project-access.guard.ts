@@ -4,9 +4,13 @@ import { InjectRepository } from '@nestjs/typeorm';
 import type { Repository } from 'typeorm';
 import { ProjectMember } from '../../modules/projects/project-member.entity.js';
 import { DomainException } from '../errors/domain.exception.js';
-import type { AuthUser, ProjectAccess, ProjectRole } from './auth-user.js';
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import {
+  UUID,
+  type AuthUser,
+  type MembershipOfRequest,
+  type ProjectAccess,
+  type ProjectRole,
+} from './auth-user.js';
 
 /** 404 to a non-member (the project's existence is not revealed), 403 to a member without the role. */
 /** Metadata key of the roles a project-scoped route is open to (set by @ProjectRoles). */
@@ -20,12 +24,21 @@ export class ProjectAccessGuard implements CanActivate {
   ) {}
 
   async canActivate(context: ExecutionContext): Promise<boolean> {
-    const req = context
-      .switchToHttp()
-      .getRequest<{ user: AuthUser; params: Record<string, string>; projectAccess?: ProjectAccess }>();
+    const req = context.switchToHttp().getRequest<{
+      user: AuthUser;
+      params: Record<string, string>;
+      projectAccess?: ProjectAccess;
+      membershipOfRequest?: MembershipOfRequest;
+    }>();
     const projectId = req.params.projectId;
     if (!projectId || !UUID.test(projectId)) throw DomainException.notFound('The project');
-    const member = await this.members.findOne({ where: { projectId, userId: req.user.id } });
+    // Read with the account by the JWT strategy in this same request when it could (same project): no second
+    // statement. Otherwise (another caller of this guard) asked here.
+    const pre = req.membershipOfRequest;
+    const member =
+      pre && pre.projectId === projectId
+        ? pre.role && { role: pre.role }
+        : await this.members.findOne({ where: { projectId, userId: req.user.id } });
     if (!member) throw DomainException.notFound('The project');
     const roles = this.reflector.getAllAndOverride<ProjectRole[] | undefined>(PROJECT_ROLES_KEY, [
       context.getHandler(),

@@ -17,6 +17,7 @@ import { HandoverOverdue1796340000000 } from './1796340000000-HandoverOverdue.js
 import { TriggerAcceptances1796360000000 } from './1796360000000-TriggerAcceptances.js';
 import { RoundReadIndexes1796390000000 } from './1796390000000-RoundReadIndexes.js';
 import { RoundMappedIndex1796390000001 } from './1796390000001-RoundMappedIndex.js';
+import { RoundStatusIndexes1796420000000 } from './1796420000000-RoundStatusIndexes.js';
 import { SignInTallies1796430000000 } from './1796430000000-SignInTallies.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
@@ -40,5 +41,6 @@ export const migrations = [
   TriggerAcceptances1796360000000,
   RoundReadIndexes1796390000000,
   RoundMappedIndex1796390000001,
+  RoundStatusIndexes1796420000000,
   SignInTallies1796430000000,
 ];

@@ -3,7 +3,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { InjectRepository } from '@nestjs/typeorm';
 import type { EntityManager, Repository } from 'typeorm';
-import type { AuthUser } from '../../common/auth/auth-user.js';
+import type { AuthUser, MembershipOfRequest, ProjectRole } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { APP_CONFIG, type AppConfig } from '../../config/app-config.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
@@ -61,9 +61,38 @@ export class AuthService {
 
   /** The user behind a valid token, or null when the account no longer exists or the token was revoked. */
   async userOfToken(payload: JwtPayload): Promise<AuthUser | null> {
-    const user = await this.users.findOne({ where: { id: payload.sub } });
-    if (!user || (payload.tv ?? 0) !== user.tokenVersion) return null;
-    return { id: user.id, email: user.email, name: user.name };
+    return (await this.userAndMembershipOfToken(payload)).user;
+  }
+
+  /**
+   * The user behind a valid token and, when a project is named, the user's role there, read in one statement
+   * (the account by primary key, the membership by its unique project + user key). Null user when the
+   * account is gone or the token was revoked; null role when the account is no member of the project.
+   */
+  async userAndMembershipOfToken(
+    payload: JwtPayload,
+    projectId?: string,
+  ): Promise<{ user: AuthUser | null; membership?: MembershipOfRequest }> {
+    const qb = this.users
+      .createQueryBuilder('u')
+      .select(['u.id AS id', 'u.email AS email', 'u.name AS name', 'u.token_version AS tokenVersion'])
+      .where('u.id = :id', { id: payload.sub });
+    if (projectId)
+      qb.leftJoin(ProjectMember, 'm', 'm.user_id = u.id AND m.project_id = :projectId', {
+        projectId,
+      }).addSelect('m.role', 'role');
+    const row = await qb.getRawOne<{
+      id: string;
+      email: string;
+      name: string;
+      tokenVersion: number | string;
+      role?: ProjectRole | null;
+    }>();
+    if (!row || (payload.tv ?? 0) !== Number(row.tokenVersion)) return { user: null };
+    return {
+      user: { id: row.id, email: row.email, name: row.name },
+      ...(projectId ? { membership: { projectId, role: row.role ?? null } } : {}),
+    };
   }
 
   /**

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { PassportStrategy } from '@nestjs/passport';
 import passport from 'passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
-import type { AuthUser } from '../../common/auth/auth-user.js';
+import { UUID, type AuthUser, type RequestWithMembership } from '../../common/auth/auth-user.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import type { AuthService, JwtPayload } from './auth.service.js';
 
@@ -39,12 +39,21 @@ export function createJwtStrategy(secret: string, auth: AuthService): JwtStrateg
         secretOrKey: secret,
         algorithms: ['HS256'],
         ignoreExpiration: false,
+        passReqToCallback: true,
       });
     }
 
-    async validate(payload: JwtPayload): Promise<AuthUser> {
-      const user = await auth.userOfToken(payload);
+    async validate(req: RequestWithMembership, payload: JwtPayload): Promise<AuthUser> {
+      // On a project's route the membership is read with the account (one statement, not two); the
+      // project-access guard takes it from the request instead of asking again. A malformed id is left to
+      // that guard (404 without asking the database).
+      const projectId = req.params?.projectId;
+      const { user, membership } = await auth.userAndMembershipOfToken(
+        payload,
+        projectId && UUID.test(projectId) ? projectId : undefined,
+      );
       if (!user) throw new DomainException(ErrorCode.Unauthenticated, SESSION_ENDED_MESSAGE);
+      if (membership) req.membershipOfRequest = membership;
       return user;
     }
 

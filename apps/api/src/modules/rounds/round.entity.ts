@@ -38,7 +38,9 @@ export interface GroundRecord {
 @Entity('rounds')
 @Index('UQ_rounds_heading_stage_number', ['headingId', 'stage', 'roundNumber'], { unique: true })
 @Index('IDX_rounds_heading_chainage', ['headingId', 'faceChainage'])
-@Index('IDX_rounds_heading_status', ['headingId', 'status'])
+// The Board's furthest face per status and latest confirmed round, read by seeks (board.service).
+@Index('IDX_rounds_heading_status_face', ['headingId', 'status', 'faceChainage'])
+@Index('IDX_rounds_heading_status_confirmed', ['headingId', 'status', 'confirmedAt'])
 @Index('IDX_rounds_heading_date', ['headingId', 'shiftDate'])
 @Index('IDX_rounds_heading_q', ['headingId', 'q'])
 @Index('IDX_rounds_heading_rmr', ['headingId', 'rmr'])

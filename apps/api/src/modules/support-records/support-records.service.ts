@@ -14,7 +14,7 @@ import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
 import { DomainException, ErrorCode } from '../../common/errors/domain.exception.js';
 import { AuditService } from '../audit/audit.service.js';
-import type { Stage } from '../headings/heading.entity.js';
+import { STAGES, type Stage } from '../headings/heading.entity.js';
 import { Round } from '../rounds/round.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
 import { User } from '../users/user.entity.js';
@@ -151,13 +151,21 @@ export class SupportRecordsService {
     const rows = await manager.query<
       Array<{ headingId: string; classId: string | null; outstanding: number | string | null }>
     >(
-      `SELECT r.heading_id AS headingId, r.confirmed_class_id AS classId, s.outstanding_count AS outstanding
-         FROM rounds r LEFT JOIN support_records s ON s.round_id = r.id
-        WHERE r.status = 'confirmed' AND r.heading_id IN (?)
-          AND (r.heading_id, r.stage, r.round_number) IN (
-            SELECT x.heading_id, x.stage, MAX(x.round_number) FROM rounds x
-             WHERE x.status = 'confirmed' AND x.heading_id IN (?) GROUP BY x.heading_id, x.stage)`,
-      [headingIds, headingIds],
+      // The latest confirmed round of each heading and stage, one seek each down IDX_rounds_heading_progress
+      // (heading, status, stage, number); the former GROUP BY read every confirmed round's index entry.
+      `SELECT t.headingId, t.classId, s.outstanding_count AS outstanding FROM (
+         ${headingIds
+           .flatMap(() =>
+             STAGES.map(
+               () =>
+                 `(SELECT r.id, r.heading_id AS headingId, r.confirmed_class_id AS classId FROM rounds r
+                    WHERE r.heading_id = ? AND r.status = 'confirmed' AND r.stage = ?
+                    ORDER BY r.round_number DESC LIMIT 1)`,
+             ),
+           )
+           .join(' UNION ALL ')}) t
+       LEFT JOIN support_records s ON s.round_id = t.id`,
+      headingIds.flatMap((id) => STAGES.flatMap((stage) => [id, stage])),
     );
     const out = new Set<string>();
     const unrecorded = rows.filter((r) => r.outstanding === null && r.classId !== null);
