@@ -22,6 +22,9 @@ try {
   run(process.execPath, [path.join(root, 'apps/api/dist/bench/rounds-list.bench.js')], {
     env: { ...process.env, ...env },
   });
+  run(process.execPath, [path.join(root, 'apps/api/dist/bench/notice-latency.bench.js')], {
+    env: { ...process.env, ...env },
+  });
 } catch (err) {
   fail(err instanceof InfraError ? err.message : (err?.stack ?? String(err)));
   code = 1;

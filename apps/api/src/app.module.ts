@@ -16,6 +16,7 @@ import { HazardsModule } from './modules/hazards/hazards.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
+import { NoticeSettingsModule } from './modules/notice-settings/notice-settings.module.js';
 import { PhotosModule } from './modules/photos/photos.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
 import { RoundsModule } from './modules/rounds/rounds.module.js';
@@ -41,6 +42,7 @@ export class AppModule {
         SupportClassesModule,
         TriggerRulesModule,
         TeamModule,
+        NoticeSettingsModule,
         RoundsModule,
         PhotosModule,
         HazardsModule,

@@ -104,6 +104,9 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
     GEOLOGIST_OR_ENGINEER,
   // The queue lists what the caller reviews as an engineer, across projects; empty for everyone else.
   'GET /api/review/queue': SIGNED_IN,
+  // Each member chooses the review notices they receive in the project (their own choice only).
+  'GET /api/projects/{projectId}/notice-settings': MEMBERS,
+  'PUT /api/projects/{projectId}/notice-settings': MEMBERS,
 
   // Photos (issue 14): members see them; the geologist or the admin adds, edits and removes them.
   'GET /api/projects/{projectId}/rounds/{roundId}/sketch/render': MEMBERS,

@@ -149,6 +149,7 @@ const ROUTE_KEYS = [
   'POST /api/projects/{projectId}/handovers',
   'POST /api/projects/{projectId}/handovers/{handoverId}/acknowledge',
   'PUT /api/projects/{projectId}/rounds/{roundId}/support-record',
+  'PUT /api/projects/{projectId}/notice-settings',
 ];
 
 function withValue(body: Body, where: string, value: unknown): Body {
@@ -456,6 +457,13 @@ describe('Bad input (e2e, generated invalid bodies on every body route)', () => 
           version: 0,
           items: [{ element: 'bolts', status: 'done', quantity: 12, length: 3, reason: '' }],
         },
+      },
+      {
+        // The caller's own notice choice (issue 11): every flag is a required boolean, red must be true.
+        key: 'PUT /api/projects/{projectId}/notice-settings',
+        url: `${p.base}/notice-settings`,
+        as: p.as('engineer'),
+        body: { submitted: true, ruleOverdue: true, returned: true, confirmedOtherClass: true, red: false },
       },
     );
   });

@@ -19,3 +19,4 @@ export * from './sketch-svg.js';
 export * from './sketch-frame.js';
 export * from './look-ahead.js';
 export * from './round-changes.js';
+export * from './notices.js';

@@ -7,6 +7,7 @@ import { AuditEvent } from '../modules/audit/audit-event.entity.js';
 import { Handover, HandoverHeading } from '../modules/handovers/handover.entity.js';
 import { Hazard } from '../modules/hazards/hazard.entity.js';
 import { Heading } from '../modules/headings/heading.entity.js';
+import { NoticePreference } from '../modules/notice-settings/notice-preference.entity.js';
 import { Photo } from '../modules/photos/photo.entity.js';
 import { ProjectMember } from '../modules/projects/project-member.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
@@ -50,6 +51,7 @@ export const entities = [
   Handover,
   HandoverHeading,
   SupportRecord,
+  NoticePreference,
 ];
 
 /** One set of options for the app, the CLI and the tests. Schema changes go through migrations only. */

@@ -70,3 +70,6 @@ export type CloseHazardRequest = Schemas['CloseHazardDto'];
 export type SupportRecord = Schemas['SupportRecordDto'];
 export type SupportRecordItem = Schemas['SupportItemDto'];
 export type SaveSupportRecordRequest = Schemas['SaveSupportRecordDto'];
+
+export type NoticeSettings = Schemas['NoticeSettingsDto'];
+export type UpdateNoticeSettingsRequest = Schemas['UpdateNoticeSettingsDto'];

@@ -14,6 +14,7 @@ import { Handovers1796310000000 } from './1796310000000-Handovers.js';
 import { RoundSketch1796320000000 } from './1796320000000-RoundSketch.js';
 import { SupportRecords1796330000000 } from './1796330000000-SupportRecords.js';
 import { HandoverOverdue1796340000000 } from './1796340000000-HandoverOverdue.js';
+import { NoticePreferences1796350000000 } from './1796350000000-NoticePreferences.js';
 import { TriggerAcceptances1796360000000 } from './1796360000000-TriggerAcceptances.js';
 import { RoundReadIndexes1796390000000 } from './1796390000000-RoundReadIndexes.js';
 import { RoundMappedIndex1796390000001 } from './1796390000001-RoundMappedIndex.js';
@@ -38,6 +39,7 @@ export const migrations = [
   RoundSketch1796320000000,
   SupportRecords1796330000000,
   HandoverOverdue1796340000000,
+  NoticePreferences1796350000000,
   TriggerAcceptances1796360000000,
   RoundReadIndexes1796390000000,
   RoundMappedIndex1796390000001,

@@ -6,6 +6,7 @@ import { AuditModule } from '../audit/audit.module.js';
 import { HazardsModule } from '../hazards/hazards.module.js';
 import { Heading } from '../headings/heading.entity.js';
 import { HeadingsModule } from '../headings/headings.module.js';
+import { NoticeSettingsModule } from '../notice-settings/notice-settings.module.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { ProjectsModule } from '../projects/projects.module.js';
 import { SupportClassesModule } from '../support-classes/support-classes.module.js';
@@ -55,6 +56,7 @@ import { SketchRenders } from './sketch-render.service.js';
     SupportClassesModule,
     TriggerRulesModule,
     HazardsModule,
+    NoticeSettingsModule,
   ],
   controllers: [RoundsController, RoundReviewController, ReviewQueueController, SketchRenderController],
   providers: [

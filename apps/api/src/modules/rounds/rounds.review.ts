@@ -1,7 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { formatChainageFor, roundChanges, type FrozenRoundView, type TriggerFiring } from '@roundbook/domain';
+import {
+  formatChainageFor,
+  noticeSettingOf,
+  roundChanges,
+  type FrozenRoundView,
+  type TriggerFiring,
+} from '@roundbook/domain';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { isDuplicateKey } from '../../common/errors/database-errors.js';
@@ -13,6 +19,7 @@ import { NoticesService } from '../../infrastructure/mail/notices.service.js';
 import { reviewEmail, type ReviewEmail } from '../../infrastructure/mail/templates/review.email.js';
 import { AuditService } from '../audit/audit.service.js';
 import { Heading } from '../headings/heading.entity.js';
+import { NoticeSettingsService, type NoticeRecipient } from '../notice-settings/notice-settings.service.js';
 import { ProjectMember } from '../projects/project-member.entity.js';
 import { Project } from '../projects/project.entity.js';
 import { SupportClass } from '../support-classes/support-class.entity.js';
@@ -74,6 +81,7 @@ export class RoundsReview implements OnModuleInit {
     @Inject(JobsService) private readonly jobs: JobsService,
     @Inject(JobHandlers) private readonly handlers: JobHandlers,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Inject(NoticeSettingsService) private readonly noticeSettings: NoticeSettingsService,
   ) {}
 
   onModuleInit(): void {
@@ -555,10 +563,10 @@ export class RoundsReview implements OnModuleInit {
     const engineers = await manager
       .createQueryBuilder(ProjectMember, 'm')
       .innerJoin(User, 'u', 'u.id = m.user_id')
-      .select(['u.email AS email'])
+      .select(['u.id AS userId', 'u.email AS email'])
       .where('m.project_id = :projectId', { projectId: round.projectId })
       .andWhere("m.role = 'engineer'")
-      .getRawMany<{ email: string }>();
+      .getRawMany<NoticeRecipient>();
     // Each fired rule's timeframe is checked when it runs out (a job per rule and revision).
     const submittedAt = round.submittedAt ?? new Date();
     for (const f of round.triggerFirings ?? []) {
@@ -575,19 +583,11 @@ export class RoundsReview implements OnModuleInit {
       ? await manager.findOneBy(SupportClass, { id: round.recommendedClassId })
       : null;
     const firings = round.triggerFirings ?? [];
-    await this.send(
-      manager,
-      round,
-      ctx,
-      'submitted',
-      caller.name,
-      [...new Set(engineers.map((e) => e.email))],
-      [
-        `Recommended class: ${cls?.code ?? 'none'}; next round length: ${round.nextRoundLength ?? '—'} m.`,
-        `Trigger level: ${round.triggerLevel ?? 'not assessed'}${firings.length ? ` (${firings.map((f: TriggerFiring) => f.summary).join('; ')})` : ''}.`,
-        `Revision ${round.revision}.`,
-      ],
-    );
+    await this.send(manager, round, ctx, 'submitted', caller.name, engineers, [
+      `Recommended class: ${cls?.code ?? 'none'}; next round length: ${round.nextRoundLength ?? '—'} m.`,
+      `Trigger level: ${round.triggerLevel ?? 'not assessed'}${firings.length ? ` (${firings.map((f: TriggerFiring) => f.summary).join('; ')})` : ''}.`,
+      `Revision ${round.revision}.`,
+    ]);
   }
 
   /**
@@ -607,24 +607,16 @@ export class RoundsReview implements OnModuleInit {
       const people = await manager
         .createQueryBuilder(ProjectMember, 'm')
         .innerJoin(User, 'u', 'u.id = m.user_id')
-        .select(['u.email AS email'])
+        .select(['u.id AS userId', 'u.email AS email'])
         .where('m.project_id = :projectId', { projectId: round.projectId })
         .andWhere('m.role IN (:...roles)', { roles: [...new Set(['engineer', firing.ownerRole])] })
-        .getRawMany<{ email: string }>();
+        .getRawMany<NoticeRecipient>();
       if (people.length === 0) return;
-      await this.send(
-        manager,
-        round,
-        await this.context(manager, round),
-        'rule-overdue',
-        '',
-        [...new Set(people.map((p) => p.email))],
-        [
-          `Rule: ${firing.summary} (${firing.level}).`,
-          `What to do: ${firing.action}`,
-          `Owner: ${firing.ownerRole}; time allowed: ${firing.timeAllowedHours} h from the submit.`,
-        ],
-      );
+      await this.send(manager, round, await this.context(manager, round), 'rule-overdue', '', people, [
+        `Rule: ${firing.summary} (${firing.level}).`,
+        `What to do: ${firing.action}`,
+        `Owner: ${firing.ownerRole}; time allowed: ${firing.timeAllowedHours} h from the submit.`,
+      ]);
     });
   }
 
@@ -825,7 +817,10 @@ export class RoundsReview implements OnModuleInit {
     caller: AuthUser,
     lines: string[],
   ): Promise<void> {
-    const geologist = await manager.findOne(User, { where: { id: round.mappedBy }, select: { email: true } });
+    const geologist = await manager.findOne(User, {
+      where: { id: round.mappedBy },
+      select: { id: true, email: true },
+    });
     if (!geologist) return;
     await this.send(
       manager,
@@ -833,7 +828,7 @@ export class RoundsReview implements OnModuleInit {
       await this.context(manager, round),
       kind,
       caller.name,
-      [geologist.email],
+      [{ userId: geologist.id, email: geologist.email }],
       lines,
     );
   }
@@ -844,9 +839,19 @@ export class RoundsReview implements OnModuleInit {
     ctx: { project: Project; title: string },
     kind: ReviewEmail['kind'],
     actorName: string,
-    to: string[],
+    people: NoticeRecipient[],
     lines: string[],
   ): Promise<void> {
+    const red = round.triggerLevel === 'red' && (kind === 'submitted' || kind === 'rule-overdue');
+    // Each person's notice settings for the project; a red notice goes to everyone it concerns.
+    const to = await this.noticeSettings.recipients(
+      manager,
+      round.projectId,
+      noticeSettingOf(kind),
+      people,
+      red,
+    );
+    if (to.length === 0) return;
     const message = reviewEmail({
       kind,
       projectName: ctx.project.name,
@@ -854,7 +859,7 @@ export class RoundsReview implements OnModuleInit {
       actorName,
       link: `${this.config.appUrl}/projects/${round.projectId}/rounds/${round.id}`,
       lines,
-      red: round.triggerLevel === 'red' && (kind === 'submitted' || kind === 'rule-overdue'),
+      red,
     });
     await this.notices.queue(manager, { kind: `round-${kind}`, projectId: round.projectId, to, ...message });
   }

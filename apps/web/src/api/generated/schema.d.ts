@@ -408,6 +408,24 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/notice-settings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Which review notices the caller receives in this project (any member; their own choice only) */
+        get: operations["NoticeSettingsController_get"];
+        /** Sets which review notices the caller receives in this project; red notices cannot be switched off */
+        put: operations["NoticeSettingsController_update"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/projects/{projectId}/headings/{headingId}/rounds": {
         parameters: {
             query?: never;
@@ -1587,6 +1605,31 @@ export interface components {
             newAccount: boolean;
             /** @description A session for the new account (absent when the caller was already signed in) */
             session?: components["schemas"]["TokenResponseDto"];
+        };
+        NoticeSettingsDto: {
+            projectId: string;
+            /** @description A round waits for review (sent to the project's engineers) */
+            submitted: boolean;
+            /** @description A fired rule ran past its time unacknowledged (engineers and the owning role) */
+            ruleOverdue: boolean;
+            /** @description The caller's round was returned with comments (the geologist who mapped it) */
+            returned: boolean;
+            /** @description The caller's round was confirmed with another class than recommended (the geologist who mapped it) */
+            confirmedOtherClass: boolean;
+            /** @description Notices about a red trigger level: always true, they cannot be switched off */
+            red: boolean;
+            /** @description Why red notices cannot be switched off */
+            redLockedReason: string;
+            /** @description When the caller last changed them; null while they are the defaults (all on) */
+            updatedAt: string | null;
+        };
+        UpdateNoticeSettingsDto: {
+            submitted: boolean;
+            ruleOverdue: boolean;
+            returned: boolean;
+            confirmedOtherClass: boolean;
+            /** @description Must be true; false is refused (400) with the reason */
+            red: boolean;
         };
         /** @enum {string} */
         RoundSort: "faceChainage" | "-faceChainage" | "shiftDate" | "-shiftDate" | "q" | "-q" | "rmr" | "-rmr" | "roundNumber" | "-roundNumber";
@@ -3912,6 +3955,89 @@ export interface operations {
                 content: {
                     "application/json": components["schemas"]["ErrorResponseDto"];
                 };
+            };
+        };
+    };
+    NoticeSettingsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NoticeSettingsDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+        };
+    };
+    NoticeSettingsController_update: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateNoticeSettingsDto"];
+            };
+        };
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["NoticeSettingsDto"];
+                };
+            };
+            /** @description Red notices cannot be switched off */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ErrorResponseDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
             };
         };
     };

@@ -65,6 +65,8 @@ export const resourceKeys = {
   supportClasses: (projectId: string) => [...resourceKeys.project(projectId), 'support-classes'] as const,
   triggerRules: (projectId: string) => [...resourceKeys.project(projectId), 'trigger-rules'] as const,
   team: (projectId: string) => [...resourceKeys.project(projectId), 'team'] as const,
+  /** The signed-in person's notice choice in a project (GET /projects/{id}/notice-settings). */
+  noticeSettings: (projectId: string) => [...resourceKeys.project(projectId), 'notice-settings'] as const,
   invitation: (token: string) => ['invitations', token] as const,
   /** Handovers addressed to the signed-in person, across projects (GET /handovers/received). */
   receivedHandovers: () => ['handovers', 'received'] as const,

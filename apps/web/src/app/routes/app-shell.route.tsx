@@ -28,6 +28,7 @@ import { SyncBarView, summarise, useNow, useOnline } from '@/app/sync-bar';
 import { useCurrentUser } from '@/features/auth/api/get-current-user';
 import { AccountDialog } from '@/features/auth/components/account-dialog';
 import { localAccessQueryOptions } from '@/features/mail/api/get-local-access';
+import { NoticeSettingsPanel } from '@/features/notices/components/notice-settings-panel';
 import { roundDraftsFor } from '@/features/rounds/hooks/use-round-autosave';
 import { sendWaitingRounds } from '@/features/rounds/utils/background-sender';
 import { useConfig } from '@/features/system/api/get-config';
@@ -228,7 +229,11 @@ export function AppShellRoute() {
             setAccountOpen(false);
             void signOut();
           }}
-        />
+        >
+          {current !== null && (
+            <NoticeSettingsPanel projectId={current.projectId} projectName={current.projectName} />
+          )}
+        </AccountDialog>
       )}
 
       <nav className={styles.nav} aria-label="Main">

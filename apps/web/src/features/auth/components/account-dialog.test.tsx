@@ -14,6 +14,17 @@ const shellRoutes = {
   'GET /api/local/jobs': { counts: { pending: 0, running: 0, done: 0, dead: 0 }, jobs: [] },
   'GET /api/local/mail': mailbox,
   'GET /api/projects': [harrowdale],
+  // The account dialog shows the current project's notice settings (issue 11 item 4).
+  'GET /api/projects/p-1/notice-settings': {
+    projectId: 'p-1',
+    submitted: true,
+    ruleOverdue: true,
+    returned: true,
+    confirmedOtherClass: true,
+    red: true,
+    redLockedReason: 'Red notices cannot be switched off.',
+    updatedAt: null,
+  },
 };
 
 async function openAccount() {

@@ -19,6 +19,7 @@ import { useMutation } from '@tanstack/react-query';
 import { Form, Formik } from 'formik';
 import type { FormikHelpers } from 'formik';
 import { useState } from 'react';
+import type { ReactNode } from 'react';
 import type { LoginResponse } from '@/api/contract';
 import { changePassword, signOutEverywhere } from '@/api/resources/auth';
 import type { ChangePasswordValues } from '@/features/auth/schemas/change-password.schema';
@@ -34,6 +35,8 @@ export interface AccountDialogProps {
   onPasswordChanged: (result: LoginResponse) => void;
   /** Every session ended, this one too: go to sign-in. */
   onSignedOutEverywhere: () => void;
+  /** More sections of the account, composed by the app (the notice settings of the current project). */
+  children?: ReactNode;
 }
 
 const useStyles = makeStyles({
@@ -76,6 +79,7 @@ export function AccountDialog({
   onClose,
   onPasswordChanged,
   onSignedOutEverywhere,
+  children,
 }: AccountDialogProps) {
   const styles = useStyles();
   const [passwordProblem, setPasswordProblem] = useState<string | null>(null);
@@ -128,6 +132,8 @@ export function AccountDialog({
               </Text>
               <Text block>{email}</Text>
             </div>
+
+            {children}
 
             <section className={styles.section} aria-labelledby="account-password">
               <h3 id="account-password" className={styles.heading}>
