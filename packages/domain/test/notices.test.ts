@@ -1,4 +1,4 @@
-import { NOTICE_SETTINGS, noticeSettingOf, noticeSettingWords, redNoticeWords } from './notices.js';
+import { NOTICE_SETTINGS, noticeSettingOf, noticeSettingWords, redNoticeWords } from '../src/notices.js';
 
 describe('review notice settings (issue 11 item 4)', () => {
   it('maps each review e-mail kind to its own setting, one for one', () => {
