@@ -53,6 +53,8 @@ export interface FeatureCandidate {
   kind: string;
   dipDirection: number;
   dip: number;
+  /** The geologist's notes on it (a named feature is named there) */
+  notes?: string;
 }
 
 export interface CandidateOptions {

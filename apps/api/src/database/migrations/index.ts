@@ -16,6 +16,7 @@ import { SupportRecords1796330000000 } from './1796330000000-SupportRecords.js';
 import { HandoverOverdue1796340000000 } from './1796340000000-HandoverOverdue.js';
 import { RoundReadIndexes1796390000000 } from './1796390000000-RoundReadIndexes.js';
 import { RoundMappedIndex1796390000001 } from './1796390000001-RoundMappedIndex.js';
+import { JointSameFeature1796400000000 } from './1796400000000-JointSameFeature.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -37,4 +38,5 @@ export const migrations = [
   HandoverOverdue1796340000000,
   RoundReadIndexes1796390000000,
   RoundMappedIndex1796390000001,
+  JointSameFeature1796400000000,
 ];
