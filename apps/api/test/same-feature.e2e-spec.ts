@@ -36,7 +36,16 @@ describe('Same feature across rounds (e2e, real MariaDB)', () => {
         .expect(201)
     ).body as Body;
   const save = (r: Body, joints: Body[]) =>
-    request(http).put(`${p.base}/rounds/${r.id}`).set(p.as('geologist')).send(saveBody(r, { joints }));
+    request(http)
+      .put(`${p.base}/rounds/${r.id}`)
+      .set(p.as('geologist'))
+      .send(
+        saveBody(r, {
+          joints,
+          recommendedClassId: p.classes.find((c) => c.code === 'C1')!.id,
+          nextRoundLength: 3,
+        }),
+      );
   const submit = async (r: Body): Promise<Body> =>
     (
       await request(http)
