@@ -102,6 +102,7 @@ const useStyles = makeStyles({
     justifyContent: 'flex-end',
     borderLeft: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
   },
+  toggle: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   remove: {
     minHeight: `${TOUCH_TARGET_PX}px`,
     minWidth: `${TOUCH_TARGET_PX}px`,
@@ -393,7 +394,7 @@ export function JointsSection({
                 </span>
                 <span role="cell">
                   <ToggleButton
-                    className={styles.button}
+                    className={styles.toggle}
                     size="large"
                     appearance="subtle"
                     checked={isOpen}
