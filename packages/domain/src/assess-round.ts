@@ -82,6 +82,8 @@ export interface AssessedJoint {
   apertureMm?: number | null;
   infill?: string | null;
   thicknessM?: number | null;
+  /** "Same feature as": the first observation of this feature on an earlier round (features.ts). */
+  sameAsJointId?: string | null;
 }
 
 export interface RoundRecordInput {
@@ -100,7 +102,15 @@ export interface AssessmentContext {
   heading: HeadingGeometry & { plannedRoundLength: number };
   supportClasses: SupportClassInput[];
   /** Readable joints of earlier rounds of the heading within the set window. */
-  nearbyJoints: Array<{ id: string; roundId: string; dipDirection: number; dip: number }>;
+  nearbyJoints: Array<{
+    id: string;
+    roundId: string;
+    dipDirection: number;
+    dip: number;
+    /** Linked observations of one feature count once (features.ts); absent: unlinked. */
+    sameAsJointId?: string | null;
+    roundNumber?: number;
+  }>;
   /** The previous round of this heading and stage: its class (recommended, or confirmed once reviewed). */
   previousRound: { classId: string | null } | null;
   rules: TriggerRuleInput[];
@@ -121,6 +131,8 @@ export interface FeatureAssessment {
   kind: JointKind;
   plane: Plane;
   orientation: RmrOrientationResult | null;
+  /** The first observation of the same feature on an earlier round, when linked. */
+  sameAsJointId: string | null;
 }
 
 export interface RoundAssessment {
@@ -198,12 +210,15 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       plane: { dipDirection: j.dipDirection, dip: j.dip },
       spacingM: j.spacingM,
       override: j.setOverride && j.setLabel ? j.setLabel : null,
+      sameAsJointId: j.sameAsJointId ?? null,
     })),
     parameters.windowM > 0
       ? context.nearbyJoints.map((n) => ({
           id: n.id,
           roundId: n.roundId,
           plane: { dipDirection: n.dipDirection, dip: n.dip },
+          sameAsJointId: n.sameAsJointId ?? null,
+          ...(n.roundNumber !== undefined ? { roundNumber: n.roundNumber } : {}),
         }))
       : [],
     drive,
@@ -219,7 +234,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       } catch {
         orientation = null;
       }
-      return { jointId: j.id, kind: j.kind, plane, orientation };
+      return { jointId: j.id, kind: j.kind, plane, orientation, sameAsJointId: j.sameAsJointId ?? null };
     });
   const previousClass =
     context.previousRound?.classId != null
@@ -240,6 +255,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       dipDirection: j.dipDirection,
       dip: j.dip,
       faceOffset: j.faceOffset ?? null,
+      sameAsJointId: j.sameAsJointId ?? null,
     })),
     sets: sets.sets.map((s) => ({ label: s.label, plane: s.mean, count: s.count })),
     ...(context.openHazards !== undefined ? { openHazards: context.openHazards } : {}),

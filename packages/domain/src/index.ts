@@ -4,6 +4,7 @@ export * from './vocabulary.js';
 export * from './format.js';
 export * from './ratings.js';
 export * from './sets.js';
+export * from './features.js';
 export * from './support.js';
 export * from './water.js';
 export * from './triggers.js';

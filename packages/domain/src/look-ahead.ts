@@ -7,7 +7,7 @@ import type { FeatureReach } from './triggers.js';
 export interface LookAheadSource {
   roundNumber: number;
   faceChainage: number;
-  reaches: Pick<FeatureReach, 'label' | 'chainage' | 'traceKnown'>[];
+  reaches: Array<Pick<FeatureReach, 'label' | 'chainage' | 'traceKnown'> & { featureKey?: string | null }>;
 }
 
 export interface LookAheadOptions {
@@ -46,14 +46,22 @@ const AT_FACE_M = 0.001;
  * From the frozen assessments of a heading's latest handed-in rounds, newest first: each feature whose crown
  * or invert crossing lies ahead of today's face, nearest first. Distances follow the heading's chainage
  * sense (driven against the chainage, the chainages ahead decrease). The round it is met in is
- * ⌈distance / round length⌉ (a crossing exactly at a round's end belongs to that round).
+ * ⌈distance / round length⌉ (a crossing exactly at a round's end belongs to that round). A feature linked
+ * across rounds ("same feature as", featureKey) is listed once, from its latest observation (the first of
+ * the newest-first sources that has it): the newest face's orientation and trace are the nearest to the
+ * coming rounds (features.ts onePerFeature says why the latest, not a mean).
  */
 export function headingLookAhead(sources: LookAheadSource[], o: LookAheadOptions): LookAheadItem[] {
   const along = (ch: number | null): number | null =>
     ch === null ? null : Number((o.chainageSense * (ch - o.faceChainage)).toFixed(3));
   const out: LookAheadItem[] = [];
+  const seen = new Set<string>();
   for (const s of sources) {
     for (const r of s.reaches) {
+      if (r.featureKey) {
+        if (seen.has(r.featureKey)) continue;
+        seen.add(r.featureKey);
+      }
       const crownAhead = along(r.chainage.crown);
       const invertAhead = along(r.chainage.invert);
       const ahead = [

@@ -7,6 +7,7 @@ import {
   rmrOrientationInTunnel,
 } from '@roundbook/geomath';
 import type { Drive, Plane, RmrOrientationResult } from '@roundbook/geomath';
+import { featureKeyOf, onePerFeature } from './features.js';
 
 /** How the sets of a round are found; stored with the round so that a re-read finds the same sets. */
 export interface SetParameters {
@@ -25,12 +26,18 @@ export interface SetJoint {
   spacingM: number | null;
   /** The geologist's own set label, kept over the computed one. */
   override: string | null;
+  /** The first observation of the same feature on an earlier round (features.ts). */
+  sameAsJointId?: string | null;
 }
 /** A readable joint of an earlier round near the face. */
 export interface NearbyPlane {
   id: string;
   roundId: string;
   plane: Plane;
+  /** The first observation of the same feature on an earlier round (features.ts). */
+  sameAsJointId?: string | null;
+  /** Its round's number: of several observations of one feature the latest is kept. */
+  roundNumber?: number;
 }
 
 export interface RoundSet {
@@ -64,6 +71,8 @@ export interface RoundSets {
   overridden: string[];
   /** How many readable joints (this round + nearby) went into the analysis. */
   used: number;
+  /** Earlier observations of features linked to one already counted ("same feature as"), left out. */
+  linkedLeftOut: number;
 }
 
 const shown = (p: Plane): Plane => ({
@@ -93,16 +102,24 @@ function meanOf(planes: Plane[]): { mean: Plane; k: number | null; alpha95: numb
  * Sets from this round's readable joints plus the earlier rounds' joints near it, with geomath's
  * `findSets` on the poles; the round's sets are those with at least one joint on this face. Labels S1, S2, … follow the set sizes (largest first). A geologist's override
  * moves a joint into the named set (or makes a set of that name); the set's mean then includes it.
+ * A feature linked across rounds ("same feature as") counts once (see onePerFeature).
  */
 export function findRoundSets(
   joints: SetJoint[],
-  nearby: NearbyPlane[],
+  nearbyAll: NearbyPlane[],
   drive: Drive | null,
   parameters: SetParameters = DEFAULT_SET_PARAMETERS,
 ): RoundSets {
   const membership: Record<string, string> = Object.fromEntries(joints.map((j) => [j.id, '']));
   const overridden = joints.filter((j) => j.override !== null).map((j) => j.id);
   const free = joints.filter((j) => j.override === null);
+  // A feature linked across rounds is counted once: this round's observation stands for it in its own
+  // sets, and of the earlier observations of any other linked feature the latest is kept (features.ts).
+  const hereKeys = new Set(joints.map(featureKeyOf));
+  const nearby = onePerFeature(
+    nearbyAll.filter((n) => !hereKeys.has(featureKeyOf(n))),
+    (a, b) => (a.roundNumber ?? 0) - (b.roundNumber ?? 0),
+  );
   const planes = [...free.map((h) => h.plane), ...nearby.map((n) => n.plane)];
   const found: Array<{
     label: string;
@@ -176,7 +193,14 @@ export function findRoundSets(
         byOverride: overrideOnly.has(s.label),
       };
     });
-  return { parameters, sets, membership, overridden, used: planes.length + overridden.length };
+  return {
+    parameters,
+    sets,
+    membership,
+    overridden,
+    used: planes.length + overridden.length,
+    linkedLeftOut: nearbyAll.length - nearby.length,
+  };
 }
 
 /** The least favourable orientation assessment among the sets (the one to suggest for RMR89). */

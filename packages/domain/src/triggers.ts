@@ -143,6 +143,8 @@ export interface FactJoint {
   dip: number | null;
   /** Where the feature's trace crosses the face, metres right of and above the axis (face centre if absent). */
   faceOffset?: { right: number; up: number } | null;
+  /** "Same feature as": the first observation of this feature on an earlier round (features.ts). */
+  sameAsJointId?: string | null;
 }
 
 export interface RoundFacts {
@@ -260,6 +262,11 @@ export function adverseFindings(round: RoundFacts, heading: HeadingGeometry): st
 /** Where a mapped fault or shear zone meets the stage's part of the profile ahead of (or behind) the face. */
 export interface FeatureReach {
   jointId: string | null;
+  /**
+   * The feature across rounds: the id of its first observation (features.ts featureKeyOf); the
+   * heading's look-ahead lists a linked feature once. Absent in assessments frozen before links existed.
+   */
+  featureKey?: string | null;
   label: string;
   /** Distances along the drive from the face, m (negative: behind the face); null where it runs along. */
   distance: {
@@ -315,6 +322,7 @@ export function featureReaches(round: RoundFacts, heading: HeadingGeometry): Fea
     const at = (v: number | null): number | null => (v === null ? null : round.faceChainage + sense * v);
     out.push({
       jointId: j.id ?? null,
+      featureKey: j.sameAsJointId ?? j.id ?? null,
       label: `${j.kind === 'fault' ? 'fault' : 'shear zone'} ${n}`,
       distance: d,
       chainage: {

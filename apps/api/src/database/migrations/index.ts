@@ -18,6 +18,7 @@ import { NoticePreferences1796350000000 } from './1796350000000-NoticePreference
 import { TriggerAcceptances1796360000000 } from './1796360000000-TriggerAcceptances.js';
 import { RoundReadIndexes1796390000000 } from './1796390000000-RoundReadIndexes.js';
 import { RoundMappedIndex1796390000001 } from './1796390000001-RoundMappedIndex.js';
+import { JointSameFeature1796400000000 } from './1796400000000-JointSameFeature.js';
 import { RoundStatusIndexes1796420000000 } from './1796420000000-RoundStatusIndexes.js';
 import { SignInTallies1796430000000 } from './1796430000000-SignInTallies.js';
 
@@ -43,6 +44,7 @@ export const migrations = [
   TriggerAcceptances1796360000000,
   RoundReadIndexes1796390000000,
   RoundMappedIndex1796390000001,
+  JointSameFeature1796400000000,
   RoundStatusIndexes1796420000000,
   SignInTallies1796430000000,
 ];

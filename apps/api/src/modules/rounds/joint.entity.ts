@@ -136,4 +136,14 @@ export class Joint {
   /** Where the trace crosses the face, metres right of and above the axis (null: not recorded). */
   @Column({ name: 'face_offset', type: 'json', nullable: true })
   faceOffset: { right: number; up: number } | null;
+
+  /**
+   * "Same feature as": the first observation of this persistent feature (a fault, a shear zone, a named
+   * joint) on an earlier round of the heading; the API stores the first even when a later one was picked,
+   * so the id names the feature across rounds (packages/domain features.ts). No foreign key: the key stays
+   * the feature's name even if that first joint is later removed from its draft.
+   */
+  @Index('IDX_joints_same_as')
+  @Column({ name: 'same_as_joint_id', type: 'uuid', nullable: true })
+  sameAsJointId: string | null;
 }

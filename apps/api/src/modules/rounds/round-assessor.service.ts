@@ -19,12 +19,29 @@ export async function nearbyPlanes(
   manager: EntityManager,
   round: Pick<Round, 'id' | 'headingId' | 'faceChainage'>,
   windowM: number,
-): Promise<Array<{ id: string; roundId: string; dipDirection: number; dip: number }>> {
+): Promise<
+  Array<{
+    id: string;
+    roundId: string;
+    roundNumber: number;
+    dipDirection: number;
+    dip: number;
+    sameAsJointId: string | null;
+  }>
+> {
   if (windowM <= 0) return [];
   const rows = await manager
     .getRepository(Joint)
     .createQueryBuilder('j')
-    .select(['j.id AS id', 'j.round_id AS roundId', 'j.dip_direction AS dipDirection', 'j.dip AS dip'])
+    .innerJoin(Round, 'r', 'r.id = j.round_id')
+    .select([
+      'j.id AS id',
+      'j.round_id AS roundId',
+      'r.round_number AS roundNumber',
+      'j.dip_direction AS dipDirection',
+      'j.dip AS dip',
+      'j.same_as_joint_id AS sameAsJointId',
+    ])
     .where('j.heading_id = :headingId', { headingId: round.headingId })
     .andWhere(
       new Brackets((b) =>
@@ -40,10 +57,19 @@ export async function nearbyPlanes(
     .orderBy('j.face_chainage', 'DESC')
     .addOrderBy('j.seq', 'ASC')
     .limit(5000)
-    .getRawMany<{ id: string; roundId: string; dipDirection: string; dip: string }>();
+    .getRawMany<{
+      id: string;
+      roundId: string;
+      roundNumber: string | number;
+      dipDirection: string;
+      dip: string;
+      sameAsJointId: string | null;
+    }>();
   return rows.map((r) => ({
     id: String(r.id),
     roundId: String(r.roundId),
+    roundNumber: Number(r.roundNumber),
+    sameAsJointId: r.sameAsJointId === null ? null : String(r.sameAsJointId),
     dipDirection: Number(r.dipDirection),
     dip: Number(r.dip),
   }));
@@ -112,6 +138,7 @@ export class RoundAssessor {
             apertureMm: j.apertureMm,
             infill: j.infill,
             thicknessM: j.thicknessM,
+            sameAsJointId: j.sameAsJointId ?? null,
           })),
         qInput: round.qInput,
         rmrInput: round.rmrInput,

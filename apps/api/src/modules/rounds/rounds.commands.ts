@@ -77,6 +77,7 @@ const JOINT_FIELDS = [
   'thicknessM',
   'notes',
   'faceOffset',
+  'sameAsJointId',
 ] as const;
 const CREATE_SCOPE = 'round:create';
 
@@ -396,6 +397,7 @@ export class RoundsCommands {
           joints: 'Make new ids for joints copied from another round.',
         });
     }
+    const sameAs = await this.sameFeatureRoots(manager, round, input);
     const kept: Joint[] = input.map((j, i) => {
       const reading = readOrientation(j.orientationText, j.notation ?? defaultNotation);
       const joint =
@@ -414,6 +416,7 @@ export class RoundsCommands {
       values.infill = j.infill;
       values.notes = j.notes;
       values.orientationText = j.orientationText;
+      values.sameAsJointId = j.sameAsJointId ? (sameAs.get(j.sameAsJointId) ?? null) : null;
       return Object.assign(joint, values);
     });
     const keptIds = new Set(kept.map((j) => j.id));
@@ -517,6 +520,45 @@ export class RoundsCommands {
       }),
     );
     return id;
+  }
+
+  /**
+   * "Same feature as" picks of a save, each resolved to the feature's first observation: the pick must be a
+   * joint of another round of the same heading, and the feature must not be one of this round's own joints
+   * (that would link the round to itself). Anything else is a 400 naming the joint.
+   */
+  private async sameFeatureRoots(
+    manager: EntityManager,
+    round: Round,
+    input: NonNullable<SaveRoundDto['joints']>,
+  ): Promise<Map<string, string>> {
+    const picked = [...new Set(input.map((j) => j.sameAsJointId).filter((id): id is string => !!id))];
+    const roots = new Map<string, string>();
+    if (picked.length === 0) return roots;
+    const targets = await manager.find(Joint, {
+      where: { id: In(picked) },
+      select: { id: true, roundId: true, headingId: true, sameAsJointId: true },
+    });
+    const byId = new Map(targets.map((t) => [t.id, t]));
+    const own = new Set(input.map((j) => j.id).filter((id): id is string => !!id));
+    input.forEach((j, i) => {
+      if (!j.sameAsJointId) return;
+      const t = byId.get(j.sameAsJointId);
+      const problem =
+        t === undefined || t.headingId !== round.headingId
+          ? 'is linked to a feature that is not mapped on this heading'
+          : t.roundId === round.id
+            ? 'is linked to a joint of this same round (pick one mapped on an earlier round)'
+            : own.has(t.sameAsJointId ?? t.id)
+              ? 'is linked to a feature first mapped on this round'
+              : null;
+      if (problem !== null)
+        throw new DomainException(ErrorCode.ValidationFailed, `Joint ${i + 1} ${problem}.`, {
+          joints: `Joint ${i + 1} ${problem}.`,
+        });
+      roots.set(j.sameAsJointId, t!.sameAsJointId ?? t!.id);
+    });
+    return roots;
   }
 
   /**

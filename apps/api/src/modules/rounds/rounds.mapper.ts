@@ -34,6 +34,7 @@ export function toJointDto(j: Joint): JointDto {
     thicknessM: j.thicknessM,
     notes: j.notes,
     faceOffset: j.faceOffset ?? null,
+    sameAsJointId: j.sameAsJointId ?? null,
   };
 }
 

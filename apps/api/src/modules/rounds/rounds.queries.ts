@@ -219,6 +219,8 @@ export class RoundsQueries {
         'j.dip_direction AS dipDirection',
         'j.dip AS dip',
         'j.set_label AS setLabel',
+        'j.same_as_joint_id AS sameAsJointId',
+        'j.notes AS notes',
       ])
       .where('j.heading_id = :headingId', { headingId })
       .andWhere('j.face_chainage BETWEEN :from AND :to', {
@@ -240,6 +242,8 @@ export class RoundsQueries {
       dipDirection: Number(r.dipDirection),
       dip: Number(r.dip),
       setLabel: r.setLabel === null ? null : String(r.setLabel),
+      sameAsJointId: r.sameAsJointId === null ? null : String(r.sameAsJointId),
+      notes: String(r.notes ?? ''),
     }));
   }
 }

@@ -1850,6 +1850,12 @@ export interface components {
             thicknessM: number | null;
             /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
             faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
+            /**
+             * Format: uuid
+             * @description "Same feature as": the id of an observation of the same persistent feature on an earlier round of the
+             *     heading; stored as that feature's first observation (a pick of a later one is resolved to it).
+             */
+            sameAsJointId?: string | null;
             /** @description Canonical dip direction, null while the typed text cannot be read */
             dipDirection: number | null;
             dip: number | null;
@@ -1993,6 +1999,13 @@ export interface components {
         NearbyJointDto: {
             kind: components["schemas"]["JointKind"];
             setLabel: string | null;
+            /**
+             * Format: uuid
+             * @description The first observation of the same feature on an earlier round, when linked
+             */
+            sameAsJointId?: string | null;
+            /** @description The geologist's notes on the joint (a named feature is named there) */
+            notes?: string;
             id: string;
             roundId: string;
             roundNumber: number;
@@ -2021,6 +2034,12 @@ export interface components {
             thicknessM: number | null;
             /** @description Where the trace crosses the face (metres right of and above the axis), when known; the crown-reach rule measures from it */
             faceOffset?: components["schemas"]["FaceOffsetDto"] | null;
+            /**
+             * Format: uuid
+             * @description "Same feature as": the id of an observation of the same persistent feature on an earlier round of the
+             *     heading; stored as that feature's first observation (a pick of a later one is resolved to it).
+             */
+            sameAsJointId?: string | null;
             /** @description The orientation exactly as typed (kept even when it cannot be read) */
             orientationText: string;
             setOverride?: boolean;

@@ -235,6 +235,14 @@ export class JointInputDto {
   @Type(() => FaceOffsetDto)
   @ApiProperty({ type: FaceOffsetDto, nullable: true, required: false })
   faceOffset?: FaceOffsetDto | null;
+  /**
+   * "Same feature as": the id of an observation of the same persistent feature on an earlier round of the
+   * heading; stored as that feature's first observation (a pick of a later one is resolved to it).
+   */
+  @IsOptional()
+  @IsUUID('all', { message: 'Pick the earlier feature from the list (an id).' })
+  @ApiProperty({ type: String, format: 'uuid', nullable: true, required: false })
+  sameAsJointId?: string | null;
 }
 
 export class JointDto extends JointInputDto {
@@ -620,6 +628,12 @@ export class NearbyJointDto {
   dip: number;
   @ApiProperty({ type: String, nullable: true })
   setLabel: string | null;
+  /** The first observation of the same feature on an earlier round, when linked */
+  @ApiProperty({ type: String, format: 'uuid', nullable: true, required: false })
+  sameAsJointId?: string | null;
+  /** The geologist's notes on the joint (a named feature is named there) */
+  @ApiProperty({ required: false })
+  notes?: string;
 }
 
 export class NearbyJointsQueryDto {

@@ -6,12 +6,23 @@ import {
   makeStyles,
   mergeClasses,
   MessageBar,
+  MessageBarActions,
   MessageBarBody,
   Select,
   Subtitle2,
+  ToggleButton,
   tokens,
 } from '@fluentui/react-components';
-import { AddRegular, ArrowResetRegular, ClipboardPasteRegular, DeleteRegular } from '@fluentui/react-icons';
+import {
+  AddRegular,
+  ArrowResetRegular,
+  ArrowUndoRegular,
+  ChevronDownRegular,
+  ChevronUpRegular,
+  ClipboardPasteRegular,
+  DeleteRegular,
+  DismissRegular,
+} from '@fluentui/react-icons';
 import { SET_WINDOWS, type RoundSets } from '@roundbook/domain';
 import { formatPlane } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
@@ -22,9 +33,11 @@ import type { JointWater, JrcMethod, PlaneNotation } from '@/features/rounds/api
 import { JointImportDialog } from '@/features/rounds/components/joint-import-dialog';
 import { OrientationField } from '@/features/rounds/components/orientation-field';
 import { useRoundEdit } from '@/features/rounds/components/round-fields';
+import { SameFeaturePicker, type FeatureSource } from '@/features/rounds/components/same-feature-picker';
 import type { JointRow, RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { emptyJoint, numberOf } from '@/features/rounds/schemas/round-form';
 import { jointKindLabels, jointKinds, jrcMethodLabels, waterLabels } from '@/features/rounds/utils/labels';
+import { readOrientation } from '@/features/rounds/utils/orientation';
 
 export interface JointsSectionProps {
   defaultNotation: PlaneNotation;
@@ -38,16 +51,19 @@ export interface JointsSectionProps {
   onSetCountChange: (count: number | null) => void;
   nearbyCount: number;
   nearbyLoading: boolean;
+  /** Where the round is, for "same feature as" (earlier rounds of the heading); absent: the link is only shown. */
+  featureSource?: FeatureSource;
 }
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
   toolbar: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'center' },
   button: { minHeight: `${TOUCH_TARGET_PX}px` },
+  // One line per joint (issue 19 item 4): the essentials in the row, the rest under More.
   grid: {
     display: 'grid',
     gridTemplateColumns:
-      '2.5rem minmax(8rem, 1fr) minmax(17rem, 3fr) 5rem 5.5rem 5.5rem 5.5rem 4.5rem 4.5rem minmax(7rem, 1fr) 3rem',
+      '2rem minmax(7.5rem, 9rem) minmax(19rem, 2.2fr) 6.5rem 5rem 4.25rem 4.25rem minmax(4rem, 1fr) 44px 60px',
     columnGap: tokens.spacingHorizontalS,
     alignItems: 'start',
   },
@@ -58,7 +74,7 @@ const useStyles = makeStyles({
     borderBottom: `${tokens.strokeWidthThick} solid ${tokens.colorNeutralStroke1}`,
   },
   joint: {
-    paddingBlock: tokens.spacingVerticalS,
+    paddingBlock: tokens.spacingVerticalXXS,
     borderBottom: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
     rowGap: tokens.spacingVerticalS,
   },
@@ -71,15 +87,42 @@ const useStyles = makeStyles({
   },
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%', minWidth: 0 },
   select: { minWidth: 0, '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
-  setCell: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalXXS },
   override: { fontSize: tokens.fontSizeBase200, color: tokens.colorPaletteDarkOrangeForeground1 },
+  summary: {
+    lineHeight: `${TOUCH_TARGET_PX}px`,
+    overflow: 'hidden',
+    textOverflow: 'ellipsis',
+    whiteSpace: 'nowrap',
+    color: tokens.colorNeutralForeground2,
+    fontSize: tokens.fontSizeBase200,
+  },
+  // The remove target stands apart: its own column, a divider and 16 px from the expand toggle.
+  removeCell: {
+    display: 'flex',
+    justifyContent: 'flex-end',
+    borderLeft: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke2}`,
+  },
+  toggle: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
+  remove: {
+    minHeight: `${TOUCH_TARGET_PX}px`,
+    minWidth: `${TOUCH_TARGET_PX}px`,
+    color: tokens.colorPaletteRedForeground1,
+  },
   details: {
     gridColumn: '2 / -1',
     display: 'grid',
-    gridTemplateColumns: '5.5rem 9rem minmax(8rem, 1fr) 6.5rem minmax(12rem, 2fr)',
-    columnGap: tokens.spacingHorizontalS,
+    gridTemplateColumns: 'repeat(auto-fill, minmax(9.5rem, 1fr))',
+    gap: tokens.spacingHorizontalS,
+    paddingBottom: tokens.spacingVerticalS,
   },
+  wide: { gridColumn: 'span 3' },
   note: { gridColumn: '2 / -1' },
+  undo: {
+    position: 'sticky',
+    bottom: tokens.spacingVerticalS,
+    zIndex: 2,
+    boxShadow: tokens.shadow16,
+  },
   sets: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalS },
   setTable: {
     borderCollapse: 'collapse',
@@ -94,6 +137,30 @@ const useStyles = makeStyles({
   muted: { color: tokens.colorNeutralForeground2 },
 });
 
+/** The fields under More that have a value, as short words for the row (what is recorded at a glance). */
+function summaryOf(j: JointRow, linked: string | null): string {
+  const parts = [
+    j.persistenceM.trim() && `${j.persistenceM.trim()} m long`,
+    j.apertureMm.trim() && `${j.apertureMm.trim()} mm open`,
+    j.water && waterLabels[j.water].toLowerCase(),
+    j.jrc.trim() && `JRC ${j.jrc.trim()}`,
+    j.infill.trim() && j.infill.trim(),
+    (j.kind === 'fault' || j.kind === 'shear-zone') &&
+      j.thicknessM.trim() &&
+      `${j.thicknessM.trim()} m thick`,
+    linked,
+    j.notes.trim() && j.notes.trim(),
+  ];
+  return parts.filter((p): p is string => typeof p === 'string' && p !== '').join(' · ');
+}
+
+/** "fault 240/20" — the removed joint named in the Undo bar. */
+function removedWords(j: JointRow): string {
+  const reading = readOrientation(j.orientationText, j.notation);
+  const kind = jointKindLabels[j.kind].toLowerCase();
+  return reading.kind === 'plane' ? `${kind} ${reading.dipDirectionDip}` : kind;
+}
+
 const fmt = (value: number | null, digits: number) =>
   value === null ? '—' : Number.isFinite(value) ? value.toFixed(digits) : '∞';
 
@@ -107,6 +174,7 @@ export function JointsSection({
   onSetCountChange,
   nearbyCount,
   nearbyLoading,
+  featureSource,
 }: JointsSectionProps) {
   const styles = useStyles();
   const { values, setFieldValue } = useFormikContext<RoundFormValues>();
@@ -115,6 +183,38 @@ export function JointsSection({
   const orientationInputs = useRef(new Map<string, HTMLInputElement>());
   const focusKey = useRef<string | null>(null);
   const joints = values.joints;
+  // Rows whose further fields are shown (by joint key; a new row opens closed).
+  const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
+  // The last joint removed, for Undo (kept until the next removal or until dismissed: no timer to race).
+  const [removed, setRemoved] = useState<{ joint: JointRow; index: number } | null>(null);
+
+  const toggle = (key: string) =>
+    setOpen((o) => {
+      const next = new Set(o);
+      if (next.has(key)) next.delete(key);
+      else next.add(key);
+      return next;
+    });
+
+  const removeJoint = (i: number) => {
+    setRemoved({ joint: joints[i], index: i });
+    void setFieldValue(
+      'joints',
+      joints.filter((_, n) => n !== i),
+    );
+  };
+
+  // The joint comes back where it was, with its id (the next save puts it back on the round).
+  const undoRemove = () => {
+    if (removed === null) return;
+    const at = Math.min(removed.index, joints.length);
+    void setFieldValue('joints', [...joints.slice(0, at), removed.joint, ...joints.slice(at)]);
+    focusKey.current = removed.joint.key;
+    setRemoved(null);
+  };
+
+  const linkedLabel = (j: JointRow): string | null =>
+    j.sameAsJointId ? 'same feature as an earlier one' : null;
 
   useEffect(() => {
     if (focusKey.current === null) return;
@@ -210,189 +310,265 @@ export function JointsSection({
             <span role="columnheader">Orientation</span>
             <span role="columnheader">Set</span>
             <span role="columnheader">Spacing m</span>
-            <span role="columnheader">Persist. m</span>
-            <span role="columnheader">Aperture mm</span>
             <span role="columnheader">Jr</span>
             <span role="columnheader">Ja</span>
-            <span role="columnheader">Water</span>
+            <span role="columnheader">Other fields</span>
+            <span role="columnheader" aria-label="Show more" />
             <span role="columnheader" aria-label="Remove" />
           </div>
-          {joints.map((j, i) => (
-            <div
-              role="row"
-              key={j.key}
-              className={mergeClasses(styles.grid, styles.joint, j.importNote !== '' && styles.jointProblem)}
-              onKeyDown={onRowKey(i)}
-              data-testid="joint-row"
-            >
-              <span role="cell" className={styles.number}>
-                {i + 1}
-              </span>
-              <span role="cell">
-                <Select
-                  className={styles.select}
-                  aria-label={`Kind of joint ${i + 1}`}
-                  value={j.kind}
-                  size="large"
-                  disabled={readOnly}
-                  onChange={(_e, data) => set(i, 'kind', data.value)}
-                >
-                  {jointKinds.map((k) => (
-                    <option key={k} value={k}>
-                      {jointKindLabels[k]}
-                    </option>
-                  ))}
-                </Select>
-              </span>
-              <span role="cell">
-                <OrientationField
-                  label={`Orientation of joint ${i + 1}`}
-                  text={j.orientationText}
-                  notation={j.notation}
-                  defaultNotation={defaultNotation}
-                  readOnly={readOnly}
-                  onTextChange={(t) => set(i, 'orientationText', t)}
-                  onNotationChange={(n) => set(i, 'notation', n)}
-                  inputRef={(el) => {
-                    if (el === null) orientationInputs.current.delete(j.key);
-                    else orientationInputs.current.set(j.key, el);
-                  }}
-                />
-              </span>
-              <span role="cell" className={styles.setCell}>
-                <Input
-                  className={styles.input}
-                  aria-label={`Set of joint ${i + 1}`}
-                  value={j.setOverride ? j.setLabel : (sets.membership[j.key] ?? '')}
-                  size="large"
-                  readOnly={readOnly}
-                  onChange={(_e, data) => {
-                    set(i, 'setLabel', data.value);
-                    set(i, 'setOverride', true);
-                  }}
-                />
-                {j.setOverride && (
-                  <Button
-                    size="small"
-                    appearance="subtle"
-                    icon={<ArrowResetRegular />}
-                    title="Go back to the computed set"
-                    disabled={readOnly}
-                    onClick={() => {
-                      set(i, 'setOverride', false);
-                      set(i, 'setLabel', '');
-                    }}
-                  >
-                    <span className={styles.override}>yours</span>
-                  </Button>
+          {joints.map((j, i) => {
+            const isOpen = open.has(j.key);
+            const detailsId = `joint-details-${j.key}`;
+            const fault = j.kind === 'fault' || j.kind === 'shear-zone';
+            const reading = readOrientation(j.orientationText, j.notation);
+            const summary = summaryOf(j, linkedLabel(j));
+            return (
+              <div
+                role="row"
+                key={j.key}
+                className={mergeClasses(
+                  styles.grid,
+                  styles.joint,
+                  j.importNote !== '' && styles.jointProblem,
                 )}
-              </span>
-              <span role="cell">{numberInput(i, 'spacingM', 'Spacing', 'm')}</span>
-              <span role="cell">{numberInput(i, 'persistenceM', 'Persistence', 'm')}</span>
-              <span role="cell">{numberInput(i, 'apertureMm', 'Aperture', 'mm')}</span>
-              <span role="cell">{numberInput(i, 'jr', 'Jr')}</span>
-              <span role="cell">{numberInput(i, 'ja', 'Ja')}</span>
-              <span role="cell">
-                <Select
-                  className={styles.select}
-                  aria-label={`Water of joint ${i + 1}`}
-                  value={j.water}
-                  size="large"
-                  disabled={readOnly}
-                  onChange={(_e, data) => set(i, 'water', data.value)}
-                >
-                  <option value="">—</option>
-                  {(Object.keys(waterLabels) as JointWater[]).map((w) => (
-                    <option key={w} value={w}>
-                      {waterLabels[w]}
-                    </option>
-                  ))}
-                </Select>
-              </span>
-              <span role="cell">
-                {!readOnly && (
-                  <Button
-                    className={styles.button}
-                    size="large"
-                    appearance="subtle"
-                    icon={<DeleteRegular />}
-                    aria-label={`Remove joint ${i + 1}`}
-                    onClick={() =>
-                      void setFieldValue(
-                        'joints',
-                        joints.filter((_, n) => n !== i),
-                      )
-                    }
-                  />
-                )}
-              </span>
-              {/* The joint's further fields: a cell across the row (a row holds only cells; axe, ARIA 1.2). */}
-              <div role="cell" aria-colspan={11} className={styles.details}>
-                <Field label="JRC" size="small">
-                  {numberInput(i, 'jrc', 'JRC')}
-                </Field>
-                <Field label="JRC by" size="small">
+                onKeyDown={onRowKey(i)}
+                data-testid="joint-row"
+              >
+                <span role="cell" className={styles.number}>
+                  {i + 1}
+                </span>
+                <span role="cell">
                   <Select
                     className={styles.select}
-                    aria-label={`JRC method of joint ${i + 1}`}
-                    value={j.jrcMethod}
+                    aria-label={`Kind of joint ${i + 1}`}
+                    value={j.kind}
                     size="large"
                     disabled={readOnly}
-                    onChange={(_e, data) => set(i, 'jrcMethod', data.value)}
+                    onChange={(_e, data) => set(i, 'kind', data.value)}
                   >
-                    <option value="">—</option>
-                    {(Object.keys(jrcMethodLabels) as JrcMethod[]).map((m) => (
-                      <option key={m} value={m}>
-                        {jrcMethodLabels[m]}
+                    {jointKinds.map((k) => (
+                      <option key={k} value={k}>
+                        {jointKindLabels[k]}
                       </option>
                     ))}
                   </Select>
-                </Field>
-                <Field label="Infill" size="small">
+                </span>
+                <span role="cell">
+                  <OrientationField
+                    compact
+                    label={`Orientation of joint ${i + 1}`}
+                    text={j.orientationText}
+                    notation={j.notation}
+                    defaultNotation={defaultNotation}
+                    readOnly={readOnly}
+                    onTextChange={(t) => set(i, 'orientationText', t)}
+                    onNotationChange={(n) => set(i, 'notation', n)}
+                    inputRef={(el) => {
+                      if (el === null) orientationInputs.current.delete(j.key);
+                      else orientationInputs.current.set(j.key, el);
+                    }}
+                  />
+                </span>
+                <span role="cell">
                   <Input
                     className={styles.input}
-                    aria-label={`Infill of joint ${i + 1}`}
-                    value={j.infill}
+                    aria-label={`Set of joint ${i + 1}`}
+                    title={
+                      j.setOverride ? 'Your own set (Go back to the computed set under More)' : undefined
+                    }
+                    value={j.setOverride ? j.setLabel : (sets.membership[j.key] ?? '')}
                     size="large"
                     readOnly={readOnly}
-                    onChange={(_e, data) => set(i, 'infill', data.value)}
+                    contentAfter={j.setOverride ? <span className={styles.override}>yours</span> : undefined}
+                    onChange={(_e, data) => {
+                      set(i, 'setLabel', data.value);
+                      set(i, 'setOverride', true);
+                    }}
                   />
-                </Field>
-                <Field
-                  label={j.kind === 'fault' || j.kind === 'shear-zone' ? 'Thickness m' : 'Thickness'}
-                  size="small"
-                >
-                  {j.kind === 'fault' || j.kind === 'shear-zone' ? (
-                    numberInput(i, 'thicknessM', 'Thickness', 'm')
-                  ) : (
-                    <Caption1 className={styles.muted}>faults and shear zones</Caption1>
+                </span>
+                <span role="cell">{numberInput(i, 'spacingM', 'Spacing', 'm')}</span>
+                <span role="cell">{numberInput(i, 'jr', 'Jr')}</span>
+                <span role="cell">{numberInput(i, 'ja', 'Ja')}</span>
+                <span role="cell" className={styles.summary} title={summary}>
+                  {summary}
+                </span>
+                <span role="cell">
+                  <ToggleButton
+                    className={styles.toggle}
+                    size="large"
+                    appearance="subtle"
+                    checked={isOpen}
+                    icon={isOpen ? <ChevronUpRegular /> : <ChevronDownRegular />}
+                    aria-label={`More of joint ${i + 1}`}
+                    aria-expanded={isOpen}
+                    aria-controls={isOpen ? detailsId : undefined}
+                    onClick={() => toggle(j.key)}
+                  />
+                </span>
+                <span role="cell" className={styles.removeCell}>
+                  {!readOnly && (
+                    <Button
+                      className={styles.remove}
+                      size="large"
+                      appearance="subtle"
+                      icon={<DeleteRegular />}
+                      aria-label={`Remove joint ${i + 1}`}
+                      onClick={() => removeJoint(i)}
+                    />
                   )}
-                </Field>
-                <Field label="Notes" size="small">
-                  <Input
-                    className={styles.input}
-                    aria-label={`Notes of joint ${i + 1}`}
-                    value={j.notes}
-                    size="large"
-                    readOnly={readOnly}
-                    onChange={(_e, data) => set(i, 'notes', data.value)}
-                  />
-                </Field>
-              </div>
-              {j.importNote !== '' && (
-                <div className={styles.note}>
-                  <MessageBar intent="warning" data-testid="import-note">
-                    <MessageBarBody>{`Imported with a problem — ${j.importNote}`}</MessageBarBody>
-                    {!readOnly && (
-                      <Button size="large" className={styles.button} onClick={() => set(i, 'importNote', '')}>
-                        Fixed
-                      </Button>
+                </span>
+                {isOpen && (
+                  // The joint's further fields: a cell across the row (a row holds only cells; axe, ARIA 1.2).
+                  <div role="cell" aria-colspan={10} id={detailsId} className={styles.details}>
+                    <Field label="Persistence m" size="small">
+                      {numberInput(i, 'persistenceM', 'Persistence', 'm')}
+                    </Field>
+                    <Field label="Aperture mm" size="small">
+                      {numberInput(i, 'apertureMm', 'Aperture', 'mm')}
+                    </Field>
+                    <Field label="Water" size="small">
+                      <Select
+                        className={styles.select}
+                        aria-label={`Water of joint ${i + 1}`}
+                        value={j.water}
+                        size="large"
+                        disabled={readOnly}
+                        onChange={(_e, data) => set(i, 'water', data.value)}
+                      >
+                        <option value="">—</option>
+                        {(Object.keys(waterLabels) as JointWater[]).map((w) => (
+                          <option key={w} value={w}>
+                            {waterLabels[w]}
+                          </option>
+                        ))}
+                      </Select>
+                    </Field>
+                    <Field label="JRC" size="small">
+                      {numberInput(i, 'jrc', 'JRC')}
+                    </Field>
+                    <Field label="JRC by" size="small">
+                      <Select
+                        className={styles.select}
+                        aria-label={`JRC method of joint ${i + 1}`}
+                        value={j.jrcMethod}
+                        size="large"
+                        disabled={readOnly}
+                        onChange={(_e, data) => set(i, 'jrcMethod', data.value)}
+                      >
+                        <option value="">—</option>
+                        {(Object.keys(jrcMethodLabels) as JrcMethod[]).map((m) => (
+                          <option key={m} value={m}>
+                            {jrcMethodLabels[m]}
+                          </option>
+                        ))}
+                      </Select>
+                    </Field>
+                    <Field label="Infill" size="small">
+                      <Input
+                        className={styles.input}
+                        aria-label={`Infill of joint ${i + 1}`}
+                        value={j.infill}
+                        size="large"
+                        readOnly={readOnly}
+                        onChange={(_e, data) => set(i, 'infill', data.value)}
+                      />
+                    </Field>
+                    <Field label={fault ? 'Thickness m' : 'Thickness'} size="small">
+                      {fault ? (
+                        numberInput(i, 'thicknessM', 'Thickness', 'm')
+                      ) : (
+                        <Caption1 className={styles.muted}>faults and shear zones</Caption1>
+                      )}
+                    </Field>
+                    <Field label="Notes" size="small" className={styles.wide}>
+                      <Input
+                        className={styles.input}
+                        aria-label={`Notes of joint ${i + 1}`}
+                        value={j.notes}
+                        size="large"
+                        readOnly={readOnly}
+                        onChange={(_e, data) => set(i, 'notes', data.value)}
+                      />
+                    </Field>
+                    <div className={styles.wide}>
+                      {featureSource ? (
+                        <SameFeaturePicker
+                          jointNumber={i + 1}
+                          plane={reading.kind === 'plane' ? reading.plane : null}
+                          value={j.sameAsJointId}
+                          onChange={(id) => set(i, 'sameAsJointId', id)}
+                          source={featureSource}
+                          readOnly={readOnly}
+                        />
+                      ) : (
+                        <Caption1 className={styles.muted}>
+                          {j.sameAsJointId
+                            ? 'Same feature as one of an earlier round.'
+                            : 'Not linked to an earlier round.'}
+                        </Caption1>
+                      )}
+                    </div>
+                    {j.setOverride && (
+                      <Field label="Set" size="small">
+                        <Button
+                          className={styles.button}
+                          size="large"
+                          icon={<ArrowResetRegular />}
+                          disabled={readOnly}
+                          onClick={() => {
+                            set(i, 'setOverride', false);
+                            set(i, 'setLabel', '');
+                          }}
+                        >
+                          Go back to the computed set
+                        </Button>
+                      </Field>
                     )}
-                  </MessageBar>
-                </div>
-              )}
-            </div>
-          ))}
+                  </div>
+                )}
+                {j.importNote !== '' && (
+                  <div className={styles.note}>
+                    <MessageBar intent="warning" data-testid="import-note">
+                      <MessageBarBody>{`Imported with a problem — ${j.importNote}`}</MessageBarBody>
+                      {!readOnly && (
+                        <Button
+                          size="large"
+                          className={styles.button}
+                          onClick={() => set(i, 'importNote', '')}
+                        >
+                          Fixed
+                        </Button>
+                      )}
+                    </MessageBar>
+                  </div>
+                )}
+              </div>
+            );
+          })}
+        </div>
+      )}
+
+      {removed !== null && (
+        <div className={styles.undo}>
+          <MessageBar intent="info" data-testid="joint-removed" politeness="polite">
+            <MessageBarBody>{`Joint ${removed.index + 1} (${removedWords(removed.joint)}) removed.`}</MessageBarBody>
+            <MessageBarActions
+              containerAction={
+                <Button
+                  className={styles.button}
+                  size="large"
+                  appearance="transparent"
+                  icon={<DismissRegular />}
+                  aria-label="Dismiss"
+                  onClick={() => setRemoved(null)}
+                />
+              }
+            >
+              <Button className={styles.button} size="large" icon={<ArrowUndoRegular />} onClick={undoRemove}>
+                Undo
+              </Button>
+            </MessageBarActions>
+          </MessageBar>
         </div>
       )}
 

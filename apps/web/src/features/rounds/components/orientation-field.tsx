@@ -19,6 +19,11 @@ export interface OrientationFieldProps {
   /** Enter in the text input (the table moves on or adds a row). */
   onEnter?: () => void;
   inputRef?: (element: HTMLInputElement | null) => void;
+  /**
+   * One line (the joints table's compact row): the reading as dip direction/dip beside the field (strike and
+   * pole in its title), a problem under it; no typing hint (the placeholder and the section say it).
+   */
+  compact?: boolean;
 }
 
 const useStyles = makeStyles({
@@ -34,6 +39,14 @@ const useStyles = makeStyles({
   reading: { color: tokens.colorPaletteGreenForeground1, fontWeight: tokens.fontWeightSemibold },
   error: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
   empty: { color: tokens.colorNeutralForeground3 },
+  compactRoot: { minWidth: '17rem' },
+  compactRow: { alignItems: 'center' },
+  compactReading: {
+    width: '4.75rem',
+    flexShrink: 0,
+    fontVariantNumeric: 'tabular-nums',
+    whiteSpace: 'nowrap',
+  },
 });
 
 /** Short names for the notation picker (the full name is its title). */
@@ -58,6 +71,7 @@ export function OrientationField({
   onNotationChange,
   onEnter,
   inputRef,
+  compact = false,
 }: OrientationFieldProps) {
   const styles = useStyles();
   const feedbackId = useId();
@@ -69,9 +83,40 @@ export function OrientationField({
       onEnter();
     }
   };
+  const feedback = (
+    <div
+      id={feedbackId}
+      className={mergeClasses(styles.feedback, compact && reading.kind !== 'error' && styles.compactReading)}
+      aria-live="polite"
+      data-testid="orientation-feedback"
+      title={
+        compact && reading.kind === 'plane'
+          ? `${reading.dipDirectionDip} · strike ${reading.strike} · pole ${reading.pole}`
+          : undefined
+      }
+    >
+      {reading.kind === 'empty' && !compact && (
+        <span
+          className={styles.empty}
+        >{`Type it as ${notationLabels[notation].toLowerCase()}, or N30E 40SE`}</span>
+      )}
+      {reading.kind === 'plane' && (
+        <span className={styles.reading}>
+          {compact
+            ? reading.dipDirectionDip
+            : `${reading.dipDirectionDip} · strike ${reading.strike} · pole ${reading.pole}`}
+        </span>
+      )}
+      {reading.kind === 'error' && (
+        <span className={mergeClasses(styles.error)} role="alert">
+          {reading.message}
+        </span>
+      )}
+    </div>
+  );
   return (
-    <div className={styles.root}>
-      <div className={styles.row}>
+    <div className={mergeClasses(styles.root, compact && styles.compactRoot)}>
+      <div className={mergeClasses(styles.row, compact && styles.compactRow)}>
         <Input
           className={styles.input}
           input={{ className: styles.text, ref: inputRef }}
@@ -103,24 +148,9 @@ export function OrientationField({
             </option>
           ))}
         </Select>
+        {compact && reading.kind !== 'error' && feedback}
       </div>
-      <div id={feedbackId} className={styles.feedback} aria-live="polite" data-testid="orientation-feedback">
-        {reading.kind === 'empty' && (
-          <span
-            className={styles.empty}
-          >{`Type it as ${notationLabels[notation].toLowerCase()}, or N30E 40SE`}</span>
-        )}
-        {reading.kind === 'plane' && (
-          <span className={styles.reading}>
-            {`${reading.dipDirectionDip} · strike ${reading.strike} · pole ${reading.pole}`}
-          </span>
-        )}
-        {reading.kind === 'error' && (
-          <span className={mergeClasses(styles.error)} role="alert">
-            {reading.message}
-          </span>
-        )}
-      </div>
+      {(!compact || reading.kind === 'error') && feedback}
     </div>
   );
 }

@@ -420,6 +420,13 @@ function RoundEditorBody({
             onSetCountChange={(count) => void setFieldValue('setParameters.count', count)}
             nearbyCount={nearbyJoints.length}
             nearbyLoading={distance > 0 && nearby.isLoading}
+            featureSource={{
+              projectId,
+              headingId: heading.id,
+              roundId: round.id,
+              faceChainage: face,
+              chainage: (m) => formatChainage(m, chainageStyle),
+            }}
           />
         )}
         {section === 'joints' &&

@@ -50,6 +50,8 @@ export interface JointRow {
   water: JointWater | '';
   thicknessM: string;
   notes: string;
+  /** "Same feature as": the first observation of this feature on an earlier round ('' = not linked). */
+  sameAsJointId: string;
   /** Why an imported row needs a look (kept on screen until the person clears it). */
   importNote: string;
 }
@@ -197,6 +199,7 @@ export function emptyJoint(notation: PlaneNotation): JointRow {
     water: '',
     thicknessM: '',
     notes: '',
+    sameAsJointId: '',
     importNote: '',
   };
 }
@@ -341,6 +344,7 @@ export function formValuesOf(round: Round): RoundFormValues {
       water: j.water ?? '',
       thicknessM: text(j.thicknessM),
       notes: j.notes,
+      sameAsJointId: j.sameAsJointId ?? '',
       importNote: '',
     })),
     setParameters: { ...(round.setParameters ?? DEFAULT_SET_PARAMETERS) },
@@ -441,6 +445,7 @@ export function jointInputOf(j: JointRow): JointInput {
     water: j.water === '' ? null : j.water,
     thicknessM: j.kind === 'fault' || j.kind === 'shear-zone' ? num(j.thicknessM) : null,
     notes: j.notes,
+    sameAsJointId: j.sameAsJointId === '' ? null : j.sameAsJointId,
   };
 }
 

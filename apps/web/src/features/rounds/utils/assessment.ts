@@ -48,6 +48,7 @@ export function assessmentRecordOf(values: RoundFormValues, fallbackChainage: nu
         apertureMm: input.apertureMm ?? null,
         infill: input.infill ?? null,
         thicknessM: input.thicknessM ?? null,
+        sameAsJointId: input.sameAsJointId ?? null,
       };
     }),
     // The typed inputs as sent; empty numbers are null and the ratings say what is missing.

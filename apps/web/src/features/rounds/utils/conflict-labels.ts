@@ -44,6 +44,7 @@ const JOINT_FIELDS: Record<string, string> = {
   water: 'water',
   thicknessM: 'thickness',
   notes: 'notes',
+  sameAsJointId: 'same feature as',
   importNote: 'import note',
 };
 
