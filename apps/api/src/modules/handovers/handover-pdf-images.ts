@@ -1,5 +1,6 @@
 import { formatAzimuth, formatDipDirectionDip, SET_COLOURS_LIGHT } from '@roundbook/domain';
 import { poleOf, project } from '@roundbook/geomath';
+import sharp from 'sharp';
 import { StorageNotFoundError, type StorageService } from '../../infrastructure/storage/storage.service.js';
 import type { HandoverPictures } from './handover.entity.js';
 
@@ -40,6 +41,29 @@ export async function loadPictures(
     sketch: await bytesOf(storage, pictures.sketch?.key ?? null),
     photos: await Promise.all(pictures.photos.map((p) => bytesOf(storage, p.key))),
   };
+}
+
+/**
+ * A PNG with an alpha channel is decoded by pdfkit in JavaScript and embedded with a soft mask; the sketch's
+ * render has one (sharp's SVG output) although it is drawn on paper colour throughout. Flattened onto white
+ * by sharp first, it is embedded as it is (several times faster, and the picture looks the same). Bytes
+ * sharp cannot read are left as they are.
+ */
+async function opaquePng(bytes: Buffer): Promise<Buffer> {
+  try {
+    const meta = await sharp(bytes).metadata();
+    if (meta.format !== 'png' || !meta.hasAlpha) return bytes;
+    return await sharp(bytes).flatten({ background: '#ffffff' }).png().toBuffer();
+  } catch {
+    return bytes;
+  }
+}
+
+/** The pictures as the PDF embeds them (see opaquePng; photo thumbnails are JPEGs, embedded as they are). */
+export function opaquePictures(list: LoadedPictures[]): Promise<LoadedPictures[]> {
+  return Promise.all(
+    list.map(async (p) => ({ ...p, sketch: p.sketch ? await opaquePng(p.sketch) : null })),
+  );
 }
 
 /** The colour of a set: the latest round's sets in order, on the sketch's palette; grey for no set. */

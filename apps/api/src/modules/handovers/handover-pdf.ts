@@ -1,5 +1,6 @@
+import { openSync, type Font } from 'fontkit';
 import PDFDocument from 'pdfkit';
-import { drawPictures, type LoadedPictures } from './handover-pdf-images.js';
+import { drawPictures, opaquePictures, type LoadedPictures } from './handover-pdf-images.js';
 import {
   HANDOVER_CAUTION,
   handoverHeader,
@@ -14,6 +15,13 @@ import { glyphCheckOf, pdfSafeText } from './pdf-safe-text.js';
 /** Open Sans (TTF from @expo-google-fonts/open-sans; pdfkit fails on WOFF2, stack-notes §9). */
 const FONT_REGULAR = require.resolve('@expo-google-fonts/open-sans/400Regular/OpenSans_400Regular.ttf');
 const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans_700Bold.ttf');
+/**
+ * Both weights parsed once per process: pdfkit takes a fontkit font as a font source and makes each
+ * document's subset from it, so a PDF does not parse the TTF files again (about a tenth of its time).
+ */
+let parsed: { regular: Font; bold: Font } | null = null;
+const fonts = () =>
+  (parsed ??= { regular: openSync(FONT_REGULAR) as Font, bold: openSync(FONT_BOLD) as Font });
 /** Whether both weights can draw a character (read from the fonts' own glyph tables, once). */
 let drawable: ((codePoint: number) => boolean) | null = null;
 const safe = (t: string): string => pdfSafeText(t, (drawable ??= glyphCheckOf(FONT_REGULAR, FONT_BOLD)));
@@ -103,8 +111,9 @@ function lookAheadTable(doc: PDFKit.PDFDocument, rows: LookAheadRow[], left: num
  * The handover as an A4 PDF: who to whom, then per heading its face, cycle, last confirmed round, class,
  * next round length, alerts, open hazards and notes, the general notes and the caution (on every page's foot as well).
  */
-export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
+export async function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   const s = input.snapshot;
+  const pictures = input.pictures ? await opaquePictures(input.pictures) : undefined;
   const doc = withSafeText(
     new PDFDocument({
       size: 'A4',
@@ -117,8 +126,9 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
       },
     }),
   );
-  doc.registerFont('regular', FONT_REGULAR);
-  doc.registerFont('bold', FONT_BOLD);
+  // The typings list paths and bytes only; pdfkit 0.20 also takes a font object (anything with layout()).
+  doc.registerFont('regular', fonts().regular as unknown as string);
+  doc.registerFont('bold', fonts().bold as unknown as string);
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (c: Buffer) => chunks.push(c));
@@ -201,7 +211,7 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });
       doc.font('regular').fontSize(10).text(h.notes, { width });
     }
-    const loaded = input.pictures?.[index];
+    const loaded = pictures?.[index];
     if (loaded) drawPictures(doc, s.headings[index].pictures, loaded, left, width);
     doc.moveDown(0.8);
   }
@@ -243,5 +253,5 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
     doc.page.margins.bottom = bottom;
   }
   doc.end();
-  return done;
+  return await done;
 }
