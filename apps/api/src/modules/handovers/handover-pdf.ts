@@ -150,6 +150,30 @@ export async function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer
     doc.y = Math.max(doc.y, labelBottom) + 2;
   };
 
+  const bottom = () => doc.page.height - doc.page.margins.bottom;
+  /** Starts a new page unless `height` more points fit above the foot of this one. */
+  const keepWith = (height: number) => {
+    if (doc.y + height > bottom()) doc.addPage();
+  };
+  /**
+   * A titled list of bullets: the title stays with the first item, and no item is split across pages (a
+   * hazard's level, range and description read together).
+   */
+  const list = (title: string, items: string[], empty: string) => {
+    const lines = items.length ? items.map((i) => `• ${i}`) : [empty];
+    doc.font('regular').fontSize(10);
+    const heightOf = (t: string) => doc.heightOfString(t, { width: width - 10 });
+    doc.font('bold');
+    keepWith(doc.heightOfString(title, { width }) + heightOf(lines[0]));
+    doc.fillColor(INK).text(title, left, doc.y, { width });
+    doc.font('regular').fontSize(10);
+    for (const [i, line] of lines.entries()) {
+      if (i > 0) keepWith(heightOf(line));
+      if (items.length) doc.text(line, left + 10, doc.y, { width: width - 10 });
+      else doc.text(line, left, doc.y, { width });
+    }
+  };
+
   doc.font('bold').fontSize(18).fillColor(INK).text('Shift handover', left, doc.y, { width });
   doc.font('regular').fontSize(11).fillColor(MUTED).text(s.projectName, { width });
   doc.moveDown(0.6);
@@ -169,30 +193,13 @@ export async function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer
     doc.moveDown(0.3);
     for (const [k, v] of h.facts) fact(k, v);
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Alerts', left, doc.y, { width });
-    if (h.alerts.length === 0) doc.font('regular').text('None', { width });
-    for (const a of h.alerts)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${a}`, left + 10, doc.y, { width: width - 10 });
+    list('Alerts', h.alerts, 'None');
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Open hazards', left, doc.y, { width });
-    if (h.hazards.length === 0) doc.font('regular').text('None', { width });
-    for (const z of h.hazards)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${z}`, left + 10, doc.y, { width: width - 10 });
+    list('Open hazards', h.hazards, 'None');
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Support outstanding', left, doc.y, { width });
-    if (h.supportOutstanding.length === 0) doc.font('regular').text('None recorded', { width });
-    for (const s of h.supportOutstanding)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${s}`, left + 10, doc.y, { width: width - 10 });
+    list('Support outstanding', h.supportOutstanding, 'None recorded');
     doc.moveDown(0.3);
+    keepWith(doc.heightOfString('Look-ahead', { width }) + 44); // the title, the header row and a row
     doc.font('bold').fontSize(10).fillColor(INK).text('Look-ahead', left, doc.y, { width });
     if (h.lookAheadRows.length === 0)
       doc
@@ -222,11 +229,12 @@ export async function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer
     doc.moveDown(0.8);
   }
 
-  // The caution in a box after the content, and in small type at every page's foot.
-  if (doc.y > doc.page.height - 150) doc.addPage();
-  const boxTop = doc.y;
+  // The caution in a box after the content (a new page only when the box does not fit), and in small type
+  // at every page's foot.
   doc.font('bold').fontSize(10).fillColor(INK);
   const textHeight = doc.heightOfString(HANDOVER_CAUTION, { width: width - 24 });
+  keepWith(textHeight + 16);
+  const boxTop = doc.y;
   doc
     .rect(left, boxTop, width, textHeight + 16)
     .fillColor('#fff6e5')
