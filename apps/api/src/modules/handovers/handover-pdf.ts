@@ -20,8 +20,7 @@ const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans
  * document's subset from it, so a PDF does not parse the TTF files again (about a tenth of its time).
  */
 let parsed: { regular: Font; bold: Font } | null = null;
-const fonts = () =>
-  (parsed ??= { regular: openSync(FONT_REGULAR) as Font, bold: openSync(FONT_BOLD) as Font });
+const fonts = () => (parsed ??= { regular: openSync(FONT_REGULAR), bold: openSync(FONT_BOLD) });
 /** Whether both weights can draw a character (read from the fonts' own glyph tables, once). */
 let drawable: ((codePoint: number) => boolean) | null = null;
 const safe = (t: string): string => pdfSafeText(t, (drawable ??= glyphCheckOf(FONT_REGULAR, FONT_BOLD)));
