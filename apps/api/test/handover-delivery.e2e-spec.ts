@@ -380,11 +380,12 @@ describe('Handover delivery with two API processes, and the PDF’s pictures (e2
     for (let i = 1; i <= PHOTOS; i++) expect(text).toContain(`Round 1: Invented photo ${i}`);
     // The stereonet (vectors): its title, one legend line per set of the frozen assessment, the drive.
     expect(text).toContain('Poles of joints, rounds 1 — lower hemisphere, equal-area');
-    expect(sets.length).toBeGreaterThanOrEqual(2);
+    // Eight joints are too few for sets here: then every pole is 'not in a set', and the legend says so.
+    if (sets.length === 0) expect(text).toContain('Not in a set of the latest round');
     for (const s of sets)
       expect(text).toMatch(new RegExp(`${s}: mean \\d{3}/\\d{2} \\(dip direction/dip\\), \\d+ joints`));
     expect(text).toContain('Drive 060° at the face');
-    // Everything fits on the first page here, so every picture is drawn there.
-    expect(new Set(images.map((i) => i.page))).toEqual(new Set([1]));
+    // The thumbnails are drawn after the sketch (never on an earlier page).
+    expect(Math.min(...thumbs.map((t) => t.page))).toBeGreaterThanOrEqual(sketches[0].page);
   });
 });
