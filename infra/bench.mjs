@@ -1,12 +1,14 @@
 #!/usr/bin/env node
-// `npm run bench` (after the geomath benchmark): starts the test database on its own port, migrates and
-// seeds it, runs the API benchmarks against it, and stops what it started.
+// `npm run bench` (after the geomath benchmark): starts the test database, the S3 fake and the SMTP fake on
+// their own ports, migrates and seeds the database, runs the API benchmarks against them, and stops what it
+// started.
+import { rmSync } from 'node:fs';
 import path from 'node:path';
 import { buildAll, ensureAptPackages, ensureNodeModules, migrateAndSeed } from './lib/bootstrap.mjs';
 import { profileEnv, root } from './lib/env.mjs';
 import { InfraError, fail } from './lib/log.mjs';
 import { run, stopAll } from './lib/proc.mjs';
-import { startMariadb } from './lib/services.mjs';
+import { startMariadb, startS3, startSmtp } from './lib/services.mjs';
 
 const { dataDir, env } = profileEnv('test');
 let code = 0;
@@ -18,13 +20,18 @@ try {
   db.rootSql(
     `DROP DATABASE IF EXISTS \`${env.DB_NAME}\`; CREATE DATABASE \`${env.DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
   );
+  for (const d of ['s3', 'mail']) rmSync(path.join(dataDir, d), { recursive: true, force: true });
+  await startS3({ dataDir, env });
+  await startSmtp({ dataDir, env });
   migrateAndSeed(env);
-  run(process.execPath, [path.join(root, 'apps/api/dist/bench/rounds-list.bench.js')], {
-    env: { ...process.env, ...env },
-  });
-  run(process.execPath, [path.join(root, 'apps/api/dist/bench/notice-latency.bench.js')], {
-    env: { ...process.env, ...env },
-  });
+  // RB_BENCH=handover runs only the matching API benchmarks.
+  const benches = ['rounds-list', 'notice-latency', 'handover'].filter(
+    (b) => !process.env.RB_BENCH || b.includes(process.env.RB_BENCH),
+  );
+  for (const bench of benches)
+    run(process.execPath, [path.join(root, `apps/api/dist/bench/${bench}.bench.js`)], {
+      env: { ...process.env, ...env },
+    });
 } catch (err) {
   fail(err instanceof InfraError ? err.message : (err?.stack ?? String(err)));
   code = 1;

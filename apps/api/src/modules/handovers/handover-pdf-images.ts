@@ -1,5 +1,6 @@
 import { formatAzimuth, formatDipDirectionDip, SET_COLOURS_LIGHT } from '@roundbook/domain';
 import { poleOf, project } from '@roundbook/geomath';
+import sharp from 'sharp';
 import { StorageNotFoundError, type StorageService } from '../../infrastructure/storage/storage.service.js';
 import type { HandoverPictures } from './handover.entity.js';
 
@@ -42,11 +43,68 @@ export async function loadPictures(
   };
 }
 
+/**
+ * A PNG with an alpha channel is decoded by pdfkit in JavaScript and embedded with a soft mask; the sketch's
+ * render has one (sharp's SVG output) although it is drawn on paper colour throughout. Flattened onto white
+ * by sharp first, it is embedded as it is (several times faster, and the picture looks the same). Bytes
+ * sharp cannot read are left as they are.
+ */
+async function opaquePng(bytes: Buffer): Promise<Buffer> {
+  try {
+    const meta = await sharp(bytes).metadata();
+    if (meta.format !== 'png' || !meta.hasAlpha) return bytes;
+    return await sharp(bytes).flatten({ background: '#ffffff' }).png().toBuffer();
+  } catch {
+    return bytes;
+  }
+}
+
+/** The pictures as the PDF embeds them (see opaquePng; photo thumbnails are JPEGs, embedded as they are). */
+export function opaquePictures(list: LoadedPictures[]): Promise<LoadedPictures[]> {
+  return Promise.all(list.map(async (p) => ({ ...p, sketch: p.sketch ? await opaquePng(p.sketch) : null })));
+}
+
 /** The colour of a set: the latest round's sets in order, on the sketch's palette; grey for no set. */
 const setColour = (sets: string[], label: string | null): string => {
   const i = label ? sets.indexOf(label) : -1;
   return i < 0 ? RANDOM : SET_COLOURS_LIGHT[i % SET_COLOURS_LIGHT.length];
 };
+
+/** The stereonet's radius in a column `width` wide. */
+const netRadius = (width: number) => Math.min(width / 2 - 14, 88);
+
+/** The legend under the stereonet: its title, then one line per set, the poles in no set and the drive. */
+function legendOf(net: NonNullable<HandoverPictures['stereonet']>): { title: string; lines: string[] } {
+  const labels = net.sets.map((s) => s.label);
+  return {
+    title: `Poles of joints, rounds ${net.rounds.join(', ')} — lower hemisphere, equal-area`,
+    lines: [
+      ...net.sets.map(
+        (s) =>
+          `${s.label}: mean ${formatDipDirectionDip(s)} (dip direction/dip), ${s.count} joint${s.count === 1 ? '' : 's'}`,
+      ),
+      ...(net.poles.some((p) => !p.set || !labels.includes(p.set))
+        ? ['Not in a set of the latest round']
+        : []),
+      `Drive ${formatAzimuth(net.driveTrend)} at the face`,
+    ],
+  };
+}
+
+/** The height drawStereonet will use (measured with the same fonts, nothing drawn). */
+export function stereonetHeight(
+  doc: PDFKit.PDFDocument,
+  width: number,
+  net: NonNullable<HandoverPictures['stereonet']>,
+): number {
+  const { title, lines } = legendOf(net);
+  let h = 2 * netRadius(width) + 22;
+  doc.font('bold').fontSize(8);
+  h += doc.heightOfString(title, { width }) + 2;
+  doc.font('regular').fontSize(8);
+  for (const l of lines) h += doc.heightOfString(l, { width: width - 16 }) + 1;
+  return h;
+}
 
 /**
  * A lower-hemisphere equal-area stereonet drawn as vectors (geomath project): the primitive with ticks every
@@ -61,7 +119,7 @@ export function drawStereonet(
   width: number,
   net: NonNullable<HandoverPictures['stereonet']>,
 ): number {
-  const r = Math.min(width / 2 - 14, 88);
+  const r = netRadius(width);
   const cx = x + width / 2;
   const cy = y + r + 14;
   const at = (trend: number, plunge: number) => {
@@ -105,22 +163,14 @@ export function drawStereonet(
   const h2 = head(-0.4);
   doc.polygon([tip.x, tip.y], [h1.x, h1.y], [h2.x, h2.y]).fillColor(DRIVE).fill();
 
+  // Each set's mean pole as a hollow square, under the poles: a pole at or next to a mean stays in view.
   const labels = net.sets.map((s) => s.label);
-  for (const p of net.poles) {
-    const l = poleOf({ dipDirection: p.dipDirection, dip: p.dip });
-    const q = at(l.trend, l.plunge);
-    doc.circle(q.x, q.y, 2.2).fillColor(setColour(labels, p.set)).fill();
-  }
   for (const s of net.sets) {
     const l = poleOf({ dipDirection: s.dipDirection, dip: s.dip });
     const q = at(l.trend, l.plunge);
     const colour = setColour(labels, s.label);
     doc
-      .rect(q.x - 4, q.y - 4, 8, 8)
-      .fillColor('#ffffff')
-      .fill();
-    doc
-      .rect(q.x - 4, q.y - 4, 8, 8)
+      .rect(q.x - 4.5, q.y - 4.5, 9, 9)
       .strokeColor(colour)
       .lineWidth(1.5)
       .stroke();
@@ -128,7 +178,12 @@ export function drawStereonet(
       .font('bold')
       .fontSize(8)
       .fillColor(colour)
-      .text(s.label, q.x + 6, q.y - 5, { lineBreak: false });
+      .text(s.label, q.x + 7, q.y - 5, { lineBreak: false });
+  }
+  for (const p of net.poles) {
+    const l = poleOf({ dipDirection: p.dipDirection, dip: p.dip });
+    const q = at(l.trend, l.plunge);
+    doc.circle(q.x, q.y, 2.2).fillColor(setColour(labels, p.set)).fill();
   }
   doc.restore();
 
@@ -143,32 +198,21 @@ export function drawStereonet(
       .text(text, x + 16, ly, { width: width - 16 });
     ly = doc.y + 1;
   };
-  doc
-    .font('bold')
-    .fontSize(8)
-    .fillColor(INK)
-    .text(`Poles of joints, rounds ${net.rounds.join(', ')} — lower hemisphere, equal-area`, x, ly, {
-      width,
-    });
+  const legend = legendOf(net);
+  doc.font('bold').fontSize(8).fillColor(INK).text(legend.title, x, ly, { width });
   ly = doc.y + 2;
   for (const s of net.sets) {
     const colour = setColour(labels, s.label);
-    item(
-      (mx, my) => {
-        doc
-          .rect(mx - 3.5, my - 3.5, 7, 7)
-          .strokeColor(colour)
-          .lineWidth(1.5)
-          .stroke();
-      },
-      `${s.label}: mean ${formatDipDirectionDip(s)} (dip direction/dip), ${s.count} joint${s.count === 1 ? '' : 's'}`,
-    );
+    item((mx, my) => {
+      doc
+        .rect(mx - 3.5, my - 3.5, 7, 7)
+        .strokeColor(colour)
+        .lineWidth(1.5)
+        .stroke();
+    }, legend.lines[net.sets.indexOf(s)]);
   }
-  if (net.poles.some((p) => !p.set || !labels.includes(p.set)))
-    item(
-      (mx, my) => void doc.circle(mx, my, 2.2).fillColor(RANDOM).fill(),
-      'Not in a set of the latest round',
-    );
+  if (legend.lines.length > net.sets.length + 1)
+    item((mx, my) => void doc.circle(mx, my, 2.2).fillColor(RANDOM).fill(), legend.lines[net.sets.length]);
   item(
     (mx, my) =>
       void doc
@@ -177,7 +221,7 @@ export function drawStereonet(
         .strokeColor(DRIVE)
         .lineWidth(1.6)
         .stroke(),
-    `Drive ${formatAzimuth(net.driveTrend)} at the face`,
+    legend.lines[legend.lines.length - 1],
   );
   return ly - y;
 }
@@ -198,9 +242,18 @@ export function drawPictures(
   const note = (t: string, x: number, y: number, w: number) =>
     doc.font('regular').fontSize(9).fillColor(MUTED).text(t, x, y, { width: w });
 
-  if (doc.y + 260 > bottom()) doc.addPage();
-  const top = doc.y + 4;
   const half = (width - 16) / 2;
+  const SKETCH_BOX = 220;
+  // The sketch and the stereonet side by side, moved whole to a new page when the pair does not fit here.
+  const pair =
+    4 +
+    16 +
+    Math.max(
+      loaded.sketch ? SKETCH_BOX : 40,
+      pictures.stereonet ? stereonetHeight(doc, half, pictures.stereonet) : 40,
+    );
+  if (doc.y + pair > bottom()) doc.addPage();
+  const top = doc.y + 4;
   doc
     .font('bold')
     .fontSize(10)
@@ -212,7 +265,7 @@ export function drawPictures(
   const body = top + 16;
   let sketchBottom: number;
   if (loaded.sketch) {
-    const h = 220;
+    const h = SKETCH_BOX;
     doc.rect(left, body, half, h).strokeColor(LINE).lineWidth(0.5).stroke();
     doc.image(loaded.sketch, left + 2, body + 2, {
       fit: [half - 4, h - 4],
@@ -243,16 +296,20 @@ export function drawPictures(
   doc.x = left;
   doc.y = Math.max(sketchBottom, netBottom) + 10;
 
+  const gap = 10;
+  const w = (width - 2 * gap) / 3;
+  const h = w * 0.72;
+  /** A row of thumbnails with their captions (two lines at most) and the space under it */
+  const rowHeight = 4 + h + 2 + 22 + 6;
+  // The title stays with the first row; each row is moved whole to the next page when it does not fit.
+  if (doc.y + 16 + (pictures.photos.length ? rowHeight : 14) > bottom()) doc.addPage();
   doc.font('bold').fontSize(10).fillColor(INK).text('Photos', left, doc.y, { width });
   if (pictures.photos.length === 0) {
     note('No photos on the recent rounds.', left, doc.y, width);
     return;
   }
-  const gap = 10;
-  const w = (width - 2 * gap) / 3;
-  const h = w * 0.72;
   for (let row = 0; row * 3 < pictures.photos.length; row++) {
-    if (doc.y + h + 30 > bottom()) doc.addPage();
+    if (doc.y + rowHeight > bottom()) doc.addPage();
     const y = doc.y + 4;
     let rowBottom = y;
     for (let col = 0; col < 3; col++) {

@@ -1,5 +1,6 @@
+import { openSync, type Font } from 'fontkit';
 import PDFDocument from 'pdfkit';
-import { drawPictures, type LoadedPictures } from './handover-pdf-images.js';
+import { drawPictures, opaquePictures, type LoadedPictures } from './handover-pdf-images.js';
 import {
   HANDOVER_CAUTION,
   handoverHeader,
@@ -14,6 +15,12 @@ import { glyphCheckOf, pdfSafeText } from './pdf-safe-text.js';
 /** Open Sans (TTF from @expo-google-fonts/open-sans; pdfkit fails on WOFF2, stack-notes §9). */
 const FONT_REGULAR = require.resolve('@expo-google-fonts/open-sans/400Regular/OpenSans_400Regular.ttf');
 const FONT_BOLD = require.resolve('@expo-google-fonts/open-sans/700Bold/OpenSans_700Bold.ttf');
+/**
+ * Both weights parsed once per process: pdfkit takes a fontkit font as a font source and makes each
+ * document's subset from it, so a PDF does not parse the TTF files again (about a tenth of its time).
+ */
+let parsed: { regular: Font; bold: Font } | null = null;
+const fonts = () => (parsed ??= { regular: openSync(FONT_REGULAR), bold: openSync(FONT_BOLD) });
 /** Whether both weights can draw a character (read from the fonts' own glyph tables, once). */
 let drawable: ((codePoint: number) => boolean) | null = null;
 const safe = (t: string): string => pdfSafeText(t, (drawable ??= glyphCheckOf(FONT_REGULAR, FONT_BOLD)));
@@ -103,8 +110,9 @@ function lookAheadTable(doc: PDFKit.PDFDocument, rows: LookAheadRow[], left: num
  * The handover as an A4 PDF: who to whom, then per heading its face, cycle, last confirmed round, class,
  * next round length, alerts, open hazards and notes, the general notes and the caution (on every page's foot as well).
  */
-export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
+export async function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
   const s = input.snapshot;
+  const pictures = input.pictures ? await opaquePictures(input.pictures) : undefined;
   const doc = withSafeText(
     new PDFDocument({
       size: 'A4',
@@ -117,8 +125,9 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
       },
     }),
   );
-  doc.registerFont('regular', FONT_REGULAR);
-  doc.registerFont('bold', FONT_BOLD);
+  // The typings list paths and bytes only; pdfkit 0.20 also takes a font object (anything with layout()).
+  doc.registerFont('regular', fonts().regular as unknown as string);
+  doc.registerFont('bold', fonts().bold as unknown as string);
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (c: Buffer) => chunks.push(c));
@@ -140,6 +149,30 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
     doc.y = Math.max(doc.y, labelBottom) + 2;
   };
 
+  const bottom = () => doc.page.height - doc.page.margins.bottom;
+  /** Starts a new page unless `height` more points fit above the foot of this one. */
+  const keepWith = (height: number) => {
+    if (doc.y + height > bottom()) doc.addPage();
+  };
+  /**
+   * A titled list of bullets: the title stays with the first item, and no item is split across pages (a
+   * hazard's level, range and description read together).
+   */
+  const list = (title: string, items: string[], empty: string) => {
+    const lines = items.length ? items.map((i) => `• ${i}`) : [empty];
+    doc.font('regular').fontSize(10);
+    const heightOf = (t: string) => doc.heightOfString(t, { width: width - 10 });
+    doc.font('bold');
+    keepWith(doc.heightOfString(title, { width }) + heightOf(lines[0]));
+    doc.fillColor(INK).text(title, left, doc.y, { width });
+    doc.font('regular').fontSize(10);
+    for (const [i, line] of lines.entries()) {
+      if (i > 0) keepWith(heightOf(line));
+      if (items.length) doc.text(line, left + 10, doc.y, { width: width - 10 });
+      else doc.text(line, left, doc.y, { width });
+    }
+  };
+
   doc.font('bold').fontSize(18).fillColor(INK).text('Shift handover', left, doc.y, { width });
   doc.font('regular').fontSize(11).fillColor(MUTED).text(s.projectName, { width });
   doc.moveDown(0.6);
@@ -159,30 +192,13 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
     doc.moveDown(0.3);
     for (const [k, v] of h.facts) fact(k, v);
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Alerts', left, doc.y, { width });
-    if (h.alerts.length === 0) doc.font('regular').text('None', { width });
-    for (const a of h.alerts)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${a}`, left + 10, doc.y, { width: width - 10 });
+    list('Alerts', h.alerts, 'None');
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Open hazards', left, doc.y, { width });
-    if (h.hazards.length === 0) doc.font('regular').text('None', { width });
-    for (const z of h.hazards)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${z}`, left + 10, doc.y, { width: width - 10 });
+    list('Open hazards', h.hazards, 'None');
     doc.moveDown(0.3);
-    doc.font('bold').fontSize(10).fillColor(INK).text('Support outstanding', left, doc.y, { width });
-    if (h.supportOutstanding.length === 0) doc.font('regular').text('None recorded', { width });
-    for (const s of h.supportOutstanding)
-      doc
-        .font('regular')
-        .fontSize(10)
-        .text(`• ${s}`, left + 10, doc.y, { width: width - 10 });
+    list('Support outstanding', h.supportOutstanding, 'None recorded');
     doc.moveDown(0.3);
+    keepWith(doc.heightOfString('Look-ahead', { width }) + 44); // the title, the header row and a row
     doc.font('bold').fontSize(10).fillColor(INK).text('Look-ahead', left, doc.y, { width });
     if (h.lookAheadRows.length === 0)
       doc
@@ -201,7 +217,7 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
       doc.font('bold').fontSize(10).text('Notes', left, doc.y, { width });
       doc.font('regular').fontSize(10).text(h.notes, { width });
     }
-    const loaded = input.pictures?.[index];
+    const loaded = pictures?.[index];
     if (loaded) drawPictures(doc, s.headings[index].pictures, loaded, left, width);
     doc.moveDown(0.8);
   }
@@ -212,11 +228,12 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
     doc.moveDown(0.8);
   }
 
-  // The caution in a box after the content, and in small type at every page's foot.
-  if (doc.y > doc.page.height - 150) doc.addPage();
-  const boxTop = doc.y;
+  // The caution in a box after the content (a new page only when the box does not fit), and in small type
+  // at every page's foot.
   doc.font('bold').fontSize(10).fillColor(INK);
   const textHeight = doc.heightOfString(HANDOVER_CAUTION, { width: width - 24 });
+  keepWith(textHeight + 16);
+  const boxTop = doc.y;
   doc
     .rect(left, boxTop, width, textHeight + 16)
     .fillColor('#fff6e5')
@@ -243,5 +260,5 @@ export function renderHandoverPdf(input: HandoverPdfInput): Promise<Buffer> {
     doc.page.margins.bottom = bottom;
   }
   doc.end();
-  return done;
+  return await done;
 }
