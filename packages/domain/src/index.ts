@@ -18,3 +18,4 @@ export * from './sketch-svg.js';
 export * from './sketch-frame.js';
 export * from './look-ahead.js';
 export * from './round-changes.js';
+export * from './carried.js';
