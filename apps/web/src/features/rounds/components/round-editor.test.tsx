@@ -258,6 +258,11 @@ describe('Round editor: rating and submit', () => {
     );
     expect(screen.getAllByText(/Other editions give other values/)).toHaveLength(2);
     expect(screen.queryByTestId('rating-q-caution')).toBeNull();
+    // No developer text on screen (issue 19, item 6): sources and option names stay in the code.
+    expect(screen.getByRole('region', { name: 'Rating' })).not.toHaveTextContent(
+      /from memory|qValue|option jr/,
+    );
+    expect(screen.getByLabelText('Ja from the table')).toHaveTextContent('φr 25–35°');
     await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
     expect(saves[0].qInput).toMatchObject({ rqd: 62.5, jn: 6, jr: 2, ja: 1, jw: 1, srf: 1 });
   });
