@@ -21,3 +21,4 @@ export * from './sketch-frame.js';
 export * from './look-ahead.js';
 export * from './round-changes.js';
 export * from './notices.js';
+export * from './carried.js';

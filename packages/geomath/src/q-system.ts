@@ -34,6 +34,8 @@ export interface QTableRow {
   readonly range?: readonly [number, number];
   /** Approximate residual friction angle φr (degrees) for Ja rows, or the water pressure (MPa) for Jw rows. */
   readonly extra?: string;
+  /** How `extra` was checked when it differs from the row's own check (kept in code, not shown). */
+  readonly extraCheck?: TableCheck;
   readonly check: TableCheck;
 }
 
@@ -164,7 +166,8 @@ export const Q_JR_TABLE: QParameterTable = {
     },
   ],
   notes: [
-    'Add 1 when the mean spacing of the relevant set is more than 3 m (qValue option jrSpacingOver3m).',
+    // Applied by qValue's jrSpacingOver3m option.
+    'Add 1 when the mean spacing of the relevant set is more than 3 m.',
     '0.5 may be used for planar slickensided joints whose lineations point along the sliding direction.',
     'Read the small-scale feature first, then the intermediate scale.',
   ],
@@ -188,7 +191,8 @@ export const Q_JA_TABLE: QParameterTable = {
       group: 'walls in contact, coatings only',
       description: 'Fresh walls, only surface staining',
       value: 1,
-      extra: 'φr 25–35° (from memory)',
+      extra: 'φr 25–35°',
+      extraCheck: 'from memory',
       check: 'seen',
     },
     {
@@ -196,7 +200,8 @@ export const Q_JA_TABLE: QParameterTable = {
       group: 'walls in contact, coatings only',
       description: 'Slightly altered walls, non-softening coatings, sandy or disintegrated clay-free rock',
       value: 2,
-      extra: 'φr 25–30° (from memory)',
+      extra: 'φr 25–30°',
+      extraCheck: 'from memory',
       check: 'seen',
     },
     {
@@ -295,7 +300,8 @@ export const Q_JA_TABLE: QParameterTable = {
   ],
   notes: [
     'φr is the approximate residual friction angle of the joint surface.',
-    'The thick-filling rows follow the 2013/2015 wording (from memory); the 1974/1993 tables group them slightly differently (with an extra 5 for silty or sandy clay zones).',
+    // The thick-filling rows follow the 2013/2015 wording (from memory).
+    'The thick-filling rows follow the 2015 handbook; the 1974 and 1993 tables group them slightly differently (with an extra 5 for silty or sandy clay zones).',
   ],
 };
 

@@ -329,3 +329,20 @@ describe('Jn against the sets found and the random-joints flag (warning, not ref
     expect(() => jnRowForSets(-1, false)).toThrow(RatingError);
   });
 });
+
+describe('Q tables as shown on screen (issue 19, item 6)', () => {
+  it('say what a geologist needs: no option names and no source checks in the shown text', () => {
+    const shown = Q_TABLES.flatMap((t) => [
+      t.title,
+      ...t.notes,
+      ...t.rows.flatMap((r) => [r.description, r.extra ?? '', r.group ?? '']),
+    ]);
+    expect(shown.length).toBeGreaterThan(50);
+    for (const text of shown) {
+      expect(text).not.toMatch(/from memory|seen in|option\s+[a-z]+[A-Z]|\b[a-z]+[A-Z][a-zA-Z]*\b/);
+    }
+    // The check stays in the data, beside the value it is about.
+    const ja = Q_TABLES.find((t) => t.parameter === 'ja');
+    expect(ja?.rows.filter((r) => r.extraCheck === 'from memory').length).toBe(2);
+  });
+});

@@ -6,6 +6,7 @@ import {
   ErrorCircleRegular,
   PlugConnectedRegular,
 } from '@fluentui/react-icons';
+import { formatProjectTime } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useEffect, useState, useSyncExternalStore } from 'react';
 import type { SyncStatus } from '@/lib/sync/autosave';
@@ -63,7 +64,7 @@ function ago(at: number, now: number): string {
   if (s < 45) return 'just now';
   const m = Math.round(s / 60);
   if (m < 60) return `${m} min ago`;
-  return new Date(at).toLocaleString('en-GB', { dateStyle: 'short', timeStyle: 'short' });
+  return formatProjectTime(new Date(at), Intl.DateTimeFormat().resolvedOptions().timeZone);
 }
 
 export function SyncBarView({

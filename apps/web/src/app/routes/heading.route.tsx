@@ -123,7 +123,12 @@ export function HeadingRoute() {
           role={project.role}
         />
       ) : tab === 'hazards' ? (
-        <HazardRegister projectId={projectId} heading={heading} role={project.role} />
+        <HazardRegister
+          projectId={projectId}
+          heading={heading}
+          role={project.role}
+          timeZone={project.timeZone}
+        />
       ) : (
         <RoundsTable projectId={projectId} heading={heading} />
       )}

@@ -164,6 +164,7 @@ export function RoundRoute() {
       <PhotosSection
         projectId={projectId}
         roundId={round.id}
+        timeZone={project.timeZone}
         canEdit={
           (project.role === 'geologist' || project.role === 'admin') &&
           (round.status === 'draft' || round.status === 'returned')

@@ -88,10 +88,14 @@ beforeEach(() => saveSession(adminSession));
 describe('HazardRegister', () => {
   it('lists open hazards first with level as colour, mark and word, then closed ones with who closed them and why', async () => {
     mockApi({ [`GET ${BASE}`]: register });
-    renderWithProviders(<HazardRegister projectId="p-1" heading={heading} role="viewer" />);
+    renderWithProviders(
+      <HazardRegister projectId="p-1" heading={heading} role="viewer" timeZone="Asia/Kathmandu" />,
+    );
     const open = await screen.findByRole('list', { name: 'Open hazards' });
     const items = within(open).getAllByRole('listitem');
     expect(items).toHaveLength(2);
+    // One date style, in the project's time zone (issue 19, item 7): 06:10 UTC is 11:55 in Kathmandu.
+    expect(items[0]).toHaveTextContent('1 Dec 2026, 11:55');
     expect(items[0]).toHaveTextContent('Wedge');
     expect(items[0]).toHaveTextContent('1+040.0 – 1+043.0');
     expect(items[0]).toHaveTextContent('Raised on round 12 by Invented Geologist');

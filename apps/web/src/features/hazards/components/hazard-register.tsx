@@ -18,6 +18,7 @@ import {
 import { CheckmarkRegular } from '@fluentui/react-icons';
 import {
   formatChainageFor,
+  formatProjectTime,
   HAZARD_CLOSING_ROLES,
   hazardKindLabels,
   hazardOriginLabels,
@@ -36,6 +37,8 @@ export interface HazardRegisterProps {
   role: ProjectRole;
   /** The heading's latest face, to start a new hazard's range from (null: no round yet). */
   faceChainage?: number | null;
+  /** The project's time zone: every time is shown in it (packages/domain formatProjectTime). */
+  timeZone?: string;
 }
 
 const useStyles = makeStyles({
@@ -63,9 +66,6 @@ const useStyles = makeStyles({
   actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM },
   dialog: { maxWidth: '44rem' },
 });
-
-const dateTime = (iso: string) =>
-  new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
 function rangeText(h: Hazard, heading: Heading): string {
   const from = formatChainageFor(h.fromChainage, heading);
@@ -178,9 +178,11 @@ function HazardCard({
   heading,
   canClose,
   onClose,
+  timeZone,
 }: {
   hazard: Hazard;
   heading: Heading;
+  timeZone: string;
   canClose: boolean;
   onClose: () => void;
 }) {
@@ -199,14 +201,14 @@ function HazardCard({
         <p className={styles.text}>{hazard.description}</p>
         <p className={styles.meta}>
           {origin(hazard)} by {hazard.raisedByName ?? 'someone no longer in the project'},{' '}
-          {dateTime(hazard.raisedAt)}
+          {formatProjectTime(hazard.raisedAt, timeZone)}
           {hazard.photoIds.length > 0 &&
             ` · ${hazard.photoIds.length} photo${hazard.photoIds.length === 1 ? '' : 's'}`}
         </p>
         {!open && hazard.closedAt !== null && (
           <p className={styles.meta}>
-            Closed by {hazard.closedByName ?? 'someone no longer in the project'}, {dateTime(hazard.closedAt)}
-            : {hazard.closeReason}
+            Closed by {hazard.closedByName ?? 'someone no longer in the project'},{' '}
+            {formatProjectTime(hazard.closedAt, timeZone)}: {hazard.closeReason}
           </p>
         )}
         {open && canClose && (
@@ -222,7 +224,14 @@ function HazardCard({
 }
 
 /** The Hazards tab of a heading: open hazards first (level by colour, shape and word), then closed ones. */
-export function HazardRegister({ projectId, heading, role, faceChainage = null }: HazardRegisterProps) {
+export function HazardRegister({
+  projectId,
+  heading,
+  role,
+  faceChainage = null,
+  timeZone,
+}: HazardRegisterProps) {
+  const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   const styles = useStyles();
   const { data, isPending, isError, refetch } = useHazards(projectId, heading.id);
   const [closing, setClosing] = useState<Hazard | null>(null);
@@ -263,6 +272,7 @@ export function HazardRegister({ projectId, heading, role, faceChainage = null }
               key={h.id}
               hazard={h}
               heading={heading}
+              timeZone={zone}
               canClose={canClose}
               onClose={() => setClosing(h)}
             />
@@ -278,6 +288,7 @@ export function HazardRegister({ projectId, heading, role, faceChainage = null }
                 key={h.id}
                 hazard={h}
                 heading={heading}
+                timeZone={zone}
                 canClose={false}
                 onClose={() => undefined}
               />

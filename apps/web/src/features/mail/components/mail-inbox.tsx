@@ -10,6 +10,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { ArrowDownloadRegular, AttachRegular } from '@fluentui/react-icons';
+import { formatProjectTime } from '@roundbook/domain';
 import { EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useState } from 'react';
 import type { MailMessage } from '@/api/contract';
@@ -106,7 +107,7 @@ const useStyles = makeStyles({
 function formatMailDate(iso: string): string {
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return iso;
-  return new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'medium' }).format(date);
+  return formatProjectTime(date, Intl.DateTimeFormat().resolvedOptions().timeZone);
 }
 
 function MessageDetail({ message }: { message: MailMessage }) {

@@ -23,6 +23,7 @@ import {
   DeleteRegular,
   DismissRegular,
 } from '@fluentui/react-icons';
+import { formatProjectTime } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
@@ -101,10 +102,13 @@ export interface PhotosSectionProps {
   roundId: string;
   /** Geologist or admin of the project, and the round is editable */
   canEdit: boolean;
+  /** The project's time zone: times taken are shown in it. */
+  timeZone?: string;
 }
 
 /** Photos of a round: add from the camera or files, a gallery with caption and part, a full-screen view. */
-export function PhotosSection({ projectId, roundId, canEdit }: PhotosSectionProps) {
+export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosSectionProps) {
+  const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   const styles = useStyles();
   const queryClient = useQueryClient();
   const at = { projectId, roundId };
@@ -252,7 +256,14 @@ export function PhotosSection({ projectId, roundId, canEdit }: PhotosSectionProp
       {list.length === 0 && photos.isSuccess && <Text>No photos of this round yet.</Text>}
       <div className={styles.gallery}>
         {list.map((photo, i) => (
-          <PhotoCard key={photo.id} at={at} photo={photo} canEdit={canEdit} onOpen={() => setViewing(i)} />
+          <PhotoCard
+            key={photo.id}
+            at={at}
+            photo={photo}
+            canEdit={canEdit}
+            timeZone={zone}
+            onOpen={() => setViewing(i)}
+          />
         ))}
       </div>
       {viewing !== null && list[viewing] && (
@@ -277,10 +288,12 @@ function PhotoCard({
   photo,
   canEdit,
   onOpen,
+  timeZone,
 }: {
   at: { projectId: string; roundId: string };
   photo: Photo;
   canEdit: boolean;
+  timeZone: string;
   onOpen: () => void;
 }) {
   const styles = useStyles();
@@ -307,7 +320,7 @@ function PhotoCard({
         )}
       </button>
       <Caption1>
-        {photo.takenAt ? `Taken ${new Date(photo.takenAt).toLocaleString()}` : 'Time taken unknown'}
+        {photo.takenAt ? `Taken ${formatProjectTime(photo.takenAt, timeZone)}` : 'Time taken unknown'}
         {photo.uploadedByName ? ` · ${photo.uploadedByName}` : ''}
         {photo.variantState === 'pending' ? ' · thumbnail being made' : ''}
       </Caption1>

@@ -9,6 +9,8 @@ export interface RatingResultProps {
   saved: RatingOutcome;
   format: (value: number) => string;
   testId: string;
+  /** Cautions that qualify this value (e.g. RQD estimated from Jv), shown beside it. */
+  notes?: readonly string[];
 }
 
 const useStyles = makeStyles({
@@ -41,6 +43,11 @@ const useStyles = makeStyles({
     '& dd': { margin: 0, fontWeight: tokens.fontWeightSemibold },
   },
   saved: { color: tokens.colorNeutralForeground2 },
+  note: {
+    fontWeight: tokens.fontWeightSemibold,
+    borderLeft: `${tokens.strokeWidthThicker} solid ${tokens.colorPaletteMarigoldBorderActive}`,
+    paddingLeft: tokens.spacingHorizontalS,
+  },
 });
 
 /** What each `parts` key stands for, in Roundbook's words. */
@@ -70,7 +77,7 @@ export const PART_LABELS: Record<string, string> = {
 const round = (v: number) => String(Math.round(v * 1000) / 1000);
 
 /** One rating: the value, its class, and the inputs it came from. */
-export function RatingResult({ title, live, saved, format, testId }: RatingResultProps) {
+export function RatingResult({ title, live, saved, format, testId, notes = [] }: RatingResultProps) {
   const styles = useStyles();
   const parts = Object.entries(live.parts);
   const differs = saved.value !== live.value;
@@ -85,6 +92,12 @@ export function RatingResult({ title, live, saved, format, testId }: RatingResul
       ) : (
         <Text className={live.error ? styles.error : styles.saved}>{live.error ?? 'Not rated yet'}</Text>
       )}
+      {live.value !== null &&
+        notes.map((n) => (
+          <Text key={n} className={styles.note} data-testid={`${testId}-caution`}>
+            {n}
+          </Text>
+        ))}
       {parts.length > 0 && (
         <dl className={styles.parts}>
           {parts.map(([key, value]) => (

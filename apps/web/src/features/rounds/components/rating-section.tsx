@@ -7,7 +7,6 @@ import {
   makeStyles,
   MessageBar,
   MessageBarBody,
-  MessageBarTitle,
   Select,
   Subtitle2,
   Text,
@@ -18,7 +17,7 @@ import {
   formatPlane,
   Q_EDITION,
   Q_TABLES,
-  RATING_CAUTIONS,
+  ratingCaution,
   RMR89_CONDITION_SIMPLE,
   RMR89_EDITION,
   RMR_ORIENTATION_RULE,
@@ -30,9 +29,11 @@ import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
 import { useState } from 'react';
 import type { RoundRatings } from '@/features/rounds/api/types';
+import { CarriedNote } from '@/features/rounds/components/carried-note';
 import { RatingResult } from '@/features/rounds/components/rating-results';
 import { ChoiceField, NumberField, useRoundEdit } from '@/features/rounds/components/round-fields';
-import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
+import type { CarriedInputs } from '@/features/rounds/hooks/use-carried-inputs';
+import { numberOf, type RoundFormValues } from '@/features/rounds/schemas/round-form';
 import {
   qLocationLabels,
   rmrRoughnessOptions,
@@ -49,6 +50,11 @@ export interface RatingSectionProps {
   /** Inflow per 10 m of tunnel from the Ground record as typed (for the RMR89 groundwater rating). */
   inflowPer10m: number | null;
   driveTrend: number;
+  /** Values carried in from Ground and Joints (useCarriedInputs), by input. */
+  carried?: CarriedInputs;
+  /** The Jv–RQD correlation used for the carried RQD and the estimate below. */
+  jvEdition?: JvEdition;
+  onJvEditionChange?: (edition: JvEdition) => void;
 }
 
 const useStyles = makeStyles({
@@ -76,7 +82,11 @@ const useStyles = makeStyles({
   edition: { color: tokens.colorNeutralForeground2, fontStyle: 'italic' },
   toggle: { display: 'flex', gap: tokens.spacingHorizontalS },
   suggestion: { fontWeight: tokens.fontWeightSemibold },
+  footer: { color: tokens.colorNeutralForeground2 },
 });
+
+/** Beside each table's edition line (the editions-differ caution, short). */
+const EDITIONS_NOTE = 'Other editions give other values for some rows; quote this one with the rating.';
 
 const formatQ = (q: number) =>
   q >= 100 ? q.toFixed(0) : q >= 10 ? q.toFixed(1) : q >= 1 ? q.toFixed(2) : q.toPrecision(2);
@@ -130,11 +140,21 @@ function QTableChoice({ table }: { table: QParameterTable }) {
 }
 
 /** Q, RMR89 and GSI: inputs from the published tables, values computed live with geomath, with their inputs. */
-export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: RatingSectionProps) {
+export function RatingSection({
+  live,
+  saved,
+  sets,
+  driveTrend,
+  carried = {},
+  jvEdition: jvEditionProp,
+  onJvEditionChange,
+}: RatingSectionProps) {
   const styles = useStyles();
   const { values, setFieldValue } = useFormikContext<RoundFormValues>();
   const { readOnly, serverErrors } = useRoundEdit();
-  const [jvEdition, setJvEdition] = useState<JvEdition>(1982);
+  const [jvEditionOwn, setJvEditionOwn] = useState<JvEdition>(1982);
+  const jvEdition = jvEditionProp ?? jvEditionOwn;
+  const setJvEdition = onJvEditionChange ?? setJvEditionOwn;
   const jv = jvOfSets(sets);
   let rqdEstimate: ReturnType<typeof rqdEstimateFromJv> | null = null;
   try {
@@ -143,20 +163,30 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
     rqdEstimate = null;
   }
   const worst = worstOrientation(sets);
-  const cautions = RATING_CAUTIONS.filter((c) =>
-    ['empirical-aids', 'editions-differ', 'rqd-from-jv', 'orientation-rule'].includes(c.id),
-  );
+  // RQD from Jv is a correlation: said on each rating that uses it, once.
+  const rqdFromJvNote = 'RQD estimated from Jv — a correlation, not a measurement.';
+  const qNotes = values.q.rqdFromJv && values.q.rqd.trim() !== '' ? [rqdFromJvNote] : [];
+  const rmrNotes =
+    carried.rmrRqd !== undefined && numberOf(values.rmr.rqd) === carried.rmrRqd.value ? [rqdFromJvNote] : [];
 
   return (
     <section className={styles.root} aria-label="Rating">
       <div className={styles.results}>
-        <RatingResult title="Q" live={live.q} saved={saved.q} format={formatQ} testId="rating-q" />
+        <RatingResult
+          title="Q"
+          live={live.q}
+          saved={saved.q}
+          format={formatQ}
+          testId="rating-q"
+          notes={qNotes}
+        />
         <RatingResult
           title="RMR89"
           live={live.rmr}
           saved={saved.rmr}
           format={(v) => v.toFixed(0)}
           testId="rating-rmr"
+          notes={rmrNotes}
         />
         <RatingResult
           title="GSI"
@@ -174,7 +204,9 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
 
       <div className={styles.block}>
         <Subtitle2 as="h3">Q parameters</Subtitle2>
-        <Caption1 className={styles.edition}>{`Tables: ${Q_EDITION.name}.`}</Caption1>
+        <Caption1 className={styles.edition}>
+          {`Tables: ${Q_EDITION.name}.`} {EDITIONS_NOTE}
+        </Caption1>
         <div className={styles.grid}>
           {Q_TABLES.map((table) => (
             <QTableChoice key={table.parameter} table={table} />
@@ -184,9 +216,18 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
             label="RQD as measured or estimated"
             unit="%"
             hint={
-              values.q.rqdFromJv
-                ? 'estimated from Jv — a correlation'
-                : 'the table band sets its middle; type the value if known'
+              carried.qRqd !== undefined && values.q.rows.rqd === undefined ? (
+                <CarriedNote
+                  field="q.rqd"
+                  carried={carried.qRqd}
+                  unit="%"
+                  onUse={() => void setFieldValue('q.rqdFromJv', true)}
+                />
+              ) : values.q.rqdFromJv ? (
+                'estimated from Jv — a correlation'
+              ) : (
+                'the table band sets its middle; type the value if known'
+              )
             }
             onValueChange={() => void setFieldValue('q.rqdFromJv', false)}
           />
@@ -216,6 +257,11 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
           ) : (
             <div className={styles.row}>
               <Text>{`Jv = ${jv.jv.toFixed(2)} joints/m³ from spacings ${jv.spacings.map((s) => s.toFixed(2)).join(', ')} m`}</Text>
+              {carried.rmrRqd?.caution != null && (
+                <Text weight="semibold" data-testid="rqd-optimistic">
+                  {carried.rmrRqd.caution}
+                </Text>
+              )}
               <Select
                 className={styles.select}
                 aria-label="Jv–RQD correlation"
@@ -255,7 +301,9 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
 
       <div className={styles.block}>
         <Subtitle2 as="h3">RMR89 ratings</Subtitle2>
-        <Caption1 className={styles.edition}>{`${RMR89_EDITION}.`}</Caption1>
+        <Caption1 className={styles.edition}>
+          {`${RMR89_EDITION}.`} {EDITIONS_NOTE}
+        </Caption1>
         <div className={styles.grid}>
           <ChoiceField
             name="rmr.strengthKind"
@@ -270,13 +318,25 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
               name="rmr.is50"
               label="Is50"
               unit="MPa"
-              hint={values.pointLoadIs50 ? `Ground section: ${values.pointLoadIs50} MPa` : undefined}
+              hint={carried.is50 && <CarriedNote field="rmr.is50" carried={carried.is50} unit="MPa" />}
             />
           ) : (
             <NumberField name="rmr.ucs" label="UCS" unit="MPa" />
           )}
-          <NumberField name="rmr.rqd" label="RQD" unit="%" />
-          <NumberField name="rmr.spacingM" label="Spacing of discontinuities" unit="m" />
+          <NumberField
+            name="rmr.rqd"
+            label="RQD"
+            unit="%"
+            hint={carried.rmrRqd && <CarriedNote field="rmr.rqd" carried={carried.rmrRqd} unit="%" />}
+          />
+          <NumberField
+            name="rmr.spacingM"
+            label="Spacing of discontinuities"
+            unit="m"
+            hint={
+              carried.spacingM && <CarriedNote field="rmr.spacingM" carried={carried.spacingM} unit="m" />
+            }
+          />
         </div>
         <div className={styles.toggle} role="radiogroup" aria-label="Joint condition">
           {(['simple', 'detailed'] as const).map((k) => (
@@ -350,9 +410,9 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
               label="Inflow per 10 m"
               unit="l/min"
               hint={
-                inflowPer10m === null
-                  ? undefined
-                  : `Ground section, as saved: ${Math.round(inflowPer10m * 10) / 10} l/min`
+                carried.inflowPer10m && (
+                  <CarriedNote field="rmr.inflowPer10m" carried={carried.inflowPer10m} unit="l/min" />
+                )
               }
             />
           )}
@@ -436,16 +496,11 @@ export function RatingSection({ live, saved, sets, inflowPer10m, driveTrend }: R
         </div>
       </div>
 
-      <div data-testid="rating-cautions">
-        {cautions.map((c) => (
-          <MessageBar key={c.id} intent="info" layout="multiline">
-            <MessageBarBody>
-              <MessageBarTitle>{c.title}</MessageBarTitle>
-              {c.text}
-            </MessageBarBody>
-          </MessageBar>
-        ))}
-      </div>
+      {/* The cautions that qualify a value sit beside it (cards, edition lines, RQD from Jv, the orientation
+          rule); the footer keeps the one that qualifies them all, short. */}
+      <Caption1 className={styles.footer} data-testid="rating-cautions">
+        {`${ratingCaution('empirical-aids').title}: they do not prove any support adequate; the responsible engineer and the competent person decide.`}
+      </Caption1>
     </section>
   );
 }

@@ -235,7 +235,7 @@ describe('Round editor: rating and submit', () => {
     renderEditor();
     const user = setupUser();
     await user.click(screen.getByRole('tab', { name: 'Rating' }));
-    expect(screen.getByText(`Tables: ${Q_EDITION.name}.`)).toBeInTheDocument();
+    expect(screen.getByText(`Tables: ${Q_EDITION.name}.`, { exact: false })).toBeInTheDocument();
     await user.selectOptions(screen.getByLabelText('RQD from the table'), 'rqd-fair');
     await user.selectOptions(screen.getByLabelText('Jn from the table'), 'jn-two-random');
     await user.selectOptions(screen.getByLabelText('Jr from the table'), 'jr-smooth-undulating');
@@ -252,7 +252,17 @@ describe('Round editor: rating and submit', () => {
     expect(card).toHaveTextContent(`Jr used${q.jrUsed}`);
     expect(card).toHaveTextContent('Not on the server yet.');
     expect(screen.getByTestId('orientation-suggestion')).toHaveTextContent(RMR_ORIENTATION_RULE);
-    expect(screen.getByTestId('rating-cautions')).toHaveTextContent('RQD from Jv is a correlation');
+    // Cautions sit beside what they qualify, once; the footer is one short line (issue 19, item 14).
+    expect(screen.getByTestId('rating-cautions')).toHaveTextContent(
+      'Ratings are empirical aids: they do not prove any support adequate; the responsible engineer and the competent person decide.',
+    );
+    expect(screen.getAllByText(/Other editions give other values/)).toHaveLength(2);
+    expect(screen.queryByTestId('rating-q-caution')).toBeNull();
+    // No developer text on screen (issue 19, item 6): sources and option names stay in the code.
+    expect(screen.getByRole('region', { name: 'Rating' })).not.toHaveTextContent(
+      /from memory|qValue|option jr/,
+    );
+    expect(screen.getByLabelText('Ja from the table')).toHaveTextContent('φr 25–35°');
     await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
     expect(saves[0].qInput).toMatchObject({ rqd: 62.5, jn: 6, jr: 2, ja: 1, jw: 1, srf: 1 });
   });

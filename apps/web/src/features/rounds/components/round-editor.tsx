@@ -12,6 +12,7 @@ import {
 } from '@fluentui/react-components';
 import type { RoundAssessment, RoundRecordInput, SketchDocument } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
+import type { JvEdition } from '@roundbook/geomath';
 import { PageHeader } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
 import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
@@ -27,6 +28,7 @@ import { RoundEditContext } from '@/features/rounds/components/round-fields';
 import { SaveStateBadge } from '@/features/rounds/components/save-state';
 import { SupportSection } from '@/features/rounds/components/support-section';
 import { TriggerPanel } from '@/features/rounds/components/trigger-panel';
+import { useCarriedInputs } from '@/features/rounds/hooks/use-carried-inputs';
 import type { RoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import { useRoundAutosave } from '@/features/rounds/hooks/use-round-autosave';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
@@ -216,6 +218,15 @@ function RoundEditorBody({
       }),
     [values, server, project, heading, supportClasses, nearbyJoints, rules],
   );
+
+  // Is50, RQD, spacing and inflow typed in Ground and Joints, carried into the rating inputs.
+  const [jvEdition, setJvEdition] = useState<JvEdition>(1982);
+  const carried = useCarriedInputs({
+    sets: assessment.sets.sets,
+    inflowPer10m: assessment.inflowPer10m,
+    readOnly,
+    jvEdition,
+  });
 
   const serverErrors = { ...autosave.fieldErrors, ...submitErrors };
   const errorSections = new Set(Object.keys(serverErrors).map(sectionOfField));
@@ -456,6 +467,9 @@ function RoundEditorBody({
             sets={assessment.sets.sets}
             inflowPer10m={assessment.inflowPer10m}
             driveTrend={heading.driveTrend}
+            carried={carried}
+            jvEdition={jvEdition}
+            onJvEditionChange={setJvEdition}
           />
         )}
         {section === 'support' && (

@@ -1,3 +1,4 @@
+import { formatProjectTime } from '@roundbook/domain';
 import type { VersionDifference } from '@roundbook/ui';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
@@ -83,7 +84,9 @@ const payloadOf = (values: RoundFormValues, fallback: number): Payload => {
   return rest;
 };
 
-const when = (ms: number) => new Date(ms).toLocaleString('en-GB');
+/** A moment in the style of every screen (packages/domain), in this device's zone (no project here). */
+const when = (ms: number) =>
+  formatProjectTime(new Date(ms), Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 /**
  * The Round editor's side of the autosave engine (`lib/sync`): one engine per open round, the server's

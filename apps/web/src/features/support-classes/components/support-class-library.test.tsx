@@ -77,6 +77,36 @@ describe('SupportClassLibrary', () => {
     expect(await screen.findByRole('row', { name: 'KB Blocky rock' })).toHaveTextContent('Retired');
   });
 
+  it('says a move at once and undoes it with one tap (issue 19, item 8)', async () => {
+    const orders: string[][] = [];
+    mockApi({
+      'GET /api/projects/p-1/support-classes': library,
+      'PUT /api/projects/p-1/support-classes/order': async (request) => {
+        const { ids } = (await request.json()) as { ids: string[] };
+        orders.push(ids);
+        const byId = new Map(library.classes.map((c) => [c.id, c]));
+        return jsonResponse({ ...library, classes: ids.map((id) => byId.get(id)!) });
+      },
+    });
+    const user = userEvent.setup();
+    renderLibrary();
+    const row = await screen.findByRole('row', { name: 'KB Blocky rock' });
+    await user.click(within(row).getByRole('button', { name: 'Move KB up' }));
+    const note = await screen.findByTestId('class-moved');
+    expect(note).toHaveTextContent(
+      'KB moved up, to place 1 of 2. The suggestions read the classes in this order.',
+    );
+    expect(orders).toEqual([['c-2', 'c-1']]);
+    await user.click(within(note).getByRole('button', { name: 'Undo' }));
+    await waitFor(() =>
+      expect(orders).toEqual([
+        ['c-2', 'c-1'],
+        ['c-1', 'c-2'],
+      ]),
+    );
+    expect(screen.queryByTestId('class-moved')).toBeNull();
+  });
+
   it('asks before deleting, from the "more" menu', async () => {
     mockApi({ 'GET /api/projects/p-1/support-classes': library });
     const user = userEvent.setup();

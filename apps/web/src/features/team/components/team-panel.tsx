@@ -48,7 +48,8 @@ const useStyles = makeStyles({
   wrap: { overflowX: 'auto' },
   button: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   select: { minWidth: '11rem', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
-  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalXS },
+  // 48 px targets with 8 px between them (a gloved tap does not hit the neighbour).
+  actions: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
   invite: {
     display: 'grid',
     gridTemplateColumns: 'repeat(auto-fill, minmax(14rem, 1fr))',
@@ -135,6 +136,8 @@ export function TeamPanel({ projectId, canEdit, myUserId, timeZone }: TeamPanelP
   const [problem, setProblem] = useState<string | null>(null);
   const [removing, setRemoving] = useState<TeamMember | null>(null);
   const [removeError, setRemoveError] = useState<string | null>(null);
+  const [withdrawing, setWithdrawing] = useState<{ id: string; email: string } | null>(null);
+  const [withdrawError, setWithdrawError] = useState<string | null>(null);
 
   const act = async (run: () => Promise<unknown>) => {
     setProblem(null);
@@ -142,6 +145,19 @@ export function TeamPanel({ projectId, canEdit, myUserId, timeZone }: TeamPanelP
       await run();
     } catch (error) {
       setProblem(isApiError(error) ? error.message : 'That did not work. Try again.');
+    }
+  };
+
+  const confirmWithdraw = async () => {
+    if (withdrawing === null) return;
+    setWithdrawError(null);
+    try {
+      await change.mutateAsync({ kind: 'withdraw', invitationId: withdrawing.id });
+      setWithdrawing(null);
+    } catch (error) {
+      setWithdrawError(
+        isApiError(error) ? error.message : 'The invitation could not be withdrawn. Try again.',
+      );
     }
   };
 
@@ -298,9 +314,10 @@ export function TeamPanel({ projectId, canEdit, myUserId, timeZone }: TeamPanelP
                             icon={<DeleteRegular />}
                             disabled={change.isPending}
                             aria-label={`Withdraw the invitation to ${i.email}`}
-                            onClick={() =>
-                              void act(() => change.mutateAsync({ kind: 'withdraw', invitationId: i.id }))
-                            }
+                            onClick={() => {
+                              setWithdrawError(null);
+                              setWithdrawing({ id: i.id, email: i.email });
+                            }}
                           >
                             Withdraw
                           </Button>
@@ -324,6 +341,17 @@ export function TeamPanel({ projectId, canEdit, myUserId, timeZone }: TeamPanelP
         </section>
       )}
 
+      <ConfirmDialog
+        open={withdrawing !== null}
+        title={`Withdraw the invitation to ${withdrawing?.email ?? ''}?`}
+        confirmLabel="Withdraw the invitation"
+        busy={change.isPending}
+        problem={withdrawError}
+        onConfirm={() => void confirmWithdraw()}
+        onCancel={() => setWithdrawing(null)}
+      >
+        <p>The link in their e-mail stops working at once. You can invite them again at any time.</p>
+      </ConfirmDialog>
       <ConfirmDialog
         open={removing !== null}
         title={`Remove ${removing?.name ?? ''} from the project?`}
