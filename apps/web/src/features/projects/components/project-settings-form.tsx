@@ -144,9 +144,9 @@ function SeparationOfDuties({ disabled }: { disabled: boolean }) {
         onChange={(_, data) => void formik.setFieldValue('separationOfDuties', data.checked === true)}
       />
       <p className={styles.explain}>
-        On (the default): a geologist who also holds the engineer role may return their own round but
-        another engineer of the project confirms it. Off: any engineer may confirm any round, their own
-        included. Either way every decision is signed and kept in the audit trail.
+        On (the default): a geologist who also holds the engineer role may return their own round but another
+        engineer of the project confirms it. Off: any engineer may confirm any round, their own included.
+        Either way every decision is signed and kept in the audit trail.
       </p>
     </div>
   );
