@@ -91,8 +91,12 @@ function ruleMinHeight(element: Element): string | null {
 
 let requests: URL[] = [];
 
+/** Joints a test adds to the window's answer. */
+let extra: WindowJoint[] = [];
+
 beforeEach(() => {
   requests = [];
+  extra = [];
   mockApi({
     'GET /api/projects/p-1/headings/h-1/rounds': (request: Request) => {
       const sort = new URL(request.url).searchParams.get('sort');
@@ -104,7 +108,7 @@ beforeEach(() => {
       requests.push(url);
       const from = Number(url.searchParams.get('fromChainage'));
       const to = Number(url.searchParams.get('toChainage'));
-      return jsonResponse(all.filter((j) => j.faceChainage >= from && j.faceChainage <= to));
+      return jsonResponse([...all, ...extra].filter((j) => j.faceChainage >= from && j.faceChainage <= to));
     },
   });
 });
@@ -174,6 +178,19 @@ describe('HeadingOrientation', () => {
       .getAllByRole('row')
       .slice(1);
     expect(rows).toHaveLength(1);
+  });
+
+  it('counts a fault linked across two faces once, at its later face (issue 10 item 2)', async () => {
+    // The fault j-41 (020/15 at 1+240) mapped again at 1+248 and linked to its first sighting.
+    extra = [{ ...joint(42, 1248, 'fault', 24, 17), sameAsJointId: 'j-41' }];
+    renderTab();
+    await screen.findByRole('table', { name: 'Sets' });
+    expect(
+      screen.getByText(
+        /24 of 25 poles .*; 1 earlier sighting of features mapped again on a later face is counted once/,
+      ),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('img', { name: /24 poles/ })).toBeInTheDocument();
   });
 
   it('reads a pole in every notation, with its round', async () => {

@@ -13,7 +13,14 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { JointKind } from '@roundbook/domain';
-import { JOINT_KINDS, driveTrendAt, formatChainageFor, jointKindLabels, senseSign } from '@roundbook/domain';
+import {
+  JOINT_KINDS,
+  driveTrendAt,
+  formatChainageFor,
+  jointKindLabels,
+  onePerFeature,
+  senseSign,
+} from '@roundbook/domain';
 import type { Drive, TerzaghiSampling } from '@roundbook/geomath';
 import {
   TERZAGHI_SAMPLING_LABELS,
@@ -139,7 +146,14 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
     return { trend: driveTrendAt(heading, faceEnd), plunge: driveOf(heading).plunge };
   }, [applied, heading]);
 
-  const shown = useMemo(() => (joints.data ?? []).filter((j) => !hidden.has(j.kind)), [joints.data, hidden]);
+  // A feature linked across faces ("same feature as") is one pole, at its latest face: the window's sets,
+  // densities and Terzaghi weights count it once (issue 10 item 2; the rule is onePerFeature's).
+  const visible = useMemo(
+    () => (joints.data ?? []).filter((j) => !hidden.has(j.kind)),
+    [joints.data, hidden],
+  );
+  const shown = useMemo(() => onePerFeature(visible, (a, b) => a.roundNumber - b.roundNumber), [visible]);
+  const folded = visible.length - shown.length;
   const analysis = useMemo(
     () => analyse(projectId, shown, drive, sampling, chainage),
     [projectId, shown, drive, sampling, chainage],
@@ -167,6 +181,9 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
     `${chainage(applied.toChainage)}` +
     (hidden.size > 0
       ? ` (hidden: ${[...hidden].map((k) => jointKindLabels[k].toLowerCase()).join(', ')})`
+      : '') +
+    (folded > 0
+      ? `; ${folded} earlier sighting${folded === 1 ? '' : 's'} of features mapped again on a later face ${folded === 1 ? 'is' : 'are'} counted once, at the latest face`
       : '') +
     `. Sets W1, W2, … are found over this window (largest first); they are not yet matched to the set labels of the rounds.` +
     (count >= WINDOW_JOINT_LIMIT
