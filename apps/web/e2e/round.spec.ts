@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
+import { formatQ } from '@roundbook/domain';
 import {
   Q_JA_TABLE,
   Q_JN_TABLE,
@@ -181,7 +182,8 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
     srf: row(Q_SRF_TABLE, 'srf-medium-stress'),
   });
   const qCard = page.getByTestId('rating-q');
-  await expect(qCard).toContainText(q.q.toFixed(2));
+  // Q as every screen prints it (domain formatQ: two significant figures below 10).
+  await expect(qCard).toContainText(formatQ(q.q));
   await expect(qCard).toContainText(q.rockClass);
   await expect(qCard).toContainText(`RQD used${q.rqdUsed}`);
   await expect(qCard).toContainText(`Jn used${q.jnUsed}`);

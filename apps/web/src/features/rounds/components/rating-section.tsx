@@ -12,7 +12,7 @@ import {
   Text,
   tokens,
 } from '@fluentui/react-components';
-import { formatAzimuth, jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
+import { formatAzimuth, formatQ, jvOfSets, worstOrientation, type RoundSet } from '@roundbook/domain';
 import {
   formatPlane,
   Q_EDITION,
@@ -87,9 +87,6 @@ const useStyles = makeStyles({
 
 /** Beside each table's edition line (the editions-differ caution, short). */
 const EDITIONS_NOTE = 'Other editions give other values for some rows; quote this one with the rating.';
-
-const formatQ = (q: number) =>
-  q >= 100 ? q.toFixed(0) : q >= 10 ? q.toFixed(1) : q >= 1 ? q.toFixed(2) : q.toPrecision(2);
 
 /** A Q parameter chosen from its published table (rows grouped as the table groups them). */
 function QTableChoice({ table }: { table: QParameterTable }) {

@@ -1,3 +1,4 @@
+import { formatQ } from '@roundbook/domain';
 import { qValue, Q_EDITION, RMR_ORIENTATION_RULE } from '@roundbook/geomath';
 import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -244,8 +245,8 @@ describe('Round editor: rating and submit', () => {
     await user.selectOptions(screen.getByLabelText('SRF from the table'), 'srf-medium-stress');
     const q = qValue({ rqd: 62.5, jn: 6, jr: 2, ja: 1, jw: 1, srf: 1 });
     const card = screen.getByTestId('rating-q');
-    // Q of 10 and over is shown with one decimal.
-    expect(card).toHaveTextContent(`Q${q.q.toFixed(1)}`);
+    // Q as every screen prints it (domain formatQ: whole numbers from 10; issue 19 item 7).
+    expect(card).toHaveTextContent(`Q${formatQ(q.q)}`);
     expect(card).toHaveTextContent(q.rockClass);
     expect(card).toHaveTextContent(`RQD used${q.rqdUsed}`);
     expect(card).toHaveTextContent(`Jn used${q.jnUsed}`);

@@ -17,7 +17,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import type { BadgeProps } from '@fluentui/react-components';
-import { triggerLevelText } from '@roundbook/domain';
+import { formatQ, triggerLevelText } from '@roundbook/domain';
 import { formatChainage, parseChainage } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX, TriggerLevelBadge } from '@roundbook/ui';
 import { useState } from 'react';
@@ -64,8 +64,6 @@ const useStyles = makeStyles({
 });
 
 type SortKey = 'faceChainage' | 'shiftDate' | 'q' | 'rmr' | 'roundNumber';
-
-const formatQ = (q: number) => (q >= 10 ? q.toFixed(1) : q >= 1 ? q.toFixed(2) : q.toPrecision(2));
 
 const SORTS: readonly RoundListFilters['sort'][] = [
   'faceChainage',
