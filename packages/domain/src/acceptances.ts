@@ -135,6 +135,8 @@ export function conditionSnapshot(
     }
     case 'support-class-change':
       return base;
+    case 'round-over-class-length':
+      return { ...base, value: o.value };
   }
 }
 
@@ -206,6 +208,11 @@ export function conditionChange(
     }
     case 'support-class-change':
       return null; // the class itself is compared above
+    case 'round-over-class-length':
+      if (accepted.value === null || now.value === null) return null;
+      return now.value > accepted.value
+        ? `the round is longer: ${now.value} m against ${accepted.value} m when accepted`
+        : null;
   }
 }
 

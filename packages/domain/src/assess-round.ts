@@ -259,6 +259,8 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     })),
     sets: sets.sets.map((s) => ({ label: s.label, plane: s.mean, count: s.count })),
     ...(context.openHazards !== undefined ? { openHazards: context.openHazards } : {}),
+    roundLength: record.roundLength,
+    allowedRoundLength: previousClass?.maxRoundLength ?? null,
   };
   const qEdition = context.qTableEdition
     ? `${RATING_EDITIONS.q}; project tables: ${context.qTableEdition} edition`

@@ -32,6 +32,7 @@ export const WATCHED = [
   'crown-crossing-within',
   'support-class-change',
   'open-red-hazard',
+  'round-over-class-length',
 ] as const;
 export type Watched = (typeof WATCHED)[number];
 export const COMPARISONS = ['<', '<=', '>', '>=', '='] as const;
@@ -54,6 +55,11 @@ export const WATCH_KIND: Record<
   },
   'support-class-change': { kind: 'flag', label: 'Support class differs from the last round', unit: '' },
   'open-red-hazard': { kind: 'flag', label: 'Any open red hazard on the heading', unit: '' },
+  'round-over-class-length': {
+    kind: 'flag',
+    label: 'Round longer than the support class of the last round allows',
+    unit: '',
+  },
 };
 
 export const comparisonSymbols: Record<Comparison, string> = {
@@ -163,6 +169,13 @@ export interface RoundFacts {
    * stored before hazards were recorded, so the open-red-hazard rule is then not evaluated.
    */
   openHazards?: HazardFact[];
+  /**
+   * The round's length (face − previous face along the drive, m) and the longest round the support class
+   * of the last round of this stage allows (null: that round has no class). Absent in facts stored before
+   * the over-length rule existed, which then leaves that rule not evaluated.
+   */
+  roundLength?: number | null;
+  allowedRoundLength?: number | null;
 }
 
 export interface HeadingGeometry {
@@ -428,6 +441,26 @@ export function evaluateRuleOutcome(
           hit.reach.traceKnown ? '' : ' (trace position not recorded: from the face centre)'
         }${others ? `; ${others}` : ''}`,
       };
+    }
+    case 'round-over-class-length': {
+      // The round just excavated was built under the class of the last round (confirmed, or recommended
+      // while not yet confirmed): a longer round than that class allows is a finding, not only a warning.
+      if (round.roundLength === undefined)
+        return { state: 'not-evaluated', detail: 'the round length was not kept with these facts' };
+      if (round.previousClassId === undefined) return { state: 'clear', detail: 'first round of this stage' };
+      if (round.roundLength === null) return { state: 'not-evaluated', detail: 'no round length yet' };
+      if (round.allowedRoundLength === null || round.allowedRoundLength === undefined)
+        return { state: 'not-evaluated', detail: 'the last round has no support class yet' };
+      // Compared at the centimetres the screens print (3.50 m is not over 3.5 m).
+      const length = Math.round(round.roundLength * 100) / 100;
+      const allowed = Math.round(round.allowedRoundLength * 100) / 100;
+      return length > allowed
+        ? {
+            state: 'fired',
+            value: length,
+            detail: `The round is ${length} m long; the support class of the last round allows ${allowed} m.`,
+          }
+        : { state: 'clear' };
     }
     case 'open-red-hazard': {
       // Any open red hazard on the heading fires, wherever its range lies: a red hazard behind the face is

@@ -55,6 +55,34 @@ describe('evaluateRule', () => {
     ).toBeNull();
   });
 
+  it('flags a round longer than the class of the last round allows, at the printed centimetres (issue 11 item 3: over-length is a rule of the plan; common practice)', () => {
+    const rule = { watch: 'round-over-class-length' as const, comparison: null, threshold: null };
+    const over = { ...base, roundLength: 3.5, allowedRoundLength: 2.5 };
+    expect(evaluateRuleOutcome(rule, over, heading)).toEqual({
+      state: 'fired',
+      value: 3.5,
+      detail: 'The round is 3.5 m long; the support class of the last round allows 2.5 m.',
+    });
+    // At the limit (3.5 against 3.5, and 3.504 printed as 3.50): clear.
+    expect(evaluateRuleOutcome(rule, { ...over, allowedRoundLength: 3.5 }, heading).state).toBe('clear');
+    expect(
+      evaluateRuleOutcome(rule, { ...over, roundLength: 3.504, allowedRoundLength: 3.5 }, heading).state,
+    ).toBe('clear');
+    // First round of the stage: nothing to compare with.
+    expect(evaluateRuleOutcome(rule, { ...over, previousClassId: undefined }, heading)).toEqual({
+      state: 'clear',
+      detail: 'first round of this stage',
+    });
+    // Not evaluated, with the reason: no length yet, the last round without a class, facts from before.
+    expect(evaluateRuleOutcome(rule, { ...over, roundLength: null }, heading).detail).toBe(
+      'no round length yet',
+    );
+    expect(evaluateRuleOutcome(rule, { ...over, allowedRoundLength: null }, heading).detail).toBe(
+      'the last round has no support class yet',
+    );
+    expect(evaluateRuleOutcome(rule, base, heading).state).toBe('not-evaluated');
+  });
+
   it('flags a set striking along the drive and dipping steeply as very unfavourable (Bieniawski 1989 Table 4.1F; 30° rule)', () => {
     // Drive 060: a set dipping 70° toward 150 strikes 060, parallel to the axis → very unfavourable (methods.md §4.2 F).
     const joints = [150, 152, 148].map((dd) => ({

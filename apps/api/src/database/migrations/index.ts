@@ -21,6 +21,7 @@ import { RoundMappedIndex1796390000001 } from './1796390000001-RoundMappedIndex.
 import { JointSameFeature1796400000000 } from './1796400000000-JointSameFeature.js';
 import { RoundStatusIndexes1796420000000 } from './1796420000000-RoundStatusIndexes.js';
 import { SignInTallies1796430000000 } from './1796430000000-SignInTallies.js';
+import { OverLengthRule1796440000000 } from './1796440000000-OverLengthRule.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -47,4 +48,5 @@ export const migrations = [
   JointSameFeature1796400000000,
   RoundStatusIndexes1796420000000,
   SignInTallies1796430000000,
+  OverLengthRule1796440000000,
 ];

@@ -1489,7 +1489,7 @@ export interface components {
             version: number;
         };
         /** @enum {string} */
-        WatchedQuantity: "q" | "rmr89" | "inflow-per-10m" | "overbreak" | "adverse-orientation" | "crown-crossing-within" | "support-class-change" | "open-red-hazard";
+        WatchedQuantity: "q" | "rmr89" | "inflow-per-10m" | "overbreak" | "adverse-orientation" | "crown-crossing-within" | "support-class-change" | "open-red-hazard" | "round-over-class-length";
         /** @enum {string} */
         Comparison: "<" | "<=" | ">" | ">=" | "=";
         TriggerRuleDto: {
