@@ -42,7 +42,13 @@ test('twelve joints on a tablet: one line each, ten or more on a screen, remove 
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/$/);
-  await page.getByTestId('heading-card').filter({ hasText: 'HR-U' }).getByRole('link').click();
+  // The card's title (its other links lead to the review count and the handovers).
+  await page
+    .getByTestId('heading-card')
+    .filter({ hasText: 'HR-U' })
+    .getByRole('heading', { level: 3 })
+    .getByRole('link')
+    .click();
   await page.getByRole('button', { name: 'New round' }).click();
   const dialog = page.getByRole('region', { name: 'New round on HR-U' });
   const stages = dialog.getByRole('radio');

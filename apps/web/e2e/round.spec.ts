@@ -211,7 +211,9 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await expect(rmrCard).toContainText(`class ${rmr.rockClass}`);
   await expect(rmrCard).toContainText(`Orientation adjustment${rmr.ratings.orientation}`);
   await expect(page.getByTestId('rating-gsi')).toContainText(String(rmr.dryUnadjusted - 5));
-  await expect(page.getByTestId('rating-cautions')).toContainText('RQD from Jv is a correlation');
+  // Cautions sit beside what they qualify (issue 19 item 14): the Jv correlation on its own block, the footer short.
+  await expect(page.getByTestId('rqd-from-jv')).toContainText('a correlation, not a measurement');
+  await expect(page.getByTestId('rating-cautions')).toContainText('Ratings are empirical aids');
   await waitSaved(page);
   // The server recomputed the same values on save.
   await expect(qCard).toContainText('Same as saved on the server.');
