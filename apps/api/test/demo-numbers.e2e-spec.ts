@@ -167,6 +167,7 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
         'crown-crossing-within',
         'support-class-change',
         'open-red-hazard',
+        'round-over-class-length',
       ]),
     );
     expect(rules[0].level).toBe('red');
@@ -194,5 +195,15 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
       // so the class changes fall on HR-U#12 (spacing closing), HR-U#13 (the fault) and HR-D#7.
       expect.arrayContaining(['HR-U#12', 'HR-U#13', 'HR-D#7']),
     );
+    // Issue 11 item 3 / issue 19 item 2: the rule evaluates on every demo round, and none fires, because the demo
+    // crew keep to the allowance: the seed shortens each round to the last class's maximum (demo-rounds.ts,
+    // min(class maximum, planned length)). The firing case is in packages/domain/test/triggers.test.ts.
+    const long = await request(http)
+      .post(`${base}/trigger-rules/preview`)
+      .set(as('engineer'))
+      .send({ ...rule, watch: 'round-over-class-length' })
+      .expect(200);
+    expect(long.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
+    expect(long.body.matches).toEqual([]);
   });
 });

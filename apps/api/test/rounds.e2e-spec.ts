@@ -6,6 +6,7 @@ import type { App } from 'supertest/types';
 import { DataSource } from 'typeorm';
 import { AuditEvent } from '../src/modules/audit/audit-event.entity';
 import { Heading } from '../src/modules/headings/heading.entity';
+import { Round } from '../src/modules/rounds/round.entity';
 import { makeProject, type TestProject } from './factories';
 import { createTestApp } from './test-app';
 
@@ -123,6 +124,8 @@ describe('Rounds (e2e, real MariaDB)', () => {
       roundNumber: 1,
       previousChainage: 1000,
       plannedRoundLength: 3,
+      allowedRoundLength: null,
+      allowedByClassCode: null,
       suggestedFaceChainage: 1003,
     });
     await request(http)
@@ -425,6 +428,42 @@ describe('Rounds (e2e, real MariaDB)', () => {
     // The class is now in use: it can be retired but not deleted.
     const del = await request(http).delete(`${base}/support-classes/${scB.id}`).set(as('admin')).expect(409);
     expect(del.body.message).toMatch(/Retire it instead/);
+  });
+
+  it('suggests the next face at the smaller of the planned length and what the last round’s class allows (confirmed over recommended)', async () => {
+    const rounds = app.get(DataSource).getRepository(Round);
+    const last = await rounds.findOneOrFail({
+      where: { headingId: heading.id, stage: 'full-face' },
+      order: { roundNumber: 'DESC' },
+    });
+    const before = { recommendedClassId: last.recommendedClassId, confirmedClassId: last.confirmedClassId };
+    const byCode = new Map((await classes()).map((c) => [c.code as string, c.id as string]));
+    const next = async () =>
+      (
+        await request(http)
+          .get(`${base}/headings/${heading.id}/rounds/next?stage=full-face`)
+          .set(as('geologist'))
+          .expect(200)
+      ).body as Body;
+    try {
+      // SC-B allows 3.5 m, more than the planned 3 m: the planned length stands.
+      await rounds.update(last.id, { recommendedClassId: byCode.get('SC-B')!, confirmedClassId: null });
+      let n = await next();
+      expect(n).toMatchObject({ allowedRoundLength: 3.5, allowedByClassCode: 'SC-B', plannedRoundLength: 3 });
+      expect(n.suggestedFaceChainage).toBeCloseTo(Number(last.faceChainage) + 3, 9);
+      // Recommended SC-C (2.5 m): the suggestion shortens to 2.5 m.
+      await rounds.update(last.id, { recommendedClassId: byCode.get('SC-C')! });
+      n = await next();
+      expect(n).toMatchObject({ allowedRoundLength: 2.5, allowedByClassCode: 'SC-C' });
+      expect(n.suggestedFaceChainage).toBeCloseTo(Number(last.faceChainage) + 2.5, 9);
+      // The engineer confirmed SC-D (1.5 m): the confirmed class governs.
+      await rounds.update(last.id, { confirmedClassId: byCode.get('SC-D')! });
+      n = await next();
+      expect(n).toMatchObject({ allowedRoundLength: 1.5, allowedByClassCode: 'SC-D' });
+      expect(n.suggestedFaceChainage).toBeCloseTo(Number(last.faceChainage) + 1.5, 9);
+    } finally {
+      await rounds.update(last.id, before);
+    }
   });
 
   it("shows the heading's face chainage, last round and rounds waiting for review on the Board", async () => {

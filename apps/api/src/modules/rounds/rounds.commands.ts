@@ -24,6 +24,7 @@ import { auditDiff, objectDiff } from '../audit/audit-diff.js';
 import { AuditService } from '../audit/audit.service.js';
 import type { Heading } from '../headings/heading.entity.js';
 import { ProjectsService } from '../projects/projects.service.js';
+import { SupportClass } from '../support-classes/support-class.entity.js';
 import { SupportClassesService } from '../support-classes/support-classes.service.js';
 import type {
   CreateRoundDto,
@@ -34,6 +35,7 @@ import type {
 } from './dto/round.dto.js';
 import { Joint } from './joint.entity.js';
 import { readOrientation } from './orientation-reading.js';
+import { classOfRound } from './review-rules.js';
 import { RoundAssessor } from './round-assessor.service.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { applyTransition, assertEditable, type RoundEvent } from './round-status.js';
@@ -580,16 +582,22 @@ export class RoundsCommands {
       ...(locking ? { lock: { mode: 'pessimistic_write' as const } } : {}),
     });
     const previousChainage = last?.faceChainage ?? heading.startChainage;
+    // The round is built under the class of the last round (confirmed, else recommended): suggest the smaller of
+    // the planned length and what that class allows (issue 19 item 2).
+    const classId = last ? classOfRound(last) : null;
+    const lastClass =
+      classId === null ? null : await manager.findOne(SupportClass, { where: { id: classId } });
+    const allowed = lastClass === null ? null : Number(lastClass.maxRoundLength);
+    const length =
+      allowed === null ? heading.plannedRoundLength : Math.min(heading.plannedRoundLength, allowed);
     return {
       stage,
       roundNumber: (last?.roundNumber ?? 0) + 1,
       previousChainage,
       plannedRoundLength: heading.plannedRoundLength,
-      suggestedFaceChainage: nextFaceChainage(
-        previousChainage,
-        heading.plannedRoundLength,
-        heading.chainageSense,
-      ),
+      allowedRoundLength: allowed,
+      allowedByClassCode: lastClass?.code ?? null,
+      suggestedFaceChainage: nextFaceChainage(previousChainage, length, heading.chainageSense),
     };
   }
 

@@ -1663,11 +1663,18 @@ export interface components {
         };
         NextRoundDto: {
             stage: components["schemas"]["Stage"];
+            /** @description The longest round the support class of the last round allows (its confirmed, else recommended class) */
+            allowedRoundLength: number | null;
+            /** @description That class's code */
+            allowedByClassCode: string | null;
             roundNumber: number;
             /** @description Face chainage of the last round of this heading and stage, or the heading's start */
             previousChainage: number;
             plannedRoundLength: number;
-            /** @description previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
+            /**
+             * @description previousChainage ± the smaller of the planned round length and allowedRoundLength (by the heading's chainage
+             *     sense), as a starting value
+             */
             suggestedFaceChainage: number;
         };
         CreateRoundDto: {

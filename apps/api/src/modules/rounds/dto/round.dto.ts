@@ -613,7 +613,16 @@ export class NextRoundDto {
   /** Face chainage of the last round of this heading and stage, or the heading's start */
   previousChainage: number;
   plannedRoundLength: number;
-  /** previousChainage ± planned round length (by the heading's chainage sense), as a starting value */
+  /** The longest round the support class of the last round allows (its confirmed, else recommended class) */
+  @ApiProperty({ type: Number, nullable: true })
+  allowedRoundLength: number | null;
+  /** That class's code */
+  @ApiProperty({ type: String, nullable: true })
+  allowedByClassCode: string | null;
+  /**
+   * previousChainage ± the smaller of the planned round length and allowedRoundLength (by the heading's chainage
+   * sense), as a starting value
+   */
   suggestedFaceChainage: number;
 }
 

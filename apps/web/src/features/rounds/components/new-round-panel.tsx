@@ -93,6 +93,9 @@ export function NewRoundPanel({ projectId, heading, onCreated }: NewRoundPanelPr
         {next.data !== undefined && (
           <Text className={styles.muted} data-testid="next-round">
             {`Round ${next.data.roundNumber} of this stage. The last face was at ${formatChainage(next.data.previousChainage, style)}; planned round ${next.data.plannedRoundLength} m.`}
+            {next.data.allowedRoundLength !== null &&
+              next.data.allowedRoundLength < next.data.plannedRoundLength &&
+              ` ${next.data.allowedByClassCode ?? 'The last round’s class'} of the last round allows ${next.data.allowedRoundLength} m: the suggested face is that far on.`}
           </Text>
         )}
         <Field

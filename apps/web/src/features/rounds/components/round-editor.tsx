@@ -476,6 +476,7 @@ function RoundEditorBody({
           <SupportSection
             classes={supportClasses}
             suggestedClassIds={server.suggestedClassIds}
+            plannedRoundLength={server.plannedRoundLength}
             canSubmit={!readOnly}
             submitting={submitting}
             submitMessage={submitMessage}

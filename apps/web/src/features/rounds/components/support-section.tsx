@@ -21,6 +21,8 @@ import { valueOf } from '@/features/rounds/schemas/round-form';
 export interface SupportSectionProps {
   classes: SupportClass[];
   suggestedClassIds: string[];
+  /** The heading's planned round length: the next round length starts at it, or at the class's maximum if less */
+  plannedRoundLength?: number;
   canSubmit: boolean;
   submitting: boolean;
   submitMessage: string | null;
@@ -94,6 +96,7 @@ function range(min: number | null, max: number | null, system: string): string |
 export function SupportSection({
   classes,
   suggestedClassIds,
+  plannedRoundLength,
   canSubmit,
   submitting,
   submitMessage,
@@ -130,7 +133,16 @@ export function SupportSection({
       data-testid="support-class"
       onClick={() => {
         void setFieldValue('recommendedClassId', c.id);
-        if (values.nextRoundLength === '') void setFieldValue('nextRoundLength', String(c.maxRoundLength));
+        // The heading's planned length, unless the class allows less (issue 19 item 2).
+        if (values.nextRoundLength === '')
+          void setFieldValue(
+            'nextRoundLength',
+            String(
+              plannedRoundLength === undefined
+                ? c.maxRoundLength
+                : Math.min(plannedRoundLength, c.maxRoundLength),
+            ),
+          );
       }}
     >
       <span className={styles.top}>
