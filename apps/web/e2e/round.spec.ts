@@ -219,6 +219,11 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await expect(qCard).toContainText('Same as saved on the server.');
   await expect(rmrCard).toContainText('Same as saved on the server.');
   await shot(page, 'round-rating');
+  // The section is kept in the address: a reload opens the Rating again (issue 19 item 9).
+  await expect(page).toHaveURL(/[?&]section=rating/);
+  await page.reload();
+  await expect(tabs.getByRole('tab', { name: 'Rating' })).toHaveAttribute('aria-selected', 'true');
+  await expect(qCard).toContainText(formatQ(q.q));
 
   // Support: the class the ratings fit is first; choose it, the next round length follows its maximum.
   await tabs.getByRole('tab', { name: 'Support' }).click();

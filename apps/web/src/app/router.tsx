@@ -91,8 +91,9 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 {
                   path: 'projects/:projectId/rounds/:roundId',
                   lazy: async () => {
-                    const { clientLoader, RoundRoute } = await import('@/app/routes/round.route');
-                    return { loader: clientLoader(queryClient), Component: RoundRoute };
+                    const { clientLoader, RoundRoute, shouldRevalidate } =
+                      await import('@/app/routes/round.route');
+                    return { loader: clientLoader(queryClient), Component: RoundRoute, shouldRevalidate };
                   },
                 },
                 { path: '*', Component: NotFound },

@@ -4,8 +4,9 @@ import { driveTrendAt, formatChainageFor } from '@roundbook/domain';
 import { driveOf } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
-import type { LoaderFunctionArgs } from 'react-router-dom';
-import { Link, useParams } from 'react-router-dom';
+import { useCallback } from 'react';
+import type { LoaderFunctionArgs, ShouldRevalidateFunction } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
@@ -24,7 +25,7 @@ import {
   useRoundProject,
   useRoundSupportClasses,
 } from '@/features/rounds/api/get-round';
-import { RoundEditor } from '@/features/rounds/components/round-editor';
+import { ROUND_SECTIONS, RoundEditor, type RoundSection } from '@/features/rounds/components/round-editor';
 import { pendingRoundOf, sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { SketchSection } from '@/features/sketch';
 import { SupportRecordSection } from '@/features/support-records/components/support-record-section';
@@ -61,10 +62,44 @@ const useStyles = makeStyles({
   bar: { display: 'flex', flexWrap: 'wrap', gap: '12px', alignItems: 'center', marginBottom: '8px' },
 });
 
+/** Switching sections only rewrites ?section=: nothing to load again. */
+export const shouldRevalidate: ShouldRevalidateFunction = ({
+  currentUrl,
+  nextUrl,
+  defaultShouldRevalidate,
+}) => {
+  if (currentUrl.pathname !== nextUrl.pathname) return defaultShouldRevalidate;
+  const strip = (u: URL) => {
+    const p = new URLSearchParams(u.search);
+    p.delete('section');
+    return p.toString();
+  };
+  return strip(currentUrl) === strip(nextUrl) ? false : defaultShouldRevalidate;
+};
+
 /** Round: one mapped face, edited by the geologist while it is a draft; read only otherwise. */
 export function RoundRoute() {
   const styles = useStyles();
   const { projectId = '', roundId = '' } = useParams();
+  // The section shown is kept in the address (?section=), so a reload or a shared link opens it (issue 19 item 9).
+  const [search, setSearch] = useSearchParams();
+  const asked = search.get('section');
+  const initialSection = [...ROUND_SECTIONS, 'sketch' as const].find((s) => s === asked);
+  const keepSection = useCallback(
+    (section: RoundSection) => {
+      if ((new URLSearchParams(window.location.search).get('section') ?? 'position') === section) return;
+      setSearch(
+        (s) => {
+          const n = new URLSearchParams(s);
+          if (section === 'position') n.delete('section');
+          else n.set('section', section);
+          return n;
+        },
+        { replace: true },
+      );
+    },
+    [setSearch],
+  );
   const { data: round } = useRound(projectId, roundId);
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, round.headingId);
@@ -104,6 +139,8 @@ export function RoundRoute() {
         heading={heading}
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
+        initialSection={initialSection}
+        onSectionChange={keepSection}
         sectionNoteSlot={
           round.status === 'draft' && round.revision === 1
             ? undefined

@@ -78,6 +78,8 @@ export interface RoundEditorProps {
   /** The person may edit rounds (geologist); the round's status decides the rest. */
   canEdit: boolean;
   initialSection?: RoundSection;
+  /** Told when the section shown changes (the route keeps it in the address, so a reload stays on it). */
+  onSectionChange?: (section: RoundSection) => void;
   /**
    * Shown under the joints: the round as typed (its readable joints and the live assessment), e.g. the
    * orientation panel that app/routes composes from its own feature.
@@ -165,6 +167,7 @@ function RoundEditorBody({
   supportClasses,
   canEdit,
   initialSection,
+  onSectionChange,
   orientationSlot,
   sketchSlot,
   sectionNoteSlot,
@@ -173,6 +176,7 @@ function RoundEditorBody({
   const styles = useStyles();
   const { values, resetForm, setFieldValue } = useFormikContext<RoundFormValues>();
   const [section, setSection] = useState<RoundSection>(initialSection ?? 'position');
+  useEffect(() => onSectionChange?.(section), [onSectionChange, section]);
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
