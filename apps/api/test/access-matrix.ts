@@ -85,6 +85,8 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
   'POST /api/projects/{projectId}/headings/{headingId}/rounds': GEOLOGIST,
   'GET /api/projects/{projectId}/headings/{headingId}/rounds/next': GEOLOGIST,
   'GET /api/projects/{projectId}/headings/{headingId}/joints': MEMBERS,
+  'GET /api/projects/{projectId}/headings/{headingId}/exports/rounds.csv': MEMBERS,
+  'GET /api/projects/{projectId}/headings/{headingId}/exports/joints.csv': MEMBERS,
   'GET /api/projects/{projectId}/rounds/{roundId}': MEMBERS,
   'GET /api/projects/{projectId}/rounds/{roundId}/revisions': MEMBERS,
   'PUT /api/projects/{projectId}/rounds/{roundId}': GEOLOGIST,

@@ -22,6 +22,8 @@ import {
 } from './round-review.entity.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
+import { RoundsExportController } from './rounds-export.controller.js';
+import { RoundsExport } from './rounds-export.service.js';
 import { RoundsReadAdapter } from './rounds-read.adapter.js';
 import { RoundsAcceptances } from './rounds.acceptances.js';
 import { RoundsCommands } from './rounds.commands.js';
@@ -58,13 +60,20 @@ import { SketchRenders } from './sketch-render.service.js';
     HazardsModule,
     NoticeSettingsModule,
   ],
-  controllers: [RoundsController, RoundReviewController, ReviewQueueController, SketchRenderController],
+  controllers: [
+    RoundsController,
+    RoundReviewController,
+    ReviewQueueController,
+    SketchRenderController,
+    RoundsExportController,
+  ],
   providers: [
     RoundAssessor,
     RoundsQueries,
     RoundsCommands,
     RoundsReview,
     RoundsAcceptances,
+    RoundsExport,
     RoundsReadAdapter,
     SketchRenders,
     { provide: ROUNDS_READ, useExisting: RoundsReadAdapter },

@@ -25,6 +25,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import type { RoundListFilters } from '@/api/resources/keys';
 import { useRounds } from '@/features/rounds/api/get-round';
 import type { ChainageStyle, HeadingDetail, RoundStatus, Stage } from '@/features/rounds/api/types';
+import { HeadingExports } from '@/features/rounds/components/heading-exports';
 import { shiftLabels, stageLabels, statusLabels } from '@/features/rounds/utils/labels';
 
 export interface RoundsTableProps {
@@ -241,6 +242,7 @@ export function RoundsTable({ projectId, heading, pageSize = 25 }: RoundsTablePr
           />
         </Field>
         {rounds.isFetching && <Spinner size="small" label="Loading" />}
+        <HeadingExports projectId={projectId} heading={heading} />
       </div>
 
       <Table aria-label={`Rounds of ${heading.code}`} size="medium">
