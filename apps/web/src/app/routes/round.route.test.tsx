@@ -3,6 +3,7 @@ import { act, renderHook, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { ReactNode } from 'react';
 import type { SupportClassLibrary } from '@/api/contract';
+import { shouldRevalidate } from '@/app/routes/round.route';
 import { draftRound, heading, project, supportClasses } from '@/features/rounds/testing/round-fixtures';
 import { useChangeSupportClasses } from '@/features/support-classes/api/support-classes';
 import { saveSession } from '@/lib/session';
@@ -75,5 +76,24 @@ describe('Round screen and Setup share one copy of the project data', () => {
         ['projects', 'p-1', 'rounds', 'r-1'],
       ]),
     );
+  });
+});
+
+const args = (current: string, next: string) =>
+  ({
+    currentUrl: new URL(current, 'http://127.0.0.1'),
+    nextUrl: new URL(next, 'http://127.0.0.1'),
+    defaultShouldRevalidate: true,
+  }) as Parameters<typeof shouldRevalidate>[0];
+
+describe('round route revalidation', () => {
+  it('does not load the round again when only the section in the address changes', () => {
+    expect(shouldRevalidate(args('/projects/p/rounds/r', '/projects/p/rounds/r?section=rating'))).toBe(false);
+    expect(shouldRevalidate(args('/projects/p/rounds/r?section=rating', '/projects/p/rounds/r'))).toBe(false);
+  });
+
+  it('follows the default for another round or another query', () => {
+    expect(shouldRevalidate(args('/projects/p/rounds/r', '/projects/p/rounds/s?section=rating'))).toBe(true);
+    expect(shouldRevalidate(args('/projects/p/rounds/r', '/projects/p/rounds/r?revision=2'))).toBe(true);
   });
 });
