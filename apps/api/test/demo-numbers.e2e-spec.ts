@@ -167,8 +167,11 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
         'crown-crossing-within',
         'support-class-change',
         'open-red-hazard',
+        'round-over-class-length',
       ]),
     );
+    // The demo's rules fire on the round's value (issue 11 item 3: a change rule is the project's choice).
+    expect(rules.every((r) => r.fires === 'value')).toBe(true);
     expect(rules[0].level).toBe('red');
     expect(rules.map((r) => r.summary)).toContain('Q < 0.1 → red');
   });
@@ -194,5 +197,19 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
       // so the class changes fall on HR-U#12 (spacing closing), HR-U#13 (the fault) and HR-D#7.
       expect.arrayContaining(['HR-U#12', 'HR-U#13', 'HR-D#7']),
     );
+    // A rule on a fall of Q reads the last round's Q the seed kept with each round's facts, and fires where
+    // the fault zone of HR-U begins (round 13), not on the rounds inside it that stay low.
+    const fall = await request(http)
+      .post(`${base}/trigger-rules/preview`)
+      .set(as('engineer'))
+      .send({ ...rule, watch: 'q', comparison: '<', threshold: -50, fires: 'change' })
+      .expect(200);
+    expect(fall.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
+    expect((fall.body.matches as Body[]).every((m) => m.value < -50)).toBe(true);
+    const falls = (fall.body.matches as Body[])
+      .filter((m) => m.headingCode === 'HR-U')
+      .map((m) => m.roundNumber);
+    expect(falls).toContain(13);
+    expect(falls).not.toContain(15);
   });
 });

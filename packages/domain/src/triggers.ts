@@ -510,9 +510,14 @@ export function numericChange(
   const b = roundedAsPrinted(now, kind);
   if (watch === 'q') {
     if (a <= 0) return null;
-    // Whole percent, halves away from zero (a fall of 62.5 % reads 63 %).
+    // Whole percent, halves away from zero (a fall of 62.5 % reads 63 %); a fall that would read 100 %
+    // takes the decimals it needs (Q 11 → 0.028 fell by 99.7 %), since Q never reaches 0.
     const percent = (b / a - 1) * 100;
-    return Math.sign(percent) * Math.round(Math.abs(percent)) || 0;
+    const at = (digits: number): number =>
+      (Math.sign(percent) * Math.round(Math.abs(percent) * 10 ** digits)) / 10 ** digits || 0;
+    let digits = 0;
+    while (at(digits) <= -100 && digits < 6) digits++;
+    return at(digits);
   }
   return Number((b - a).toPrecision(3));
 }

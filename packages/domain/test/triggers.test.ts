@@ -4,6 +4,7 @@ import {
   evaluateRuleOutcome,
   changeWords,
   nearestCrownReach,
+  numericChange,
   previousRoundValues,
   setMeans,
   triggerRuleErrors,
@@ -299,6 +300,9 @@ describe("rules that fire on a change from the last round (issue 11 item 3, fire
     expect(evaluateRuleOutcome({ ...qFall, comparison: '<=' }, { ...facts, q: 2 }, heading).state).toBe(
       'fired',
     );
+    // A fall that would read 100 % takes the decimals it needs: Q never reaches 0 (Barton et al. 1974: 0.001 to 1000).
+    expect(numericChange('q', 11.25, 0.0275)).toBe(-99.7); // printed 11 → 0.028 [computed here]
+    expect(numericChange('q', 1000, 0.001)).toBe(-99.9999);
     // The same rule on the value (the default) reads Q < −50, which no Q is.
     expect(evaluateRuleOutcome({ ...qFall, fires: 'value' }, facts, heading).state).toBe('clear');
   });
