@@ -170,6 +170,8 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
         'round-over-class-length',
       ]),
     );
+    // The demo's rules fire on the round's value (issue 11 item 3: a change rule is the project's choice).
+    expect(rules.every((r) => r.fires === 'value')).toBe(true);
     expect(rules[0].level).toBe('red');
     expect(rules.map((r) => r.summary)).toContain('Q < 0.1 → red');
   });
@@ -205,5 +207,19 @@ describe('The demo reads true (e2e, seeded scenario)', () => {
       .expect(200);
     expect(long.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
     expect(long.body.matches).toEqual([]);
+    // A rule on a fall of Q reads the last round's Q the seed kept with each round's facts, and fires where
+    // the fault zone of HR-U begins (round 13), not on the rounds inside it that stay low.
+    const fall = await request(http)
+      .post(`${base}/trigger-rules/preview`)
+      .set(as('engineer'))
+      .send({ ...rule, watch: 'q', comparison: '<', threshold: -50, fires: 'change' })
+      .expect(200);
+    expect(fall.body.evaluatedRounds).toBeGreaterThanOrEqual(28);
+    expect((fall.body.matches as Body[]).every((m) => m.value < -50)).toBe(true);
+    const falls = (fall.body.matches as Body[])
+      .filter((m) => m.headingCode === 'HR-U')
+      .map((m) => m.roundNumber);
+    expect(falls).toContain(13);
+    expect(falls).not.toContain(15);
   });
 });

@@ -47,6 +47,12 @@ export interface ConditionSnapshot {
   classId: string | null;
   /** The rule's words when it fired. */
   detail: string;
+  /**
+   * Set when the rule fired on a change from the last round. A numeric change rule then keeps in `value`
+   * the round's own value the change reached (as printed), and the change itself here.
+   */
+  fires?: 'change';
+  change?: number | null;
 }
 
 /** One acceptance as the evaluation reads it. */
@@ -88,7 +94,14 @@ export interface AcceptedTriggerAssessment extends TriggerAssessment {
   lapsed: LapsedAcceptance[];
 }
 
-type RuleShape = Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level'>;
+type RuleShape = Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level' | 'fires'>;
+
+const NUMERIC_VALUE = {
+  q: 'q',
+  rmr89: 'rmr',
+  'inflow-per-10m': 'inflowPer10m',
+  overbreak: 'overbreakM3',
+} as const;
 
 const printed = (watch: Watched, v: number): number => roundedAsPrinted(v, watch === 'q' ? 'q' : 'other');
 
@@ -113,8 +126,19 @@ export function conditionSnapshot(
     case 'q':
     case 'rmr89':
     case 'inflow-per-10m':
-    case 'overbreak':
+    case 'overbreak': {
+      if (rule.fires === 'change') {
+        // What was accepted is the ground the fall (or rise) reached, not the size of one step.
+        const reached = round[NUMERIC_VALUE[rule.watch]];
+        return {
+          ...base,
+          fires: 'change',
+          change: o.value,
+          value: reached === null ? null : printed(rule.watch, reached),
+        };
+      }
       return { ...base, value: o.value === null ? null : printed(rule.watch, o.value) };
+    }
     case 'crown-crossing-within': {
       const hit = nearestCrownReach(round, heading);
       return { ...base, value: hit ? Math.round(hit.chainage * 100) / 100 : null };
@@ -122,6 +146,7 @@ export function conditionSnapshot(
     case 'adverse-orientation':
       return {
         ...base,
+        ...(rule.fires === 'change' ? { fires: 'change' as const } : {}),
         adverse: adverseItems(round, heading).map((a) => ({
           label: a.label,
           kind: a.kind,
@@ -131,12 +156,17 @@ export function conditionSnapshot(
       };
     case 'open-red-hazard': {
       const red = (round.openHazards ?? []).filter((h) => h.level === 'red');
-      return { ...base, value: red.length, hazardIds: red.map((h) => h.id).sort() };
+      return {
+        ...base,
+        ...(rule.fires === 'change' ? { fires: 'change' as const } : {}),
+        value: red.length,
+        hazardIds: red.map((h) => h.id).sort(),
+      };
     }
     case 'support-class-change':
       return base;
     case 'round-over-class-length':
-      return { ...base, value: o.value };
+      return { ...base, ...(rule.fires === 'change' ? { fires: 'change' as const } : {}), value: o.value };
   }
 }
 
@@ -144,13 +174,21 @@ const valueText = (watch: Watched, v: number): string => (watch === 'q' ? format
 
 /**
  * Why the condition now differs from the accepted one, or null when it is the same (or milder). A rule of
- * "below" is worse at a lower value, "above" at a higher one, "equal" at any other value.
+ * "below" is worse at a lower value, "above" at a higher one, "equal" at any other value. A change rule
+ * that fires again is held while the ground it reaches is no worse than the accepted: for Q, RMR89,
+ * inflow and overbreak the round's own value (a fall rule is worse below the value the accepted fall
+ * reached, a rise rule above it); for a yes/no condition that newly appears again, the condition itself
+ * as for a rule of the value.
  */
 export function conditionChange(
-  rule: Pick<TriggerRuleInput, 'watch' | 'comparison'>,
+  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'fires'>,
   accepted: ConditionSnapshot,
   now: ConditionSnapshot,
 ): string | null {
+  if ((accepted.fires ?? 'value') !== (rule.fires ?? 'value'))
+    return rule.fires === 'change'
+      ? 'the rule fires on a change from the last round now, not on the value as accepted'
+      : 'the rule fires on the value now, not on a change from the last round as accepted';
   if (accepted.classId !== null && now.classId !== accepted.classId)
     return 'the recommended support class is not the one the condition was accepted with';
   const label = WATCH_KIND[rule.watch].label;
@@ -168,9 +206,10 @@ export function conditionChange(
           : rule.comparison === '>' || rule.comparison === '>='
             ? b > a
             : b !== a;
-      return worse
-        ? `${label} is ${valueText(rule.watch, b)} now, against ${valueText(rule.watch, a)} when accepted`
-        : null;
+      if (!worse) return null;
+      return rule.fires === 'change'
+        ? `${label} is ${valueText(rule.watch, b)} now, beyond the ${valueText(rule.watch, a)} the accepted change reached`
+        : `${label} is ${valueText(rule.watch, b)} now, against ${valueText(rule.watch, a)} when accepted`;
     }
     case 'crown-crossing-within': {
       if (accepted.value === null || now.value === null) return null;
@@ -266,7 +305,7 @@ export function acceptanceErrors(
  */
 export function applyAcceptances(
   triggers: TriggerAssessment,
-  rules: Array<Pick<TriggerRuleInput, 'id' | 'watch' | 'comparison' | 'threshold' | 'level'>>,
+  rules: Array<Pick<TriggerRuleInput, 'id' | 'watch' | 'comparison' | 'threshold' | 'level' | 'fires'>>,
   round: RoundFacts,
   heading: HeadingGeometry,
   acceptances: TriggerAcceptanceInput[],

@@ -32,6 +32,7 @@ import {
   type FactJoint,
   type FeatureReach,
   type HeadingGeometry,
+  type PreviousRoundValues,
   type RoundFacts,
   type TriggerAssessment,
   type TriggerRuleInput,
@@ -111,8 +112,12 @@ export interface AssessmentContext {
     sameAsJointId?: string | null;
     roundNumber?: number;
   }>;
-  /** The previous round of this heading and stage: its class (recommended, or confirmed once reviewed). */
-  previousRound: { classId: string | null } | null;
+  /**
+   * The previous round of this heading and stage: its class (recommended, or confirmed once reviewed), and
+   * its values and conditions for the rules that fire on a change (triggers.ts previousRoundValues; absent:
+   * not read, so such a rule is not evaluated).
+   */
+  previousRound: { classId: string | null; values?: PreviousRoundValues } | null;
   rules: TriggerRuleInput[];
   qTableEdition?: string;
   /** The project's scale of weathering and strength grades (default ISRM). */
@@ -261,6 +266,11 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     ...(context.openHazards !== undefined ? { openHazards: context.openHazards } : {}),
     roundLength: record.roundLength,
     allowedRoundLength: previousClass?.maxRoundLength ?? null,
+    ...(context.previousRound === null
+      ? { previous: null }
+      : context.previousRound.values !== undefined
+        ? { previous: context.previousRound.values }
+        : {}),
   };
   const qEdition = context.qTableEdition
     ? `${RATING_EDITIONS.q}; project tables: ${context.qTableEdition} edition`

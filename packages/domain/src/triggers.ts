@@ -77,6 +77,68 @@ export const comparisonLabels: Record<Comparison, string> = {
   '=': 'equal to (=)',
 };
 
+/**
+ * How a rule fires (issue 11 item 3): on the round's own standing value ('value', the default), or on the
+ * change from the previous round of the same heading and stage ('change').
+ */
+export const FIRES = ['value', 'change'] as const;
+export type Fires = (typeof FIRES)[number];
+export const firesLabels: Record<Fires, string> = {
+  value: 'on the round’s value',
+  change: 'on a change from the last round',
+};
+
+/** The yes/no watches that may fire on a change: only when the condition newly appears. */
+export const FLAG_CHANGE_WATCHES = [
+  'adverse-orientation',
+  'open-red-hazard',
+  'round-over-class-length',
+] as const;
+export type FlagChangeWatch = (typeof FLAG_CHANGE_WATCHES)[number];
+
+/** Watches with a change form: the numeric ones, and the yes/no conditions that can newly appear. */
+export const CHANGE_WATCHES: readonly Watched[] = [
+  'q',
+  'rmr89',
+  'inflow-per-10m',
+  'overbreak',
+  ...FLAG_CHANGE_WATCHES,
+];
+
+/**
+ * How a change rule measures the change of a numeric watch. Q is logarithmic, so its change is a ratio,
+ * given in percent of the last round's Q (a fall from 4 to 1 is −75 %; common practice compares Q by
+ * ratio); RMR89, inflow and overbreak change by a difference in their own unit.
+ */
+export const CHANGE_UNIT: Record<'q' | 'rmr89' | 'inflow-per-10m' | 'overbreak', string> = {
+  q: ' %',
+  rmr89: ' points',
+  'inflow-per-10m': ' l/min per 10 m',
+  overbreak: ' m³',
+};
+
+/** A change rule's comparison in words: "falls by more than 50 %", "rises by 20 l/min per 10 m or more". */
+export function changeWords(watch: Watched, comparison: Comparison | null, threshold: number | null): string {
+  const unit = CHANGE_UNIT[watch as keyof typeof CHANGE_UNIT] ?? '';
+  if (comparison === null || threshold === null) return 'changes by ?';
+  const t = Math.abs(threshold);
+  const falls = comparison === '<' || comparison === '<=';
+  if (comparison === '=') return `changes by exactly ${threshold}${unit}`;
+  if (threshold === 0)
+    return comparison === '<'
+      ? 'falls'
+      : comparison === '<='
+        ? 'falls or stays the same'
+        : comparison === '>'
+          ? 'rises'
+          : 'rises or stays the same';
+  if (falls !== threshold < 0) return `changes by ${comparisonSymbols[comparison]} ${threshold}${unit}`;
+  const verb = falls ? 'falls' : 'rises';
+  return comparison === '<' || comparison === '>'
+    ? `${verb} by more than ${t}${unit}`
+    : `${verb} by ${t}${unit} or more`;
+}
+
 /** Rules that cannot fire until a later feature records what they watch (none at present). */
 export const WAITING_RULES: Partial<Record<Watched, string>> = {};
 
@@ -90,14 +152,42 @@ export interface TriggerRuleInput {
   ownerRole: string;
   timeAllowedHours: number;
   enabled: boolean;
+  /** How it fires; absent: 'value' (rules stored before the choice existed). */
+  fires?: Fires;
 }
 
 /** Field errors for a rule whose comparison and threshold do not suit what it watches. */
 export function triggerRuleErrors(
-  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
+  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'fires'>,
 ): Record<string, string> {
   const kind = WATCH_KIND[r.watch].kind;
   const fields: Record<string, string> = {};
+  const fires = r.fires ?? 'value';
+  if (!FIRES.includes(fires)) {
+    fields.fires = 'Choose whether the rule fires on the round’s value or on a change from the last round.';
+  } else if (fires === 'change' && !CHANGE_WATCHES.includes(r.watch)) {
+    fields.fires =
+      r.watch === 'support-class-change'
+        ? 'This rule already compares the class with the last round’s: it fires on the value only.'
+        : 'A crown-reach rule reads the round’s own look-ahead: it fires on the value only.';
+  } else if (fires === 'change' && kind === 'numeric') {
+    if (!r.comparison) fields.comparison = 'Choose whether the rule fires on a fall or on a rise.';
+    if (r.threshold === null || r.threshold === undefined)
+      fields.threshold = 'Give the change that fires it.';
+    const falls = r.comparison === '<' || r.comparison === '<=';
+    if (r.comparison === '=')
+      fields.comparison =
+        'A change rule fires on a fall (below, with a change of 0 or less such as −50) or on a rise (above, with a change of 0 or more).';
+    else if (r.comparison && r.threshold != null && (falls ? r.threshold > 0 : r.threshold < 0))
+      fields.threshold = falls
+        ? 'A fall is a change of 0 or less: give it with a minus sign, e.g. −50.'
+        : 'A rise is a change of 0 or more: give it without a minus sign.';
+    else if (r.watch === 'q' && r.threshold != null && r.threshold <= -100)
+      fields.threshold = 'Q cannot fall by 100 % or more: give a fall between 0 and −99 %.';
+    else if (r.watch === 'rmr89' && r.threshold != null && Math.abs(r.threshold) > 100)
+      fields.threshold = 'RMR89 changes by at most 100 points.';
+    return fields;
+  }
   if (kind === 'numeric') {
     if (!r.comparison) fields.comparison = 'Choose how the value is compared with the threshold.';
     if (r.threshold === null || r.threshold === undefined) fields.threshold = 'Give the threshold.';
@@ -128,15 +218,20 @@ export function triggerRuleErrors(
 
 /** The rule in words, e.g. "Q < 0.1 → red". */
 export function triggerRuleSummary(
-  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level'>,
+  r: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level' | 'fires'>,
 ): string {
   const w = WATCH_KIND[r.watch];
+  const change = r.fires === 'change';
   const condition =
-    w.kind === 'numeric'
-      ? `${w.label} ${comparisonSymbols[r.comparison ?? '=']} ${r.threshold ?? '?'}${w.unit ? ` ${w.unit}` : ''}`
-      : w.kind === 'distance'
-        ? `${w.label} ${r.threshold ?? '?'} ${w.unit}`
-        : w.label;
+    change && w.kind === 'numeric'
+      ? `${w.label} ${changeWords(r.watch, r.comparison, r.threshold)} from the last round`
+      : change
+        ? `${w.label}, newly (not on the last round)`
+        : w.kind === 'numeric'
+          ? `${w.label} ${comparisonSymbols[r.comparison ?? '=']} ${r.threshold ?? '?'}${w.unit ? ` ${w.unit}` : ''}`
+          : w.kind === 'distance'
+            ? `${w.label} ${r.threshold ?? '?'} ${w.unit}`
+            : w.label;
   return `${condition} → ${r.level}`;
 }
 
@@ -176,6 +271,22 @@ export interface RoundFacts {
    */
   roundLength?: number | null;
   allowedRoundLength?: number | null;
+  /**
+   * What the previous round of this heading and stage read, for the rules that fire on a change: null when
+   * there is none (the first round of the stage); absent in facts stored before change rules existed, which
+   * then leaves such a rule not evaluated.
+   */
+  previous?: PreviousRoundValues | null;
+}
+
+/** The previous round's values and yes/no conditions, as its own stored facts read. */
+export interface PreviousRoundValues {
+  q: number | null;
+  rmr: number | null;
+  inflowPer10m: number | null;
+  overbreakM3: number | null;
+  /** Whether each yes/no condition held on the previous round; null: it could not be judged there. */
+  conditions: Partial<Record<FlagChangeWatch, boolean | null>>;
 }
 
 export interface HeadingGeometry {
@@ -371,12 +482,118 @@ const ahead = (what: string, v: number | null): string | null =>
       ? `${what} ${v.toFixed(1)} m ahead`
       : `${what} ${(-v).toFixed(1)} m behind the face`;
 
-/** One rule against one round: fired, clear, not evaluated (its input is missing) or waiting (cannot fire yet). */
-export function evaluateRuleOutcome(
+/** The previous round's values as a change rule reads them, from that round's own facts and heading. */
+export function previousRoundValues(facts: RoundFacts, heading: HeadingGeometry): PreviousRoundValues {
+  const conditions: PreviousRoundValues['conditions'] = {};
+  for (const watch of FLAG_CHANGE_WATCHES) {
+    const o = evaluateRuleOutcome({ watch, comparison: null, threshold: null }, facts, heading);
+    conditions[watch] = o.state === 'fired' ? true : o.state === 'clear' ? false : null;
+  }
+  return {
+    q: facts.q,
+    rmr: facts.rmr,
+    inflowPer10m: facts.inflowPer10m,
+    overbreakM3: facts.overbreakM3,
+    conditions,
+  };
+}
+
+/** The change a numeric change rule compares: Q in percent of the last round's, the others in their unit. */
+export function numericChange(
+  watch: 'q' | 'rmr89' | 'inflow-per-10m' | 'overbreak',
+  previous: number,
+  now: number,
+): number | null {
+  // Both values as they are printed, so that the sentence never contradicts itself.
+  const kind = watch === 'q' ? 'q' : 'other';
+  const a = roundedAsPrinted(previous, kind);
+  const b = roundedAsPrinted(now, kind);
+  if (watch === 'q') {
+    if (a <= 0) return null;
+    // Whole percent, halves away from zero (a fall of 62.5 % reads 63 %); a fall that would read 100 %
+    // takes the decimals it needs (Q 11 → 0.028 fell by 99.7 %), since Q never reaches 0.
+    const percent = (b / a - 1) * 100;
+    const at = (digits: number): number =>
+      (Math.sign(percent) * Math.round(Math.abs(percent) * 10 ** digits)) / 10 ** digits || 0;
+    let digits = 0;
+    while (at(digits) <= -100 && digits < 6) digits++;
+    return at(digits);
+  }
+  return Number((b - a).toPrecision(3));
+}
+
+const NUMERIC_FACT = {
+  q: { fact: 'q', what: 'Q' },
+  rmr89: { fact: 'rmr', what: 'RMR89' },
+  'inflow-per-10m': { fact: 'inflowPer10m', what: 'Inflow' },
+  overbreak: { fact: 'overbreakM3', what: 'Overbreak' },
+} as const;
+
+/** A change rule against one round: the change from the previous round of the heading and stage. */
+function changeOutcome(
   rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
   round: RoundFacts,
   heading: HeadingGeometry,
 ): RuleOutcome {
+  if (!CHANGE_WATCHES.includes(rule.watch))
+    return { state: 'not-evaluated', detail: 'this rule has no change form' };
+  if (round.previous === null || (round.previous === undefined && round.previousClassId === undefined))
+    return { state: 'clear', detail: 'first round of this stage: nothing to compare with' };
+  if (round.previous === undefined)
+    return {
+      state: 'not-evaluated',
+      detail: 'the last round’s values were not kept with this round’s facts',
+    };
+  const previous = round.previous;
+  if (rule.watch in NUMERIC_FACT) {
+    const watch = rule.watch as keyof typeof NUMERIC_FACT;
+    const { fact, what } = NUMERIC_FACT[watch];
+    const now = round[fact];
+    const before = previous[fact];
+    if (now === null) return { state: 'not-evaluated', detail: `${what} is not recorded yet` };
+    if (before === null)
+      return { state: 'not-evaluated', detail: `${what} was not recorded on the last round` };
+    if (!rule.comparison || rule.threshold === null)
+      return { state: 'not-evaluated', detail: 'incomplete rule' };
+    const change = numericChange(watch, before, now);
+    if (change === null) return { state: 'not-evaluated', detail: `${what} of the last round is 0` };
+    if (!compare(change, rule.comparison, rule.threshold)) return { state: 'clear' };
+    const unit = CHANGE_UNIT[watch];
+    const text = (v: number): string => (watch === 'q' ? formatQ(v) : String(roundedAsPrinted(v)));
+    const valueUnit = watch === 'q' || watch === 'rmr89' ? '' : unit;
+    const moved =
+      change < 0 ? `fell by ${-change}${unit}` : change > 0 ? `rose by ${change}${unit}` : 'did not change';
+    return {
+      state: 'fired',
+      value: change,
+      detail: `${what} ${moved} from the last round (${text(before)} → ${text(now)}${valueUnit}); the rule fires when it ${changeWords(
+        watch,
+        rule.comparison,
+        rule.threshold,
+      )}`,
+    };
+  }
+  const watch = rule.watch as FlagChangeWatch;
+  const o = evaluateRuleOutcome({ watch, comparison: null, threshold: null }, round, heading);
+  if (o.state !== 'fired') return o;
+  const was = previous.conditions[watch];
+  if (was === undefined || was === null)
+    return {
+      state: 'not-evaluated',
+      detail:
+        'whether the condition held on the last round is not known, so it cannot be told whether it is new',
+    };
+  if (was) return { state: 'clear', detail: 'the condition already held on the last round' };
+  return { state: 'fired', value: o.value, detail: `New since the last round: ${o.detail}` };
+}
+
+/** One rule against one round: fired, clear, not evaluated (its input is missing) or waiting (cannot fire yet). */
+export function evaluateRuleOutcome(
+  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'fires'>,
+  round: RoundFacts,
+  heading: HeadingGeometry,
+): RuleOutcome {
+  if (rule.fires === 'change') return changeOutcome(rule, round, heading);
   const numeric = (
     value: number | null,
     what: string,
@@ -498,7 +715,7 @@ export function evaluateRuleOutcome(
 
 /** One rule against one round: the firing, or null when it does not fire (for any reason). */
 export function evaluateRule(
-  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold'>,
+  rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'fires'>,
   round: RoundFacts,
   heading: HeadingGeometry,
 ): Firing {
@@ -549,12 +766,13 @@ export function assessTriggers(
       | 'ownerRole'
       | 'timeAllowedHours'
       | 'enabled'
+      | 'fires'
     >
   >,
   round: RoundFacts,
   heading: HeadingGeometry,
   summaryOf: (
-    rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level'>,
+    rule: Pick<TriggerRuleInput, 'watch' | 'comparison' | 'threshold' | 'level' | 'fires'>,
   ) => string = triggerRuleSummary,
 ): TriggerAssessment {
   const active = rules.filter((r) => r.enabled);

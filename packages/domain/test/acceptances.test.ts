@@ -204,3 +204,50 @@ describe('acceptanceErrors', () => {
     ).toEqual({});
   });
 });
+
+describe('acceptances of a rule that fires on a change (issue 11 item 3)', () => {
+  // Invented figures: Q fell from 4 to 1.5 at 0+1010; the engineer accepted that ground.
+  const qFall = rule({ id: 'r-fall', watch: 'q', comparison: '<', threshold: -50, fires: 'change' });
+  const last = { q: 4, rmr: 40, inflowPer10m: 5, overbreakM3: 1, conditions: {} };
+  const fell: RoundFacts = { ...facts, q: 1.5, sets: [], previous: last };
+  const judgeFall = (f: RoundFacts, list: TriggerAcceptanceInput[]) =>
+    applyAcceptances(assessTriggers([qFall], f, heading), [qFall], f, heading, list, now);
+
+  it('keeps the Q the fall reached, and the fall itself', () => {
+    expect(conditionSnapshot(qFall, fell, heading)).toMatchObject({
+      fires: 'change',
+      value: 1.5,
+      change: -63,
+    });
+  });
+
+  it('holds a later fall that reaches no lower ground, and lapses on one that reaches lower', () => {
+    const accepted = acceptOn(qFall, fell);
+    // 3.2 → 1.5 is another fall of 53 %, to the same Q 1.5: the accepted ground.
+    const same = judgeFall({ ...fell, faceChainage: 1014, previous: { ...last, q: 3.2 } }, [accepted]);
+    expect(same.accepted.map((a) => a.ruleId)).toEqual(['r-fall']);
+    expect(same.level).toBe('green');
+    // 1.5 → 0.6 is a fall of 60 % to lower ground than accepted: it raises the level again.
+    const lower = judgeFall({ ...fell, q: 0.6, faceChainage: 1014, previous: { ...last, q: 1.5 } }, [
+      accepted,
+    ]);
+    expect(lower.level).toBe('amber');
+    expect(lower.lapsed[0].why).toBe('Q is 0.6 now, beyond the 1.5 the accepted change reached');
+  });
+
+  it('lapses when the rule is switched between the value and a change', () => {
+    const accepted = acceptOn(qFall, fell);
+    const onValue = rule({ id: 'r-fall', watch: 'q', comparison: '<', threshold: 2 });
+    const r = applyAcceptances(
+      assessTriggers([onValue], fell, heading),
+      [onValue],
+      fell,
+      heading,
+      [accepted],
+      now,
+    );
+    expect(r.lapsed[0].why).toBe(
+      'the rule fires on the value now, not on a change from the last round as accepted',
+    );
+  });
+});

@@ -92,6 +92,34 @@ describe('assessRound', () => {
     expect(a.sets.overridden).toEqual(['c']);
   });
 
+  it('keeps the last round’s values with the facts for the rules that fire on a change (issue 11 item 3)', () => {
+    // Invented: the last round of the stage read an inflow of 2 l/min per 10 m; this one 6 l/min over 3 m = 20.
+    const rise = {
+      ...adverseRule,
+      id: 'rise',
+      watch: 'inflow-per-10m' as const,
+      comparison: '>' as const,
+      threshold: 10,
+      fires: 'change' as const,
+    };
+    const values = { q: null, rmr: null, inflowPer10m: 2, overbreakM3: null, conditions: {} };
+    const withLast = assessRound(here, {
+      ...context,
+      rules: [rise],
+      previousRound: { classId: null, values },
+    });
+    expect(withLast.facts.previous).toEqual(values);
+    expect(withLast.triggers.firings.map((f) => f.ruleId)).toEqual(['rise']);
+    // The first round of a stage: null, and the change rule is clear there.
+    const first = assessRound(here, { ...context, rules: [rise] });
+    expect(first.facts.previous).toBeNull();
+    expect(first.triggers.level).toBe('green');
+    // A last round read without its values (an older caller): absent, and the rule is not evaluated.
+    const unread = assessRound(here, { ...context, rules: [rise], previousRound: { classId: null } });
+    expect('previous' in unread.facts).toBe(false);
+    expect(unread.triggers.notEvaluated.map((n) => n.ruleId)).toEqual(['rise']);
+  });
+
   it('judges faults on their own and keeps them out of the sets', () => {
     const a = assessRound(record([joint('f', 240, 60, { kind: 'fault' })]), context);
     expect(a.features).toHaveLength(1);

@@ -2,8 +2,14 @@ import {
   assessTriggers,
   evaluateRule,
   evaluateRuleOutcome,
+  changeWords,
   nearestCrownReach,
+  numericChange,
+  previousRoundValues,
   setMeans,
+  triggerRuleErrors,
+  triggerRuleSummary,
+  type PreviousRoundValues,
   type RoundFacts,
   type Watched,
 } from '../src/index.js';
@@ -266,5 +272,196 @@ describe('rules whose input is missing (issue 10: never green)', () => {
       1000 + 5 / Math.tan(Math.PI / 3),
       9,
     );
+  });
+});
+
+describe("rules that fire on a change from the last round (issue 11 item 3, fires: 'change')", () => {
+  // Invented figures. The previous round of the same heading and stage read Q 4, RMR89 55, inflow 10, overbreak 1.
+  const previous: PreviousRoundValues = {
+    q: 4,
+    rmr: 55,
+    inflowPer10m: 10,
+    overbreakM3: 1,
+    conditions: { 'adverse-orientation': false, 'open-red-hazard': true, 'round-over-class-length': false },
+  };
+  const facts: RoundFacts = { ...base, q: 1.5, rmr: 43, inflowPer10m: 32.5, overbreakM3: 1.2, previous };
+  const qFall = { watch: 'q' as const, comparison: '<' as const, threshold: -50, fires: 'change' as const };
+
+  it('fires on a relative fall of Q: 4 → 1.5 is −63 %, more than a 50 % fall (Q is logarithmic, compared by ratio: common practice)', () => {
+    expect(evaluateRuleOutcome(qFall, facts, heading)).toEqual({
+      state: 'fired',
+      value: -63,
+      detail: 'Q fell by 63 % from the last round (4 → 1.5); the rule fires when it falls by more than 50 %',
+    });
+    // 4 → 2.5 is a fall of 38 %: clear. The same Q 1.5 on its own is no change rule's business.
+    expect(evaluateRuleOutcome(qFall, { ...facts, q: 2.5 }, heading)).toEqual({ state: 'clear' });
+    // A fall of exactly 50 % (4 → 2) is not more than 50 %; "50 % or more" fires on it.
+    expect(evaluateRuleOutcome(qFall, { ...facts, q: 2 }, heading).state).toBe('clear');
+    expect(evaluateRuleOutcome({ ...qFall, comparison: '<=' }, { ...facts, q: 2 }, heading).state).toBe(
+      'fired',
+    );
+    // A fall that would read 100 % takes the decimals it needs: Q never reaches 0 (Barton et al. 1974: 0.001 to 1000).
+    expect(numericChange('q', 11.25, 0.0275)).toBe(-99.7); // printed 11 → 0.028 [computed here]
+    expect(numericChange('q', 1000, 0.001)).toBe(-99.9999);
+    // The same rule on the value (the default) reads Q < −50, which no Q is.
+    expect(evaluateRuleOutcome({ ...qFall, fires: 'value' }, facts, heading).state).toBe('clear');
+  });
+
+  it('compares RMR89, inflow and overbreak by their difference in the watch’s unit (common practice)', () => {
+    const rmr = evaluateRuleOutcome(
+      { watch: 'rmr89', comparison: '<=', threshold: -10, fires: 'change' },
+      facts,
+      heading,
+    );
+    expect(rmr).toEqual({
+      state: 'fired',
+      value: -12,
+      detail:
+        'RMR89 fell by 12 points from the last round (55 → 43); the rule fires when it falls by 10 points or more',
+    });
+    const inflow = evaluateRuleOutcome(
+      { watch: 'inflow-per-10m', comparison: '>', threshold: 20, fires: 'change' },
+      facts,
+      heading,
+    );
+    expect(inflow.state).toBe('fired');
+    expect(inflow.state === 'fired' && inflow.detail).toBe(
+      'Inflow rose by 22.5 l/min per 10 m from the last round (10 → 32.5 l/min per 10 m); the rule fires when it rises by more than 20 l/min per 10 m',
+    );
+    expect(
+      evaluateRuleOutcome(
+        { watch: 'overbreak', comparison: '>=', threshold: 0.5, fires: 'change' },
+        facts,
+        heading,
+      ),
+    ).toEqual({ state: 'clear' });
+  });
+
+  it('is not evaluated without the last round’s values, and clear on the first round of a stage', () => {
+    const { previous: _p, ...stored } = facts;
+    expect(evaluateRuleOutcome(qFall, stored, heading)).toEqual({
+      state: 'not-evaluated',
+      detail: 'the last round’s values were not kept with this round’s facts',
+    });
+    expect(evaluateRuleOutcome(qFall, { ...facts, previous: { ...previous, q: null } }, heading)).toEqual({
+      state: 'not-evaluated',
+      detail: 'Q was not recorded on the last round',
+    });
+    expect(evaluateRuleOutcome(qFall, { ...facts, q: null }, heading).state).toBe('not-evaluated');
+    expect(
+      evaluateRuleOutcome(qFall, { ...facts, previous: null, previousClassId: undefined }, heading),
+    ).toEqual({ state: 'clear', detail: 'first round of this stage: nothing to compare with' });
+    // Never green while a change rule lacks the last round.
+    const qRule = {
+      id: 'q-fall',
+      ...qFall,
+      level: 'amber' as const,
+      action: 'Tell the engineer',
+      ownerRole: 'engineer',
+      timeAllowedHours: 4,
+      enabled: true,
+    };
+    expect(assessTriggers([qRule], stored, heading).level).toBeNull();
+    expect(assessTriggers([qRule], facts, heading).level).toBe('amber');
+  });
+
+  it('fires a yes/no condition only when it newly appears (clear on the last round), not while it stays', () => {
+    const hazard = {
+      id: 'h',
+      kind: 'wedge' as const,
+      level: 'red' as const,
+      fromChainage: 995,
+      toChainage: 998,
+      description: '',
+    };
+    const red = {
+      watch: 'open-red-hazard' as const,
+      comparison: null,
+      threshold: null,
+      fires: 'change' as const,
+    };
+    const withHazard = { ...facts, openHazards: [hazard] };
+    // The last round already had an open red hazard: it stays, so the change rule is clear.
+    expect(evaluateRuleOutcome(red, withHazard, heading)).toEqual({
+      state: 'clear',
+      detail: 'the condition already held on the last round',
+    });
+    // The last round was clear: the hazard is new, and the rule fires with its own words.
+    const fresh = {
+      ...withHazard,
+      previous: { ...previous, conditions: { ...previous.conditions, 'open-red-hazard': false } },
+    };
+    expect(evaluateRuleOutcome(red, fresh, heading)).toEqual({
+      state: 'fired',
+      value: 1,
+      detail: 'New since the last round: Open red hazard: wedge 0+995.0–0+998.0 (2.0 m behind this face)',
+    });
+    // The condition is not there now: clear, whatever the last round read.
+    expect(evaluateRuleOutcome(red, { ...fresh, openHazards: [] }, heading).state).toBe('clear');
+    // Not known on the last round (facts stored before hazards were read): not evaluated.
+    const unknown = { ...withHazard, previous: { ...previous, conditions: { 'open-red-hazard': null } } };
+    expect(evaluateRuleOutcome(red, unknown, heading).state).toBe('not-evaluated');
+  });
+
+  it('reads the last round’s conditions from its own facts (previousRoundValues)', () => {
+    const last: RoundFacts = {
+      ...base,
+      q: 4,
+      roundLength: 3,
+      allowedRoundLength: 2.5,
+      previousClassId: 'a',
+    };
+    expect(previousRoundValues(last, heading)).toEqual({
+      q: 4,
+      rmr: 35,
+      inflowPer10m: 30,
+      overbreakM3: 2,
+      // No joints: adverse orientation could not be judged; no hazards read; 3 m over 2.5 m allowed.
+      conditions: { 'adverse-orientation': null, 'open-red-hazard': null, 'round-over-class-length': true },
+    });
+  });
+
+  it('refuses the combinations a change rule cannot have, in words', () => {
+    expect(triggerRuleErrors({ ...qFall, comparison: '=' }).comparison).toMatch(/fall .* or on a rise/);
+    expect(triggerRuleErrors({ ...qFall, threshold: 50 }).threshold).toBe(
+      'A fall is a change of 0 or less: give it with a minus sign, e.g. −50.',
+    );
+    expect(triggerRuleErrors({ ...qFall, threshold: -100 }).threshold).toMatch(/cannot fall by 100 %/);
+    expect(
+      triggerRuleErrors({ watch: 'support-class-change', comparison: null, threshold: null, fires: 'change' })
+        .fires,
+    ).toMatch(/already compares the class/);
+    expect(
+      triggerRuleErrors({ watch: 'crown-crossing-within', comparison: null, threshold: 5, fires: 'change' })
+        .fires,
+    ).toMatch(/value only/);
+    expect(triggerRuleErrors(qFall)).toEqual({});
+    // On the value, a Q threshold of −50 is outside the Q range as before.
+    expect(triggerRuleErrors({ ...qFall, fires: 'value' }).threshold).toBeDefined();
+  });
+
+  it('says the rule in words', () => {
+    expect(triggerRuleSummary({ ...qFall, level: 'red' })).toBe(
+      'Q falls by more than 50 % from the last round → red',
+    );
+    expect(
+      triggerRuleSummary({
+        watch: 'inflow-per-10m',
+        comparison: '>=',
+        threshold: 20,
+        level: 'amber',
+        fires: 'change',
+      }),
+    ).toBe('Water inflow per 10 m rises by 20 l/min per 10 m or more from the last round → amber');
+    expect(
+      triggerRuleSummary({
+        watch: 'adverse-orientation',
+        comparison: null,
+        threshold: null,
+        level: 'amber',
+        fires: 'change',
+      }),
+    ).toBe('A set or feature adverse to the drive, newly (not on the last round) → amber');
+    expect(changeWords('q', '>', 0)).toBe('rises');
   });
 });

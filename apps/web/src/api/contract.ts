@@ -50,6 +50,7 @@ export type CreateSupportClassRequest = Schemas['CreateSupportClassDto'];
 export type UpdateSupportClassRequest = Schemas['UpdateSupportClassDto'];
 export type WatchedQuantity = Schemas['WatchedQuantity'];
 export type Comparison = Schemas['Comparison'];
+export type TriggerFires = Schemas['TriggerFires'];
 export type TriggerRule = Schemas['TriggerRuleDto'];
 export type CreateTriggerRuleRequest = Schemas['CreateTriggerRuleDto'];
 export type UpdateTriggerRuleRequest = Schemas['UpdateTriggerRuleDto'];

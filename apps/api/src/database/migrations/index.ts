@@ -22,6 +22,7 @@ import { JointSameFeature1796400000000 } from './1796400000000-JointSameFeature.
 import { RoundStatusIndexes1796420000000 } from './1796420000000-RoundStatusIndexes.js';
 import { SignInTallies1796430000000 } from './1796430000000-SignInTallies.js';
 import { OverLengthRule1796440000000 } from './1796440000000-OverLengthRule.js';
+import { RuleFiresOnChange1796450000000 } from './1796450000000-RuleFiresOnChange.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -49,4 +50,5 @@ export const migrations = [
   RoundStatusIndexes1796420000000,
   SignInTallies1796430000000,
   OverLengthRule1796440000000,
+  RuleFiresOnChange1796450000000,
 ];

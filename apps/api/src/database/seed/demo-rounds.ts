@@ -6,7 +6,9 @@ import {
   driveTrendAt,
   nextFaceChainage,
   explainSuggestion,
+  previousRoundValues,
   shiftOf,
+  type PreviousRoundValues,
 } from '@roundbook/domain';
 import {
   driveOf,
@@ -102,6 +104,8 @@ export async function seedDemoRounds(
     dip: number;
   }> = [];
   let previousClassId: string | null | undefined = undefined;
+  // The last round's values and conditions, for rules that fire on a change (none in the demo plan).
+  let previousValues: PreviousRoundValues | undefined = undefined;
   let previousFace = heading.startChainage;
   // Each round is as long as the last round's class allows (its next round length): in the fault zone the
   // heading advances by the short rounds its support class sets, not by the planned length.
@@ -336,7 +340,10 @@ export async function seedDemoRounds(
         nearbyJoints: earlier.filter(
           (e) => Math.abs(e.faceChainage - face) <= DEFAULT_SET_PARAMETERS.windowM,
         ),
-        previousRound: previousClassId === undefined ? null : { classId: previousClassId },
+        previousRound:
+          previousClassId === undefined
+            ? null
+            : { classId: previousClassId, ...(previousValues ? { values: previousValues } : {}) },
         rules,
         qTableEdition: project.qTableEdition,
         groundScale: project.groundScale,
@@ -408,6 +415,7 @@ export async function seedDemoRounds(
       );
     }
     previousClassId = saved.recommendedClassId;
+    previousValues = previousRoundValues(assessment.facts, headingGeometry(heading, plan.stage, face));
     previousFace = face;
     roundLength = saved.nextRoundLength ?? plan.roundLength;
     for (const j of jointRows)

@@ -1,6 +1,11 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { assessRound, DEFAULT_SET_PARAMETERS, type RoundAssessment } from '@roundbook/domain';
+import {
+  assessRound,
+  DEFAULT_SET_PARAMETERS,
+  previousRoundValues,
+  type RoundAssessment,
+} from '@roundbook/domain';
 import { Brackets, DataSource, type EntityManager } from 'typeorm';
 import { HazardsService } from '../hazards/hazards.service.js';
 import { headingGeometry } from '../headings/heading-geometry.js';
@@ -108,7 +113,13 @@ export class RoundAssessor {
       round.roundNumber > 1
         ? manager.findOne(Round, {
             where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
-            select: { id: true, recommendedClassId: true, confirmedClassId: true },
+            select: {
+              id: true,
+              recommendedClassId: true,
+              confirmedClassId: true,
+              faceChainage: true,
+              assessment: true,
+            },
           })
         : Promise.resolve(null),
       nearbyPlanes(manager, round, parameters.windowM),
@@ -116,6 +127,12 @@ export class RoundAssessor {
       activeAcceptances(manager, round.headingId),
     ]);
     if (!h) throw new Error(`Heading ${round.headingId} of round ${round.id} is missing`);
+    // The previous round's values and conditions as its own stored facts read them, for the rules that
+    // fire on a change (judged at that round's face: the drive there, on a curved alignment).
+    const previousFacts = previous?.assessment?.facts;
+    const previousValues = previousFacts
+      ? previousRoundValues(previousFacts, headingGeometry(h, round.stage, previous.faceChainage))
+      : undefined;
     return assessRound(
       {
         faceChainage: round.faceChainage,
@@ -151,7 +168,12 @@ export class RoundAssessor {
         supportClasses: classes,
         nearbyJoints: nearby,
         // The class-change rule compares confirmed classes once the previous round is confirmed.
-        previousRound: previous ? { classId: classOfRound(previous) } : null,
+        previousRound: previous
+          ? {
+              classId: classOfRound(previous),
+              ...(previousValues !== undefined ? { values: previousValues } : {}),
+            }
+          : null,
         rules,
         qTableEdition: project.qTableEdition,
         groundScale: project.groundScale,

@@ -1,8 +1,10 @@
 import {
   COMPARISONS,
+  FIRES,
   TRIGGER_LEVELS as LEVELS,
   WATCHED,
   type Comparison,
+  type Fires,
   type TriggerLevel as Level,
   type Watched,
 } from '@roundbook/domain';
@@ -13,7 +15,7 @@ import { CreatedAt, UpdatedAt, Version } from '../../common/dto/timestamps.js';
 import { Project } from '../projects/project.entity.js';
 
 /** What a trigger rule watches, how it compares and its levels come from packages/domain (product.md "Trigger rule"). */
-export { COMPARISONS, LEVELS, WATCHED, type Comparison, type Level, type Watched };
+export { COMPARISONS, FIRES, LEVELS, WATCHED, type Comparison, type Fires, type Level, type Watched };
 
 @Entity('trigger_rules')
 export class TriggerRule {
@@ -36,6 +38,10 @@ export class TriggerRule {
 
   @Column({ type: 'decimal', precision: 12, scale: 4, nullable: true, transformer: decimal })
   threshold: number | null;
+
+  /** How it fires: on the round's value, or on the change from the previous round of the heading and stage. */
+  @Column({ type: 'enum', enum: FIRES, default: 'value' })
+  fires: Fires;
 
   @Column({ type: 'enum', enum: LEVELS })
   level: Level;

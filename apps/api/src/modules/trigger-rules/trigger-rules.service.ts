@@ -1,6 +1,13 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { evaluateRuleOutcome, triggerRuleErrors, triggerRuleSummary, WAITING_RULES } from '@roundbook/domain';
+import {
+  evaluateRuleOutcome,
+  previousRoundValues,
+  triggerRuleErrors,
+  triggerRuleSummary,
+  WAITING_RULES,
+  type RoundFacts,
+} from '@roundbook/domain';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { AuthUser, ProjectAccess } from '../../common/auth/auth-user.js';
 import { definedOnly } from '../../common/dto/defined-only.js';
@@ -22,6 +29,7 @@ const FIELDS = [
   'watch',
   'comparison',
   'threshold',
+  'fires',
   'level',
   'action',
   'ownerRole',
@@ -35,6 +43,7 @@ const toDto = (r: TriggerRule): TriggerRuleDto => ({
   watch: r.watch,
   comparison: r.comparison,
   threshold: r.threshold,
+  fires: r.fires,
   level: r.level,
   action: r.action,
   ownerRole: r.ownerRole,
@@ -70,6 +79,7 @@ export class TriggerRulesService {
       const rule = manager.create(TriggerRule, {
         comparison: null,
         threshold: null,
+        fires: 'value',
         enabled: true,
         ...definedOnly(dto),
         projectId: access.projectId,
@@ -149,6 +159,7 @@ export class TriggerRulesService {
     const rule = this.dataSource.manager.create(TriggerRule, {
       comparison: null,
       threshold: null,
+      fires: 'value',
       ...definedOnly(dto),
     });
     this.assertValid(rule);
@@ -167,11 +178,27 @@ export class TriggerRulesService {
     );
     const matches: TriggerPreviewDto['matches'] = [];
     let evaluated = 0;
+    const key = (headingId: string, stage: string, roundNumber: number) =>
+      `${headingId}|${stage}|${roundNumber}`;
+    const byRound = new Map(rows.map((r) => [key(r.headingId, r.stage, r.roundNumber), r]));
     for (const r of rows) {
       const heading = byId.get(r.headingId)!;
+      // A change rule on facts saved before they kept the last round's values: read them from the previous
+      // round of the heading and stage when it is among the rounds checked.
+      const before = byRound.get(key(r.headingId, r.stage, r.roundNumber - 1));
+      const facts: RoundFacts =
+        rule.fires === 'change' && r.facts.previous === undefined && before
+          ? {
+              ...r.facts,
+              previous: previousRoundValues(
+                before.facts,
+                headingGeometry(heading, before.stage, before.faceChainage),
+              ),
+            }
+          : r.facts;
       // The heading as the round's own assessment read it: the drive at its face (the tangent of a curved
       // alignment), not the drive at the heading's start.
-      const outcome = evaluateRuleOutcome(rule, r.facts, headingGeometry(heading, r.stage, r.faceChainage));
+      const outcome = evaluateRuleOutcome(rule, facts, headingGeometry(heading, r.stage, r.faceChainage));
       if (outcome.state === 'fired' || outcome.state === 'clear') evaluated++;
       if (outcome.state === 'fired') {
         matches.push({

@@ -1526,10 +1526,23 @@ export interface components {
         WatchedQuantity: "q" | "rmr89" | "inflow-per-10m" | "overbreak" | "adverse-orientation" | "crown-crossing-within" | "support-class-change" | "open-red-hazard" | "round-over-class-length";
         /** @enum {string} */
         Comparison: "<" | "<=" | ">" | ">=" | "=";
+        /**
+         * @description How it fires: 'value' on the round's own value, 'change' on the change from the previous round of the
+         *     same heading and stage (Q in percent of the last Q, RMR89, inflow and overbreak in their unit; a yes/no
+         *     condition only when it newly appears)
+         * @enum {string}
+         */
+        TriggerFires: "value" | "change";
         TriggerRuleDto: {
             watch: components["schemas"]["WatchedQuantity"];
             comparison: components["schemas"]["Comparison"] | null;
             threshold: number | null;
+            /**
+             * @description How it fires: 'value' on the round's own value, 'change' on the change from the previous round of the
+             *     same heading and stage (Q in percent of the last Q, RMR89, inflow and overbreak in their unit; a yes/no
+             *     condition only when it newly appears)
+             */
+            fires: components["schemas"]["TriggerFires"];
             level: components["schemas"]["TriggerLevel"];
             ownerRole: components["schemas"]["ProjectRole"];
             id: string;
@@ -1544,6 +1557,8 @@ export interface components {
         CreateTriggerRuleDto: {
             watch: components["schemas"]["WatchedQuantity"];
             comparison?: components["schemas"]["Comparison"] | null;
+            /** @description How it fires (default 'value'); 'change' suits Q, RMR89, inflow, overbreak and the yes/no conditions that can newly appear */
+            fires?: components["schemas"]["TriggerFires"];
             level: components["schemas"]["TriggerLevel"];
             ownerRole: components["schemas"]["ProjectRole"];
             threshold?: number | null;
@@ -1572,6 +1587,8 @@ export interface components {
         UpdateTriggerRuleDto: {
             watch?: components["schemas"]["WatchedQuantity"];
             comparison?: components["schemas"]["Comparison"] | null;
+            /** @description How it fires (default 'value'); 'change' suits Q, RMR89, inflow, overbreak and the yes/no conditions that can newly appear */
+            fires?: components["schemas"]["TriggerFires"];
             level?: components["schemas"]["TriggerLevel"];
             ownerRole?: components["schemas"]["ProjectRole"];
             threshold?: number | null;

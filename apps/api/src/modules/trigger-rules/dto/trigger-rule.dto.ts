@@ -2,7 +2,7 @@ import { ApiProperty, PartialType } from '@nestjs/swagger';
 import { IsBoolean, IsIn, IsInt, IsNumber, IsOptional, IsString, Length, Max, Min } from 'class-validator';
 import { PROJECT_ROLES } from '../../../common/auth/auth-user.js';
 import { Optional } from '../../../common/dto/optional.js';
-import { COMPARISONS, LEVELS, WATCHED } from '../trigger-rule.entity.js';
+import { COMPARISONS, FIRES, LEVELS, WATCHED } from '../trigger-rule.entity.js';
 
 export class TriggerRuleDto {
   id: string;
@@ -12,6 +12,13 @@ export class TriggerRuleDto {
   comparison: (typeof COMPARISONS)[number] | null;
   @ApiProperty({ type: Number, nullable: true })
   threshold: number | null;
+  /**
+   * How it fires: 'value' on the round's own value, 'change' on the change from the previous round of the
+   * same heading and stage (Q in percent of the last Q, RMR89, inflow and overbreak in their unit; a yes/no
+   * condition only when it newly appears)
+   */
+  @ApiProperty({ enum: FIRES, enumName: 'TriggerFires' })
+  fires: (typeof FIRES)[number];
   @ApiProperty({ enum: LEVELS, enumName: 'TriggerLevel' })
   level: (typeof LEVELS)[number];
   action: string;
@@ -40,6 +47,12 @@ export class CreateTriggerRuleDto {
   @Min(-1e6)
   @Max(1e6)
   threshold?: number | null;
+
+  /** How it fires (default 'value'); 'change' suits Q, RMR89, inflow, overbreak and the yes/no conditions that can newly appear */
+  @Optional()
+  @IsIn(FIRES, { message: "fires is 'value' or 'change'." })
+  @ApiProperty({ enum: FIRES, enumName: 'TriggerFires', required: false })
+  fires?: (typeof FIRES)[number];
 
   @IsIn(LEVELS)
   @ApiProperty({ enum: LEVELS, enumName: 'TriggerLevel' })

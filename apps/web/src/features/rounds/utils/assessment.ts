@@ -69,11 +69,14 @@ export interface AssessmentSetup {
   rules: TriggerRuleInput[];
 }
 
-/** The previous round's class as the last save found it (the browser does not read other rounds). */
+/**
+ * The previous round's class, and its values for the rules that fire on a change, as the last save found
+ * them (the browser does not read other rounds).
+ */
 function previousRoundOf(round: Round): AssessmentContext['previousRound'] {
   const facts = (round.assessment as Partial<RoundAssessment>).facts;
   if (facts === undefined || facts.previousClassId === undefined) return null;
-  return { classId: facts.previousClassId };
+  return { classId: facts.previousClassId, ...(facts.previous ? { values: facts.previous } : {}) };
 }
 
 /** What the round is read against, built as the API builds it (round-assessor.service.ts). */

@@ -87,6 +87,123 @@ describe('TriggerRuleForm', () => {
     });
   });
 
+  describe('a rule that fires on a change from the last round (issue 11 item 3)', () => {
+    it('asks for a fall or a rise and its size, says the rule in words, and sends a fall as a negative change', async () => {
+      const bodies: unknown[] = [];
+      const onSaved = jest.fn();
+      mockApi({
+        'POST /api/projects/p-1/trigger-rules': async (request) => {
+          const body = (await request.json()) as Record<string, unknown>;
+          bodies.push(body);
+          return jsonResponse({ id: 'tr-1', ...body, enabled: true, summary: '', version: 1 }, 201);
+        },
+      });
+      const user = userEvent.setup();
+      renderWithProviders(<TriggerRuleForm projectId="p-1" onSaved={onSaved} onCancel={jest.fn()} />);
+      // On the value by default, as every rule before.
+      expect(screen.getByRole('radio', { name: 'On this round’s value' })).toBeChecked();
+      await user.click(screen.getByRole('radio', { name: /^On a change from the last round/ }));
+      expect(screen.queryByLabelText(/^Fires when the value is/)).not.toBeInTheDocument();
+      const on = screen.getByLabelText(/^Fires on/);
+      expect(
+        within(on)
+          .getAllByRole('option')
+          .map((o) => o.textContent),
+      ).toEqual(['a fall of more than', 'a fall of at least', 'a rise of more than', 'a rise of at least']);
+      expect(screen.getByText(/Q is compared by ratio/)).toBeInTheDocument();
+      expect(screen.getByText('%')).toBeInTheDocument();
+
+      // A fall of Q by 100 % or more cannot happen (Q stays above 0): refused before sending.
+      await user.type(screen.getByLabelText(/^Size of the change/), '100');
+      await user.type(screen.getByLabelText(/^Action to take/), 'Ask the engineer to look at the fall.');
+      await user.click(screen.getByRole('button', { name: 'Add rule' }));
+      expect(
+        await screen.findByText('Q cannot fall by 100 % or more: give a fall between 0 and 99 %.'),
+      ).toBeInTheDocument();
+      expect(bodies).toHaveLength(0);
+
+      await user.clear(screen.getByLabelText(/^Size of the change/));
+      await user.type(screen.getByLabelText(/^Size of the change/), '50');
+      expect(screen.getByTestId('trigger-rule-in-words')).toHaveTextContent(
+        'In words: Q falls by more than 50 % from the last round → amber',
+      );
+      await user.click(screen.getByRole('button', { name: 'Add rule' }));
+      await waitFor(() => expect(bodies).toHaveLength(1));
+      expect(bodies[0]).toMatchObject({ watch: 'q', fires: 'change', comparison: '<', threshold: -50 });
+
+      // A rise is sent as it is typed.
+      await user.selectOptions(screen.getByLabelText(/^Watches/), 'inflow-per-10m');
+      await user.selectOptions(screen.getByLabelText(/^Fires on/), '>=');
+      expect(
+        screen.getByText(/this round’s value less the last round’s, in l\/min per 10 m/),
+      ).toBeInTheDocument();
+      await user.clear(screen.getByLabelText(/^Size of the change/));
+      await user.type(screen.getByLabelText(/^Size of the change/), '20');
+      expect(screen.getByTestId('trigger-rule-in-words')).toHaveTextContent(
+        'Water inflow per 10 m rises by 20 l/min per 10 m or more from the last round',
+      );
+    });
+
+    it('offers the choice only where a change means something, and says when a yes/no condition fires', async () => {
+      const bodies: unknown[] = [];
+      mockApi({
+        'POST /api/projects/p-1/trigger-rules': async (request) => {
+          bodies.push(await request.json());
+          return jsonResponse({ code: 'VALIDATION_FAILED', message: 'No.', fields: {} }, 400);
+        },
+      });
+      const user = userEvent.setup();
+      renderForm();
+      const watch = screen.getByLabelText(/^Watches/);
+      await user.selectOptions(watch, 'adverse-orientation');
+      await user.click(screen.getByRole('radio', { name: /^On a change from the last round/ }));
+      expect(screen.getByText(/fires only when it newly appears/)).toBeInTheDocument();
+      expect(screen.getByTestId('trigger-rule-in-words')).toHaveTextContent(
+        'A set or feature adverse to the drive, newly (not on the last round) → amber',
+      );
+      // The class-change rule already compares with the last round, and the crown reach reads this face.
+      await user.selectOptions(watch, 'support-class-change');
+      expect(screen.queryByRole('radio', { name: /^On a change/ })).not.toBeInTheDocument();
+      await user.selectOptions(watch, 'crown-crossing-within');
+      expect(screen.queryByRole('radio', { name: /^On a change/ })).not.toBeInTheDocument();
+      await user.selectOptions(watch, 'support-class-change');
+      await user.type(screen.getByLabelText(/^Action to take/), 'Tell the engineer.');
+      await user.click(screen.getByRole('button', { name: 'Add rule' }));
+      await waitFor(() => expect(bodies).toHaveLength(1));
+      expect(bodies[0]).toMatchObject({ watch: 'support-class-change', fires: 'value' });
+    });
+
+    it('shows a stored fall as its size, with “a fall of at least” for ≤', () => {
+      mockApi({});
+      renderWithProviders(
+        <TriggerRuleForm
+          projectId="p-1"
+          rule={{
+            id: 'tr-1',
+            watch: 'rmr89',
+            fires: 'change',
+            comparison: '<=',
+            threshold: -10,
+            level: 'red',
+            action: 'Stop and call the designer.',
+            ownerRole: 'engineer',
+            timeAllowedHours: 1,
+            enabled: true,
+            summary: 'RMR89 falls by 10 points or more from the last round → red',
+            version: 3,
+          }}
+          onSaved={jest.fn()}
+          onCancel={jest.fn()}
+        />,
+      );
+      expect(screen.getByLabelText(/^Size of the change/)).toHaveValue('10');
+      expect(screen.getByLabelText(/^Fires on/)).toHaveValue('<=');
+      expect(screen.getByTestId('trigger-rule-in-words')).toHaveTextContent(
+        'RMR89 falls by 10 points or more from the last round → red',
+      );
+    });
+  });
+
   describe('trying the rule on recent rounds', () => {
     // Invented rounds of an invented heading.
     const headings = [

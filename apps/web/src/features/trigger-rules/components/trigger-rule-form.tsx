@@ -23,7 +23,7 @@ import {
 import { Form, Formik, useField, useFormikContext } from 'formik';
 import type { FormikHelpers, FormikProps } from 'formik';
 import { useState } from 'react';
-import type { ProjectRole, TriggerLevel, TriggerRule, WatchedQuantity } from '@/api/contract';
+import type { ProjectRole, TriggerFires, TriggerLevel, TriggerRule, WatchedQuantity } from '@/api/contract';
 import type { TriggerPreview } from '@/features/trigger-rules/api/trigger-rules';
 import {
   useChangeTriggerRule,
@@ -43,10 +43,15 @@ import {
   triggerRuleFieldLabels,
   triggerRuleSchema,
   triggerRuleToFormValues,
+  typedRuleSummary,
 } from '@/features/trigger-rules/schemas/trigger-rule.schema';
 import {
+  CHANGE_COMPARISONS,
+  changeComparisonLabels,
+  changeUnit,
   COMPARISONS,
   comparisonLabels,
+  hasChangeForm,
   LEVELS,
   WATCHED,
   watchInfo,
@@ -85,7 +90,7 @@ const useStyles = makeStyles({
 
 /** What decides where a rule fires; a try is out of date once one of these changes. */
 function conditionKey(values: TriggerRuleFormValues): string {
-  return JSON.stringify([values.watch, values.comparison, values.threshold.trim()]);
+  return JSON.stringify([values.watch, values.fires, values.comparison, values.threshold.trim()]);
 }
 
 /** Comparison and threshold appear only when what is watched has them. */
@@ -93,12 +98,31 @@ function ConditionFields() {
   const styles = useStyles();
   const { values, setFieldValue, setFieldTouched } = useFormikContext<TriggerRuleFormValues>();
   const info = watchInfo[values.watch];
+  const change = values.fires === 'change' && hasChangeForm(values.watch);
   const onWatch = (value: string) => {
-    const kind = watchInfo[value as WatchedQuantity].kind;
-    void setFieldValue('comparison', kind === 'numeric' ? values.comparison || '<' : '', false);
+    const watch = value as WatchedQuantity;
+    const kind = watchInfo[watch].kind;
+    const fires = hasChangeForm(watch) ? values.fires : 'value';
+    if (fires !== values.fires) void setFieldValue('fires', fires, false);
+    const comparison = values.comparison || '<';
+    void setFieldValue(
+      'comparison',
+      kind !== 'numeric' ? '' : fires === 'change' && comparison === '=' ? '<' : comparison,
+      false,
+    );
     if (kind === 'flag') void setFieldValue('threshold', '', false);
     void setFieldTouched('threshold', false, false);
   };
+  const onFires = (fires: TriggerFires) => {
+    void setFieldValue('fires', fires, false);
+    if (info.kind === 'numeric') {
+      // A value and a change are different numbers: the threshold is typed again.
+      void setFieldValue('threshold', '', false);
+      if (fires === 'change' && values.comparison === '=') void setFieldValue('comparison', '<', false);
+    }
+    void setFieldTouched('threshold', false, false);
+  };
+  const unit = changeUnit(values.watch);
   return (
     <div className={styles.group}>
       <div className={styles.wide}>
@@ -110,7 +134,48 @@ function ConditionFields() {
           onValueChange={onWatch}
         />
       </div>
-      {info.kind === 'numeric' && (
+      {hasChangeForm(values.watch) && (
+        <div className={styles.wide}>
+          <Field label="Fires" size="large">
+            <RadioGroup
+              layout="horizontal"
+              value={values.fires}
+              onChange={(_e, d) => onFires(d.value as TriggerFires)}
+            >
+              <Radio className={styles.radio} value="value" label="On this round’s value" />
+              <Radio
+                className={styles.radio}
+                value="change"
+                label="On a change from the last round of the heading and stage"
+              />
+            </RadioGroup>
+          </Field>
+        </div>
+      )}
+      {info.kind === 'numeric' && change && (
+        <>
+          <FormikSelectField
+            name="comparison"
+            label="Fires on"
+            required
+            options={CHANGE_COMPARISONS.map((c) => ({ value: c, label: changeComparisonLabels[c]! }))}
+          />
+          <FormikInputField
+            name="threshold"
+            label="Size of the change"
+            inputMode="decimal"
+            contentAfter={unit === '' ? undefined : unit}
+            required
+          />
+          <p className={styles.note}>
+            {values.watch === 'q'
+              ? 'Q is compared by ratio, in percent of the last round’s Q: a fall of 50 % is Q halving, say from 4 to 2.'
+              : `The change is this round’s value less the last round’s, in ${unit}.`}{' '}
+            The first round of a stage has nothing to compare with and stays clear.
+          </p>
+        </>
+      )}
+      {info.kind === 'numeric' && !change && (
         <>
           <FormikSelectField
             name="comparison"
@@ -136,9 +201,19 @@ function ConditionFields() {
           required
         />
       )}
-      {info.kind === 'flag' && (
+      {info.kind === 'flag' && !change && (
         <p className={styles.note}>This is a yes/no condition: the rule fires whenever it is true.</p>
       )}
+      {info.kind === 'flag' && change && (
+        <p className={styles.note}>
+          This is a yes/no condition: the rule fires only when it newly appears, that is when it was clear on
+          the last round of this heading and stage. While it stays, the rule is clear.
+        </p>
+      )}
+      <p
+        className={styles.note}
+        data-testid="trigger-rule-in-words"
+      >{`In words: ${typedRuleSummary(values)}`}</p>
     </div>
   );
 }

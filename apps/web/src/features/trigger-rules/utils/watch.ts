@@ -1,4 +1,6 @@
 import {
+  CHANGE_UNIT,
+  CHANGE_WATCHES as DOMAIN_CHANGE_WATCHES,
   COMPARISONS as DOMAIN_COMPARISONS,
   comparisonLabels,
   levelLabels,
@@ -18,3 +20,20 @@ export const WATCHED: WatchedQuantity[] = [...DOMAIN_WATCHED];
 export { comparisonLabels, levelLabels };
 export const COMPARISONS: Comparison[] = [...DOMAIN_COMPARISONS];
 export const LEVELS: TriggerLevel[] = [...TRIGGER_LEVELS];
+
+/** The watches a rule may fire on a change from the last round (packages/domain CHANGE_WATCHES). */
+export const CHANGE_WATCHES: WatchedQuantity[] = [...DOMAIN_CHANGE_WATCHES];
+export const hasChangeForm = (watch: WatchedQuantity): boolean => CHANGE_WATCHES.includes(watch);
+
+/** The unit of a numeric change: percent of the last Q, the watch's own unit for the others. */
+export const changeUnit = (watch: WatchedQuantity): string =>
+  (CHANGE_UNIT[watch as keyof typeof CHANGE_UNIT] ?? '').trim();
+
+/** How a change rule's comparison reads in the form: a fall or a rise, more than or at least. */
+export const changeComparisonLabels: Partial<Record<Comparison, string>> = {
+  '<': 'a fall of more than',
+  '<=': 'a fall of at least',
+  '>': 'a rise of more than',
+  '>=': 'a rise of at least',
+};
+export const CHANGE_COMPARISONS: Comparison[] = ['<', '<=', '>', '>='];
