@@ -164,6 +164,37 @@ function removedWords(j: JointRow): string {
 const fmt = (value: number | null, digits: number) =>
   value === null ? '—' : Number.isFinite(value) ? value.toFixed(digits) : '∞';
 
+/** The sets of the round (mean, counts, Fisher k and α95, spacing): in the editor and the read-only summary. */
+export function SetsTable({ sets }: { sets: RoundSets }) {
+  const styles = useStyles();
+  return (
+    <table className={styles.setTable} data-testid="sets-table">
+      <thead>
+        <tr>
+          <th scope="col">Set</th>
+          <th scope="col">Mean (dip direction/dip)</th>
+          <th scope="col">Joints (this round)</th>
+          <th scope="col">k</th>
+          <th scope="col">α95</th>
+          <th scope="col">Mean spacing</th>
+        </tr>
+      </thead>
+      <tbody>
+        {sets.sets.map((s) => (
+          <tr key={s.label}>
+            <th scope="row">{s.label}</th>
+            <td>{formatPlane(s.mean, 'dip-direction/dip')}</td>
+            <td>{`${s.count} (${s.countHere})`}</td>
+            <td>{fmt(s.k, 1)}</td>
+            <td>{`${fmt(s.alpha95, 1)}°`}</td>
+            <td>{s.meanSpacingM === null ? '—' : `${s.meanSpacingM.toFixed(2)} m`}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 /** The joints of the face: a fast table (Enter moves on, a new row at the end), import, and the sets. */
 export function JointsSection({
   defaultNotation,
@@ -618,30 +649,7 @@ export function JointsSection({
               : 'No sets yet: sets need at least two joints of similar orientation.'}
           </p>
         ) : (
-          <table className={styles.setTable} data-testid="sets-table">
-            <thead>
-              <tr>
-                <th scope="col">Set</th>
-                <th scope="col">Mean (dip direction/dip)</th>
-                <th scope="col">Joints (this round)</th>
-                <th scope="col">k</th>
-                <th scope="col">α95</th>
-                <th scope="col">Mean spacing</th>
-              </tr>
-            </thead>
-            <tbody>
-              {sets.sets.map((s) => (
-                <tr key={s.label}>
-                  <th scope="row">{s.label}</th>
-                  <td>{formatPlane(s.mean, 'dip-direction/dip')}</td>
-                  <td>{`${s.count} (${s.countHere})`}</td>
-                  <td>{fmt(s.k, 1)}</td>
-                  <td>{`${fmt(s.alpha95, 1)}°`}</td>
-                  <td>{s.meanSpacingM === null ? '—' : `${s.meanSpacingM.toFixed(2)} m`}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <SetsTable sets={sets} />
         )}
       </section>
 

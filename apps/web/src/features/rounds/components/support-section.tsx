@@ -90,6 +90,26 @@ function range(min: number | null, max: number | null, system: string): string |
   return `${system} ${min}–${max}`;
 }
 
+/** A class in two lines of words: its bands and round length, then what is built (cards and summaries). */
+export function classLines(c: SupportClass): string[] {
+  const bands = [
+    range(c.qMin, c.qMax, 'Q'),
+    range(c.rmrMin, c.rmrMax, 'RMR'),
+    `rounds up to ${c.maxRoundLength} m`,
+  ]
+    .filter((s) => s !== null)
+    .join(' · ');
+  const build = [
+    c.boltType && `${c.boltType}${c.boltLength ? ` ${c.boltLength} m` : ''} ${c.boltPattern}`.trim(),
+    c.shotcreteMm > 0 ? `${c.shotcreteMm} mm sprayed concrete` : null,
+    c.steelSupport || null,
+    c.probingRequired ? 'probe ahead' : null,
+  ]
+    .filter((s) => s)
+    .join(' · ');
+  return [bands, build].filter((line) => line !== '');
+}
+
 /** The recommendation: a support class (suggested ones first), the next round length, a reason, submit. */
 export function SupportSection({
   classes,
@@ -142,21 +162,11 @@ export function SupportSection({
         )}
       </span>
       <Text weight="semibold">{c.name}</Text>
-      <Caption1 className={styles.muted}>
-        {[range(c.qMin, c.qMax, 'Q'), range(c.rmrMin, c.rmrMax, 'RMR'), `rounds up to ${c.maxRoundLength} m`]
-          .filter((s) => s !== null)
-          .join(' · ')}
-      </Caption1>
-      <Caption1 className={styles.muted}>
-        {[
-          c.boltType && `${c.boltType}${c.boltLength ? ` ${c.boltLength} m` : ''} ${c.boltPattern}`.trim(),
-          c.shotcreteMm > 0 ? `${c.shotcreteMm} mm sprayed concrete` : null,
-          c.steelSupport || null,
-          c.probingRequired ? 'probe ahead' : null,
-        ]
-          .filter((s) => s)
-          .join(' · ')}
-      </Caption1>
+      {classLines(c).map((line) => (
+        <Caption1 key={line} className={styles.muted}>
+          {line}
+        </Caption1>
+      ))}
     </button>
   );
 
