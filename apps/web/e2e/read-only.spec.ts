@@ -178,7 +178,10 @@ test('no field covers or touches another on the round sections and the Setup for
       await setTheme(geologist, theme);
       await expect(tabs.getByRole('tab', { name: 'Support' })).toBeVisible();
       for (const tab of await tabs.getByRole('tab').all()) {
-        const name = ((await tab.textContent()) ?? '?').replace('!', '').trim();
+        // A Fluent tab holds its text twice (the second keeps the room for the bold selected text).
+        const text = ((await tab.textContent()) ?? '?').replace(/!/g, '').trim();
+        const half = text.slice(0, text.length / 2);
+        const name = text.length % 2 === 0 && text === half + half ? half : text;
         await tab.click();
         await geologist.waitForLoadState('networkidle');
         // Open the first joint's further fields too: they are fields like the others.

@@ -87,6 +87,8 @@ const useStyles = makeStyles({
   },
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%', minWidth: 0 },
   select: { minWidth: 0, '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
+  // The set pickers in the toolbar are as wide as their longest choice (never "found from the c…").
+  picker: { minWidth: 'max-content', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   override: { fontSize: tokens.fontSizeBase200, color: tokens.colorPaletteDarkOrangeForeground1 },
   summary: {
     lineHeight: `${TOUCH_TARGET_PX}px`,
@@ -608,7 +610,7 @@ export function JointsSection({
         <div className={styles.toolbar}>
           <Field label="Earlier rounds within" size="large" orientation="horizontal">
             <Select
-              className={styles.select}
+              className={styles.picker}
               value={String(distance)}
               size="large"
               onChange={(_e, data) => onDistanceChange(Number(data.value))}
@@ -622,7 +624,7 @@ export function JointsSection({
           </Field>
           <Field label="Sets" size="large" orientation="horizontal">
             <Select
-              className={styles.select}
+              className={styles.picker}
               value={setCount === null ? '' : String(setCount)}
               size="large"
               aria-label="Number of sets"

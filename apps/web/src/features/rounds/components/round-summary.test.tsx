@@ -1,5 +1,5 @@
 import { formatCalendarDate, formatProjectTime } from '@roundbook/domain';
-import { Q_JA_TABLE, RMR89_CONDITION_SIMPLE, STRENGTH_GRADES } from '@roundbook/geomath';
+import { Q_JA_TABLE, Q_SRF_TABLE, RMR89_CONDITION_SIMPLE, STRENGTH_GRADES } from '@roundbook/geomath';
 import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Round } from '@/features/rounds/api/types';
@@ -150,8 +150,12 @@ describe('A read-only round is a summary', () => {
     const rating = screen.getByTestId('summary-rating');
     expect(rating).toHaveTextContent(`${condition.rating} · ${condition.description}`);
     expect(rating).toHaveTextContent('Fair (-5)');
-    // A value typed without a table row reads as typed.
-    expect(screen.getByTestId('summary-q-rqd')).toHaveTextContent('RQD 75 % as measured');
+    // RQD typed without a table row reads as typed; a value saved without its row gets the meaning of the
+    // rows that give it (SRF 1: only the medium-stress row of the table).
+    expect(screen.getByTestId('summary-q-rqd')).toHaveTextContent(/^RQD 75 %$/);
+    const srf = Q_SRF_TABLE.rows.filter((r) => r.value === 1);
+    expect(srf).toHaveLength(1);
+    expect(screen.getByTestId('summary-q-srf')).toHaveTextContent(`SRF 1 · ${srf[0].description}`);
 
     await user.click(within(sections()).getByRole('tab', { name: 'Support' }));
     const support = screen.getByTestId('summary-support');

@@ -424,8 +424,12 @@ function qWords(values: RoundFormValues, table: (typeof Q_TABLES)[number]): stri
   }
   if (typed === '') return '';
   if (key === 'rqd')
-    return `${table.symbol} ${typed} %${values.q.rqdFromJv ? ' — estimated from Jv, a correlation' : ' as measured'}`;
-  return `${table.symbol} ${typed}`;
+    return `${table.symbol} ${typed} %${values.q.rqdFromJv ? ' — estimated from Jv, a correlation' : ''}`;
+  // A value saved without its row (e.g. typed, or imported): the meaning of the rows that give that value.
+  const same = table.rows.filter((r) => String(r.value) === typed);
+  if (same.length === 0) return `${table.symbol} ${typed}`;
+  const meaning = same.map((r) => `${r.description}${r.extra ? ` (${r.extra})` : ''}`);
+  return `${table.symbol} ${typed} · ${meaning.length === 1 ? meaning[0] : `one of: ${meaning.join('; or ')}`}`;
 }
 
 export function RatingSummary({ saved }: { saved: Round['ratings'] }) {

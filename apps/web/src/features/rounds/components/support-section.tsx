@@ -29,6 +29,9 @@ export interface SupportSectionProps {
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
+  // Each heading stands apart from the cards above it (issue 19 item 5: two headings ran together).
+  classes: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalM },
+  heading: { margin: 0, marginTop: tokens.spacingVerticalS },
   list: {
     display: 'grid',
     gridTemplateColumns: 'repeat(auto-fill, minmax(17rem, 1fr))',
@@ -179,12 +182,12 @@ export function SupportSection({
         </MessageBarBody>
       </MessageBar>
 
-      <div role="radiogroup" aria-label="Support class recommended">
-        <Text as="h3" weight="semibold" size={500}>
+      <div role="radiogroup" aria-label="Support class recommended" className={styles.classes}>
+        <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           {suggested.length > 0 ? 'Classes that fit the ratings' : 'No class fits the ratings as saved'}
         </Text>
         {suggested.length > 0 && <div className={styles.list}>{suggested.map((c) => card(c, true))}</div>}
-        <Text as="h3" weight="semibold" size={500}>
+        <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           Other active classes
         </Text>
         <div className={styles.list}>{others.map((c) => card(c, false))}</div>
