@@ -186,7 +186,7 @@ test('no field covers or touches another on the round sections and the Setup for
         await geologist.waitForLoadState('networkidle');
         // Open the first joint's further fields too: they are fields like the others.
         if (name === 'Joints') {
-          const more = geologist.getByRole('button', { name: 'More of joint 1' });
+          const more = geologist.getByRole('button', { name: 'More of joint 1', exact: true });
           if ((await more.count()) > 0 && (await more.getAttribute('aria-expanded')) !== 'true')
             await more.click();
         }

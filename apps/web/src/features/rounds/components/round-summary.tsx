@@ -71,6 +71,7 @@ const useStyles = makeStyles({
     backgroundColor: tokens.colorNeutralBackground1,
   },
   wide: { gridColumn: '1 / -1' },
+  title: { margin: 0 },
   list: {
     margin: 0,
     display: 'grid',
@@ -145,7 +146,9 @@ function Group({ title, wide, children }: { title: string; wide?: boolean; child
   const styles = useStyles();
   return (
     <section className={mergeClasses(styles.group, wide && styles.wide)} aria-label={title}>
-      <Subtitle2 as="h3">{title}</Subtitle2>
+      <Subtitle2 as="h3" className={styles.title}>
+        {title}
+      </Subtitle2>
       {children}
     </section>
   );
@@ -618,7 +621,12 @@ export function SupportSummary({
           {fitting.length === 0 ? (
             <Text className={styles.note}>No class fitted the ratings as saved.</Text>
           ) : (
-            <SummaryList items={fitting.map((c) => ({ label: c.code, value: classLines(c).join('\n') }))} />
+            <SummaryList
+              items={fitting.map((c) => ({
+                label: `${c.code} · ${c.name}`,
+                value: classLines(c).join('\n'),
+              }))}
+            />
           )}
         </Group>
       </div>
