@@ -207,6 +207,15 @@ test('no field covers or touches another on the round sections and the Setup for
       await admin.goto(`/setup/${section}`);
       await expect(admin.getByRole('tablist', { name: 'Setup sections' })).toBeVisible();
       await admin.waitForLoadState('networkidle');
+      // The heading form opens from its row (its hint on the grid start coordinates, its drive fields).
+      if (section === 'headings') {
+        await admin
+          .getByRole('row')
+          .filter({ hasText: 'HR-U' })
+          .getByRole('button', { name: 'Change' })
+          .click();
+        await expect(admin.getByRole('form', { name: 'Change heading HR-U' })).toBeVisible();
+      }
       found.push(...(await layoutProblems(admin)).map((p) => `${size.width} setup ${section}: ${p}`));
       await shot(admin, `setup-${section}-${size.width}`);
     }

@@ -88,6 +88,8 @@ const useStyles = makeStyles({
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%', minWidth: 0 },
   select: { minWidth: 0, '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   // The set pickers in the toolbar are as wide as their longest choice (never "found from the c…").
+  // A label and its picker side by side, each as wide as it needs (not Fluent's 33 % / rest).
+  pickerField: { gridTemplateColumns: 'max-content max-content', columnGap: tokens.spacingHorizontalS },
   picker: { minWidth: 'max-content', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   override: { fontSize: tokens.fontSizeBase200, color: tokens.colorPaletteDarkOrangeForeground1 },
   summary: {
@@ -608,7 +610,12 @@ export function JointsSection({
       <section className={styles.sets} aria-label="Sets">
         <Subtitle2 as="h3">Sets</Subtitle2>
         <div className={styles.toolbar}>
-          <Field label="Earlier rounds within" size="large" orientation="horizontal">
+          <Field
+            label="Earlier rounds within"
+            size="large"
+            orientation="horizontal"
+            className={styles.pickerField}
+          >
             <Select
               className={styles.picker}
               value={String(distance)}
@@ -622,7 +629,7 @@ export function JointsSection({
               ))}
             </Select>
           </Field>
-          <Field label="Sets" size="large" orientation="horizontal">
+          <Field label="Sets" size="large" orientation="horizontal" className={styles.pickerField}>
             <Select
               className={styles.picker}
               value={setCount === null ? '' : String(setCount)}
