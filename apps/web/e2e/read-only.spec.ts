@@ -109,9 +109,10 @@ async function layoutProblems(page: Page): Promise<string[]> {
       if (canvas === null) break;
       canvas.font = `${style.fontWeight} ${style.fontSize} ${style.fontFamily}`;
       const room = s.clientWidth - parseFloat(style.paddingLeft) - parseFloat(style.paddingRight);
-      if (canvas.measureText(text).width > room + 1)
+      const width = canvas.measureText(text).width;
+      if (width > room + 1)
         found.push(
-          `dropdown "${s.getAttribute('aria-label') ?? nameOf(s.closest('.fui-Field') ?? s)}" cuts "${text}"`,
+          `dropdown "${s.getAttribute('aria-label') ?? nameOf(s.closest('.fui-Field') ?? s)}" cuts "${text}" (${Math.round(width)} px in ${Math.round(room)} px)`,
         );
     }
     return found;

@@ -33,7 +33,7 @@ const useStyles = makeStyles({
     display: 'grid',
     // Strength reads as its grade and field hint ("R4 strong (needs more than one hammer blow to break)"):
     // its column gets the room to show the whole choice at 1280 px (issue 19 item 5).
-    gridTemplateColumns: 'minmax(10rem, 1.25fr) 7rem minmax(14rem, 2fr) minmax(14rem, 2.75fr) 3rem',
+    gridTemplateColumns: 'minmax(9rem, 1fr) 7rem minmax(14rem, 1.75fr) minmax(14rem, 3fr) 3rem',
     gap: tokens.spacingHorizontalS,
     alignItems: 'center',
   },
