@@ -256,7 +256,10 @@ test('a geologist records and submits a round on HR-U', async ({ page }) => {
   await expect(page.getByRole('heading', { level: 1 }).locator('..').locator('..')).toContainText(
     'Submitted',
   );
-  await expect(page.getByLabel('Next round length')).toHaveAttribute('readonly', '');
+  // Submitted, it reads as a summary (issue 19 item 11): the values, nothing to type into.
+  const summary = page.getByTestId('summary-support');
+  await expect(summary).toContainText('Next round length');
+  await expect(summary.locator('input, select, textarea')).toHaveCount(0);
   await shot(page, 'round-submitted');
 
   expect(problems).toEqual([]);

@@ -32,8 +32,12 @@ export interface FormikInputFieldProps {
   multiline?: boolean | number;
 }
 
+// An <input> is about 20 characters wide by itself; with the automatic minimum width of grid items that width
+// (and a unit after it) pushed the field over the next one in a narrow grid cell (Is50 over the next label,
+// issue 19 item 5). Zero minimum widths keep the field and its input in their cell.
 const useStyles = makeStyles({
-  input: { minHeight: `${TOUCH_TARGET_PX}px` },
+  field: { minWidth: 0 },
+  input: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: 0 },
 });
 
 /**
@@ -79,6 +83,7 @@ export function FormikInputField({
   };
   return (
     <Field
+      className={styles.field}
       label={label}
       hint={hint}
       required={required}

@@ -19,8 +19,12 @@ export interface FormikSelectFieldProps {
   onValueChange?: (value: string) => void;
 }
 
+// A native <select> is as wide as its longest option; with the automatic minimum width of grid and flex items
+// that width pushed the field out of its grid cell over the next one (a long time zone, issue 19 item 5).
+// Zero minimum widths keep the field in its cell; the chosen text then has the cell's width.
 const useStyles = makeStyles({
-  select: { '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
+  field: { minWidth: 0 },
+  select: { minWidth: 0, '& select': { minWidth: 0, minHeight: `${TOUCH_TARGET_PX}px` } },
 });
 
 /** A Fluent `Field` + native `Select` bound to a Formik field (large, for gloved hands). */
@@ -38,6 +42,7 @@ export function FormikSelectField({
   const showError = meta.touched && meta.error !== undefined;
   return (
     <Field
+      className={styles.field}
       label={label}
       hint={hint}
       required={required}

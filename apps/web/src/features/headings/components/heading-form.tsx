@@ -72,6 +72,8 @@ const useStyles = makeStyles({
   },
   fields: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
   wide: { gridColumn: '1 / -1' },
+  // Two of the section's 12rem columns, where there are two, so the choice reads whole (issue 19 item 5).
+  double: { minWidth: 0, '@media (min-width: 40rem)': { gridColumn: 'span 2' } },
   aside: {
     position: 'sticky',
     top: tokens.spacingVerticalL,
@@ -364,14 +366,16 @@ export function HeadingForm({ projectId, heading, coordinateGrid, onSaved, onCan
                   required
                 />
                 <GradientField />
-                <FormikSelectField
-                  name="chainageSense"
-                  label="Chainage in the drive direction"
-                  options={[
-                    { value: 'increasing', label: 'Increases (driven with the chainage)' },
-                    { value: 'decreasing', label: 'Decreases (driven against the chainage)' },
-                  ]}
-                />
+                <div className={styles.double}>
+                  <FormikSelectField
+                    name="chainageSense"
+                    label="Chainage in the drive direction"
+                    options={[
+                      { value: 'increasing', label: 'Increases (driven with the chainage)' },
+                      { value: 'decreasing', label: 'Decreases (driven against the chainage)' },
+                    ]}
+                  />
+                </div>
                 <FormikInputField
                   name="initialBearing"
                   label="Bearing at the start (optional)"

@@ -231,7 +231,7 @@ export function ProjectSettingsForm({ project, canEdit }: ProjectSettingsFormPro
             <FormikInputField
               name="coordinateGrid"
               label="Coordinate grid"
-              hint="The grid start coordinates are given in"
+              hint="The grid in which the headings' start coordinates are given"
               disabled={!canEdit}
             />
           </div>

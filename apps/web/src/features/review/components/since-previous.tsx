@@ -10,6 +10,13 @@ export interface SincePreviousProps {
 }
 
 const useStyles = makeStyles({
+  // Fluent's Text is inline: as a column the heading and the sentence under it no longer run together.
+  root: {
+    display: 'flex',
+    flexDirection: 'column',
+    alignItems: 'flex-start',
+    rowGap: tokens.spacingVerticalS,
+  },
   table: { borderCollapse: 'collapse', width: '100%', maxWidth: '48rem' },
   cell: {
     textAlign: 'left',
@@ -41,7 +48,7 @@ export function SincePreviousRound({ since }: SincePreviousProps) {
       ? 'Since the previous round'
       : `Since round ${since.previousRoundNumber}`;
   return (
-    <section aria-label="Since the previous round" data-testid="since-previous">
+    <section aria-label="Since the previous round" data-testid="since-previous" className={styles.root}>
       <Subtitle2 as="h3">{title}</Subtitle2>
       {since.changes.length === 0 ? (
         <Text as="p" className={styles.muted}>

@@ -31,7 +31,9 @@ const useStyles = makeStyles({
   units: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalS },
   unit: {
     display: 'grid',
-    gridTemplateColumns: 'minmax(10rem, 2fr) 7rem minmax(12rem, 2fr) minmax(12rem, 2fr) 3rem',
+    // Strength reads as its grade and field hint ("R4 strong (needs more than one hammer blow to break)"):
+    // its column gets the room to show the whole choice at 1280 px (issue 19 item 5).
+    gridTemplateColumns: 'minmax(9rem, 1fr) 7rem minmax(14rem, 1.75fr) minmax(14rem, 3fr) 3rem',
     gap: tokens.spacingHorizontalS,
     alignItems: 'center',
   },

@@ -87,6 +87,10 @@ const useStyles = makeStyles({
   },
   input: { minHeight: `${TOUCH_TARGET_PX}px`, width: '100%', minWidth: 0 },
   select: { minWidth: 0, '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
+  // The set pickers in the toolbar are as wide as their longest choice (never "found from the c…").
+  // A label and its picker side by side, each as wide as it needs (not Fluent's 33 % / rest).
+  pickerField: { gridTemplateColumns: 'max-content max-content', columnGap: tokens.spacingHorizontalS },
+  picker: { minWidth: 'max-content', '& select': { minHeight: `${TOUCH_TARGET_PX}px` } },
   override: { fontSize: tokens.fontSizeBase200, color: tokens.colorPaletteDarkOrangeForeground1 },
   summary: {
     lineHeight: `${TOUCH_TARGET_PX}px`,
@@ -163,6 +167,37 @@ function removedWords(j: JointRow): string {
 
 const fmt = (value: number | null, digits: number) =>
   value === null ? '—' : Number.isFinite(value) ? value.toFixed(digits) : '∞';
+
+/** The sets of the round (mean, counts, Fisher k and α95, spacing): in the editor and the read-only summary. */
+export function SetsTable({ sets }: { sets: RoundSets }) {
+  const styles = useStyles();
+  return (
+    <table className={styles.setTable} data-testid="sets-table">
+      <thead>
+        <tr>
+          <th scope="col">Set</th>
+          <th scope="col">Mean (dip direction/dip)</th>
+          <th scope="col">Joints (this round)</th>
+          <th scope="col">k</th>
+          <th scope="col">α95</th>
+          <th scope="col">Mean spacing</th>
+        </tr>
+      </thead>
+      <tbody>
+        {sets.sets.map((s) => (
+          <tr key={s.label}>
+            <th scope="row">{s.label}</th>
+            <td>{formatPlane(s.mean, 'dip-direction/dip')}</td>
+            <td>{`${s.count} (${s.countHere})`}</td>
+            <td>{fmt(s.k, 1)}</td>
+            <td>{`${fmt(s.alpha95, 1)}°`}</td>
+            <td>{s.meanSpacingM === null ? '—' : `${s.meanSpacingM.toFixed(2)} m`}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
 
 /** The joints of the face: a fast table (Enter moves on, a new row at the end), import, and the sets. */
 export function JointsSection({
@@ -575,9 +610,14 @@ export function JointsSection({
       <section className={styles.sets} aria-label="Sets">
         <Subtitle2 as="h3">Sets</Subtitle2>
         <div className={styles.toolbar}>
-          <Field label="Earlier rounds within" size="large" orientation="horizontal">
+          <Field
+            label="Earlier rounds within"
+            size="large"
+            orientation="horizontal"
+            className={styles.pickerField}
+          >
             <Select
-              className={styles.select}
+              className={styles.picker}
               value={String(distance)}
               size="large"
               onChange={(_e, data) => onDistanceChange(Number(data.value))}
@@ -589,9 +629,9 @@ export function JointsSection({
               ))}
             </Select>
           </Field>
-          <Field label="Sets" size="large" orientation="horizontal">
+          <Field label="Sets" size="large" orientation="horizontal" className={styles.pickerField}>
             <Select
-              className={styles.select}
+              className={styles.picker}
               value={setCount === null ? '' : String(setCount)}
               size="large"
               aria-label="Number of sets"
@@ -618,30 +658,7 @@ export function JointsSection({
               : 'No sets yet: sets need at least two joints of similar orientation.'}
           </p>
         ) : (
-          <table className={styles.setTable} data-testid="sets-table">
-            <thead>
-              <tr>
-                <th scope="col">Set</th>
-                <th scope="col">Mean (dip direction/dip)</th>
-                <th scope="col">Joints (this round)</th>
-                <th scope="col">k</th>
-                <th scope="col">α95</th>
-                <th scope="col">Mean spacing</th>
-              </tr>
-            </thead>
-            <tbody>
-              {sets.sets.map((s) => (
-                <tr key={s.label}>
-                  <th scope="row">{s.label}</th>
-                  <td>{formatPlane(s.mean, 'dip-direction/dip')}</td>
-                  <td>{`${s.count} (${s.countHere})`}</td>
-                  <td>{fmt(s.k, 1)}</td>
-                  <td>{`${fmt(s.alpha95, 1)}°`}</td>
-                  <td>{s.meanSpacingM === null ? '—' : `${s.meanSpacingM.toFixed(2)} m`}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <SetsTable sets={sets} />
         )}
       </section>
 

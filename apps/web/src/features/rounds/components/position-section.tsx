@@ -35,7 +35,14 @@ const useStyles = makeStyles({
   fact: { display: 'flex', flexDirection: 'column' },
   factLabel: { color: tokens.colorNeutralForeground2 },
   factValue: { fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
-  shift: { display: 'flex', gap: tokens.spacingHorizontalS },
+  // Two 8rem shift buttons side by side need 17rem: the shift row's cells are at least that wide.
+  shiftGrid: {
+    display: 'grid',
+    gridTemplateColumns: 'repeat(auto-fill, minmax(17rem, 1fr))',
+    gap: tokens.spacingHorizontalL,
+    alignItems: 'start',
+  },
+  shift: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
   shiftButton: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '8rem' },
   date: {
     minHeight: `${TOUCH_TARGET_PX}px`,
@@ -138,7 +145,7 @@ export function PositionSection({ round, chainage, timeZone }: PositionSectionPr
         </MessageBar>
       )}
 
-      <div className={styles.grid}>
+      <div className={styles.shiftGrid}>
         <Field
           label="Shift date"
           size="large"

@@ -11,6 +11,8 @@ export interface RatingResultProps {
   testId: string;
   /** Cautions that qualify this value (e.g. RQD estimated from Jv), shown beside it. */
   notes?: readonly string[];
+  /** A round that is no longer edited: the value as saved, without the line comparing it with the server. */
+  asSaved?: boolean;
 }
 
 const useStyles = makeStyles({
@@ -77,7 +79,15 @@ export const PART_LABELS: Record<string, string> = {
 const round = (v: number) => String(Math.round(v * 1000) / 1000);
 
 /** One rating: the value, its class, and the inputs it came from. */
-export function RatingResult({ title, live, saved, format, testId, notes = [] }: RatingResultProps) {
+export function RatingResult({
+  title,
+  live,
+  saved,
+  format,
+  testId,
+  notes = [],
+  asSaved = false,
+}: RatingResultProps) {
   const styles = useStyles();
   const parts = Object.entries(live.parts);
   const differs = saved.value !== live.value;
@@ -108,13 +118,15 @@ export function RatingResult({ title, live, saved, format, testId, notes = [] }:
           ))}
         </dl>
       )}
-      <Caption1 className={styles.saved}>
-        {saved.value === null
-          ? 'Not on the server yet.'
-          : differs
-            ? `Saved on the server: ${format(saved.value)} (updates on the next save).`
-            : 'Same as saved on the server.'}
-      </Caption1>
+      {!asSaved && (
+        <Caption1 className={styles.saved}>
+          {saved.value === null
+            ? 'Not on the server yet.'
+            : differs
+              ? `Saved on the server: ${format(saved.value)} (updates on the next save).`
+              : 'Same as saved on the server.'}
+        </Caption1>
+      )}
     </div>
   );
 }

@@ -25,6 +25,13 @@ import { JointsSection } from '@/features/rounds/components/joints-section';
 import { PositionSection } from '@/features/rounds/components/position-section';
 import { RatingSection } from '@/features/rounds/components/rating-section';
 import { RoundEditContext } from '@/features/rounds/components/round-fields';
+import {
+  GroundSummary,
+  JointsSummary,
+  PositionSummary,
+  RatingSummary,
+  SupportSummary,
+} from '@/features/rounds/components/round-summary';
 import { SaveStateBadge } from '@/features/rounds/components/save-state';
 import { SupportSection } from '@/features/rounds/components/support-section';
 import { TriggerPanel } from '@/features/rounds/components/trigger-panel';
@@ -419,16 +426,28 @@ function RoundEditorBody({
         </div>
 
         {sectionNoteSlot?.(section)}
-        {section === 'position' && (
+        {/* A round that cannot be edited reads as a summary, not as a disabled form (issue 19 item 11). */}
+        {readOnly && section === 'position' && (
+          <PositionSummary round={server} heading={heading} timeZone={project.timeZone} />
+        )}
+        {readOnly && section === 'ground' && (
+          <GroundSummary groundScale={project.groundScale} inflowPer10m={assessment.inflowPer10m} />
+        )}
+        {readOnly && section === 'joints' && <JointsSummary sets={frozenSets(server) ?? assessment.sets} />}
+        {readOnly && section === 'rating' && <RatingSummary saved={server.ratings} />}
+        {readOnly && section === 'support' && (
+          <SupportSummary classes={supportClasses} suggestedClassIds={server.suggestedClassIds} />
+        )}
+        {!readOnly && section === 'position' && (
           <PositionSection round={server} chainage={chainageStyle} timeZone={project.timeZone} />
         )}
-        {section === 'ground' && (
+        {!readOnly && section === 'ground' && (
           <GroundSection groundScale={project.groundScale} inflowPer10m={assessment.inflowPer10m} />
         )}
-        {section === 'joints' && (
+        {!readOnly && section === 'joints' && (
           <JointsSection
             defaultNotation={project.defaultNotation}
-            sets={readOnly ? (frozenSets(server) ?? assessment.sets) : assessment.sets}
+            sets={assessment.sets}
             distance={distance}
             onDistanceChange={(windowM) => void setFieldValue('setParameters.windowM', windowM)}
             setCount={values.setParameters.count}
@@ -464,7 +483,7 @@ function RoundEditorBody({
             assessment,
             faceChainage: face,
           })}
-        {section === 'rating' && (
+        {!readOnly && section === 'rating' && (
           <RatingSection
             live={assessment.ratings}
             saved={server.ratings}
@@ -476,7 +495,7 @@ function RoundEditorBody({
             onJvEditionChange={setJvEdition}
           />
         )}
-        {section === 'support' && (
+        {!readOnly && section === 'support' && (
           <SupportSection
             classes={supportClasses}
             suggestedClassIds={server.suggestedClassIds}

@@ -31,6 +31,9 @@ export interface SupportSectionProps {
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalL },
+  // Each heading stands apart from the cards above it (issue 19 item 5: two headings ran together).
+  classes: { display: 'flex', flexDirection: 'column', rowGap: tokens.spacingVerticalM },
+  heading: { margin: 0, marginTop: tokens.spacingVerticalS },
   list: {
     display: 'grid',
     gridTemplateColumns: 'repeat(auto-fill, minmax(17rem, 1fr))',
@@ -90,6 +93,26 @@ function range(min: number | null, max: number | null, system: string): string |
   if (min === null) return `${system} under ${max}`;
   if (max === null) return `${system} ${min} or more`;
   return `${system} ${min}–${max}`;
+}
+
+/** A class in two lines of words: its bands and round length, then what is built (cards and summaries). */
+export function classLines(c: SupportClass): string[] {
+  const bands = [
+    range(c.qMin, c.qMax, 'Q'),
+    range(c.rmrMin, c.rmrMax, 'RMR'),
+    `rounds up to ${c.maxRoundLength} m`,
+  ]
+    .filter((s) => s !== null)
+    .join(' · ');
+  const build = [
+    c.boltType && `${c.boltType}${c.boltLength ? ` ${c.boltLength} m` : ''} ${c.boltPattern}`.trim(),
+    c.shotcreteMm > 0 ? `${c.shotcreteMm} mm sprayed concrete` : null,
+    c.steelSupport || null,
+    c.probingRequired ? 'probe ahead' : null,
+  ]
+    .filter((s) => s)
+    .join(' · ');
+  return [bands, build].filter((line) => line !== '');
 }
 
 /** The recommendation: a support class (suggested ones first), the next round length, a reason, submit. */
@@ -154,21 +177,11 @@ export function SupportSection({
         )}
       </span>
       <Text weight="semibold">{c.name}</Text>
-      <Caption1 className={styles.muted}>
-        {[range(c.qMin, c.qMax, 'Q'), range(c.rmrMin, c.rmrMax, 'RMR'), `rounds up to ${c.maxRoundLength} m`]
-          .filter((s) => s !== null)
-          .join(' · ')}
-      </Caption1>
-      <Caption1 className={styles.muted}>
-        {[
-          c.boltType && `${c.boltType}${c.boltLength ? ` ${c.boltLength} m` : ''} ${c.boltPattern}`.trim(),
-          c.shotcreteMm > 0 ? `${c.shotcreteMm} mm sprayed concrete` : null,
-          c.steelSupport || null,
-          c.probingRequired ? 'probe ahead' : null,
-        ]
-          .filter((s) => s)
-          .join(' · ')}
-      </Caption1>
+      {classLines(c).map((line) => (
+        <Caption1 key={line} className={styles.muted}>
+          {line}
+        </Caption1>
+      ))}
     </button>
   );
 
@@ -181,12 +194,12 @@ export function SupportSection({
         </MessageBarBody>
       </MessageBar>
 
-      <div role="radiogroup" aria-label="Support class recommended">
-        <Text as="h3" weight="semibold" size={500}>
+      <div role="radiogroup" aria-label="Support class recommended" className={styles.classes}>
+        <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           {suggested.length > 0 ? 'Classes that fit the ratings' : 'No class fits the ratings as saved'}
         </Text>
         {suggested.length > 0 && <div className={styles.list}>{suggested.map((c) => card(c, true))}</div>}
-        <Text as="h3" weight="semibold" size={500}>
+        <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           Other active classes
         </Text>
         <div className={styles.list}>{others.map((c) => card(c, false))}</div>
