@@ -275,7 +275,6 @@ export function OrientationView({
         {friction && (
           <Field
             label="Friction angle φ (°)"
-            orientation="horizontal"
             validationState={phiValid ? 'none' : 'error'}
             validationMessage={phiValid ? undefined : 'Between 0 and 90°'}
           >

@@ -94,13 +94,26 @@ export function daylightEnvelope(
   sorted.push(sorted[0] + 360);
   const outer: Line[] = [];
   const inner: Line[] = [];
-  let widest = { trend: 0, low: 0, high: 0 };
+  const ranges: Array<{ trend: number; low: number; high: number }> = [];
   for (const poleTrend of sorted) {
     const range = daylightDips(surface, poleTrend + 180);
     const [low, high] = range ?? [0, 0];
     outer.push({ trend: poleTrend, plunge: 90 - high });
     inner.push({ trend: poleTrend, plunge: 90 - low });
-    if (high - low > widest.high - widest.low + 1e-9) widest = { trend: poleTrend % 360, low, high };
+    ranges.push({ trend: poleTrend % 360, low, high });
+  }
+  // Where the region is widest: the middle (circular mean) of the trends of greatest width, so a half-net
+  // region is named at its middle; when every trend is as wide (a whole-net crown) the first is used.
+  const most = Math.max(...ranges.map((r) => r.high - r.low));
+  const best = ranges.filter((r) => r.high - r.low >= most - 1e-6);
+  const sx = best.reduce((sum, r) => sum + Math.sin(r.trend * DEG), 0);
+  const cx = best.reduce((sum, r) => sum + Math.cos(r.trend * DEG), 0);
+  let widest = best[0];
+  if (Math.hypot(sx, cx) > 0.2 * best.length) {
+    const mean = (((Math.atan2(sx, cx) / DEG) % 360) + 360) % 360;
+    widest = best.reduce((a, r) =>
+      Math.abs(((r.trend - mean + 540) % 360) - 180) < Math.abs(((a.trend - mean + 540) % 360) - 180) ? r : a,
+    );
   }
   return { outer, inner, widest };
 }

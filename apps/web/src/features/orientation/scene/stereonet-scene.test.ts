@@ -409,6 +409,13 @@ describe('stereonet scene', () => {
       expect(insidePath(d, cx - R * 0.6, cy)).toBe(false);
       expect(insidePath(d, cx + R * 0.3, cy - R * 0.8)).toBe(true);
       expect(insidePath(d, cx - R * 0.05, cy + R * 0.5)).toBe(false);
+      // Its name sits in the middle of the half, on the east radius.
+      const label = find(scene.nodes, 'daylight-right-wall-label');
+      expect(label).toMatchObject({ type: 'text', text: 'right wall' });
+      if (label?.type === 'text') {
+        expect(label.x - cx).toBeGreaterThan(R * 0.3);
+        expect(Math.abs(label.y - cy)).toBeLessThan(label.size);
+      }
     });
 
     it('adds a legend line for each overlay only when it is asked for', () => {

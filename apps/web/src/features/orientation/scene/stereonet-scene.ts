@@ -669,10 +669,12 @@ export function buildStereonetScene(
     }
     nodes.push({ type: 'group', role: 'intersections', children: marks });
     if (sets.length < 2) notes.push('Intersection lines need at least two sets.');
-    else
+    else {
+      const [a, b] = ordered;
       legendLines.push(
-        'Six-pointed star: line of intersection of two set means (S1×S2: sets S1 and S2), plotted as a line by trend and plunge',
+        `Six-pointed star: line of intersection of two set means (${a.label}×${b.label}: where sets ${a.label} and ${b.label} meet), plotted as a line by trend and plunge`,
       );
+    }
   }
   if (labelNodes.length > 0) nodes.push({ type: 'group', role: 'overlay-labels', children: labelNodes });
 
