@@ -28,9 +28,9 @@ import { Link } from 'react-router-dom';
 import { downloadPng, downloadSvg } from '@/features/orientation/components/download';
 import { filePalette, screenPalette } from '@/features/orientation/components/screen-palette';
 import { Stereonet } from '@/features/orientation/components/stereonet';
-import { setColour } from '@/features/orientation/scene/palette';
 import type { FreeSurface } from '@/features/orientation/scene/daylight';
 import { FREE_SURFACES } from '@/features/orientation/scene/daylight';
+import { setColour } from '@/features/orientation/scene/palette';
 import type { StereonetJoint, StereonetOptions } from '@/features/orientation/scene/stereonet-scene';
 import {
   buildStereonetScene,

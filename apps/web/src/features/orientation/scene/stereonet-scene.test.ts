@@ -504,6 +504,22 @@ describe('stereonet scene', () => {
       const [x, y] = [luminance(a), luminance(b)].sort((p, q) => q - p);
       return (x + 0.05) / (y + 0.05);
     };
+    const lab = (hex: string) => {
+      const lin = [1, 3, 5].map((i) => {
+        const v = parseInt(hex.slice(i, i + 2), 16) / 255;
+        return v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
+      });
+      const xyz = [
+        (0.4124 * lin[0] + 0.3576 * lin[1] + 0.1805 * lin[2]) / 0.95047,
+        0.2126 * lin[0] + 0.7152 * lin[1] + 0.0722 * lin[2],
+        (0.0193 * lin[0] + 0.1192 * lin[1] + 0.9505 * lin[2]) / 1.08883,
+      ].map((t) => (t > 0.008856 ? Math.cbrt(t) : 7.787 * t + 16 / 116));
+      return [116 * xyz[1] - 16, 500 * (xyz[0] - xyz[1]), 200 * (xyz[1] - xyz[2])];
+    };
+    const deltaE = (a: string, b: string) => {
+      const [p, q] = [lab(a), lab(b)];
+      return Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]);
+    };
     it.each([
       ['print', PRINT_PALETTE],
       ['high contrast', PRINT_HIGH_CONTRAST_PALETTE],
@@ -511,9 +527,14 @@ describe('stereonet scene', () => {
       for (const c of [palette.friction, palette.daylight, palette.intersection]) {
         expect(contrast(c, palette.paper)).toBeGreaterThanOrEqual(4.5);
       }
-      // The overlays differ from each other and from every set colour they may sit beside.
-      const all = [palette.friction, palette.daylight, palette.intersection, ...palette.sets, palette.axis];
-      expect(new Set(all).size).toBe(all.length);
+      // The overlays must not be taken for a set or the axis: CIE 1976 ΔE*ab of at least 25 from each set
+      // colour, the axis and each other (the threshold is Roundbook's own; CIELAB from sRGB, D65).
+      const others = [...palette.sets, palette.axis];
+      const overlays = [palette.friction, palette.daylight, palette.intersection];
+      for (const c of overlays) for (const o of others) expect(deltaE(c, o)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.friction, palette.daylight)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.friction, palette.intersection)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.daylight, palette.intersection)).toBeGreaterThanOrEqual(25);
       const scene = buildStereonetScene([], threeSets, {
         size: 400,
         palette,
