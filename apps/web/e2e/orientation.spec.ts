@@ -71,6 +71,21 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   await expect(readout).toContainText('Quadrant strike and dip');
   await expect(readout).toContainText('Pole trend / plunge');
 
+  // The sliding aids, each off until asked: friction circle, set-pair intersections, a daylight envelope.
+  for (const role of ['friction-circle', 'intersections', 'daylight'])
+    await expect(net.locator(`[data-role="${role}"]`)).toHaveCount(0);
+  await page.getByRole('switch', { name: 'Friction circle' }).click();
+  await page.getByRole('switch', { name: 'Intersections of set pairs' }).click();
+  await page.getByRole('radio', { name: 'Daylights on the right wall' }).click();
+  await expect(net.locator('[data-role="friction-circle"]')).toHaveCount(1);
+  await expect(net.locator('[data-role="daylight-right-wall"]')).toHaveCount(1);
+  await expect(net.locator('[data-role^="intersection-label-"]').first()).toBeVisible();
+  await expect(net).toContainText('friction circle, φ = 30°');
+  await net.screenshot({ path: `${shots}orientation-hr-u-overlays-light.png` });
+  await page
+    .getByRole('group', { name: 'Sliding aids' })
+    .screenshot({ path: `${shots}orientation-hr-u-overlay-options-light.png` });
+
   // Save the net as SVG: the file is the same scene, with its legend.
   const [download] = await Promise.all([
     page.waitForEvent('download'),
@@ -80,6 +95,8 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   const svg = readFileSync((await download.path()) ?? '', 'utf8');
   expect(svg).toMatch(/^<svg xmlns="http:\/\/www\.w3\.org\/2000\/svg"/);
   expect(svg).toContain('multiples of σ, Kamb 1959; uniform = 3σ');
+  expect(svg).toContain('data-role="friction-circle"');
+  expect(svg).toContain('Tinted region (right wall)');
 
   // High-contrast theme: the net keeps its content with its own palette.
   await page.getByRole('switch', { name: 'High contrast' }).click();
@@ -87,6 +104,8 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   await expect(net).toBeVisible();
   await page.evaluate(() => window.scrollTo(0, 0));
   await page.screenshot({ path: `${shots}orientation-hr-u-high-contrast.png`, fullPage: true });
+  await expect(net.locator('[data-role="daylight-right-wall"]')).toHaveCount(1);
+  await net.screenshot({ path: `${shots}orientation-hr-u-overlays-high-contrast.png` });
   await page.getByRole('switch', { name: 'High contrast' }).click();
 
   expect(problems).toEqual([]);

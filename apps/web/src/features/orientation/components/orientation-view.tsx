@@ -1,6 +1,8 @@
 import {
   Button,
   Caption1,
+  Field,
+  Input,
   makeStyles,
   Radio,
   RadioGroup,
@@ -26,10 +28,13 @@ import { Link } from 'react-router-dom';
 import { downloadPng, downloadSvg } from '@/features/orientation/components/download';
 import { filePalette, screenPalette } from '@/features/orientation/components/screen-palette';
 import { Stereonet } from '@/features/orientation/components/stereonet';
+import type { FreeSurface } from '@/features/orientation/scene/daylight';
+import { FREE_SURFACES } from '@/features/orientation/scene/daylight';
 import { setColour } from '@/features/orientation/scene/palette';
 import type { StereonetJoint, StereonetOptions } from '@/features/orientation/scene/stereonet-scene';
 import {
   buildStereonetScene,
+  lineNotations,
   netLabels,
   poleNotations,
   setOrder,
@@ -73,7 +78,15 @@ export interface OrientationViewProps {
   caption: string;
   /** Extra controls (the heading's window and filters), shown above the net options. */
   children?: ReactNode;
+  /** Friction angle the friction circle starts at (the project's, when there is one), degrees. */
+  frictionAngle?: number;
 }
+
+/**
+ * Friction angle of the joints when the project gives none, degrees: the default of the kinematic screens
+ * (packages/domain triggers.ts, common practice). The user can change it beside the switch.
+ */
+export const DEFAULT_FRICTION_ANGLE = 30;
 
 /** viewBox size of the net on screen; CSS scales it to the space available. */
 const SCREEN_SIZE = 560;
@@ -171,15 +184,23 @@ export function OrientationView({
   fileName,
   caption,
   children,
+  frictionAngle = DEFAULT_FRICTION_ANGLE,
 }: OrientationViewProps) {
   const styles = useStyles();
   const [net, setNet] = useState<Net>('equal-area');
   const [grid, setGrid] = useState(false);
   const [contours, setContours] = useState(true);
   const [circles, setCircles] = useState<'none' | 'sets' | 'all'>('sets');
+  const [friction, setFriction] = useState(false);
+  const [phiText, setPhiText] = useState(String(frictionAngle));
+  const [daylight, setDaylight] = useState<FreeSurface | 'none'>('none');
+  const [intersections, setIntersections] = useState(false);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [saveError, setSaveError] = useState<string | null>(null);
   const palette = useMemo(() => screenPalette(highContrast), [highContrast]);
+  const phiValue = Number(phiText);
+  const phiValid = phiText.trim() !== '' && Number.isFinite(phiValue) && phiValue > 0 && phiValue < 90;
+  const phi = friction && phiValid ? phiValue : null;
   const options: Omit<StereonetOptions, 'size' | 'palette'> = {
     net,
     grid,
@@ -188,15 +209,19 @@ export function OrientationView({
     drive,
     weighting,
     legend: true,
+    frictionAngle: phi,
+    daylight: daylight === 'none' ? [] : [daylight],
+    intersections,
   };
   const setsForScene = sets.map((s) => ({ label: s.label, mean: s.mean, alpha95: s.alpha95 }));
   const scene = useMemo(
     () => buildStereonetScene(joints, setsForScene, { ...options, size: SCREEN_SIZE, palette }),
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the options are all listed by value
-    [joints, sets, net, grid, contours, circles, drive, weighting, palette],
+    [joints, sets, net, grid, contours, circles, drive, weighting, palette, phi, daylight, intersections],
   );
   const order = setOrder([...sets.map((s) => s.label), ...joints.flatMap((j) => (j.set ? [j.set] : []))]);
   const selected = joints.find((j) => j.id === selectedId) ?? null;
+  const selectedLine = selected ? null : (scene.lines.find((l) => l.id === selectedId) ?? null);
   const fileScene = () =>
     buildStereonetScene(joints, setsForScene, {
       ...options,
@@ -240,10 +265,59 @@ export function OrientationView({
           <Radio className={styles.option} value="all" label="Great circles of every joint" />
         </RadioGroup>
       </div>
+      <div className={styles.options} role="group" aria-label="Sliding aids">
+        <Switch
+          className={styles.option}
+          checked={friction}
+          onChange={(_, d) => setFriction(d.checked)}
+          label="Friction circle"
+        />
+        {friction && (
+          <Field
+            label="Friction angle φ (°)"
+            validationState={phiValid ? 'none' : 'error'}
+            validationMessage={phiValid ? undefined : 'Between 0 and 90°'}
+          >
+            <Input
+              className={styles.option}
+              type="number"
+              inputMode="decimal"
+              min={1}
+              max={89}
+              value={phiText}
+              onChange={(_, d) => setPhiText(d.value)}
+              style={{ width: '6rem' }}
+            />
+          </Field>
+        )}
+        <Switch
+          className={styles.option}
+          checked={intersections}
+          onChange={(_, d) => setIntersections(d.checked)}
+          label="Intersections of set pairs"
+        />
+        <RadioGroup
+          layout="horizontal"
+          value={daylight}
+          onChange={(_, d) => setDaylight(d.value as typeof daylight)}
+          aria-label="Daylight envelope"
+          disabled={!drive}
+        >
+          <Radio className={styles.option} value="none" label="No daylight envelope" />
+          {FREE_SURFACES.map((s) => (
+            <Radio key={s} className={styles.option} value={s} label={`Daylights on the ${s}`} />
+          ))}
+        </RadioGroup>
+      </div>
       <Caption1 className={styles.notes}>{caption}</Caption1>
       <div className={styles.body}>
         <div className={styles.net}>
-          <Stereonet scene={scene} selectedId={selectedId} onPick={(p) => setSelectedId(p?.id ?? null)} />
+          <Stereonet
+            scene={scene}
+            selectedId={selectedId}
+            onPick={(p) => setSelectedId(p?.id ?? null)}
+            onPickLine={(l) => setSelectedId(l.id)}
+          />
           {scene.notes.map((n) => (
             <Caption1 key={n} className={styles.notes} block>
               {n}
@@ -326,7 +400,19 @@ export function OrientationView({
           {sets.length > 0 && drive && <Caption1 className={styles.notes}>{RMR_ORIENTATION_RULE}</Caption1>}
           {weighting && <Caption1 className={styles.notes}>{weighting.label}</Caption1>}
           <div className={styles.readout} aria-live="polite" aria-label="Pole read-out">
-            {selected === null ? (
+            {selectedLine ? (
+              <>
+                <Subtitle2 as="h3">Intersection {selectedLine.label}</Subtitle2>
+                <dl className={styles.list}>
+                  {lineNotations(selectedLine).map((n) => (
+                    <div key={n.label} style={{ display: 'contents' }}>
+                      <dt className={styles.dt}>{n.label}</dt>
+                      <dd className={styles.dd}>{n.value}</dd>
+                    </div>
+                  ))}
+                </dl>
+              </>
+            ) : selected === null ? (
               <Text>Tap a pole (or step through them with the arrow keys) to read it.</Text>
             ) : (
               <>

@@ -36,6 +36,18 @@ const sets = findRoundSets(
   { windowM: 25, count: 2 },
 );
 
+// jsdom has no PointerEvent: without one the event loses its coordinates (as in stereonet.test.tsx).
+if (!('PointerEvent' in window)) {
+  class TestPointerEvent extends MouseEvent {
+    pointerType: string;
+    constructor(type: string, init: PointerEventInit = {}) {
+      super(type, init);
+      this.pointerType = init.pointerType ?? '';
+    }
+  }
+  Object.assign(window, { PointerEvent: TestPointerEvent });
+}
+
 describe('RoundOrientationPanel', () => {
   it("plots the round's readable joints with the assessment's sets and says what is left out", () => {
     renderWithProviders(
@@ -72,5 +84,48 @@ describe('RoundOrientationPanel', () => {
     expect(readout).toHaveTextContent(/As typed\s*299\/70/);
     expect(readout).toHaveTextContent(/Set\s*S1/);
     expect(readout).toHaveTextContent(/Joint\s*Joint 1/);
+  });
+
+  it('draws the friction circle, a daylight envelope and the set-pair intersection only when switched on', () => {
+    renderWithProviders(
+      <MemoryRouter>
+        <RoundOrientationPanel joints={joints} sets={sets} drive={drive} highContrast={false} fileName="r" />
+      </MemoryRouter>,
+    );
+    const net = screen.getByRole('img', { name: /15 poles, 2 sets/ });
+    for (const role of ['friction-circle', 'daylight-face', 'intersection-S1×S2'])
+      expect(net.querySelector(`[data-role="${role}"]`)).toBeNull();
+    fireEvent.click(screen.getByRole('switch', { name: 'Friction circle' }));
+    expect(net.querySelector('[data-role="friction-circle"]')).not.toBeNull();
+    expect(net).toHaveTextContent('friction circle, φ = 30°');
+    // The user's own φ redraws it (40°), and a value out of range takes it away with a message.
+    const phi = screen.getByRole('spinbutton', { name: /Friction angle/ });
+    fireEvent.change(phi, { target: { value: '40' } });
+    expect(net).toHaveTextContent('φ = 40°');
+    fireEvent.change(phi, { target: { value: '95' } });
+    expect(net.querySelector('[data-role="friction-circle"]')).toBeNull();
+    expect(screen.getByText('Between 0 and 90°')).toBeInTheDocument();
+
+    fireEvent.click(screen.getByRole('radio', { name: 'Daylights on the face' }));
+    expect(net.querySelector('[data-role="daylight-face"]')).not.toBeNull();
+    expect(net.querySelector('[data-role="daylight-left-wall"]')).toBeNull();
+    fireEvent.click(screen.getByRole('radio', { name: 'Daylights on the left wall' }));
+    expect(net.querySelector('[data-role="daylight-left-wall"]')).not.toBeNull();
+    expect(net.querySelector('[data-role="daylight-face"]')).toBeNull();
+
+    fireEvent.click(screen.getByRole('switch', { name: 'Intersections of set pairs' }));
+    const star = net.querySelector('[data-role="intersection-S1×S2"]');
+    expect(star).not.toBeNull();
+    expect(net.querySelector('[data-role="intersection-label-S1×S2"]')).toHaveTextContent('S1×S2');
+    // Tap its star: the read-out gives the line's trend and plunge. jsdom lays nothing out, so screen px are
+    // scene px; the star's first vertex is its top point, 1.7 symbol radii above the centre.
+    const d = star?.getAttribute('d') ?? '';
+    const vertices = (d.match(/-?\d+(\.\d+)?/g) ?? []).map(Number);
+    const x = vertices[0];
+    const cy = (vertices[1] + vertices[13]) / 2; // vertex 6 is the bottom point, straight below the top one
+    fireEvent.pointerDown(net, { clientX: x, clientY: cy, pointerType: 'touch' });
+    const readout = screen.getByLabelText('Pole read-out');
+    expect(readout).toHaveTextContent('Intersection S1×S2');
+    expect(readout).toHaveTextContent(/Trend \/ plunge\s*\d{3}\/\d{2}/);
   });
 });

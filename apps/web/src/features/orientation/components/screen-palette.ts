@@ -20,6 +20,7 @@ export function screenPalette(highContrast: boolean): StereonetPalette {
     muted: tokens.colorNeutralForeground3,
     grid: tokens.colorNeutralStroke2,
     random: tokens.colorNeutralForeground3,
+    intersection: tokens.colorNeutralForeground1,
     sets: highContrast ? SET_COLOURS_HIGH_CONTRAST : SET_COLOURS_LIGHT,
   };
 }

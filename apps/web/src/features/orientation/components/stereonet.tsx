@@ -1,8 +1,13 @@
 import { makeStyles, tokens } from '@fluentui/react-components';
 import type { KeyboardEvent, PointerEvent, ReactNode } from 'react';
 import { useId, useRef } from 'react';
-import type { DrawnPole, SceneNode, StereonetScene } from '@/features/orientation/scene/stereonet-scene';
-import { nearestPole } from '@/features/orientation/scene/stereonet-scene';
+import type {
+  DrawnLine,
+  DrawnPole,
+  SceneNode,
+  StereonetScene,
+} from '@/features/orientation/scene/stereonet-scene';
+import { nearestLine, nearestPole } from '@/features/orientation/scene/stereonet-scene';
 
 /** Reach of a tap or hover around a pole, screen px (a 44 px touch target). */
 export const PICK_REACH_PX = 22;
@@ -84,17 +89,24 @@ export interface StereonetProps {
   selectedId: string | null;
   /** A tap, click or hover near a pole (null: nowhere near one). */
   onPick: (pole: DrawnPole | null) => void;
+  /** A tap or hover nearer an intersection mark than any pole (its id is then the selected id). */
+  onPickLine?: (line: DrawnLine) => void;
 }
 
 /**
  * Draws a stereonet scene as inline SVG. Tap or click near a pole (within 22 px) to read it; with a mouse,
  * hovering reads it too. With the keyboard, the arrow keys step through the poles and Escape lets go.
  */
-export function Stereonet({ scene, selectedId, onPick }: StereonetProps) {
+export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetProps) {
   const styles = useStyles();
   const clip = `net-clip-${useId().replace(/:/g, '')}`;
   const svgRef = useRef<SVGSVGElement>(null);
-  const selected = selectedId === null ? null : (scene.poles.find((p) => p.id === selectedId) ?? null);
+  const selected =
+    selectedId === null
+      ? null
+      : (scene.poles.find((p) => p.id === selectedId) ??
+        scene.lines.find((l) => l.id === selectedId) ??
+        null);
 
   const pick = (e: PointerEvent<SVGSVGElement>, hover: boolean) => {
     const svg = svgRef.current;
@@ -104,12 +116,21 @@ export function Stereonet({ scene, selectedId, onPick }: StereonetProps) {
     const x = (e.clientX - box.left) * scale;
     const y = (e.clientY - box.top) * scale;
     const hit = nearestPole(scene, x, y, PICK_REACH_PX * scale);
+    const mark = onPickLine ? nearestLine(scene, x, y, PICK_REACH_PX * scale) : null;
+    if (
+      mark &&
+      onPickLine &&
+      (hit === null || Math.hypot(mark.x - x, mark.y - y) < Math.hypot(hit.x - x, hit.y - y))
+    ) {
+      onPickLine(mark);
+      return;
+    }
     if (hover && hit === null) return;
     onPick(hit);
   };
   const onKeyDown = (e: KeyboardEvent<SVGSVGElement>) => {
     if (scene.poles.length === 0) return;
-    const at = selected ? selected.index : -1;
+    const at = selected && 'index' in selected ? selected.index : -1;
     if (e.key === 'ArrowRight' || e.key === 'ArrowDown') {
       e.preventDefault();
       onPick(scene.poles[(at + 1) % scene.poles.length]);

@@ -22,6 +22,12 @@ export interface StereonetPalette {
   /** Density contour fill (drawn with increasing opacity per level) and lines. */
   contourFill: string;
   contourLine: string;
+  /** Friction circle and its label. */
+  friction: string;
+  /** Daylight envelopes (tint and outline) and their labels. */
+  daylight: string;
+  /** Intersection lines of set pairs (star and label). */
+  intersection: string;
   /** Poles in no set ("random"). */
   random: string;
   /** Set colours, in set order (S1, S2, …), repeated when there are more sets. */
@@ -52,6 +58,9 @@ export const PRINT_PALETTE: StereonetPalette = {
   adverseWeak: 'rgba(214, 120, 40, 0.12)',
   contourFill: '#3a5f8f',
   contourLine: '#2d4a70',
+  friction: '#c2185b',
+  daylight: '#6b5d00',
+  intersection: '#1f2328',
   random: '#6b7280',
   sets: SET_COLOURS_LIGHT,
 };
@@ -67,6 +76,9 @@ export const PRINT_HIGH_CONTRAST_PALETTE: StereonetPalette = {
   adverseWeak: 'rgba(255, 170, 70, 0.22)',
   contourFill: '#7fb2ff',
   contourLine: '#a9cbff',
+  friction: '#ff5c5c',
+  daylight: '#5cffd6',
+  intersection: '#ffffff',
   random: '#e0e0e0',
   sets: SET_COLOURS_HIGH_CONTRAST,
 };

@@ -1,10 +1,18 @@
 import { JOINT_KINDS } from '@roundbook/domain';
 import { greatCircle, poleOf, project } from '@roundbook/geomath';
 import type { Net, Plane } from '@roundbook/geomath';
-import { PRINT_PALETTE } from './palette';
+import { daylightsOn, surfacesOf } from './daylight';
+import { PRINT_HIGH_CONTRAST_PALETTE, PRINT_PALETTE } from './palette';
 import { sceneToSvg } from './scene-svg';
 import type { SceneNode, StereonetScene } from './stereonet-scene';
-import { buildStereonetScene, nearestPole, poleNotations, setOrder } from './stereonet-scene';
+import {
+  buildStereonetScene,
+  lineNotations,
+  nearestLine,
+  nearestPole,
+  poleNotations,
+  setOrder,
+} from './stereonet-scene';
 import { KIND_STYLES, SET_SHAPES, shapePath } from './symbols';
 
 const numbers = (d: string): number[] => (d.match(/-?\d+(\.\d+)?/g) ?? []).map(Number);
@@ -243,5 +251,305 @@ describe('stereonet scene', () => {
     expect(doc.querySelector('title')?.textContent).toContain('1 pole, 1 set');
     expect(doc.querySelector('clipPath circle')?.getAttribute('r')).toBe(String(scene.radius));
     expect(doc.querySelectorAll('[data-role="legend"]').length).toBeGreaterThan(2);
+  });
+
+  describe('overlays on request: friction circle, daylight envelopes, intersections', () => {
+    const threeSets = [
+      { label: 'S1', mean: { dipDirection: 130, dip: 50 }, alpha95: 6 },
+      { label: 'S2', mean: { dipDirection: 230, dip: 60 }, alpha95: 8 },
+      { label: 'S3', mean: { dipDirection: 20, dip: 80 }, alpha95: 5 },
+    ];
+    /** n1 × n2 by hand (north-east-down normals), in the lower hemisphere (methods.md §1.3, computed here). */
+    const ownIntersection = (a: Plane, b: Plane) => {
+      const n = (p: Plane) => {
+        const [dd, d] = [(p.dipDirection * Math.PI) / 180, (p.dip * Math.PI) / 180];
+        return [-Math.sin(d) * Math.cos(dd), -Math.sin(d) * Math.sin(dd), Math.cos(d)];
+      };
+      const [u, v] = [n(a), n(b)];
+      let c = [u[1] * v[2] - u[2] * v[1], u[2] * v[0] - u[0] * v[2], u[0] * v[1] - u[1] * v[0]];
+      if (c[2] < 0) c = c.map((x) => -x);
+      const len = Math.hypot(c[0], c[1], c[2]);
+      return {
+        trend: ((Math.atan2(c[1], c[0]) * 180) / Math.PI + 360) % 360,
+        plunge: (Math.asin(c[2] / len) * 180) / Math.PI,
+      };
+    };
+
+    it.each([
+      [340, 'equal-area'],
+      [900, 'equal-angle'],
+    ] as const)(
+      'draws each intersection line where project puts it, within half a pixel (%i px, %s)',
+      (size, net) => {
+        const scene = buildStereonetScene([], threeSets, { size, net, intersections: true });
+        expect(scene.lines.map((l) => l.label)).toEqual(['S1×S2', 'S1×S3', 'S2×S3']);
+        for (const l of scene.lines) {
+          const [a, b] = l.label.split('×').map((x) => threeSets.find((s) => s.label === x)!.mean);
+          const own = ownIntersection(a, b);
+          const g = project(own, net, scene.radius);
+          // The star's 12 vertices are symmetric about the point: their mean is the drawn position.
+          const v = points(pathOf(scene, `intersection-${l.label}`));
+          expect(v).toHaveLength(12);
+          const x = v.reduce((s, c) => s + c[0], 0) / 12;
+          const y = v.reduce((s, c) => s + c[1], 0) / 12;
+          expect(Math.abs(x - (scene.centre.x + g.x))).toBeLessThanOrEqual(0.5);
+          expect(Math.abs(y - (scene.centre.y - g.y))).toBeLessThanOrEqual(0.5);
+          expect(Math.abs(l.x - (scene.centre.x + g.x))).toBeLessThanOrEqual(0.5);
+          expect(find(scene.nodes, `intersection-label-${l.label}`)).toMatchObject({ text: l.label });
+        }
+      },
+    );
+
+    it('reads an intersection by trend and plunge when tapped near it', () => {
+      const scene = buildStereonetScene([], threeSets.slice(0, 2), { size: 400, intersections: true });
+      const l = scene.lines[0];
+      expect(nearestLine(scene, l.x + 8, l.y, 22)?.label).toBe('S1×S2');
+      expect(nearestLine(scene, l.x + 40, l.y, 22)).toBeNull();
+      const own = ownIntersection(threeSets[0].mean, threeSets[1].mean);
+      const text = `${String(Math.round(own.trend)).padStart(3, '0')}/${String(Math.round(own.plunge)).padStart(2, '0')}`;
+      expect(lineNotations(l)).toEqual([
+        { label: 'Trend / plunge', value: text },
+        { label: 'Planes', value: '130/50 and 230/60' },
+      ]);
+    });
+
+    it.each([
+      ['equal-area', 30],
+      ['equal-angle', 35],
+    ] as const)('draws the friction circle at the projection of φ (%s, φ = %i°)', (net, phi) => {
+      for (const size of [360, 800]) {
+        const scene = buildStereonetScene([], [], { size, net, frictionAngle: phi });
+        const pts = points(pathOf(scene, 'friction-circle'));
+        expect(pts.length).toBeGreaterThan(100);
+        // φ from the centre: equal-area R·√2·sin(φ/2), equal-angle R·tan(φ/2) (projection definition).
+        const h = (phi * Math.PI) / 360;
+        const own =
+          net === 'equal-area' ? scene.radius * Math.SQRT2 * Math.sin(h) : scene.radius * Math.tan(h);
+        const g = Math.hypot(
+          project({ trend: 0, plunge: 90 - phi }, net, scene.radius).x,
+          project({ trend: 0, plunge: 90 - phi }, net, scene.radius).y,
+        );
+        expect(Math.abs(g - own)).toBeLessThan(1e-6);
+        for (const [x, y] of pts) {
+          expect(Math.abs(Math.hypot(x - scene.centre.x, y - scene.centre.y) - own)).toBeLessThanOrEqual(0.5);
+        }
+        // Poles of planes gentler than φ fall inside it, steeper ones outside.
+        const poles = buildStereonetScene(
+          [
+            { id: 'gentle', kind: 'joint', plane: { dipDirection: 75, dip: phi - 3 }, set: null },
+            { id: 'steep', kind: 'joint', plane: { dipDirection: 75, dip: phi + 3 }, set: null },
+          ],
+          [],
+          { size, net, frictionAngle: phi },
+        ).poles;
+        const d = (p: { x: number; y: number }) => Math.hypot(p.x - scene.centre.x, p.y - scene.centre.y);
+        expect(d(poles[0])).toBeLessThan(own);
+        expect(d(poles[1])).toBeGreaterThan(own);
+      }
+    });
+
+    /** Even-odd point-in-path for M/L/Z paths (every subpath closed). */
+    const insidePath = (d: string, x: number, y: number): boolean => {
+      let inside = false;
+      for (const sub of d.split('M').filter((t) => t.trim())) {
+        const ring = points(sub);
+        for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+          const [xi, yi] = ring[i];
+          const [xj, yj] = ring[j];
+          if (yi > y !== yj > y && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside;
+        }
+      }
+      return inside;
+    };
+
+    it.each([[{ trend: 0, plunge: 0 }], [{ trend: 212, plunge: 6 }], [{ trend: 75, plunge: -8 }]])(
+      'draws each daylight envelope around exactly the poles that daylight (drive %o)',
+      (drive) => {
+        const surfaces = ['left wall', 'right wall', 'crown', 'face'] as const;
+        const scene = buildStereonetScene([], [], { size: 500, drive, daylight: surfaces });
+        let inside = 0;
+        let outside = 0;
+        for (const s of surfacesOf(drive)) {
+          const d = pathOf(scene, `daylight-${s.surface.replace(' ', '-')}`);
+          for (let dd = 3; dd < 360; dd += 11) {
+            for (const dip of [8, 27, 46, 64, 83]) {
+              const plane = { dipDirection: dd, dip };
+              const p = scene.centre;
+              const g = project(poleOf(plane), 'equal-area', scene.radius);
+              const expected = daylightsOn(plane, s);
+              // Skip poles within 3 px of the envelope's edge (sampling of the curve).
+              const near = [-3, 3].some(
+                (e) =>
+                  insidePath(d, p.x + g.x + e, p.y - g.y) !== expected ||
+                  insidePath(d, p.x + g.x, p.y - g.y + e) !== expected,
+              );
+              if (near) continue;
+              expect(insidePath(d, p.x + g.x, p.y - g.y)).toBe(expected);
+              if (expected) inside++;
+              else outside++;
+            }
+          }
+        }
+        expect(inside).toBeGreaterThan(100);
+        expect(outside).toBeGreaterThan(100);
+      },
+    );
+
+    it('right-wall envelope of a level drive north is the east half (computed here)', () => {
+      const scene = buildStereonetScene([], [], {
+        size: 400,
+        drive: { trend: 0, plunge: 0 },
+        daylight: ['right wall'],
+      });
+      const d = pathOf(scene, 'daylight-right-wall');
+      const { x: cx, y: cy } = scene.centre;
+      const R = scene.radius;
+      // Pole of 270/40 (dips west out of the east wall) trends 090: inside; its mirror 090/40: outside.
+      expect(insidePath(d, cx + R * 0.6, cy)).toBe(true);
+      expect(insidePath(d, cx - R * 0.6, cy)).toBe(false);
+      expect(insidePath(d, cx + R * 0.3, cy - R * 0.8)).toBe(true);
+      expect(insidePath(d, cx - R * 0.05, cy + R * 0.5)).toBe(false);
+      // Its name sits in the middle of the half, on the east radius.
+      const label = find(scene.nodes, 'daylight-right-wall-label');
+      expect(label).toMatchObject({ type: 'text', text: 'right wall' });
+      if (label?.type === 'text') {
+        expect(label.x - cx).toBeGreaterThan(R * 0.3);
+        expect(Math.abs(label.y - cy)).toBeLessThan(label.size);
+      }
+    });
+
+    it('adds a legend line for each overlay only when it is asked for', () => {
+      const joints = [{ id: 'a', kind: 'joint' as const, plane: { dipDirection: 130, dip: 50 }, set: 'S1' }];
+      const drive = { trend: 40, plunge: 2 };
+      const plain = buildStereonetScene(joints, threeSets, { size: 400, drive, legend: true });
+      const text = plain.legendLines.join('\n');
+      expect(text).not.toMatch(/friction circle/);
+      expect(text).not.toMatch(/daylight/);
+      expect(text).not.toMatch(/intersection/);
+      for (const role of ['friction-circle', 'daylight', 'intersections', 'overlay-labels'])
+        expect(find(plain.nodes, role)).toBeUndefined();
+      expect(plain.lines).toEqual([]);
+
+      const asked = buildStereonetScene(joints, threeSets, {
+        size: 400,
+        drive,
+        legend: true,
+        frictionAngle: 32,
+        daylight: ['face', 'crown'],
+        intersections: true,
+      });
+      const lines = asked.legendLines;
+      expect(lines.filter((l) => l.includes('friction circle, φ = 32°'))).toHaveLength(1);
+      expect(lines.filter((l) => l.startsWith('Tinted region (face)'))).toHaveLength(1);
+      expect(lines.filter((l) => l.startsWith('Tinted region (crown)'))).toHaveLength(1);
+      expect(lines.filter((l) => l.startsWith('Tinted region (left wall)'))).toHaveLength(0);
+      expect(lines.filter((l) => l.startsWith('Six-pointed star'))).toHaveLength(1);
+      // The drawn legend (text nodes below the net) carries them too.
+      const drawn = asked.nodes
+        .filter((n) => n.type === 'text' && n.role === 'legend')
+        .map((n) => (n.type === 'text' ? n.text : ''))
+        .join(' ');
+      expect(drawn).toContain('φ = 32°');
+      expect(drawn).toContain('Six-pointed star');
+
+      // Without a drive there is no envelope, and a note says why.
+      const noDrive = buildStereonetScene(joints, threeSets, { size: 400, daylight: ['face'] });
+      expect(find(noDrive.nodes, 'daylight')).toBeUndefined();
+      expect(noDrive.notes).toContain('Daylight envelopes need the drive at the face.');
+    });
+
+    it('keeps the overlay labels inside the primitive, clear of its degree marks', () => {
+      // Two steep sets meeting in a nearly horizontal line: its star sits right at the primitive.
+      const sets = [
+        { label: 'S1', mean: { dipDirection: 0, dip: 88 }, alpha95: null },
+        { label: 'S2', mean: { dipDirection: 95, dip: 88 }, alpha95: null },
+      ];
+      for (const size of [360, 800]) {
+        const scene = buildStereonetScene([], sets, {
+          size,
+          drive: { trend: 10, plunge: 0 },
+          daylight: ['left wall', 'right wall', 'crown', 'face'],
+          frictionAngle: 85,
+          intersections: true,
+        });
+        const labels: SceneNode[] = [];
+        const walk = (ns: SceneNode[]) =>
+          ns.forEach((n) => {
+            if (n.type === 'group') walk(n.children);
+            else if (n.type === 'text' && /label/.test(n.role) && !n.role.startsWith('mean-label'))
+              labels.push(n);
+          });
+        walk(scene.nodes);
+        expect(labels.length).toBe(6);
+        for (const t of labels) {
+          if (t.type !== 'text') continue;
+          // Half the text's width at ~0.6 em a character, plus half its height.
+          const half = (t.text.length * t.size * 0.6) / 2;
+          const far = Math.hypot(
+            Math.abs(t.x - scene.centre.x) + half,
+            Math.abs(t.y - scene.centre.y) + t.size / 2,
+          );
+          expect(far).toBeLessThanOrEqual(scene.radius + 1);
+        }
+      }
+    });
+
+    // WCAG 2.1 relative luminance and contrast ratio: 3:1 for lines and marks (1.4.11), 4.5:1 for text (1.4.3).
+    const luminance = (hex: string) => {
+      const c = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255);
+      const l = c.map((v) => (v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4));
+      return 0.2126 * l[0] + 0.7152 * l[1] + 0.0722 * l[2];
+    };
+    const contrast = (a: string, b: string) => {
+      const [x, y] = [luminance(a), luminance(b)].sort((p, q) => q - p);
+      return (x + 0.05) / (y + 0.05);
+    };
+    const lab = (hex: string) => {
+      const lin = [1, 3, 5].map((i) => {
+        const v = parseInt(hex.slice(i, i + 2), 16) / 255;
+        return v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4;
+      });
+      const xyz = [
+        (0.4124 * lin[0] + 0.3576 * lin[1] + 0.1805 * lin[2]) / 0.95047,
+        0.2126 * lin[0] + 0.7152 * lin[1] + 0.0722 * lin[2],
+        (0.0193 * lin[0] + 0.1192 * lin[1] + 0.9505 * lin[2]) / 1.08883,
+      ].map((t) => (t > 0.008856 ? Math.cbrt(t) : 7.787 * t + 16 / 116));
+      return [116 * xyz[1] - 16, 500 * (xyz[0] - xyz[1]), 200 * (xyz[1] - xyz[2])];
+    };
+    const deltaE = (a: string, b: string) => {
+      const [p, q] = [lab(a), lab(b)];
+      return Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]);
+    };
+    it.each([
+      ['print', PRINT_PALETTE],
+      ['high contrast', PRINT_HIGH_CONTRAST_PALETTE],
+    ])('draws the overlays in colours that read on the %s paper (WCAG 2.1)', (_, palette) => {
+      for (const c of [palette.friction, palette.daylight, palette.intersection]) {
+        expect(contrast(c, palette.paper)).toBeGreaterThanOrEqual(4.5);
+      }
+      // The overlays must not be taken for a set or the axis: CIE 1976 ΔE*ab of at least 25 from each set
+      // colour, the axis and each other (the threshold is Roundbook's own; CIELAB from sRGB, D65).
+      const others = [...palette.sets, palette.axis];
+      const overlays = [palette.friction, palette.daylight, palette.intersection];
+      for (const c of overlays) for (const o of others) expect(deltaE(c, o)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.friction, palette.daylight)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.friction, palette.intersection)).toBeGreaterThanOrEqual(25);
+      expect(deltaE(palette.daylight, palette.intersection)).toBeGreaterThanOrEqual(25);
+      const scene = buildStereonetScene([], threeSets, {
+        size: 400,
+        palette,
+        drive: { trend: 0, plunge: 0 },
+        frictionAngle: 30,
+        daylight: ['face'],
+        intersections: true,
+      });
+      expect(find(scene.nodes, 'friction-circle')).toMatchObject({ stroke: palette.friction });
+      expect(find(scene.nodes, 'daylight-face')).toMatchObject({ stroke: palette.daylight });
+      expect(find(scene.nodes, 'intersection-S1×S2')).toMatchObject({
+        fill: palette.intersection,
+        stroke: palette.paper,
+      });
+      expect(find(scene.nodes, 'intersection-label-S1×S2')).toMatchObject({ halo: palette.paper });
+    });
   });
 });

@@ -10,11 +10,14 @@ import {
   densityLegend,
   formatPlane,
   greatCircle,
+  intersectionOf,
   poleOf,
   project,
   smallCircle,
 } from '@roundbook/geomath';
 import type { Drive, Line, Net, Plane, TerzaghiSampling } from '@roundbook/geomath';
+import type { FreeSurface } from './daylight';
+import { daylightEnvelope, surfacesOf } from './daylight';
 import type { StereonetPalette } from './palette';
 import { PRINT_PALETTE, setColour } from './palette';
 import { KIND_STYLES, RANDOM_SHAPE, markPath, setShape, shapePath } from './symbols';
@@ -83,6 +86,26 @@ export interface StereonetOptions {
   palette?: StereonetPalette;
   /** Add the legend below the net (the scene grows taller). */
   legend?: boolean;
+  /**
+   * Friction circle at φ degrees (off when null/absent): the small circle about the vertical at φ from the
+   * centre, so the poles of planes dipping less than φ fall inside it (pole-plot convention).
+   */
+  frictionAngle?: number | null;
+  /** Daylight envelopes of these free surfaces (drawn only with a drive). */
+  daylight?: readonly FreeSurface[];
+  /** Mark the intersection line of each pair of set means. */
+  intersections?: boolean;
+}
+
+/** Where the intersection line of two set means was drawn, for picking and for the readout. */
+export interface DrawnLine {
+  id: string;
+  /** "S1×S2". */
+  label: string;
+  x: number;
+  y: number;
+  line: Line;
+  planes: [Plane, Plane];
 }
 
 /** Where a pole was drawn, for picking and for the readout. */
@@ -107,6 +130,8 @@ export interface StereonetScene {
   title: string;
   nodes: SceneNode[];
   poles: DrawnPole[];
+  /** Intersection lines of set pairs as drawn (empty unless asked). */
+  lines: DrawnLine[];
   /** Legend lines (also drawn in the scene when `legend` is on). */
   legendLines: string[];
   /** Density legend, e.g. "multiples of σ, Kamb 1959; uniform = 3σ", or null without contours. */
@@ -126,6 +151,37 @@ const GENTLE_DIP = 20;
 const STEEP_DIP = 45;
 
 const f = (n: number): string => String(Math.round(n * 100) / 100);
+
+/** Dash pattern of each free surface's envelope outline (in line widths), so two drawn together differ. */
+const SURFACE_DASH: Record<FreeSurface, number[]> = {
+  'left wall': [],
+  'right wall': [6, 3],
+  crown: [2, 2],
+  face: [9, 3, 2, 3],
+};
+
+/** Words for what daylighting means on each surface (legend). */
+const SURFACE_WORDS: Record<FreeSurface, string> = {
+  'left wall': 'the left wall (they dip into the tunnel from the left, less steeply than the wall)',
+  'right wall': 'the right wall (they dip into the tunnel from the right, less steeply than the wall)',
+  crown:
+    'the crown (they dip out of the roof, more steeply than the roof slopes that way — for a near-level drive almost every plane)',
+  face: 'the face (they dip back out of the face, less steeply than the face)',
+};
+
+const lineText = (l: Line): string =>
+  `${String(Math.round(l.trend) % 360).padStart(3, '0')}/${String(Math.round(l.plunge)).padStart(2, '0')}`;
+
+/** Six-pointed star of "radius" r (the intersection symbol, Roundbook design). */
+function starPath(x: number, y: number, r: number): string {
+  const pts: string[] = [];
+  for (let i = 0; i < 12; i++) {
+    const a = (Math.PI * i) / 6;
+    const rr = i % 2 === 0 ? r : r * 0.45;
+    pts.push(`${i === 0 ? 'M' : 'L'}${f(x + rr * Math.sin(a))} ${f(y - rr * Math.cos(a))}`);
+  }
+  return pts.join(' ') + ' Z';
+}
 
 export const netLabels: Record<Net, string> = {
   'equal-area': 'Equal-area',
@@ -283,6 +339,51 @@ export function buildStereonetScene(
   }
   if (options.weighting) legendLines.push(options.weighting.label);
 
+  // Daylight envelopes: regions of poles whose planes daylight on a free surface (daylight.ts).
+  const labelNodes: SceneNode[] = [];
+  const asked = options.daylight ?? [];
+  if (asked.length > 0 && !drive) notes.push('Daylight envelopes need the drive at the face.');
+  if (drive && asked.length > 0) {
+    const children: SceneNode[] = [];
+    for (const s of surfacesOf(drive)) {
+      if (!asked.includes(s.surface)) continue;
+      const env = daylightEnvelope(s);
+      const role = `daylight-${s.surface.replace(' ', '-')}`;
+      children.push({
+        type: 'path',
+        role,
+        d: `${polyline(env.outer)} Z ${polyline([...env.inner].reverse())} Z`,
+        fill: palette.daylight,
+        fillOpacity: 0.16,
+        fillRule: 'evenodd',
+        stroke: palette.daylight,
+        width: line * 1.8,
+        dash: SURFACE_DASH[s.surface].length
+          ? SURFACE_DASH[s.surface].map((v) => f(v * line)).join(' ')
+          : undefined,
+      });
+      // Name the region where it is widest, half-way across it.
+      const w = env.widest;
+      const mid = at({ trend: w.trend, plunge: 90 - (w.low + w.high) / 2 });
+      labelNodes.push({
+        type: 'text',
+        role: `${role}-label`,
+        x: mid.x,
+        y: mid.y + font * 0.35,
+        text: s.surface,
+        size: font * 0.9,
+        fill: palette.daylight,
+        anchor: 'middle',
+        weight: 700,
+        halo: palette.paper,
+      });
+      legendLines.push(
+        `Tinted region (${s.surface}): poles of planes that daylight on ${SURFACE_WORDS[s.surface]}; from the drive at the face`,
+      );
+    }
+    nodes.push({ type: 'group', role: 'daylight', clip: 'primitive', children });
+  }
+
   // Great circles.
   const circleMode = options.greatCircles ?? 'none';
   if (circleMode !== 'none') {
@@ -313,6 +414,36 @@ export function buildStereonetScene(
         width: line * (circleMode === 'sets' ? 1.4 : 0.7),
       })),
     });
+  }
+
+  // Friction circle: about the vertical at φ from the centre (poles of planes gentler than φ inside).
+  const phi = options.frictionAngle;
+  if (phi !== null && phi !== undefined && Number.isFinite(phi) && phi > 0 && phi < 90) {
+    const ring = smallCircle({ trend: 0, plunge: 90 }, phi, 180);
+    nodes.push({
+      type: 'path',
+      role: 'friction-circle',
+      d: polyline(ring) + ' Z',
+      stroke: palette.friction,
+      width: line * 2,
+      dash: `${f(line * 1.5)} ${f(line * 3)}`,
+    });
+    const tag = at({ trend: 180, plunge: 90 - phi });
+    labelNodes.push({
+      type: 'text',
+      role: 'friction-label',
+      x: tag.x,
+      y: tag.y - font * 0.45,
+      text: `φ ${phi}°`,
+      size: font * 0.85,
+      fill: palette.friction,
+      anchor: 'middle',
+      weight: 700,
+      halo: palette.paper,
+    });
+    legendLines.push(
+      `Dotted circle: friction circle, φ = ${phi}° — poles inside it are of planes dipping less than φ, too gentle to slide on friction alone (pole plot; Hoek & Bray 1981, from memory)`,
+    );
   }
 
   // Tunnel axis (dashed diameter along the drive's trend) and the drive direction (arrow outside).
@@ -490,6 +621,63 @@ export function buildStereonetScene(
   if (sets.length > 0)
     legendLines.push('Large outlined symbol: set mean pole; dashed ring: its α95 cone (Fisher 1953)');
 
+  // Intersection lines of each pair of set means (geomath intersectionOf), with their labels.
+  const drawnLines: DrawnLine[] = [];
+  if (options.intersections) {
+    const marks: SceneNode[] = [];
+    const ordered = [...sets].sort((a, b) => (setIndex.get(a.label) ?? 0) - (setIndex.get(b.label) ?? 0));
+    for (let i = 0; i < ordered.length; i++) {
+      for (let k = i + 1; k < ordered.length; k++) {
+        const a = ordered[i];
+        const b = ordered[k];
+        const l = intersectionOf(a.mean, b.mean);
+        if (l === null) continue;
+        const label = `${a.label}×${b.label}`;
+        const p = at(l);
+        drawnLines.push({ id: `x:${label}`, label, x: p.x, y: p.y, line: l, planes: [a.mean, b.mean] });
+        marks.push({
+          type: 'path',
+          role: `intersection-${label}`,
+          d: starPath(p.x, p.y, r * 1.7),
+          fill: palette.intersection,
+          stroke: palette.paper,
+          width: line * 1.2,
+        });
+        // Label beside the star, toward the centre when it sits near the primitive (clear of the marks).
+        const dx = p.x - cx;
+        const dy = p.y - cy;
+        const dist = Math.hypot(dx, dy);
+        const nearEdge = dist > radius - font * 3;
+        const ux = dist < 1 ? 0 : dx / dist;
+        const uy = dist < 1 ? -1 : dy / dist;
+        const off = r * 1.7 + font * 0.6;
+        const lx = nearEdge ? p.x - ux * (off + font) : p.x + (dist < 1 ? 0 : ux * off);
+        const ly = nearEdge ? p.y - uy * (off + font * 0.4) : p.y + (dist < 1 ? -off : uy * off);
+        marks.push({
+          type: 'text',
+          role: `intersection-label-${label}`,
+          x: lx,
+          y: ly + font * 0.35,
+          text: label,
+          size: font * 0.85,
+          fill: palette.intersection,
+          anchor: 'middle',
+          weight: 700,
+          halo: palette.paper,
+        });
+      }
+    }
+    nodes.push({ type: 'group', role: 'intersections', children: marks });
+    if (sets.length < 2) notes.push('Intersection lines need at least two sets.');
+    else {
+      const [a, b] = ordered;
+      legendLines.push(
+        `Six-pointed star: line of intersection of two set means (${a.label}×${b.label}: where sets ${a.label} and ${b.label} meet), plotted as a line by trend and plunge`,
+      );
+    }
+  }
+  if (labelNodes.length > 0) nodes.push({ type: 'group', role: 'overlay-labels', children: labelNodes });
+
   const title = `${netLabels[net]} lower-hemisphere stereonet: ${joints.length} pole${joints.length === 1 ? '' : 's'}, ${sets.length} set${sets.length === 1 ? '' : 's'}${legendText ? `, contours in ${legendText}` : ''}`;
 
   let height = size;
@@ -523,6 +711,7 @@ export function buildStereonetScene(
     title,
     nodes,
     poles: drawn,
+    lines: drawnLines,
     legendLines,
     densityLegend: legendText,
     notes,
@@ -555,6 +744,28 @@ export function nearestPole(scene: StereonetScene, x: number, y: number, reach: 
     }
   }
   return best;
+}
+
+/** The intersection mark nearest to an SVG point within `reach` px, or null. */
+export function nearestLine(scene: StereonetScene, x: number, y: number, reach: number): DrawnLine | null {
+  let best: DrawnLine | null = null;
+  let bestD = reach * reach;
+  for (const l of scene.lines) {
+    const d = (l.x - x) ** 2 + (l.y - y) ** 2;
+    if (d <= bestD) {
+      bestD = d;
+      best = l;
+    }
+  }
+  return best;
+}
+
+/** An intersection line in words for the readout. */
+export function lineNotations(l: DrawnLine): Array<{ label: string; value: string }> {
+  return [
+    { label: 'Trend / plunge', value: lineText(l.line) },
+    { label: 'Planes', value: l.planes.map((p) => formatPlane(p, 'dip-direction/dip')).join(' and ') },
+  ];
 }
 
 /** A pole in every notation the product reads (geomath's formatters). */
