@@ -82,6 +82,8 @@ try {
     'mariadb-client',
     'fonts-open-sans',
     ...(want('browser') ? ['chromium'] : []),
+    // pdfimages, which the handover e2e uses to list the pictures inside the PDF.
+    ...(want('e2e') ? ['poppler-utils'] : []),
   ]);
   ensureNodeModules();
 
