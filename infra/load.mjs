@@ -8,7 +8,8 @@
 // stopped by PID, also on failure or Ctrl-C.
 //
 // Options (environment): LOAD_SECONDS (per phase, default 20), LOAD_CONNECTIONS (default 50),
-// LOAD_ROUNDS (default 30000), LOAD_JSON=<file> (writes the figures as JSON too).
+// LOAD_ROUNDS (default 30000), LOAD_JSON=<file> (writes the figures as JSON too); DB_POOL_SIZE and
+// DB_POOL_WAIT_MS are handed to the API.
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { buildAll, ensureAptPackages, ensureNodeModules, migrateAndSeed } from './lib/bootstrap.mjs';
@@ -19,6 +20,8 @@ import { startApi, startMariadb, startS3, startSmtp } from './lib/services.mjs';
 
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 20);
 const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 50);
+/** autocannon's timeout: shorter than the phase, so a request that never answers counts as an error. */
+const TIMEOUT_S = Math.max(1, Math.min(10, Math.floor(SECONDS / 2)));
 /** Targets of issue 20 against the liveness route of the same run. */
 const MIN_RATIO = 0.25;
 const MAX_P99_FACTOR = 10;
@@ -43,6 +46,10 @@ const env = {
   // the load generator is one address, so the limit is lifted for this run only.
   PUBLIC_RATE_LIMIT: '100000000',
   NODE_ENV: 'production',
+  // The API's pool (apps/api/src/config/env.validation.ts), when the run is to try another size or wait.
+  ...Object.fromEntries(
+    ['DB_POOL_SIZE', 'DB_POOL_WAIT_MS'].filter((k) => process.env[k]).map((k) => [k, process.env[k]]),
+  ),
 };
 const apiUrl = `http://127.0.0.1:${env.PORT}`;
 
@@ -163,19 +170,50 @@ try {
     return `${p}/headings/${seed.headingIds[h]}/joints?fromChainage=${face - 30}&toChainage=${face}`;
   };
 
-  // The drafts the joint edits save: each connection takes its own draft (no two edit one round at once).
+  // The drafts the joint edits save. autocannon gives a connection a fresh context each time it has gone
+  // through its list of requests, so a draft cannot belong to a connection: an edit checks a free draft out
+  // and gives it back with its answer, so that no two edits of one draft are in flight at once. An edit that
+  // never got its answer (cut at the end of a phase, or timed out) may still have been saved: that draft is
+  // stale, and so is one whose save answered 409 (version conflict). The next edit of a stale draft reads the
+  // round again instead (GET, as the round screen does after a conflict) and saves from what it read.
   const drafts = [];
   for (const id of seed.draftRoundIds) {
     const { json } = await http('GET', `${p}/rounds/${id}`, { token: geologist });
-    drafts.push({ id, version: json.version, joints: json.joints.map(jointInput), edits: 0 });
+    drafts.push({ id, version: json.version, joints: json.joints.map(jointInput), edits: 0, out: 0 });
   }
-  let nextDraft = 0;
+  let free = [...drafts];
+  const conflicts = { count: 0, rereads: 0 };
+  /** Before a phase: every draft free again; those still out (their answer never came) are stale. */
+  const resetDrafts = () => {
+    for (const d of drafts) if (d.out) Object.assign(d, { out: 0, stale: true });
+    free = [...drafts];
+    conflicts.count = 0;
+    conflicts.rereads = 0;
+  };
+  /** A free draft, or one whose answer is overdue (it never comes: the client gave up), or none. */
+  const checkOut = () => {
+    let d = free.shift();
+    if (!d) {
+      const oldest = drafts.reduce((a, b) => (a.out <= b.out ? a : b));
+      if (Date.now() - oldest.out <= TIMEOUT_S * 1000) return undefined;
+      d = Object.assign(oldest, { stale: true });
+    }
+    d.out = Date.now();
+    return d;
+  };
+  const giveBack = (d) => {
+    d.out = 0;
+    if (!free.includes(d)) free.push(d);
+  };
   const editRequest = {
     method: 'PUT',
     headers: { authorization: `Bearer ${geologist}`, 'content-type': 'application/json' },
     setupRequest: (req, context) => {
-      context.draft ??= drafts[nextDraft++ % drafts.length];
-      const d = context.draft;
+      const d = (context.draft = checkOut());
+      // More connections than drafts, all of them out: this turn reads a draft instead of saving one.
+      if (!d) return { ...req, method: 'GET', path: `${p}/rounds/${pick(drafts).id}`, body: undefined };
+      context.reread = Boolean(d.stale);
+      if (context.reread) return { ...req, method: 'GET', path: `${p}/rounds/${d.id}`, body: undefined };
       d.edits += 1;
       // One joint's orientation and notes change at each save; the rest are sent as they are.
       const joints = d.joints.map((j, i) =>
@@ -190,7 +228,22 @@ try {
       return { ...req, path: `${p}/rounds/${d.id}`, body: JSON.stringify({ version: d.version, joints }) };
     },
     onResponse: (status, body, context) => {
-      if (status === 200) context.draft.version = JSON.parse(body).version;
+      const d = context.draft;
+      if (!d) return;
+      if (status === 200) {
+        const round = JSON.parse(body);
+        d.version = round.version;
+        if (context.reread) {
+          d.joints = round.joints.map(jointInput);
+          d.stale = false;
+          conflicts.rereads += 1;
+        }
+      } else if (status === 409 && !context.reread) {
+        // Someone saved the round since it was read: not an error of the API; read it again next time.
+        d.stale = true;
+        conflicts.count += 1;
+      }
+      giveBack(d);
     },
   };
   const get = (token, makePath) => ({
@@ -238,8 +291,6 @@ try {
     r.bytes = Math.round(bytes / N);
     info(`${r.label}: ${r.queries.toFixed(1)} statements/request, ${r.bytes.toLocaleString('en')} bytes`);
   }
-  // Connections of the counting pass gave back their drafts: the load phase hands them out afresh.
-  nextDraft = 0;
 
   const runPhase = (name, requests) =>
     new Promise((resolve, reject) => {
@@ -249,8 +300,7 @@ try {
           connections: CONNECTIONS,
           duration: SECONDS,
           requests,
-          // Shorter than the phase, so a request that never answers counts as an error (timeout).
-          timeout: Math.max(1, Math.min(10, Math.floor(SECONDS / 2))),
+          timeout: TIMEOUT_S,
         },
         (err, result) => (err ? reject(err) : resolve(result)),
       );
@@ -262,8 +312,11 @@ try {
   const figures = [];
   for (const r of routes) {
     step(`${r.label}: ${CONNECTIONS} connections for ${SECONDS} s`);
+    resetDrafts();
     const result = await runPhase(r.name, [r.request]);
-    const errors = result.errors + result.timeouts + result.non2xx;
+    // A 409 on a joint edit is a version conflict (answered by reading the round again), not an error.
+    // autocannon's `errors` already counts its timeouts (adding them again counted each one twice).
+    const errors = result.errors + result.non2xx - conflicts.count;
     figures.push({
       route: r.name,
       label: r.label,
@@ -271,16 +324,18 @@ try {
       p99: result.latency.p99,
       p50: result.latency.p50,
       errors,
+      conflicts: conflicts.count,
       queries: r.queries,
       bytes: r.bytes,
       total: result.requests.total,
     });
     info(
-      `${Math.round(result.requests.average)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${errors} errors (${result.non2xx} non-2xx, ${result.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
+      `${Math.round(result.requests.average)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${errors} errors (${conflicts.count} version conflicts, not counted; ${conflicts.rereads} drafts read again; ${result.non2xx} non-2xx, ${result.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
     );
     await sleep(1000);
   }
   step(`Mixed: Board, Rounds pages, round details, stereonet data and joint edits, ${SECONDS} s`);
+  resetDrafts();
   const mixed = await runPhase('mixed', [
     routes[1].request,
     routes[2].request,
@@ -290,9 +345,10 @@ try {
     routes[4].request,
     routes[5].request,
   ]);
-  const mixedErrors = mixed.errors + mixed.timeouts + mixed.non2xx;
+  const mixedErrors = mixed.errors + mixed.non2xx - conflicts.count;
+  const mixedConflicts = conflicts.count;
   info(
-    `mixed: ${Math.round(mixed.requests.average)} req/s, p99 ${mixed.latency.p99} ms, ${mixedErrors} errors (${mixed.non2xx} non-2xx, ${mixed.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(mixed.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
+    `mixed: ${Math.round(mixed.requests.average)} req/s, p99 ${mixed.latency.p99} ms, ${mixedErrors} errors (${mixedConflicts} version conflicts, not counted; ${conflicts.rereads} drafts read again; ${mixed.non2xx} non-2xx, ${mixed.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(mixed.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
   );
 
   const live = figures[0];
@@ -307,7 +363,7 @@ try {
   const pad = (s, n) => String(s).padEnd(n);
   const padl = (s, n) => String(s).padStart(n);
   console.log(
-    `  ${pad('route', 30)}${padl('req/s', 8)}${padl('ratio', 8)}${padl('p99 ms', 8)}${padl('×live', 7)}${padl('errors', 8)}${padl('SQL/req', 9)}${padl('bytes', 9)}  target`,
+    `  ${pad('route', 30)}${padl('req/s', 8)}${padl('ratio', 8)}${padl('p99 ms', 8)}${padl('×live', 7)}${padl('errors', 8)}${padl('409s', 6)}${padl('SQL/req', 9)}${padl('bytes', 9)}  target`,
   );
   let ok = true;
   for (const r of rows) {
@@ -316,15 +372,15 @@ try {
       r.total > 0 && r.errors === 0 && (!targeted || (r.ratio >= MIN_RATIO && r.p99Factor <= MAX_P99_FACTOR));
     if (!pass) ok = false;
     console.log(
-      `  ${pad(r.label, 30)}${padl(Math.round(r.rps), 8)}${padl(`${(r.ratio * 100).toFixed(1)}%`, 8)}${padl(r.p99, 8)}${padl(r.p99Factor.toFixed(1), 7)}${padl(r.errors, 8)}${padl(r.queries.toFixed(1), 9)}${padl(r.bytes, 9)}  ${targeted ? (pass ? 'met' : 'MISSED') : pass ? 'no errors' : r.total === 0 ? 'NO ANSWER' : 'ERRORS'}`,
+      `  ${pad(r.label, 30)}${padl(Math.round(r.rps), 8)}${padl(`${(r.ratio * 100).toFixed(1)}%`, 8)}${padl(r.p99, 8)}${padl(r.p99Factor.toFixed(1), 7)}${padl(r.errors, 8)}${padl(r.conflicts, 6)}${padl(r.queries.toFixed(1), 9)}${padl(r.bytes, 9)}  ${targeted ? (pass ? 'met' : 'MISSED') : pass ? 'no errors' : r.total === 0 ? 'NO ANSWER' : 'ERRORS'}`,
     );
   }
   console.log(
-    `  ${pad('Mixed (all but liveness)', 30)}${padl(Math.round(mixed.requests.average), 8)}${padl('', 8)}${padl(mixed.latency.p99, 8)}${padl('', 7)}${padl(mixedErrors, 8)}`,
+    `  ${pad('Mixed (all but liveness)', 30)}${padl(Math.round(mixed.requests.average), 8)}${padl('', 8)}${padl(mixed.latency.p99, 8)}${padl('', 7)}${padl(mixedErrors, 8)}${padl(mixedConflicts, 6)}`,
   );
   if (mixedErrors > 0 || mixed.requests.total === 0) ok = false;
   console.log(
-    `\n  Targets: Board projects list, Rounds page and round detail ≥ ${MIN_RATIO * 100}% of liveness req/s, p99 ≤ ${MAX_P99_FACTOR}× liveness p99, no errors anywhere.\n`,
+    `\n  Targets: Board projects list, Rounds page and round detail ≥ ${MIN_RATIO * 100}% of liveness req/s, p99 ≤ ${MAX_P99_FACTOR}× liveness p99, no errors anywhere (a 409 on a joint edit is a version conflict: the round is read again and the edit goes on).\n`,
   );
   if (process.env.LOAD_JSON)
     writeFileSync(
@@ -333,7 +389,12 @@ try {
         {
           seed: { rounds: seed.rounds, joints: seed.joints },
           rows,
-          mixed: { rps: mixed.requests.average, p99: mixed.latency.p99, errors: mixedErrors },
+          mixed: {
+            rps: mixed.requests.average,
+            p99: mixed.latency.p99,
+            errors: mixedErrors,
+            conflicts: mixedConflicts,
+          },
         },
         null,
         2,

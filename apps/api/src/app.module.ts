@@ -1,9 +1,11 @@
-import { Module, type DynamicModule } from '@nestjs/common';
+import { Module, type DynamicModule, type MiddlewareConsumer, type NestModule } from '@nestjs/common';
 import { APP_GUARD } from '@nestjs/core';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { DataSource, type DataSourceOptions } from 'typeorm';
 import type { AppConfig } from './config/app-config.js';
 import { AppConfigModule } from './config/app-config.module.js';
 import { databaseOptions } from './database/options.js';
+import { boundPoolWaits, poolOf, requestSignal } from './database/pool-wait.js';
 import { MailModule } from './infrastructure/mail/mail.module.js';
 import { StorageModule } from './infrastructure/storage/storage.module.js';
 import { AppInfoController } from './modules/app-info/app-info.controller.js';
@@ -26,13 +28,21 @@ import { TeamModule } from './modules/team/team.module.js';
 import { TriggerRulesModule } from './modules/trigger-rules/trigger-rules.module.js';
 
 @Module({})
-export class AppModule {
+export class AppModule implements NestModule {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
       imports: [
         AppConfigModule.forRoot(config),
-        TypeOrmModule.forRoot({ ...databaseOptions(config), retryAttempts: 3, retryDelay: 1000 }),
+        TypeOrmModule.forRootAsync({
+          useFactory: () => ({ ...databaseOptions(config), retryAttempts: 3, retryDelay: 1000 }),
+          // Every wait for a pooled connection is bounded (DB_POOL_WAIT_MS), and shed when its client has gone.
+          dataSourceFactory: async (options) => {
+            const dataSource = await new DataSource(options as DataSourceOptions).initialize();
+            boundPoolWaits(poolOf(dataSource), config.database.poolWaitMs);
+            return dataSource;
+          },
+        }),
         StorageModule,
         MailModule,
         AuditModule,
@@ -56,5 +66,10 @@ export class AppModule {
       controllers: [AppInfoController],
       providers: [{ provide: APP_GUARD, useClass: JwtAuthGuard }],
     };
+  }
+
+  /** Nest middleware runs after the body parsers, so the request's signal reaches its handler and guards. */
+  configure(consumer: MiddlewareConsumer): void {
+    consumer.apply(requestSignal).forRoutes('{*path}');
   }
 }

@@ -7,7 +7,17 @@ export interface AppConfig {
   port: number;
   appUrl: string;
   localMode: boolean;
-  database: { host: string; port: number; name: string; user: string; password: string };
+  database: {
+    host: string;
+    port: number;
+    name: string;
+    user: string;
+    password: string;
+    /** Pooled connections of this process */
+    poolSize: number;
+    /** Longest wait for a pooled connection before a 503, ms */
+    poolWaitMs: number;
+  };
   auth: {
     jwtSecret: string;
     jwtExpiresIn: string;
@@ -75,7 +85,15 @@ export function toAppConfig(e: EnvironmentVariables): AppConfig {
     port: e.PORT,
     appUrl: e.APP_URL.replace(/\/$/, ''),
     localMode: e.LOCAL_MODE,
-    database: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD },
+    database: {
+      host: e.DB_HOST,
+      port: e.DB_PORT,
+      name: e.DB_NAME,
+      user: e.DB_USER,
+      password: e.DB_PASSWORD,
+      poolSize: e.DB_POOL_SIZE,
+      poolWaitMs: e.DB_POOL_WAIT_MS,
+    },
     auth: {
       jwtSecret: e.JWT_SECRET,
       jwtExpiresIn: e.JWT_EXPIRES_IN,

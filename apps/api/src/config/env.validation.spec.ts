@@ -67,4 +67,26 @@ describe('validateEnvironment', () => {
   it('requires the local inbox folder in local mode', () => {
     expect(() => validateEnvironment({ ...valid, LOCAL_MODE: 'true' })).toThrow(/LOCAL_MAIL_DIR/);
   });
+
+  it('has a pool of 10 connections and a 3 s wait by default, and takes integers in range', () => {
+    expect(validateEnvironment(valid)).toMatchObject({ DB_POOL_SIZE: 10, DB_POOL_WAIT_MS: 3000 });
+    expect(validateEnvironment({ ...valid, DB_POOL_SIZE: '4', DB_POOL_WAIT_MS: '500' })).toMatchObject({
+      DB_POOL_SIZE: 4,
+      DB_POOL_WAIT_MS: 500,
+    });
+  });
+
+  it.each([
+    ['DB_POOL_SIZE', '0'],
+    ['DB_POOL_SIZE', '2.5'],
+    ['DB_POOL_SIZE', 'ten'],
+    ['DB_POOL_SIZE', '201'],
+    ['DB_POOL_WAIT_MS', '49'],
+    ['DB_POOL_WAIT_MS', '60001'],
+    ['DB_POOL_WAIT_MS', '3s'],
+  ])('refuses %s=%s, naming the variable', (name, value) => {
+    expect(() => validateEnvironment({ ...valid, [name]: value })).toThrow(
+      new RegExp(`${name} \\("${value.replace('.', '\\.')}"\\)`),
+    );
+  });
 });

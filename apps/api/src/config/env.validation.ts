@@ -65,6 +65,26 @@ export class EnvironmentVariables {
   @IsNotEmpty()
   DB_PASSWORD: string;
 
+  /**
+   * Pooled MariaDB connections of this API process (mysql2's connectionLimit, through TypeORM's poolSize).
+   * 10 kept: 4, 6, 10 and 20 under `npm run load` on 2 shared cores showed no consistent difference (README).
+   */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  @Max(200)
+  DB_POOL_SIZE = 10;
+
+  /**
+   * How long a request may wait for a pooled connection before it is answered 503 with Retry-After, in
+   * milliseconds; also bounds opening a new connection for it.
+   */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(50)
+  @Max(60000)
+  DB_POOL_WAIT_MS = 3000;
+
   @IsString()
   @MinLength(32, { message: 'JWT_SECRET must be at least 32 characters long' })
   JWT_SECRET: string;

@@ -70,6 +70,7 @@ export function databaseOptions(config: AppConfig): DataSourceOptions {
     synchronize: false,
     migrationsTableName: 'migrations',
     connectTimeout: 10000,
-    extra: { connectionLimit: 10 },
+    // mysql2's connectionLimit (DB_POOL_SIZE). The wait for one is bounded by boundPoolWaits (pool-wait.ts).
+    poolSize: config.database.poolSize,
   };
 }

@@ -1,4 +1,5 @@
 import { QueryFailedError, TypeORMError } from 'typeorm';
+import { PoolWaitTimeoutError, RequestAbandonedError } from '../../database/pool-wait.js';
 
 /** MariaDB's error number of a failed query, if it is one. */
 export function dbErrno(error: unknown): number | undefined {
@@ -81,6 +82,16 @@ function driverErrorOf(error: unknown): { errno?: number; code?: string; message
  * Messages name no table, key or host.
  */
 export function answerOfDatabaseError(error: unknown): DatabaseErrorAnswer | undefined {
+  // Every pooled connection stayed busy for DB_POOL_WAIT_MS: the API is overloaded, not down.
+  if (error instanceof PoolWaitTimeoutError)
+    return {
+      status: 503,
+      message: 'The server is busy just now. Nothing was changed; try again in a few seconds.',
+      retryAfterSeconds: 5,
+    };
+  // Nobody reads this answer (the client has closed the connection); it only has to be a clean one.
+  if (error instanceof RequestAbandonedError)
+    return { status: 503, message: 'The request was given up before it was run.', retryAfterSeconds: 5 };
   const d = driverErrorOf(error);
   if (!d) return undefined;
   const { errno, code } = d;

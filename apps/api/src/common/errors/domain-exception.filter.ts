@@ -7,6 +7,7 @@ import {
   type ExceptionFilter,
 } from '@nestjs/common';
 import type { Response } from 'express';
+import { PoolWaitTimeoutError, RequestAbandonedError } from '../../database/pool-wait.js';
 import { JsonTooDeepError } from '../http/guarded-json.js';
 import { LONE_SURROGATE_MESSAGE } from '../http/well-formed-text.js';
 import { answerOfDatabaseError } from './database-errors.js';
@@ -52,7 +53,12 @@ export class DomainExceptionFilter implements ExceptionFilter {
     const alreadySaid = typeof res.getHeader === 'function' && res.getHeader('Retry-After') !== undefined;
     if (!alreadySaid && (status === 503 || (status === 429 && retryAfterSeconds !== undefined)))
       res.setHeader('Retry-After', String(retryAfterSeconds ?? 10));
-    if (status >= 500)
+    // Overload answers are one line each (a stack per shed request would add to the load); a request whose
+    // client has gone is not worth a line at all.
+    if (exception instanceof RequestAbandonedError) {
+      // nothing to log
+    } else if (exception instanceof PoolWaitTimeoutError) this.logger.warn(`503: ${exception.message}`);
+    else if (status >= 500)
       this.logger.error(
         exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
       );
