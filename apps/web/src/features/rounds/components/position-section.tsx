@@ -8,6 +8,7 @@ import {
   Text,
   tokens,
 } from '@fluentui/react-components';
+import { formatProjectTime } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
@@ -81,14 +82,7 @@ export function PositionSection({ round, chainage, timeZone }: PositionSectionPr
   const face = chainageOf(values.faceChainage);
   const previous = chainageOf(values.previousChainage);
   const warning = lengthWarning(valueOf(values.roundLength), round.plannedRoundLength);
-  const mapped = new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    hour: '2-digit',
-    minute: '2-digit',
-  }).format(new Date(round.mappedAt));
+  const mapped = formatProjectTime(round.mappedAt, timeZone);
 
   return (
     <section className={styles.root} aria-label="Position">

@@ -1,4 +1,4 @@
-import { formatQ } from '@roundbook/domain';
+import { formatProjectTime, formatQ } from '@roundbook/domain';
 import { qValue, Q_EDITION, RMR_ORIENTATION_RULE } from '@roundbook/geomath';
 import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -90,6 +90,14 @@ function saveHandler(answer?: (body: SaveRoundRequest) => Response) {
 const distantField = () => screen.getByLabelText('Parts of the face seen only from a distance');
 
 describe('Round editor: nothing lost', () => {
+  it('prints the time the round was opened with the domain formatter, in the project time zone (issue 19 item 7)', () => {
+    mockApi({ [JOINTS]: [] });
+    renderEditor({ ...draftRound, mappedAt: '2026-12-01T23:30:00Z' });
+    const when = formatProjectTime('2026-12-01T23:30:00Z', project.timeZone);
+    expect(when).toBe('1 Dec 2026, 23:30');
+    expect(screen.getByText(when)).toBeInTheDocument();
+  });
+
   it('keeps the typing in the browser at once and saves it 1.5 s after the last change', async () => {
     mockApi({ [JOINTS]: [], [PUT]: saveHandler() });
     renderEditor();
