@@ -4,7 +4,7 @@ import { formatAzimuth } from '@roundbook/domain';
 import { PageHeader, TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useNavigate, useParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { supportClassesQueryOptions } from '@/api/resources/support-classes';
@@ -17,6 +17,7 @@ import { HeadingOrientation } from '@/features/orientation/components/heading-or
 import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
 import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
 import { RoundsTable } from '@/features/rounds/components/rounds-table';
+import { useSearchParam } from '@/lib/use-search-param';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -57,18 +58,8 @@ export function HeadingRoute() {
   const { projectId = '', headingId = '' } = useParams();
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, headingId);
-  const [search, setSearch] = useSearchParams();
-  const tab = viewOf(search.get('view'));
-  const setTab = (next: string) =>
-    setSearch(
-      (s) => {
-        const n = new URLSearchParams(s);
-        if (next === 'rounds') n.delete('view');
-        else n.set('view', next);
-        return n;
-      },
-      { replace: true },
-    );
+  const [view, setTab] = useSearchParam('view', 'rounds');
+  const tab = viewOf(view);
   const { mode } = useThemePreference();
   const drive = formatAzimuth(heading.driveTrend, 1);
   return (

@@ -4,9 +4,8 @@ import { driveTrendAt, formatChainageFor } from '@roundbook/domain';
 import { driveOf } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
-import { useCallback } from 'react';
 import type { LoaderFunctionArgs, ShouldRevalidateFunction } from 'react-router-dom';
-import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
 import { projectQueryOptions } from '@/api/resources/projects';
 import { roundQueryOptions } from '@/api/resources/rounds';
@@ -25,12 +24,13 @@ import {
   useRoundProject,
   useRoundSupportClasses,
 } from '@/features/rounds/api/get-round';
-import { ROUND_SECTIONS, RoundEditor, type RoundSection } from '@/features/rounds/components/round-editor';
+import { ROUND_SECTIONS, RoundEditor } from '@/features/rounds/components/round-editor';
 import { pendingRoundOf, sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { SketchSection } from '@/features/sketch';
 import { SupportRecordSection } from '@/features/support-records/components/support-record-section';
 import { isApiError } from '@/lib/api-client';
 import { readSession } from '@/lib/session';
+import { useSearchParam } from '@/lib/use-search-param';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -82,24 +82,8 @@ export function RoundRoute() {
   const styles = useStyles();
   const { projectId = '', roundId = '' } = useParams();
   // The section shown is kept in the address (?section=), so a reload or a shared link opens it (issue 19 item 9).
-  const [search, setSearch] = useSearchParams();
-  const asked = search.get('section');
+  const [asked, setSection] = useSearchParam('section', 'position');
   const initialSection = [...ROUND_SECTIONS, 'sketch' as const].find((s) => s === asked);
-  const keepSection = useCallback(
-    (section: RoundSection) => {
-      if ((new URLSearchParams(window.location.search).get('section') ?? 'position') === section) return;
-      setSearch(
-        (s) => {
-          const n = new URLSearchParams(s);
-          if (section === 'position') n.delete('section');
-          else n.set('section', section);
-          return n;
-        },
-        { replace: true },
-      );
-    },
-    [setSearch],
-  );
   const { data: round } = useRound(projectId, roundId);
   const { data: project } = useRoundProject(projectId);
   const { data: heading } = useRoundHeading(projectId, round.headingId);
@@ -140,7 +124,7 @@ export function RoundRoute() {
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
         initialSection={initialSection}
-        onSectionChange={keepSection}
+        onSectionChange={setSection}
         sectionNoteSlot={
           round.status === 'draft' && round.revision === 1
             ? undefined

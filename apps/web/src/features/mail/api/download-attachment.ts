@@ -1,5 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import { fetchBlob } from '@/lib/api-client';
+import { saveBlob } from '@/lib/save-blob';
 
 export interface AttachmentRef {
   messageId: string;
@@ -13,18 +14,7 @@ export function attachmentPath({ messageId, index }: AttachmentRef): string {
 
 /** Fetches the attachment with the bearer token and hands it to the browser as a download. */
 export async function downloadAttachment(ref: AttachmentRef): Promise<void> {
-  const blob = await fetchBlob(attachmentPath(ref));
-  const url = URL.createObjectURL(blob);
-  try {
-    const link = document.createElement('a');
-    link.href = url;
-    link.download = ref.filename;
-    document.body.append(link);
-    link.click();
-    link.remove();
-  } finally {
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
-  }
+  saveBlob(await fetchBlob(attachmentPath(ref)), ref.filename);
 }
 
 export function useDownloadAttachment() {

@@ -1,20 +1,10 @@
 import { sceneToSvg } from '@/features/orientation/scene/scene-svg';
 import type { StereonetScene } from '@/features/orientation/scene/stereonet-scene';
-
-function save(blob: Blob, fileName: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  URL.revokeObjectURL(url);
-}
+import { saveBlob } from '@/lib/save-blob';
 
 /** Saves the scene as an SVG file (the same scene code the screen draws, with print colours). */
 export function downloadSvg(scene: StereonetScene, background: string, fileName: string): void {
-  save(new Blob([sceneToSvg(scene, { background })], { type: 'image/svg+xml' }), fileName);
+  saveBlob(new Blob([sceneToSvg(scene, { background })], { type: 'image/svg+xml' }), fileName);
 }
 
 /** Saves the scene as a PNG: the SVG file drawn onto a canvas at twice its size. */
@@ -40,7 +30,7 @@ export async function downloadPng(
     context.drawImage(image, 0, 0, canvas.width, canvas.height);
     const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
     if (!blob) throw new Error('The PNG could not be made.');
-    save(blob, fileName);
+    saveBlob(blob, fileName);
   } finally {
     URL.revokeObjectURL(url);
   }

@@ -3,6 +3,7 @@ import { ArrowDownloadRegular } from '@fluentui/react-icons';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useMutation } from '@tanstack/react-query';
 import { fetchBlob, isApiError } from '@/lib/api-client';
+import { saveBlob } from '@/lib/save-blob';
 
 const useStyles = makeStyles({
   root: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalM, alignItems: 'center' },
@@ -17,18 +18,7 @@ export function exportPath(projectId: string, headingId: string, kind: HeadingEx
 
 /** Fetches the CSV with the bearer token and hands it to the browser as a download. */
 async function download(path: string, fileName: string): Promise<void> {
-  const blob = await fetchBlob(path);
-  const url = URL.createObjectURL(blob);
-  try {
-    const link = document.createElement('a');
-    link.href = url;
-    link.download = fileName;
-    document.body.append(link);
-    link.click();
-    link.remove();
-  } finally {
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
-  }
+  saveBlob(await fetchBlob(path), fileName);
 }
 
 export interface HeadingExportsProps {
