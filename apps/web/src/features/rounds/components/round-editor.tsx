@@ -15,7 +15,7 @@ import { formatChainage } from '@roundbook/geomath';
 import type { JvEdition } from '@roundbook/geomath';
 import { PageHeader } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
-import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { submitRound } from '@/api/resources/rounds';
 import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
@@ -137,6 +137,7 @@ const useStyles = makeStyles({
     justifyContent: 'center',
   },
   dot: { marginInlineStart: tokens.spacingHorizontalXS },
+  saveState: { paddingInline: tokens.spacingHorizontalS },
 });
 
 /** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
@@ -187,6 +188,14 @@ function RoundEditorBody({
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+  // Submit sits at the foot of Support; the note that it went through is above the sections: brought into
+  // sight once it shows, so nobody scrolls back up to learn whether the round was submitted.
+  const submittedNote = useRef<HTMLDivElement>(null);
+  const [justSubmitted, setJustSubmitted] = useState(false);
+  useEffect(() => {
+    // jsdom has no scrollIntoView; browsers do.
+    if (justSubmitted) submittedNote.current?.scrollIntoView?.({ block: 'start' });
+  }, [justSubmitted]);
 
   // Every change goes to the autosave engine: kept on this device at once, sent after a pause.
   const { edit } = autosave;
@@ -256,6 +265,7 @@ function RoundEditorBody({
       await autosave.flush();
       const submitted = await submitRound(projectId, round.id, autosave.version());
       autosave.accept(submitted);
+      setJustSubmitted(true);
     } catch (error) {
       if (isApiError(error) && error.fields !== undefined && Object.keys(error.fields).length > 0) {
         setSubmitErrors(error.fields);
@@ -297,7 +307,6 @@ function RoundEditorBody({
                   {`Class ${supportClasses.find((c) => c.id === server.confirmedClassId)?.code ?? '?'} confirmed`}
                 </Badge>
               ) : null}
-              <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
             </>
           }
         />
@@ -396,7 +405,7 @@ function RoundEditorBody({
           </MessageBar>
         )}
         {server.status === 'submitted' && (
-          <MessageBar intent="success" data-testid="submitted-note">
+          <MessageBar intent="success" data-testid="submitted-note" ref={submittedNote}>
             <MessageBarBody>
               Submitted for review. The engineers of the project confirm it or return it; until then it cannot
               be edited.
@@ -423,6 +432,11 @@ function RoundEditorBody({
               </Tab>
             ))}
           </TabList>
+          {/* In the sticky bar, not the page header: the save state stays in sight however far down the
+              section is typed (issue 19: a round recorded without scrolling back up to see it). */}
+          <div className={styles.saveState}>
+            <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
+          </div>
         </div>
 
         {sectionNoteSlot?.(section)}
