@@ -15,7 +15,7 @@ import { formatChainage } from '@roundbook/geomath';
 import type { JvEdition } from '@roundbook/geomath';
 import { PageHeader } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
-import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { submitRound } from '@/api/resources/rounds';
 import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
@@ -188,14 +188,12 @@ function RoundEditorBody({
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
-  // Submit sits at the foot of Support; the note that it went through is above the sections: brought into
-  // sight once it shows, so nobody scrolls back up to learn whether the round was submitted.
+  // Submit sits at the foot of Support; the note that it went through is above the sections. Focus moves to
+  // it as it shows (the Submit button that had it is gone), which brings it into sight: nobody scrolls back
+  // up to learn whether the round was submitted. In a layout effect, before the focus manager would hand
+  // the lost focus on (and scroll to wherever that is).
   const submittedNote = useRef<HTMLDivElement>(null);
   const [justSubmitted, setJustSubmitted] = useState(false);
-  useEffect(() => {
-    // jsdom has no scrollIntoView; browsers do.
-    if (justSubmitted) submittedNote.current?.scrollIntoView?.({ block: 'start' });
-  }, [justSubmitted]);
 
   // Every change goes to the autosave engine: kept on this device at once, sent after a pause.
   const { edit } = autosave;
@@ -205,6 +203,9 @@ function RoundEditorBody({
     if (theirs !== null) resetForm({ values: theirs });
   };
   const server = autosave.server;
+  useLayoutEffect(() => {
+    if (justSubmitted && server.status === 'submitted') submittedNote.current?.focus();
+  }, [justSubmitted, server.status]);
   const changedBy = autosave.changedBy;
   // Another device saved and nothing was unsaved here: their version goes into the form.
   const refreshed = autosave.refreshed;
@@ -405,7 +406,7 @@ function RoundEditorBody({
           </MessageBar>
         )}
         {server.status === 'submitted' && (
-          <MessageBar intent="success" data-testid="submitted-note" ref={submittedNote}>
+          <MessageBar intent="success" data-testid="submitted-note" ref={submittedNote} tabIndex={-1}>
             <MessageBarBody>
               Submitted for review. The engineers of the project confirm it or return it; until then it cannot
               be edited.
