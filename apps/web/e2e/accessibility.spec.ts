@@ -1,8 +1,9 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import AxeBuilder from '@axe-core/playwright';
 import { expect, test } from '@playwright/test';
 import type { Browser, Page } from '@playwright/test';
+import { axeFindings } from './axe';
+import type { AxeFinding, Theme } from './axe';
 
 // Issue 19 item 12: every screen, in both themes, scanned with axe-core (Deque's rules for WCAG 2.x).
 // Light theme: WCAG 2.1 A and AA rules (text contrast at least 4.5:1). High-contrast theme: every axe rule,
@@ -16,14 +17,9 @@ const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const results = fileURLToPath(new URL('../test-results/', import.meta.url));
 mkdirSync(results, { recursive: true });
 
-type Theme = 'light' | 'high-contrast';
-interface Finding {
+interface Finding extends AxeFinding {
   screen: string;
   theme: Theme;
-  rule: string;
-  impact: string | null | undefined;
-  help: string;
-  targets: string[];
 }
 const findings: Finding[] = [];
 let scanned = 0;
@@ -43,36 +39,11 @@ async function setTheme(page: Page, theme: Theme): Promise<void> {
   await page.reload();
 }
 
-/** Scans what is on screen now; `ready` is awaited first so the scan sees the loaded screen, not a spinner. */
+/** Scans what is on screen now (the shared scan, e2e/axe.ts) and keeps what it finds. */
 async function scan(page: Page, screen: string, theme: Theme): Promise<void> {
-  await page.waitForLoadState('networkidle');
-  const tags = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'];
-  let builder = new AxeBuilder({ page }).withTags(tags);
-  // The high-contrast theme is held to 7:1 (WCAG 2 AAA, 1.4.6), axe's color-contrast-enhanced rule.
-  if (theme === 'high-contrast')
-    builder = builder
-      .withTags([...tags, 'wcag2aaa'])
-      .options({ rules: { 'color-contrast-enhanced': { enabled: true } } });
-  const { violations } = await builder.analyze();
+  const found = await axeFindings(page, theme);
   scanned += 1;
-  for (const v of violations) {
-    // Fluent UI's focus manager (tabster) places aria-hidden, focusable "dummy" elements that hand focus on at
-    // once; screen readers must not announce them. axe's aria-hidden-focus flags them: a known false positive
-    // (microsoft/tabster#288, microsoft/fluentui#27517 "by design"). Only those nodes are left out.
-    const nodes = v.nodes.filter(
-      (n) =>
-        !(v.id === 'aria-hidden-focus' && /data-tabster-dummy|data-is-focus-trap-zone-bumper/.test(n.html)),
-    );
-    if (nodes.length === 0) continue;
-    findings.push({
-      screen,
-      theme,
-      rule: v.id,
-      impact: v.impact,
-      help: v.help,
-      targets: nodes.slice(0, 8).map((n) => `${n.target.join(' ')} ${n.failureSummary ?? ''}`.trim()),
-    });
-  }
+  for (const f of found) findings.push({ screen, theme, ...f });
 }
 
 async function eachTheme(page: Page, visit: (theme: Theme) => Promise<void>): Promise<void> {

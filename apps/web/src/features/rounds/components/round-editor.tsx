@@ -15,7 +15,7 @@ import { formatChainage } from '@roundbook/geomath';
 import type { JvEdition } from '@roundbook/geomath';
 import { PageHeader } from '@roundbook/ui';
 import { Formik, useFormikContext } from 'formik';
-import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { submitRound } from '@/api/resources/rounds';
 import { useNearbyJoints, useRoundTriggerRules } from '@/features/rounds/api/get-round';
 import type { HeadingDetail, ProjectDetail, Round, SupportClass } from '@/features/rounds/api/types';
@@ -137,6 +137,7 @@ const useStyles = makeStyles({
     justifyContent: 'center',
   },
   dot: { marginInlineStart: tokens.spacingHorizontalXS },
+  saveState: { paddingInline: tokens.spacingHorizontalS },
 });
 
 /** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
@@ -187,6 +188,12 @@ function RoundEditorBody({
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+  // Submit sits at the foot of Support; the note that it went through is above the sections. Focus moves to
+  // it as it shows (the Submit button that had it is gone), which brings it into sight: nobody scrolls back
+  // up to learn whether the round was submitted. In a layout effect, before the focus manager would hand
+  // the lost focus on (and scroll to wherever that is).
+  const submittedNote = useRef<HTMLDivElement>(null);
+  const [justSubmitted, setJustSubmitted] = useState(false);
 
   // Every change goes to the autosave engine: kept on this device at once, sent after a pause.
   const { edit } = autosave;
@@ -196,6 +203,9 @@ function RoundEditorBody({
     if (theirs !== null) resetForm({ values: theirs });
   };
   const server = autosave.server;
+  useLayoutEffect(() => {
+    if (justSubmitted && server.status === 'submitted') submittedNote.current?.focus();
+  }, [justSubmitted, server.status]);
   const changedBy = autosave.changedBy;
   // Another device saved and nothing was unsaved here: their version goes into the form.
   const refreshed = autosave.refreshed;
@@ -256,6 +266,7 @@ function RoundEditorBody({
       await autosave.flush();
       const submitted = await submitRound(projectId, round.id, autosave.version());
       autosave.accept(submitted);
+      setJustSubmitted(true);
     } catch (error) {
       if (isApiError(error) && error.fields !== undefined && Object.keys(error.fields).length > 0) {
         setSubmitErrors(error.fields);
@@ -297,7 +308,6 @@ function RoundEditorBody({
                   {`Class ${supportClasses.find((c) => c.id === server.confirmedClassId)?.code ?? '?'} confirmed`}
                 </Badge>
               ) : null}
-              <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
             </>
           }
         />
@@ -396,7 +406,7 @@ function RoundEditorBody({
           </MessageBar>
         )}
         {server.status === 'submitted' && (
-          <MessageBar intent="success" data-testid="submitted-note">
+          <MessageBar intent="success" data-testid="submitted-note" ref={submittedNote} tabIndex={-1}>
             <MessageBarBody>
               Submitted for review. The engineers of the project confirm it or return it; until then it cannot
               be edited.
@@ -423,6 +433,11 @@ function RoundEditorBody({
               </Tab>
             ))}
           </TabList>
+          {/* In the sticky bar, not the page header: the save state stays in sight however far down the
+              section is typed (issue 19: a round recorded without scrolling back up to see it). */}
+          <div className={styles.saveState}>
+            <SaveStateBadge state={autosave.state} invalid={autosave.invalid} readOnly={readOnly} />
+          </div>
         </div>
 
         {sectionNoteSlot?.(section)}
