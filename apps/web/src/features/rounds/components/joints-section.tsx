@@ -412,6 +412,7 @@ export function JointsSection({
                       j.setOverride ? 'Your own set (Go back to the computed set under More)' : undefined
                     }
                     value={j.setOverride ? j.setLabel : (sets.membership[j.key] ?? '')}
+                    placeholder={j.setOverride ? 'none' : undefined}
                     size="large"
                     readOnly={readOnly}
                     contentAfter={j.setOverride ? <span className={styles.override}>yours</span> : undefined}
