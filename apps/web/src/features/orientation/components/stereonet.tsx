@@ -29,8 +29,8 @@ const useStyles = makeStyles({
     cursor: 'crosshair',
     ':focus-visible': { outline: `${tokens.strokeWidthThick} solid ${tokens.colorStrokeFocus2}` },
   },
-  // While choosing poles a drag draws the lasso instead of scrolling the page.
-  choosing: { touchAction: 'none' },
+  // While choosing poles a drag draws the lasso instead of scrolling the page or selecting the labels.
+  choosing: { touchAction: 'none', userSelect: 'none', WebkitUserSelect: 'none' },
 });
 
 function render(node: SceneNode, key: string, clip: string): ReactNode {
