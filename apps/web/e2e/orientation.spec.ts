@@ -64,6 +64,23 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   await expect(caption).toContainText('from 2+450.0');
   expect(poles(await caption.textContent())).toBeGreaterThanOrEqual(poles(before));
 
+  // Beside the net, each round's set means along the window's chainage, and the same figures as a table.
+  const history = page.getByRole('region', { name: 'Sets along the chainage' });
+  const chart = history.getByRole('img', {
+    name: /^Chart of each set's mean along the chainage from 2\+450\.0/,
+  });
+  await expect(chart).toBeVisible();
+  expect(await chart.locator('[data-role="history-mean"]').count()).toBeGreaterThan(4);
+  await history.getByRole('button', { name: 'Show as a table' }).click();
+  const historyRows = history.getByRole('table', { name: 'Sets along the chainage' }).getByRole('row');
+  expect(await historyRows.count()).toBeGreaterThan(3);
+  const cells = await historyRows.nth(1).getByRole('cell').allTextContents();
+  expect(cells[0]).toMatch(/^S\d+$/);
+  expect(cells[2]).toMatch(/^\d\+\d{3}\.\d$/);
+  expect(cells[3]).toMatch(/^\d{3}(\.\d)?\/\d{2}(\.\d)?$/);
+  await history.screenshot({ path: `${shots}orientation-set-history-light.png` });
+  await history.getByRole('button', { name: 'Hide the table' }).click();
+
   // Tap a pole: the read-out names it in every notation.
   await net.focus();
   await page.keyboard.press('ArrowRight');
@@ -106,7 +123,140 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   await page.screenshot({ path: `${shots}orientation-hr-u-high-contrast.png`, fullPage: true });
   await expect(net.locator('[data-role="daylight-right-wall"]')).toHaveCount(1);
   await net.screenshot({ path: `${shots}orientation-hr-u-overlays-high-contrast.png` });
+  await history.screenshot({ path: `${shots}orientation-set-history-high-contrast.png` });
   await page.getByRole('switch', { name: 'High contrast' }).click();
 
   expect(problems).toEqual([]);
+});
+
+test.describe('on a touch tablet', () => {
+  test.use({ hasTouch: true, isMobile: false, viewport: { width: 1280, height: 800 } });
+
+  test("a round's poles tapped on its net go into a set, and the Joints list shows it, in both themes", async ({
+    page,
+  }) => {
+    test.setTimeout(120_000);
+    const problems = watchForProblems(page);
+    await page.goto('/sign-in');
+    await page.getByLabel('E-mail').fill('geologist@roundbook.test');
+    await page.getByLabel('Password').fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page).toHaveURL(/\/$/);
+    await page
+      .getByTestId('heading-card')
+      .filter({ hasText: 'HR-U' })
+      .getByRole('heading', { level: 3 })
+      .getByRole('link')
+      .click();
+    await page.getByRole('button', { name: 'New round' }).click();
+    const dialog = page.getByRole('region', { name: 'New round on HR-U' });
+    const stages = dialog.getByRole('radio');
+    if ((await stages.count()) > 1) await stages.first().click();
+    await dialog.getByRole('button', { name: 'Open the round' }).click();
+    await expect(page).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
+    await page
+      .getByRole('tablist', { name: 'Sections of the round' })
+      .getByRole('tab', { name: 'Joints' })
+      .click();
+
+    // Four joints: two near 130/50 and two near 315/70 (invented).
+    await page.getByRole('button', { name: 'Add joint' }).click();
+    for (const [i, text] of ['130/50', '132/48', '315/70', '317/68'].entries()) {
+      const orientation = page.getByLabel(`Orientation of joint ${i + 1}`, { exact: true });
+      await expect(orientation).toBeFocused();
+      await orientation.fill(text);
+      if (i < 3) await orientation.press('Enter');
+    }
+    await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 15_000 });
+    const setOf = (n: number) => page.getByLabel(`Set of joint ${n}`, { exact: true });
+    const before = await setOf(3).inputValue();
+
+    // Choose joints 3 and 4 by tapping their poles. Where a pole is drawn is read from the ring the net
+    // draws round the pole being read (the arrow keys step through the poles in the joints' order).
+    const net = page.getByRole('img', { name: /lower-hemisphere stereonet: 4 poles/ });
+    await net.scrollIntoViewIfNeeded();
+    await page.getByRole('button', { name: 'Choose poles for a set' }).tap();
+    await expect(net).toHaveAttribute('data-choosing', 'true');
+    const bar = page.getByRole('group', { name: 'Chosen poles' });
+    await expect(bar).toContainText('0 poles selected');
+    const ring = net.locator('[data-role="selected-pole"]');
+    const placeOf = async (n: number) => {
+      await net.focus();
+      for (let k = 0; k < n; k++) await page.keyboard.press('ArrowRight');
+      const box = (await ring.boundingBox())!;
+      await page.keyboard.press('Escape');
+      return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+    };
+    const third = await placeOf(3);
+    const fourth = await placeOf(4);
+    await page.touchscreen.tap(third.x, third.y);
+    await expect(bar).toContainText('1 pole selected');
+    await page.touchscreen.tap(fourth.x, fourth.y);
+    await expect(bar).toContainText('2 poles selected');
+    await expect(net.locator('[data-role="chosen-pole"]')).toHaveCount(2);
+    await page.screenshot({ path: `${shots}orientation-round-chosen-light.png`, fullPage: true });
+    await net.screenshot({ path: `${shots}orientation-round-chosen-net-light.png` });
+
+    // Into a new set, named S9 here; the Joints list shows it as the geologist's own, and it is saved.
+    await bar.getByLabel('Set to put them in').selectOption({ label: 'A new set…' });
+    await bar.getByLabel('Name of the new set').fill('S9');
+    await bar.getByRole('button', { name: 'Put in set S9' }).tap();
+    await expect(page.getByTestId('pole-choice-done')).toContainText('2 poles put in set S9');
+    await expect(setOf(3)).toHaveValue('S9');
+    await expect(setOf(4)).toHaveValue('S9');
+    expect(before).not.toBe('S9');
+    await expect(setOf(1)).not.toHaveValue('S9');
+    await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 15_000 });
+    await expect(page.getByRole('table', { name: 'Sets' })).toContainText('S9');
+
+    // A lasso drawn with the mouse round the poles of joints 1 and 2 chooses both; Take out of its set
+    // makes them random, again as the geologist's own choice (marked "yours" in the Joints list).
+    const [p1, p2] = [await placeOf(1), await placeOf(2)];
+    const box = {
+      left: Math.min(p1.x, p2.x) - 26,
+      right: Math.max(p1.x, p2.x) + 26,
+      top: Math.min(p1.y, p2.y) - 26,
+      bottom: Math.max(p1.y, p2.y) + 26,
+    };
+    await page.mouse.move(box.left, box.top);
+    await page.mouse.down();
+    for (const [x, y] of [
+      [box.right, box.top],
+      [box.right, box.bottom],
+      [box.left, box.bottom],
+      [box.left, box.top + 4],
+    ])
+      await page.mouse.move(x, y, { steps: 6 });
+    await expect(net.locator('[data-role="lasso"]')).toHaveCount(1);
+    await net.screenshot({ path: `${shots}orientation-round-lasso-net-light.png` });
+    await page.mouse.up();
+    await expect(net.locator('[data-role="lasso"]')).toHaveCount(0);
+    await expect(bar).toContainText('2 poles selected');
+    await page.screenshot({ path: `${shots}orientation-round-lasso-light.png`, fullPage: true });
+    await bar.getByRole('button', { name: 'Take out of its set' }).tap();
+    await expect(setOf(1)).toHaveValue('');
+    await expect(setOf(2)).toHaveValue('');
+    await expect(page.getByTestId('joint-row').getByText('yours', { exact: true })).toHaveCount(4);
+    await expect(page.getByTestId('save-state')).toHaveText('Saved', { timeout: 15_000 });
+
+    // After a reload the choices are the round's: S9 kept, joints 1 and 2 in no set.
+    await page.evaluate(() => window.localStorage.setItem('roundbook.theme', 'high-contrast'));
+    await page.reload();
+    await page
+      .getByRole('tablist', { name: 'Sections of the round' })
+      .getByRole('tab', { name: 'Joints' })
+      .click();
+    await expect(setOf(3)).toHaveValue('S9');
+    await expect(setOf(1)).toHaveValue('');
+    await expect(page.getByTestId('joint-row').getByText('yours', { exact: true })).toHaveCount(4);
+    await page.getByRole('button', { name: 'Choose poles for a set' }).tap();
+    const second = await placeOf(2);
+    await page.touchscreen.tap(second.x, second.y);
+    await expect(bar).toContainText('1 pole selected');
+    await net.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${shots}orientation-round-chosen-high-contrast.png`, fullPage: true });
+    await net.screenshot({ path: `${shots}orientation-round-chosen-net-high-contrast.png` });
+    await page.evaluate(() => window.localStorage.setItem('roundbook.theme', 'light'));
+    expect(problems).toEqual([]);
+  });
 });

@@ -214,7 +214,8 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       id: j.id,
       plane: { dipDirection: j.dipDirection, dip: j.dip },
       spacingM: j.spacingM,
-      override: j.setOverride && j.setLabel ? j.setLabel : null,
+      // The geologist's own set; an override with no label puts the joint in no set (random).
+      override: j.setOverride ? (j.setLabel ?? '').trim() : null,
       sameAsJointId: j.sameAsJointId ?? null,
     })),
     parameters.windowM > 0
@@ -299,7 +300,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       thicknessM: j.thicknessM ?? null,
       setLabel: SINGLE_FEATURE_KINDS.includes(j.kind)
         ? null
-        : sets.membership[j.id] || (j.setOverride ? j.setLabel : null),
+        : sets.membership[j.id] || (j.setOverride ? j.setLabel || null : null),
     })),
   );
   warnings.push(...namedWarnings);

@@ -24,7 +24,10 @@ export interface SetJoint {
   id: string;
   plane: Plane;
   spacingM: number | null;
-  /** The geologist's own set label, kept over the computed one. */
+  /**
+   * The geologist's own set label, kept over the computed one; '' = the geologist took the joint out of
+   * every set (random, left out of the analysis); null = no override.
+   */
   override: string | null;
   /** The first observation of the same feature on an earlier round (features.ts). */
   sameAsJointId?: string | null;
@@ -101,7 +104,8 @@ function meanOf(planes: Plane[]): { mean: Plane; k: number | null; alpha95: numb
 /**
  * Sets from this round's readable joints plus the earlier rounds' joints near it, with geomath's
  * `findSets` on the poles; the round's sets are those with at least one joint on this face. Labels S1, S2, … follow the set sizes (largest first). A geologist's override
- * moves a joint into the named set (or makes a set of that name); the set's mean then includes it.
+ * moves a joint into the named set (or makes a set of that name); the set's mean then includes it. An
+ * override with no label ('') takes the joint out of every set: it is random and in no set's mean.
  * A feature linked across rounds ("same feature as") counts once (see onePerFeature).
  */
 export function findRoundSets(
@@ -151,7 +155,8 @@ export function findRoundSets(
   const byLabel = new Map(found.map((s) => [s.label, s]));
   const overrideOnly = new Set<string>();
   for (const j of joints) {
-    if (j.override === null) continue;
+    // No override, or taken out of every set by the geologist (random: in no set, in no mean).
+    if (j.override === null || j.override === '') continue;
     const target = byLabel.get(j.override);
     if (target) target.here.push(j);
     else {
@@ -198,7 +203,7 @@ export function findRoundSets(
     sets,
     membership,
     overridden,
-    used: planes.length + overridden.length,
+    used: planes.length + joints.filter((j) => j.override !== null && j.override !== '').length,
     linkedLeftOut: nearbyAll.length - nearby.length,
   };
 }

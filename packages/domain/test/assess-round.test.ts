@@ -92,6 +92,23 @@ describe('assessRound', () => {
     expect(a.sets.overridden).toEqual(['c']);
   });
 
+  it('takes a joint the geologist put in no set out of every set, and out of the set’s mean', () => {
+    // Invented: three joints near 150/70 make one set; the geologist takes the third (150/70) out of it.
+    const three = [joint('a', 147, 69), joint('b', 153, 71), joint('c', 150, 74)];
+    const found = assessRound(record(three), context);
+    expect(found.sets.membership.c).not.toBe('');
+    const label = found.sets.membership.c;
+    const out = assessRound(
+      record([three[0], three[1], { ...three[2], setLabel: null, setOverride: true }]),
+      context,
+    );
+    expect(out.sets.membership.c).toBe('');
+    expect(out.sets.overridden).toEqual(['c']);
+    const set = out.sets.sets.find((s) => s.label === label);
+    expect(set?.memberIds).toEqual(['a', 'b']);
+    expect(set?.countHere).toBe(2);
+  });
+
   it('keeps the last round’s values with the facts for the rules that fire on a change (issue 11 item 3)', () => {
     // Invented: the last round of the stage read an inflow of 2 l/min per 10 m; this one 6 l/min over 3 m = 20.
     const rise = {

@@ -130,7 +130,7 @@ export function RoundRoute() {
             ? undefined
             : (place) => <SectionComments projectId={projectId} roundId={round.id} place={place} />
         }
-        orientationSlot={({ joints, assessment, faceChainage }) => (
+        orientationSlot={({ joints, assessment, faceChainage, assignSets }) => (
           <RoundOrientationPanel
             joints={joints}
             sets={assessment.sets}
@@ -138,6 +138,7 @@ export function RoundRoute() {
             drive={driveAt(faceChainage)}
             highContrast={mode === 'high-contrast'}
             fileName={`${heading.code}-round-${round.roundNumber}`}
+            onAssign={assignSets}
           />
         )}
         sketchSlot={({ sketch, onChange, readOnly, joints, assessment, faceChainage }) => {

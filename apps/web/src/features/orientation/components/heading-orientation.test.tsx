@@ -248,4 +248,44 @@ describe('window helpers', () => {
     expect(readChainage('-0+012')).toBe(-12);
     expect(readChainage('12x')).toBeNull();
   });
+
+  it("draws each round's set means along the chainage beside the net, with a table behind a toggle", async () => {
+    // Invented: the round at 1230 put two joints in S1, the one at 1242 one in S1 and one in S2.
+    extra = [
+      { ...joint(90, 1230, 'joint', 300, 70), setLabel: 'S1' },
+      { ...joint(91, 1230, 'joint', 302, 72), setLabel: 'S1' },
+      { ...joint(92, 1242, 'joint', 305, 68), setLabel: 'S1' },
+      { ...joint(93, 1242, 'joint', 40, 30), setLabel: 'S2' },
+    ];
+    renderTab();
+    const chart = await screen.findByRole('img', {
+      name: "Chart of each set's mean along the chainage from 1+200.0 to 1+250.0: 2 sets over 2 rounds",
+    });
+    // Dip direction above, dip below; S1 twice in each, S2 once.
+    for (const panel of ['dipDirection', 'dip']) {
+      const g = chart.querySelector(`[data-role="panel-${panel}"]`)!;
+      expect(g.querySelectorAll('[data-role="history-S1"] [data-role="history-mean"]')).toHaveLength(2);
+      expect(g.querySelectorAll('[data-role="history-S2"] [data-role="history-mean"]')).toHaveLength(1);
+    }
+    expect(screen.queryByRole('table', { name: 'Sets along the chainage' })).toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: 'Show as a table' }));
+    const table = screen.getByRole('table', { name: 'Sets along the chainage' });
+    const rows = within(table)
+      .getAllByRole('row')
+      .slice(1)
+      .map((r) => [...r.querySelectorAll('td')].map((c) => c.textContent));
+    // The mean of 300/70 and 302/72 is near 301/71 (computed here); one joint is its own mean.
+    expect(rows).toEqual([
+      ['S1', '77', '1+230.0', expect.stringMatching(/^30[01](\.\d)?\/7[01](\.\d)?$/), '2'],
+      ['S1', '81', '1+242.0', '305/68', '1'],
+      ['S2', '81', '1+242.0', '040/30', '1'],
+    ]);
+    expect(screen.getByRole('button', { name: 'Hide the table' })).toHaveAttribute('aria-expanded', 'true');
+  });
+
+  it('says so when no round of the window has a set', async () => {
+    renderTab();
+    expect(await screen.findByText('No round in this window has a set yet.')).toBeInTheDocument();
+    expect(screen.queryByRole('img', { name: /Chart of each set/ })).toBeNull();
+  });
 });

@@ -42,6 +42,8 @@ import {
 import type { WindowJoint } from '@/features/orientation/api/get-window-joints';
 import { OrientationView, SymbolSwatch } from '@/features/orientation/components/orientation-view';
 import type { ViewJoint, ViewSet } from '@/features/orientation/components/orientation-view';
+import { SetHistoryChart } from '@/features/orientation/components/set-history-chart';
+import { setHistoryOf } from '@/features/orientation/scene/set-history';
 
 export interface HeadingOrientationProps {
   projectId: string;
@@ -99,8 +101,8 @@ export function readChainage(text: string): number | null {
 
 /**
  * The heading's Orientation tab: a chainage window of the heading's mapped joints on the stereonet, with
- * filters by kind, the sets of the window (Fisher mean, k and α95), Terzaghi weighting on request and a
- * read-out of any pole in every notation.
+ * filters by kind, the sets of the window (Fisher mean, k and α95), Terzaghi weighting on request, a
+ * read-out of any pole in every notation, and beside the net each round's set means along the chainage.
  */
 export function HeadingOrientation({ projectId, heading, highContrast }: HeadingOrientationProps) {
   const styles = useStyles();
@@ -154,6 +156,8 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
   );
   const shown = useMemo(() => onePerFeature(visible, (a, b) => a.roundNumber - b.roundNumber), [visible]);
   const folded = visible.length - shown.length;
+  // Each round's sets along the window: every sighting counts on its own round (the kinds shown only).
+  const history = useMemo(() => setHistoryOf(visible), [visible]);
   const analysis = useMemo(
     () => analyse(projectId, shown, drive, sampling, chainage),
     [projectId, shown, drive, sampling, chainage],
@@ -199,6 +203,15 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
       weighting={analysis.weighting}
       fileName={`${heading.code}-stereonet-${Math.round(applied.fromChainage)}-${Math.round(applied.toChainage)}`}
       caption={caption}
+      aside={
+        <SetHistoryChart
+          history={history}
+          fromChainage={applied.fromChainage}
+          toChainage={applied.toChainage}
+          chainage={chainage}
+          highContrast={highContrast}
+        />
+      }
     >
       <Subtitle2 as="h2">Chainage window</Subtitle2>
       <form

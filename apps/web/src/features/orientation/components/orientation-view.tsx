@@ -15,9 +15,10 @@ import {
   TableHeaderCell,
   TableRow,
   Text,
+  ToggleButton,
   tokens,
 } from '@fluentui/react-components';
-import { ArrowDownloadRegular } from '@fluentui/react-icons';
+import { ArrowDownloadRegular, LassoRegular } from '@fluentui/react-icons';
 import { jointKindLabels } from '@roundbook/domain';
 import type { Drive, Net, Plane, TerzaghiSampling } from '@roundbook/geomath';
 import { RMR_ORIENTATION_RULE, formatPlane } from '@roundbook/geomath';
@@ -26,6 +27,7 @@ import type { ReactNode } from 'react';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { downloadPng, downloadSvg } from '@/features/orientation/components/download';
+import { PoleChoiceBar } from '@/features/orientation/components/pole-choice-bar';
 import { filePalette, screenPalette } from '@/features/orientation/components/screen-palette';
 import { Stereonet } from '@/features/orientation/components/stereonet';
 import type { FreeSurface } from '@/features/orientation/scene/daylight';
@@ -80,6 +82,13 @@ export interface OrientationViewProps {
   children?: ReactNode;
   /** Friction angle the friction circle starts at (the project's, when there is one), degrees. */
   frictionAngle?: number;
+  /**
+   * Put joints in a set (a label) or take them out of their set (null), as the geologist's own choice: an
+   * editable round. Absent or null: no choosing of poles (read only, or the heading's window).
+   */
+  onAssign?: ((ids: string[], label: string | null) => void) | null;
+  /** Shown in the side column under the sets (e.g. the history of the sets along the heading). */
+  aside?: ReactNode;
 }
 
 /**
@@ -133,6 +142,13 @@ const useStyles = makeStyles({
   },
   keyItem: { display: 'inline-flex', alignItems: 'center', gap: tokens.spacingHorizontalXS },
   big: { minHeight: `${TOUCH_TARGET_PX}px` },
+  choose: {
+    display: 'flex',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    gap: tokens.spacingHorizontalM,
+    marginBottom: tokens.spacingVerticalS,
+  },
 });
 
 /** A set's or kind's symbol as a small inline picture. */
@@ -185,6 +201,8 @@ export function OrientationView({
   caption,
   children,
   frictionAngle = DEFAULT_FRICTION_ANGLE,
+  onAssign = null,
+  aside,
 }: OrientationViewProps) {
   const styles = useStyles();
   const [net, setNet] = useState<Net>('equal-area');
@@ -197,6 +215,11 @@ export function OrientationView({
   const [intersections, setIntersections] = useState(false);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [saveError, setSaveError] = useState<string | null>(null);
+  // Choosing poles to put in a set (an editable round only): the mode, the chosen ids, the last change.
+  const [choosingOn, setChoosingOn] = useState(false);
+  const [chosen, setChosen] = useState<ReadonlySet<string>>(new Set());
+  const [done, setDone] = useState<string | null>(null);
+  const canChoose = onAssign !== null;
   const palette = useMemo(() => screenPalette(highContrast), [highContrast]);
   const phiValue = Number(phiText);
   const phiValid = phiText.trim() !== '' && Number.isFinite(phiValue) && phiValue > 0 && phiValue < 90;
@@ -222,6 +245,26 @@ export function OrientationView({
   const order = setOrder([...sets.map((s) => s.label), ...joints.flatMap((j) => (j.set ? [j.set] : []))]);
   const selected = joints.find((j) => j.id === selectedId) ?? null;
   const selectedLine = selected ? null : (scene.lines.find((l) => l.id === selectedId) ?? null);
+  // Poles no longer drawn (removed, or their orientation cleared) drop out of the choice.
+  const chosenHere = joints.filter((j) => chosen.has(j.id)).map((j) => j.id);
+  const toggle = (id: string) => {
+    setDone(null);
+    setChosen((c) => {
+      const next = new Set(c);
+      if (next.has(id)) next.delete(id);
+      else next.add(id);
+      return next;
+    });
+  };
+  const assign = (label: string | null) => {
+    if (!onAssign || chosenHere.length === 0) return;
+    onAssign(chosenHere, label);
+    const n = chosenHere.length;
+    setDone(
+      `${n} pole${n === 1 ? '' : 's'} ${label === null ? `taken out of ${n === 1 ? 'its set' : 'their sets'}` : `put in set ${label}`} (your own choice; the Joints list shows it).`,
+    );
+    setChosen(new Set());
+  };
   const fileScene = () =>
     buildStereonetScene(joints, setsForScene, {
       ...options,
@@ -312,11 +355,60 @@ export function OrientationView({
       <Caption1 className={styles.notes}>{caption}</Caption1>
       <div className={styles.body}>
         <div className={styles.net}>
+          {canChoose && (
+            <div className={styles.choose}>
+              <ToggleButton
+                className={styles.big}
+                size="large"
+                icon={<LassoRegular />}
+                checked={choosingOn}
+                onClick={() => {
+                  setChoosingOn((on) => !on);
+                  setChosen(new Set());
+                  setDone(null);
+                }}
+              >
+                Choose poles for a set
+              </ToggleButton>
+              {choosingOn && (
+                <Caption1 className={styles.notes}>
+                  Tap poles to choose them, or draw a loop around several. With the keys: arrows step through
+                  the poles, Space or Enter chooses the one read.
+                </Caption1>
+              )}
+            </div>
+          )}
+          {canChoose && choosingOn && (
+            <PoleChoiceBar
+              count={chosenHere.length}
+              labels={order}
+              onPut={(label) => assign(label)}
+              onTakeOut={() => assign(null)}
+              onClear={() => setChosen(new Set())}
+            />
+          )}
+          {canChoose && done && (
+            <Caption1 className={styles.notes} role="status" data-testid="pole-choice-done" block>
+              {done}
+            </Caption1>
+          )}
           <Stereonet
             scene={scene}
             selectedId={selectedId}
             onPick={(p) => setSelectedId(p?.id ?? null)}
             onPickLine={(l) => setSelectedId(l.id)}
+            choosing={
+              canChoose && choosingOn
+                ? {
+                    ids: chosen,
+                    onToggle: toggle,
+                    onLasso: (ids) => {
+                      setDone(null);
+                      setChosen((c) => new Set([...c, ...ids]));
+                    },
+                  }
+                : null
+            }
           />
           {scene.notes.map((n) => (
             <Caption1 key={n} className={styles.notes} block>
@@ -399,6 +491,7 @@ export function OrientationView({
           )}
           {sets.length > 0 && drive && <Caption1 className={styles.notes}>{RMR_ORIENTATION_RULE}</Caption1>}
           {weighting && <Caption1 className={styles.notes}>{weighting.label}</Caption1>}
+          {aside}
           <div className={styles.readout} aria-live="polite" aria-label="Pole read-out">
             {selectedLine ? (
               <>

@@ -128,4 +128,77 @@ describe('RoundOrientationPanel', () => {
     expect(readout).toHaveTextContent('Intersection S1×S2');
     expect(readout).toHaveTextContent(/Trend \/ plunge\s*\d{3}\/\d{2}/);
   });
+
+  describe('choosing poles for a set (an editable round)', () => {
+    const renderPanel = (onAssign: ((ids: string[], label: string | null) => void) | null) =>
+      renderWithProviders(
+        <MemoryRouter>
+          <RoundOrientationPanel
+            joints={joints}
+            sets={sets}
+            drive={drive}
+            highContrast={false}
+            fileName="r"
+            onAssign={onAssign}
+          />
+        </MemoryRouter>,
+      );
+
+    it('puts the poles chosen with the keys in an existing set, a new one, or out of their set', () => {
+      const onAssign = jest.fn();
+      renderPanel(onAssign);
+      fireEvent.click(screen.getByRole('button', { name: 'Choose poles for a set' }));
+      const bar = screen.getByRole('group', { name: 'Chosen poles' });
+      const net = screen.getByRole('img', { name: /15 poles/ });
+      expect(within(bar).getByRole('button', { name: 'Take out of its set' })).toBeDisabled();
+      // Joints a0 and a1 (the first two poles); a2 is chosen and let go again (Space twice).
+      fireEvent.keyDown(net, { key: 'ArrowRight' });
+      fireEvent.keyDown(net, { key: ' ' });
+      fireEvent.keyDown(net, { key: 'ArrowRight' });
+      fireEvent.keyDown(net, { key: ' ' });
+      fireEvent.keyDown(net, { key: 'ArrowRight' });
+      fireEvent.keyDown(net, { key: ' ' });
+      fireEvent.keyDown(net, { key: ' ' });
+      expect(bar).toHaveTextContent('2 poles selected');
+      const picker = within(bar).getByLabelText('Set to put them in');
+      expect([...picker.querySelectorAll('option')].map((o) => o.textContent)).toEqual([
+        'S1',
+        'S2',
+        'A new set…',
+      ]);
+      fireEvent.change(picker, { target: { value: 'S2' } });
+      fireEvent.click(within(bar).getByRole('button', { name: 'Put in set S2' }));
+      expect(onAssign).toHaveBeenLastCalledWith(['a0', 'a1'], 'S2');
+      expect(bar).toHaveTextContent('0 poles selected');
+
+      // A new set: named S3 unless the geologist types another name; an empty name puts nothing.
+      fireEvent.keyDown(net, { key: ' ' });
+      fireEvent.change(picker, { target: { value: ' new' } });
+      const name = within(bar).getByLabelText('Name of the new set');
+      expect(name).toHaveValue('S3');
+      fireEvent.change(name, { target: { value: '  ' } });
+      expect(within(bar).getByRole('button', { name: 'Put in set' })).toBeDisabled();
+      fireEvent.change(name, { target: { value: 'Sheeting ' } });
+      fireEvent.click(within(bar).getByRole('button', { name: 'Put in set Sheeting' }));
+      expect(onAssign).toHaveBeenLastCalledWith(['a2'], 'Sheeting');
+
+      fireEvent.keyDown(net, { key: 'Enter' });
+      fireEvent.click(within(bar).getByRole('button', { name: 'Take out of its set' }));
+      expect(onAssign).toHaveBeenLastCalledWith(['a2'], null);
+      expect(screen.getByTestId('pole-choice-done')).toHaveTextContent('1 pole taken out of its set');
+
+      // Clear lets go of the choice without assigning anything.
+      fireEvent.keyDown(net, { key: 'Enter' });
+      fireEvent.click(within(bar).getByRole('button', { name: 'Clear' }));
+      expect(bar).toHaveTextContent('0 poles selected');
+      expect(onAssign).toHaveBeenCalledTimes(3);
+    });
+
+    it('shows no choosing of poles on a read-only round', () => {
+      renderPanel(null);
+      expect(screen.getByRole('img', { name: /15 poles/ })).toBeInTheDocument();
+      expect(screen.queryByRole('button', { name: 'Choose poles for a set' })).toBeNull();
+      expect(screen.queryByRole('group', { name: 'Chosen poles' })).toBeNull();
+    });
+  });
 });

@@ -30,6 +30,11 @@ export interface RoundOrientationPanelProps {
   highContrast: boolean;
   /** Base of the downloaded file's name, e.g. "HR-U-round-84". */
   fileName: string;
+  /**
+   * Put joints (by id) in a set, or take them out of theirs (null), as the geologist's own choice; given
+   * for an editable draft only (a read-only round shows no choosing of poles).
+   */
+  onAssign?: ((ids: string[], label: string | null) => void) | null;
 }
 
 const useStyles = makeStyles({
@@ -40,7 +45,8 @@ const useStyles = makeStyles({
 /**
  * A round's orientation panel: its joints on the stereonet with the round's own sets (from the
  * assessment, overrides included), each set's mean and α95 cone, the tunnel axis, the drive and the
- * adverse zone; tap a pole to read it in every notation.
+ * adverse zone; tap a pole to read it in every notation. On an editable round, poles chosen by tap or
+ * lasso can be put in a set or taken out of one.
  */
 export function RoundOrientationPanel({
   joints,
@@ -49,6 +55,7 @@ export function RoundOrientationPanel({
   drive,
   highContrast,
   fileName,
+  onAssign = null,
 }: RoundOrientationPanelProps) {
   const styles = useStyles();
   const readable = useMemo(
@@ -111,6 +118,7 @@ export function RoundOrientationPanel({
         drive={drive}
         highContrast={highContrast}
         fileName={fileName}
+        onAssign={onAssign}
         caption={
           `${readable.length} pole${readable.length === 1 ? '' : 's'} of this round.` +
           (earlier > 0

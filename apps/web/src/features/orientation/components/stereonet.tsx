@@ -1,16 +1,22 @@
-import { makeStyles, tokens } from '@fluentui/react-components';
+import { makeStyles, mergeClasses, tokens } from '@fluentui/react-components';
 import type { KeyboardEvent, PointerEvent, ReactNode } from 'react';
-import { useId, useRef } from 'react';
+import { useId, useRef, useState } from 'react';
 import type {
   DrawnLine,
   DrawnPole,
+  ScenePoint,
   SceneNode,
   StereonetScene,
 } from '@/features/orientation/scene/stereonet-scene';
-import { nearestLine, nearestPole } from '@/features/orientation/scene/stereonet-scene';
+import { nearestLine, nearestPole, polesInLasso } from '@/features/orientation/scene/stereonet-scene';
 
 /** Reach of a tap or hover around a pole, screen px (a 44 px touch target). */
 export const PICK_REACH_PX = 22;
+/**
+ * A press that travels further than this (screen px) before it is let go is a lasso, not a tap: more than
+ * a gloved finger wobbles on a tap, less than the smallest loop worth drawing.
+ */
+export const LASSO_START_PX = 16;
 
 const useStyles = makeStyles({
   svg: {
@@ -23,6 +29,8 @@ const useStyles = makeStyles({
     cursor: 'crosshair',
     ':focus-visible': { outline: `${tokens.strokeWidthThick} solid ${tokens.colorStrokeFocus2}` },
   },
+  // While choosing poles a drag draws the lasso instead of scrolling the page or selecting the labels.
+  choosing: { touchAction: 'none', userSelect: 'none', WebkitUserSelect: 'none' },
 });
 
 function render(node: SceneNode, key: string, clip: string): ReactNode {
@@ -91,16 +99,31 @@ export interface StereonetProps {
   onPick: (pole: DrawnPole | null) => void;
   /** A tap or hover nearer an intersection mark than any pole (its id is then the selected id). */
   onPickLine?: (line: DrawnLine) => void;
+  /**
+   * Choosing poles (an editable round): a tap toggles the pole under it, a drag draws a free lasso that
+   * adds the poles inside it, and Space or Enter toggles the pole being read. Absent: no choosing.
+   */
+  choosing?: {
+    ids: ReadonlySet<string>;
+    onToggle: (id: string) => void;
+    onLasso: (ids: string[]) => void;
+  } | null;
 }
 
 /**
  * Draws a stereonet scene as inline SVG. Tap or click near a pole (within 22 px) to read it; with a mouse,
  * hovering reads it too. With the keyboard, the arrow keys step through the poles and Escape lets go.
+ * While choosing poles, a tap toggles one and a drag (finger, pen or mouse) draws a lasso around several.
  */
-export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetProps) {
+export function Stereonet({ scene, selectedId, onPick, onPickLine, choosing = null }: StereonetProps) {
   const styles = useStyles();
   const clip = `net-clip-${useId().replace(/:/g, '')}`;
   const svgRef = useRef<SVGSVGElement>(null);
+  // The press being drawn while choosing: its pointer, the points so far and whether it is a lasso yet.
+  const press = useRef<{ pointer: number; points: ScenePoint[]; travel: number; lasso: boolean } | null>(
+    null,
+  );
+  const [lasso, setLasso] = useState<ScenePoint[] | null>(null);
   const selected =
     selectedId === null
       ? null
@@ -108,13 +131,19 @@ export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetPr
         scene.lines.find((l) => l.id === selectedId) ??
         null);
 
+  /** The pointer's place in the scene's coordinates, and scene px per screen px. */
+  const toScene = (e: PointerEvent<SVGSVGElement>) => {
+    const box = svgRef.current?.getBoundingClientRect();
+    const scale = box && box.width > 0 ? scene.width / box.width : 1;
+    return {
+      x: (e.clientX - (box?.left ?? 0)) * scale,
+      y: (e.clientY - (box?.top ?? 0)) * scale,
+      scale,
+    };
+  };
   const pick = (e: PointerEvent<SVGSVGElement>, hover: boolean) => {
-    const svg = svgRef.current;
-    if (!svg) return;
-    const box = svg.getBoundingClientRect();
-    const scale = box.width > 0 ? scene.width / box.width : 1;
-    const x = (e.clientX - box.left) * scale;
-    const y = (e.clientY - box.top) * scale;
+    if (!svgRef.current) return;
+    const { x, y, scale } = toScene(e);
     const hit = nearestPole(scene, x, y, PICK_REACH_PX * scale);
     const mark = onPickLine ? nearestLine(scene, x, y, PICK_REACH_PX * scale) : null;
     if (
@@ -128,9 +157,50 @@ export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetPr
     if (hover && hit === null) return;
     onPick(hit);
   };
+  const startChoosing = (e: PointerEvent<SVGSVGElement>) => {
+    const { x, y } = toScene(e);
+    press.current = { pointer: e.pointerId, points: [{ x, y }], travel: 0, lasso: false };
+    // Keep the pointer's moves while it is down, even off the net (not every engine has capture).
+    e.currentTarget.setPointerCapture?.(e.pointerId);
+  };
+  const moveChoosing = (e: PointerEvent<SVGSVGElement>) => {
+    const p = press.current;
+    if (!p || p.pointer !== e.pointerId) return false;
+    const { x, y, scale } = toScene(e);
+    const last = p.points[p.points.length - 1];
+    const step = Math.hypot(x - last.x, y - last.y);
+    if (step < 2 * scale) return true;
+    p.points.push({ x, y });
+    p.travel += step;
+    if (!p.lasso && p.travel > LASSO_START_PX * scale) p.lasso = true;
+    if (p.lasso) setLasso([...p.points]);
+    return true;
+  };
+  const endChoosing = (e: PointerEvent<SVGSVGElement>) => {
+    const p = press.current;
+    press.current = null;
+    setLasso(null);
+    if (!choosing || !p || p.pointer !== e.pointerId) return;
+    if (p.lasso) {
+      const inside = polesInLasso(scene, p.points);
+      if (inside.length > 0) choosing.onLasso(inside.map((q) => q.id));
+      return;
+    }
+    const { x, y, scale } = toScene(e);
+    const hit = nearestPole(scene, x, y, PICK_REACH_PX * scale);
+    if (hit) {
+      choosing.onToggle(hit.id);
+      onPick(hit);
+    }
+  };
   const onKeyDown = (e: KeyboardEvent<SVGSVGElement>) => {
     if (scene.poles.length === 0) return;
     const at = selected && 'index' in selected ? selected.index : -1;
+    if (choosing && (e.key === ' ' || e.key === 'Enter')) {
+      e.preventDefault();
+      if (selected && 'index' in selected) choosing.onToggle(selected.id);
+      return;
+    }
     if (e.key === 'ArrowRight' || e.key === 'ArrowDown') {
       e.preventDefault();
       onPick(scene.poles[(at + 1) % scene.poles.length]);
@@ -140,19 +210,31 @@ export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetPr
     } else if (e.key === 'Escape') onPick(null);
   };
   const ring = Math.max(8, scene.width * 0.025);
+  const chosen = choosing ? scene.poles.filter((p) => choosing.ids.has(p.id)) : [];
   return (
     <svg
       ref={svgRef}
-      className={styles.svg}
+      className={mergeClasses(styles.svg, choosing ? styles.choosing : undefined)}
       viewBox={`0 0 ${scene.width} ${scene.height}`}
       role="img"
       aria-label={scene.title}
       tabIndex={0}
       data-net={scene.net}
-      onPointerDown={(e) => pick(e, false)}
+      data-choosing={choosing ? 'true' : undefined}
+      onPointerDown={(e) => (choosing ? startChoosing(e) : pick(e, false))}
       onPointerMove={(e) => {
+        if (choosing && moveChoosing(e)) return;
         if (e.pointerType === 'mouse') pick(e, true);
       }}
+      onPointerUp={choosing ? endChoosing : undefined}
+      onPointerCancel={
+        choosing
+          ? () => {
+              press.current = null;
+              setLasso(null);
+            }
+          : undefined
+      }
       onKeyDown={onKeyDown}
     >
       <title>{scene.title}</title>
@@ -162,6 +244,36 @@ export function Stereonet({ scene, selectedId, onPick, onPickLine }: StereonetPr
         </clipPath>
       </defs>
       {scene.nodes.map((n, i) => render(n, String(i), clip))}
+      {chosen.length > 0 && (
+        <g data-role="chosen-poles">
+          {chosen.map((p) => (
+            <circle
+              key={p.id}
+              data-role="chosen-pole"
+              data-id={p.id}
+              cx={p.x}
+              cy={p.y}
+              r={ring * 0.8}
+              fill={tokens.colorBrandBackground}
+              fillOpacity={0.22}
+              stroke={tokens.colorBrandForeground1}
+              strokeWidth={Math.max(2.5, scene.width / 160)}
+            />
+          ))}
+        </g>
+      )}
+      {lasso && lasso.length > 1 && (
+        <path
+          data-role="lasso"
+          d={`${lasso.map((q, i) => `${i === 0 ? 'M' : 'L'}${q.x.toFixed(1)} ${q.y.toFixed(1)}`).join(' ')} Z`}
+          fill={tokens.colorBrandBackground}
+          fillOpacity={0.08}
+          stroke={tokens.colorBrandForeground1}
+          strokeWidth={Math.max(2, scene.width / 220)}
+          strokeDasharray="6 4"
+          pointerEvents="none"
+        />
+      )}
       {selected && (
         <circle
           data-role="selected-pole"

@@ -781,3 +781,43 @@ export function poleNotations(plane: Plane): Array<{ label: string; value: strin
     { label: 'Pole trend / plunge', value: line(pole) },
   ];
 }
+
+/** A point in the scene's SVG coordinates. */
+export interface ScenePoint {
+  x: number;
+  y: number;
+}
+
+/**
+ * Is the point inside the closed polygon (the last vertex joins the first)? Even–odd rule by a ray cast to
+ * the right (common practice), so a free-hand lasso that is concave, or crosses itself, still gives a
+ * sensible answer. A polygon of fewer than three vertices holds nothing.
+ */
+export function insidePolygon(p: ScenePoint, polygon: readonly ScenePoint[]): boolean {
+  if (polygon.length < 3) return false;
+  let inside = false;
+  for (let i = 0, k = polygon.length - 1; i < polygon.length; k = i++) {
+    const a = polygon[i];
+    const b = polygon[k];
+    if (a.y > p.y !== b.y > p.y && p.x < a.x + ((p.y - a.y) * (b.x - a.x)) / (b.y - a.y)) inside = !inside;
+  }
+  return inside;
+}
+
+/** The poles drawn inside a lasso (a free-hand polygon in the scene's coordinates). */
+export function polesInLasso(scene: StereonetScene, lasso: readonly ScenePoint[]): DrawnPole[] {
+  if (lasso.length < 3) return [];
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const q of lasso) {
+    minX = Math.min(minX, q.x);
+    maxX = Math.max(maxX, q.x);
+    minY = Math.min(minY, q.y);
+    maxY = Math.max(maxY, q.y);
+  }
+  return scene.poles.filter(
+    (p) => p.x >= minX && p.x <= maxX && p.y >= minY && p.y <= maxY && insidePolygon(p, lasso),
+  );
+}

@@ -409,9 +409,14 @@ export function JointsSection({
                     className={styles.input}
                     aria-label={`Set of joint ${i + 1}`}
                     title={
-                      j.setOverride ? 'Your own set (Go back to the computed set under More)' : undefined
+                      j.setOverride
+                        ? j.setLabel.trim() === ''
+                          ? 'In no set, as you chose (Go back to the computed set under More)'
+                          : 'Your own set (Go back to the computed set under More)'
+                        : undefined
                     }
                     value={j.setOverride ? j.setLabel : (sets.membership[j.key] ?? '')}
+                    placeholder={j.setOverride ? '—' : undefined}
                     size="large"
                     readOnly={readOnly}
                     contentAfter={j.setOverride ? <span className={styles.override}>yours</span> : undefined}

@@ -471,6 +471,57 @@ describe('Round editor: one assessment for the sets and the trigger level', () =
     await waitFor(() => expect(screen.getByTestId('slot')).toHaveTextContent(/^3 joints; sets .*S1/));
   });
 
+  // The orientation panel (app/routes composes it) hands the poles chosen on the net to assignSets.
+  const assignSlot: RoundEditorProps['orientationSlot'] = ({ joints, assignSets }) =>
+    assignSets === null ? (
+      <p>read only</p>
+    ) : (
+      <>
+        <button onClick={() => assignSets([joints[0].id, joints[1].id], 'S7')}>two into S7</button>
+        <button onClick={() => assignSets([joints[2].id], null)}>third out</button>
+      </>
+    );
+
+  it('puts joints chosen on the net in a set, or out of every set, as the geologist’s own (saved as you go)', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(round, true, assignSlot);
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    await waitFor(() => expect(screen.getByLabelText('Set of joint 1')).toHaveValue('S1'));
+    expect(screen.getAllByText('yours')).toHaveLength(1);
+    await user.click(screen.getByRole('button', { name: 'two into S7' }));
+    // The Joints list shows them in S7 as the geologist's own, and the autosave sends it.
+    expect(screen.getByLabelText('Set of joint 1')).toHaveValue('S7');
+    expect(screen.getByLabelText('Set of joint 2')).toHaveValue('S7');
+    expect(screen.getAllByText('yours')).toHaveLength(3);
+    await waitFor(() => expect(saves).toHaveLength(1), { timeout: 4000 });
+    expect(saves[0].joints.map((j) => [j.setLabel, j.setOverride])).toEqual([
+      ['S7', true],
+      ['S7', true],
+      ['S7', true],
+    ]);
+    // Joint 3 out of its set: random, still the geologist's own choice; S7 keeps the other two.
+    await user.click(screen.getByRole('button', { name: 'third out' }));
+    expect(screen.getByLabelText('Set of joint 3')).toHaveValue('');
+    await waitFor(() => expect(saves).toHaveLength(2), { timeout: 4000 });
+    expect(saves[1].joints[2]).toMatchObject({ setLabel: null, setOverride: true });
+    const table = screen.getByTestId('sets-table');
+    expect(within(table).getByRole('rowheader', { name: 'S7' })).toBeInTheDocument();
+    expect(within(table).queryByRole('rowheader', { name: 'S1' })).toBeNull();
+  });
+
+  it('gives the orientation slot no way to assign sets on a round the person cannot edit', async () => {
+    mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
+    renderEditor(
+      { ...round, status: 'submitted', triggerLevel: 'green', triggerFirings: [] },
+      false,
+      assignSlot,
+    );
+    const user = setupUser();
+    await user.click(screen.getByRole('tab', { name: 'Joints' }));
+    expect(await screen.findByText('read only')).toBeInTheDocument();
+  });
+
   it('keeps the set parameters with the round: a new window is saved and the sets follow it', async () => {
     const api = mockApi({ [JOINTS]: nearby, [RULES]: [rule], [PUT]: saveHandler() });
     renderEditor(round);

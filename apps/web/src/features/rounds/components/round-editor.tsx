@@ -95,6 +95,11 @@ export interface RoundEditorProps {
     joints: RoundRecordInput['joints'];
     assessment: RoundAssessment;
     faceChainage: number;
+    /**
+     * Put joints (by id) in a set, or out of every set (null), as the geologist's own choice (setLabel with
+     * setOverride, as the Joints list's set field writes them; saved as you go). Null when read only.
+     */
+    assignSets: ((ids: string[], label: string | null) => void) | null;
   }) => ReactNode;
   /**
    * The Sketch section (app/routes composes it from its own feature): the round's sketch document as typed,
@@ -483,6 +488,17 @@ function RoundEditorBody({
             joints: assessmentRecordOf(values, server.faceChainage).joints,
             assessment,
             faceChainage: face,
+            assignSets: readOnly
+              ? null
+              : (ids, label) => {
+                  const chosen = new Set(ids);
+                  void setFieldValue(
+                    'joints',
+                    values.joints.map((j) =>
+                      chosen.has(j.key) ? { ...j, setLabel: label ?? '', setOverride: true } : j,
+                    ),
+                  );
+                },
           })}
         {section === 'sketch' &&
           sketchSlot?.({

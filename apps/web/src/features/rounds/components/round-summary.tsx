@@ -345,7 +345,9 @@ export function JointsSummary({ sets }: { sets: RoundSets }) {
               <tbody>
                 {values.joints.map((j, i) => {
                   const reading = readOrientation(j.orientationText, j.notation);
-                  const set = j.setOverride ? `${j.setLabel} (set by the geologist)` : sets.membership[j.key];
+                  const set = j.setOverride
+                    ? `${j.setLabel || 'in no set'} (set by the geologist)`
+                    : sets.membership[j.key];
                   const fault = j.kind === 'fault' || j.kind === 'shear-zone';
                   const remarks = [
                     j.infill.trim() && `Infill: ${j.infill.trim()}`,
