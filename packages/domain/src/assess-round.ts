@@ -44,8 +44,11 @@ import { readWater, waterConditionWarning } from './water.js';
  * The version of the rules that produced an assessment (stored with it; bump when a rule changes).
  * domain-6: the trigger level leaves out fired rules held by an engineer's acceptance of a standing
  * condition (listed in triggers.accepted), so the same record can read a lower level than under domain-5.
+ * domain-7: a joint the geologist took out of its set (override with no label) is in no set and out of the set
+ * means (before, an empty override fell back to the computed set); the facts carry the previous round's values
+ * for rules that fire on a change, and the round's length against the last class's allowance.
  */
-export const ASSESSMENT_VERSION = 'domain-6';
+export const ASSESSMENT_VERSION = 'domain-7';
 
 export interface GroundRecord {
   units: Array<{
