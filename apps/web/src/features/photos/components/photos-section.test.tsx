@@ -24,6 +24,7 @@ const stored = (over: Partial<Photo>): Photo => ({
   uploadedByName: 'Invented Geologist',
   pinX: null,
   pinY: null,
+  scale: null,
   width: 1500,
   height: 2000,
   createdAt: '2026-11-30T07:00:00.000Z',

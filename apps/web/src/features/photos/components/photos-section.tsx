@@ -1,10 +1,6 @@
 import {
   Button,
   Caption1,
-  Dialog,
-  DialogBody,
-  DialogSurface,
-  DialogTitle,
   Field,
   Input,
   ProgressBar,
@@ -18,10 +14,7 @@ import {
   ArrowClockwiseRegular,
   CameraAddRegular,
   ImageAddRegular,
-  ChevronLeftRegular,
-  ChevronRightRegular,
   DeleteRegular,
-  DismissRegular,
 } from '@fluentui/react-icons';
 import { formatProjectTime } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
@@ -29,6 +22,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import type { UploadProgress } from '../upload/photo-upload';
 import { freshProgress, refuseBeforeUpload, uploadPhoto } from '../upload/photo-upload';
+import { PhotoViewer } from './photo-viewer';
 import type { FacePart, Photo, PhotoVariant } from '@/api/resources/photos';
 import {
   deletePhoto,
@@ -77,14 +71,6 @@ const useStyles = makeStyles({
     minHeight: `${TOUCH_TARGET_PX}px`,
   },
   thumb: { width: '100%', height: '140px', objectFit: 'cover', display: 'block' },
-  viewer: { maxWidth: '100vw', width: '100vw', height: '100vh', maxHeight: '100vh', padding: '8px' },
-  viewerImage: {
-    maxWidth: '100%',
-    maxHeight: 'calc(100vh - 140px)',
-    objectFit: 'contain',
-    margin: '0 auto',
-    display: 'block',
-  },
 });
 
 interface FileUpload {
@@ -273,6 +259,8 @@ export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosS
           index={viewing}
           onIndex={setViewing}
           onClose={() => setViewing(null)}
+          canEdit={canEdit}
+          facePartLabels={facePartLabels}
         />
       )}
     </section>
@@ -366,84 +354,5 @@ function PhotoCard({
         </Text>
       )}
     </div>
-  );
-}
-
-function PhotoViewer({
-  at,
-  photos,
-  index,
-  onIndex,
-  onClose,
-}: {
-  at: { projectId: string; roundId: string };
-  photos: Photo[];
-  index: number;
-  onIndex: (i: number) => void;
-  onClose: () => void;
-}) {
-  const styles = useStyles();
-  const photo = photos[index];
-  const url = usePhotoUrl(at, photo, 'display');
-  const touchX = useRef<number | null>(null);
-  const go = (step: number) => onIndex((index + step + photos.length) % photos.length);
-  return (
-    <Dialog open onOpenChange={(_e, d) => !d.open && onClose()}>
-      <DialogSurface
-        className={styles.viewer}
-        onKeyDown={(e) => {
-          if (e.key === 'ArrowRight') go(1);
-          if (e.key === 'ArrowLeft') go(-1);
-        }}
-        onTouchStart={(e) => (touchX.current = e.touches[0]?.clientX ?? null)}
-        onTouchEnd={(e) => {
-          const start = touchX.current;
-          const end = e.changedTouches[0]?.clientX;
-          if (start !== null && end !== undefined && Math.abs(end - start) > 50) go(end < start ? 1 : -1);
-          touchX.current = null;
-        }}
-      >
-        <DialogBody>
-          <DialogTitle
-            action={
-              <Button
-                className={styles.touch}
-                appearance="subtle"
-                aria-label="Close"
-                icon={<DismissRegular />}
-                onClick={onClose}
-              />
-            }
-          >
-            {photo.caption || photo.originalName}
-          </DialogTitle>
-          <div>
-            {url.data && (
-              <img
-                className={styles.viewerImage}
-                src={url.data.url}
-                alt={photo.caption || photo.originalName}
-              />
-            )}
-            <div className={styles.row}>
-              <Button
-                className={styles.touch}
-                aria-label="Previous photo"
-                icon={<ChevronLeftRegular />}
-                onClick={() => go(-1)}
-              />
-              <Text>{`${index + 1} of ${photos.length}`}</Text>
-              <Button
-                className={styles.touch}
-                aria-label="Next photo"
-                icon={<ChevronRightRegular />}
-                onClick={() => go(1)}
-              />
-              {photo.facePart && <Text>{facePartLabels[photo.facePart]}</Text>}
-            </div>
-          </div>
-        </DialogBody>
-      </DialogSurface>
-    </Dialog>
   );
 }
