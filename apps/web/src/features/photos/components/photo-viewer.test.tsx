@@ -176,6 +176,8 @@ describe('PhotoViewer', () => {
     await waitFor(() =>
       expect(patches).toEqual([{ scale: { a: { x: 0.1, y: 0.5 }, b: { x: 0.6, y: 0.5 }, distanceM: 1.2 } }]),
     );
+    // the marking's buttons are gone: the photo holds the focus, so Escape and the arrows still work
+    await waitFor(() => expect(stage).toHaveFocus());
     unmount();
 
     // 1.2 m over half the width: the photo is 2.4 m wide, the bar 0.5 m, 0.5 / 2.4 of the width.

@@ -50,6 +50,8 @@ const useStyles = makeStyles({
   body: { display: 'flex', flexDirection: 'column', height: '100%', gap: '8px' },
   touch: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   row: { display: 'flex', alignItems: 'center', gap: '8px', flexWrap: 'wrap' },
+  head: { display: 'flex', alignItems: 'center', gap: '8px' },
+  title: { flexGrow: 1, overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap' },
   stage: {
     position: 'relative',
     flexGrow: 1,
@@ -157,10 +159,16 @@ export function PhotoViewer({
   const save = useMutation({
     mutationFn: (scale: Parameters<typeof updatePhoto>[2]['scale']) => updatePhoto(at, photo.id, { scale }),
     onSuccess: async () => {
-      setMarking(null);
+      endMarking();
       await queryClient.invalidateQueries({ queryKey: photoKeys.ofRound(at.projectId, at.roundId) });
     },
   });
+
+  // The buttons of the marking go away with it: the focus goes to the photo, so the keys (Escape, arrows) still reach the viewer.
+  const endMarking = () => {
+    setMarking(null);
+    stage.current?.focus();
+  };
 
   const go = (step: number) => {
     if (photos.length > 1) onIndex((index + step + photos.length) % photos.length);
@@ -262,23 +270,22 @@ export function PhotoViewer({
         }}
       >
         <DialogBody className={styles.body}>
-          <DialogTitle
-            action={
-              <Button
-                className={styles.touch}
-                appearance="subtle"
-                aria-label="Close"
-                icon={<DismissRegular />}
-                onClick={onClose}
-              />
-            }
-          >
-            {label}
-          </DialogTitle>
+          {/* Title and Close on one row (the body is a column here, not the dialog's own grid). */}
+          <div className={styles.head}>
+            <DialogTitle className={styles.title}>{label}</DialogTitle>
+            <Button
+              className={styles.touch}
+              appearance="subtle"
+              aria-label="Close"
+              icon={<DismissRegular />}
+              onClick={onClose}
+            />
+          </div>
           <div
             ref={stage}
             className={`${styles.stage} ${marking ? styles.marking : ''}`}
             data-testid="photo-stage"
+            tabIndex={-1}
             onPointerDown={onPointerDown}
             onPointerMove={onPointerMove}
             onPointerUp={onPointerUp}
@@ -363,6 +370,7 @@ export function PhotoViewer({
                 onClick={() => {
                   setView(FIT);
                   setMarking({ points: [], distance: '' });
+                  stage.current?.focus();
                 }}
               >
                 {photo.scale ? 'Mark the scale again' : 'Mark a scale'}
@@ -412,7 +420,7 @@ export function PhotoViewer({
                   </Button>
                 </>
               )}
-              <Button className={styles.touch} appearance="subtle" onClick={() => setMarking(null)}>
+              <Button className={styles.touch} appearance="subtle" onClick={endMarking}>
                 Cancel
               </Button>
             </div>

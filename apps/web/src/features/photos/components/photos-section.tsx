@@ -1,5 +1,6 @@
 import {
   Button,
+  Badge,
   Caption1,
   Field,
   Input,
@@ -15,6 +16,8 @@ import {
   CameraAddRegular,
   ImageAddRegular,
   DeleteRegular,
+  PinOffRegular,
+  PinRegular,
 } from '@fluentui/react-icons';
 import { formatProjectTime } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
@@ -48,6 +51,7 @@ const useStyles = makeStyles({
   row: { display: 'flex', alignItems: 'center', gap: '8px', flexWrap: 'wrap' },
   touch: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   hidden: { display: 'none' },
+  badge: { alignSelf: 'flex-start' },
   uploads: { display: 'flex', flexDirection: 'column', gap: '8px' },
   upload: { display: 'grid', gridTemplateColumns: '1fr auto', gap: '4px 8px', alignItems: 'center' },
   gallery: {
@@ -90,10 +94,12 @@ export interface PhotosSectionProps {
   canEdit: boolean;
   /** The project's time zone: times taken are shown in it. */
   timeZone?: string;
+  /** "Pin on the sketch": the round page opens the sketch and waits for a tap (absent: no pin button). */
+  onPinOnSketch?: (photo: Photo, label: string) => void;
 }
 
 /** Photos of a round: add from the camera or files, a gallery with caption and part, a full-screen view. */
-export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosSectionProps) {
+export function PhotosSection({ projectId, roundId, canEdit, timeZone, onPinOnSketch }: PhotosSectionProps) {
   const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   const styles = useStyles();
   const queryClient = useQueryClient();
@@ -248,7 +254,9 @@ export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosS
             photo={photo}
             canEdit={canEdit}
             timeZone={zone}
+            number={i + 1}
             onOpen={() => setViewing(i)}
+            onPinOnSketch={onPinOnSketch}
           />
         ))}
       </div>
@@ -277,12 +285,17 @@ function PhotoCard({
   canEdit,
   onOpen,
   timeZone,
+  number,
+  onPinOnSketch,
 }: {
   at: { projectId: string; roundId: string };
   photo: Photo;
   canEdit: boolean;
   timeZone: string;
+  /** Its place in the gallery: the number of its pin on the sketch. */
+  number: number;
   onOpen: () => void;
+  onPinOnSketch?: (photo: Photo, label: string) => void;
 }) {
   const styles = useStyles();
   const queryClient = useQueryClient();
@@ -312,6 +325,31 @@ function PhotoCard({
         {photo.uploadedByName ? ` · ${photo.uploadedByName}` : ''}
         {photo.variantState === 'pending' ? ' · thumbnail being made' : ''}
       </Caption1>
+      {photo.pinX !== null && (
+        <Badge appearance="tint" color="brand" className={styles.badge}>
+          {`Pinned on the sketch · ${number}`}
+        </Badge>
+      )}
+      {canEdit && onPinOnSketch && (
+        <div className={styles.row}>
+          <Button
+            className={styles.touch}
+            icon={<PinRegular />}
+            onClick={() => onPinOnSketch(photo, `${number} · ${label}`)}
+          >
+            {photo.pinX === null ? 'Pin on the sketch' : 'Move the pin'}
+          </Button>
+          {photo.pinX !== null && (
+            <Button
+              className={styles.touch}
+              appearance="subtle"
+              aria-label={`Remove the pin of ${label}`}
+              icon={<PinOffRegular />}
+              onClick={() => save.mutate({ pinX: null, pinY: null })}
+            />
+          )}
+        </div>
+      )}
       {canEdit ? (
         <>
           <Field label="Caption">
