@@ -145,13 +145,21 @@ async function main(): Promise<void> {
     const sampler = setInterval(() => (peak = Math.max(peak, rss())), 20);
     const t1 = performance.now();
     const ids: string[] = [];
+    const steps = { start: 0, parts: 0, complete: 0 };
     for (const [i, f] of files.entries()) {
+      let at = performance.now();
+      const lap = (step: keyof typeof steps) => {
+        const now = performance.now();
+        steps[step] += now - at;
+        at = now;
+      };
       const started = await call<{ photo: { id: string }; partSize: number; partCount: number }>(
         'POST',
         photos,
         token,
         { fileName: `bench-${i + 1}.jpg`, contentType: 'image/jpeg', size: f.length },
       );
+      lap('start');
       const parts: unknown[] = [];
       for (let n = 1; n <= started.partCount; n++) {
         const chunk = f.subarray((n - 1) * started.partSize, n * started.partSize);
@@ -163,7 +171,9 @@ async function main(): Promise<void> {
         if (!res.ok) throw new Error(`part ${n}: ${res.status} ${await res.text()}`);
         parts.push(await res.json());
       }
+      lap('parts');
       await call('POST', `${photos}/${started.photo.id}/complete`, token, { parts });
+      lap('complete');
       ids.push(started.photo.id);
     }
     const uploaded = performance.now() - t1;
@@ -186,6 +196,9 @@ async function main(): Promise<void> {
     );
     console.log(
       `photos: through Roundbook and thumbnailed ${total.toFixed(0)} ms (uploads ${uploaded.toFixed(0)} ms), straight into the S3 fake ${direct.toFixed(0)} ms: ${ratio.toFixed(2)}× (target ≤ ${RATIO_TARGET}×) ${ratio <= RATIO_TARGET ? 'ok' : 'OVER'}`,
+    );
+    console.log(
+      `photos: of the uploads, starts ${steps.start.toFixed(0)} ms, parts ${steps.parts.toFixed(0)} ms, completes ${steps.complete.toFixed(0)} ms; thumbnails after the last upload ${(total - uploaded).toFixed(0)} ms`,
     );
     console.log(
       `photos: resident memory grew ${growth.toFixed(1)} MB during the batch (API and client in one process; target < ${RSS_TARGET_MB} MB) ${growth < RSS_TARGET_MB ? 'ok' : 'OVER'}`,
