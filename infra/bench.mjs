@@ -24,8 +24,8 @@ try {
   await startS3({ dataDir, env });
   await startSmtp({ dataDir, env });
   migrateAndSeed(env);
-  // RB_BENCH=handover runs only the matching API benchmarks.
-  const benches = ['rounds-list', 'notice-latency', 'handover'].filter(
+  // RB_BENCH=handover (or photos) runs only the matching API benchmarks.
+  const benches = ['rounds-list', 'notice-latency', 'handover', 'photos'].filter(
     (b) => !process.env.RB_BENCH || b.includes(process.env.RB_BENCH),
   );
   for (const bench of benches)

@@ -272,6 +272,48 @@ describe('Photos (e2e, S3 fake)', () => {
     expect(audit.map((a) => a.action)).toEqual(['photo.added', 'photo.updated', 'photo.removed']);
   });
 
+  it('keeps a scale marked on the photo (two points and a distance), reads it back, refuses bad input with 400 and non-members with 404', async () => {
+    const jpeg = await sharp({ create: { width: 400, height: 300, channels: 3, background: '#556677' } })
+      .jpeg()
+      .toBuffer();
+    const { photoId, done } = await upload(roundId, jpeg, 'scale.jpg', 'image/jpeg');
+    expect(done.status).toBe(200);
+    expect(done.body.scale).toBeNull();
+    const at = `${photosOf(roundId)}/${photoId}`;
+    const scale = { a: { x: 0.1, y: 0.5 }, b: { x: 0.6, y: 0.5 }, distanceM: 1.2 };
+    const saved = await request(http).patch(at).set(p.as('geologist')).send({ scale }).expect(200);
+    expect(saved.body.scale).toEqual(scale);
+    const read = await request(http).get(at).set(p.as('viewer')).expect(200);
+    expect(read.body.scale).toEqual(scale);
+    const audit = await app
+      .get(DataSource)
+      .query<Body[]>(`SELECT action, after FROM audit_events WHERE entity_id = ? ORDER BY created_at`, [
+        photoId,
+      ]);
+    expect(audit.map((a) => a.action)).toEqual(['photo.added', 'photo.updated']);
+
+    const bad = async (body: Body, field: string, message: RegExp) => {
+      const res = await request(http).patch(at).set(p.as('geologist')).send(body).expect(400);
+      expect(res.body.code).toBe('VALIDATION_FAILED');
+      expect(res.body.fields?.[field]).toMatch(message);
+    };
+    await bad({ scale: { ...scale, b: { x: 0.1, y: 0.5 } } }, 'scale', /two different points/);
+    await bad({ scale: { ...scale, distanceM: 0 } }, 'scale.distanceM', /more than 0 m/);
+    await bad({ scale: { ...scale, distanceM: -2 } }, 'scale.distanceM', /more than 0 m/);
+    await bad({ scale: { ...scale, a: { x: 1.5, y: 0.5 } } }, 'scale.a.x', /from 0 to 1/);
+    await bad({ scale: { ...scale, b: { x: 0.5, y: -0.01 } } }, 'scale.b.y', /from 0 to 1/);
+    await bad({ scale: { a: scale.a, distanceM: 1 } }, 'scale.b', /second point/);
+    // Nothing of the refused attempts was kept.
+    expect((await request(http).get(at).set(p.as('viewer')).expect(200)).body.scale).toEqual(scale);
+
+    await request(http).get(at).set(other.as('admin')).expect(404);
+    await request(http).patch(at).set(other.as('geologist')).send({ scale }).expect(404);
+    await request(http).patch(at).set(p.as('viewer')).send({ scale }).expect(403);
+
+    const cleared = await request(http).patch(at).set(p.as('geologist')).send({ scale: null }).expect(200);
+    expect(cleared.body.scale).toBeNull();
+  });
+
   it('refuses writes to a submitted round with 409', async () => {
     const res = await request(http)
       .post(photosOf(submittedId))

@@ -23,6 +23,7 @@ import { RoundStatusIndexes1796420000000 } from './1796420000000-RoundStatusInde
 import { SignInTallies1796430000000 } from './1796430000000-SignInTallies.js';
 import { OverLengthRule1796440000000 } from './1796440000000-OverLengthRule.js';
 import { RuleFiresOnChange1796450000000 } from './1796450000000-RuleFiresOnChange.js';
+import { PhotoScale1796460000000 } from './1796460000000-PhotoScale.js';
 
 /** Every migration, in order. Imported explicitly so the app, the CLI and Jest share one list. */
 export const migrations = [
@@ -51,4 +52,5 @@ export const migrations = [
   SignInTallies1796430000000,
   OverLengthRule1796440000000,
   RuleFiresOnChange1796450000000,
+  PhotoScale1796460000000,
 ];

@@ -78,6 +78,22 @@ export class Photo {
   @Column({ name: 'pin_y', type: 'double', nullable: true })
   pinY: number | null;
 
+  /** The scale: two points as fractions (0–1) of the upright width and height, and their distance (m). */
+  @Column({ name: 'scale_ax', type: 'double', nullable: true })
+  scaleAx: number | null;
+
+  @Column({ name: 'scale_ay', type: 'double', nullable: true })
+  scaleAy: number | null;
+
+  @Column({ name: 'scale_bx', type: 'double', nullable: true })
+  scaleBx: number | null;
+
+  @Column({ name: 'scale_by', type: 'double', nullable: true })
+  scaleBy: number | null;
+
+  @Column({ name: 'scale_m', type: 'double', nullable: true })
+  scaleM: number | null;
+
   @Column({ name: 'variant_state', type: 'enum', enum: VARIANT_STATES, default: 'pending' })
   variantState: VariantState;
 

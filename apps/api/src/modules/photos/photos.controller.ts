@@ -150,7 +150,7 @@ export class PhotosController {
     return this.photos.get(access, roundId, photoId);
   }
 
-  /** Caption, part of the face, pin on the sketch */
+  /** Caption, part of the face, pin on the sketch, scale on the photo */
   @Patch(':photoId')
   @ProjectRoles('geologist', 'admin')
   @ApiOkResponse({ type: PhotoDto })

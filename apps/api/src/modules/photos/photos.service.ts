@@ -21,6 +21,7 @@ import type {
   PhotoDto,
   PhotoUploadDto,
   PhotoUrlDto,
+  PhotoScaleDto,
   PhotoVariant,
   UpdatePhotoDto,
   UploadedPartResultDto,
@@ -121,6 +122,11 @@ export class PhotosService {
         uploadedBy: user.id,
         pinX: null,
         pinY: null,
+        scaleAx: null,
+        scaleAy: null,
+        scaleBx: null,
+        scaleBy: null,
+        scaleM: null,
         variantState: 'pending',
         thumbnailKey: null,
         displayKey: null,
@@ -254,11 +260,31 @@ export class PhotosService {
   ): Promise<PhotoDto> {
     assertEditable(await this.round(access, roundId));
     const photo = await this.photo(access, roundId, photoId, 'stored');
-    const before = { caption: photo.caption, facePart: photo.facePart, pinX: photo.pinX, pinY: photo.pinY };
+    const before = {
+      caption: photo.caption,
+      facePart: photo.facePart,
+      pinX: photo.pinX,
+      pinY: photo.pinY,
+      scale: scaleOf(photo),
+    };
     if (dto.caption !== undefined) photo.caption = dto.caption.trim();
     if (dto.facePart !== undefined) photo.facePart = dto.facePart;
     if (dto.pinX !== undefined) photo.pinX = dto.pinX;
     if (dto.pinY !== undefined) photo.pinY = dto.pinY;
+    if (dto.scale !== undefined) {
+      const s = dto.scale;
+      if (s !== null && s.a.x === s.b.x && s.a.y === s.b.y)
+        throw new DomainException(
+          ErrorCode.ValidationFailed,
+          'The two points of a scale must be at different places on the photo.',
+          { scale: 'Mark two different points.' },
+        );
+      photo.scaleAx = s?.a.x ?? null;
+      photo.scaleAy = s?.a.y ?? null;
+      photo.scaleBx = s?.b.x ?? null;
+      photo.scaleBy = s?.b.y ?? null;
+      photo.scaleM = s?.distanceM ?? null;
+    }
     if ((photo.pinX === null) !== (photo.pinY === null))
       throw new DomainException(ErrorCode.ValidationFailed, 'A pin needs both x and y (or neither).', {
         pinX: 'Give both x and y.',
@@ -272,7 +298,13 @@ export class PhotosService {
         entityId: photo.id,
         action: 'photo.updated',
         before,
-        after: { caption: photo.caption, facePart: photo.facePart, pinX: photo.pinX, pinY: photo.pinY },
+        after: {
+          caption: photo.caption,
+          facePart: photo.facePart,
+          pinX: photo.pinX,
+          pinY: photo.pinY,
+          scale: scaleOf(photo),
+        },
       });
     });
     return (await this.toDtos([photo]))[0];
@@ -398,11 +430,25 @@ export class PhotosService {
       uploadedByName: names.get(p.uploadedBy) ?? null,
       pinX: p.pinX,
       pinY: p.pinY,
+      scale: scaleOf(p),
       width: p.width,
       height: p.height,
       createdAt: (p.createdAt ?? new Date()).toISOString(),
     }));
   }
+}
+
+/** The stored scale as the API shows it, or null when none is set. */
+function scaleOf(p: Photo): PhotoScaleDto | null {
+  if (
+    p.scaleAx === null ||
+    p.scaleAy === null ||
+    p.scaleBx === null ||
+    p.scaleBy === null ||
+    p.scaleM === null
+  )
+    return null;
+  return { a: { x: p.scaleAx, y: p.scaleAy }, b: { x: p.scaleBx, y: p.scaleBy }, distanceM: p.scaleM };
 }
 
 /** An upload already gone or completed cannot be aborted; only an outage matters. */

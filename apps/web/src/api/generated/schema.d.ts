@@ -818,7 +818,7 @@ export interface paths {
         delete: operations["PhotosController_remove"];
         options?: never;
         head?: never;
-        /** Caption, part of the face, pin on the sketch */
+        /** Caption, part of the face, pin on the sketch, scale on the photo */
         patch: operations["PhotosController_update"];
         trace?: never;
     };
@@ -2399,6 +2399,16 @@ export interface components {
         PhotoVariantState: "pending" | "ready" | "failed";
         /** @enum {string} */
         FacePart: "face" | "crown" | "left-wall" | "right-wall" | "invert" | "probe";
+        PhotoPointDto: {
+            x: number;
+            y: number;
+        };
+        PhotoScaleDto: {
+            a: components["schemas"]["PhotoPointDto"];
+            b: components["schemas"]["PhotoPointDto"];
+            /** @description metres between the two points */
+            distanceM: number;
+        };
         PhotoDto: {
             uploadState: components["schemas"]["PhotoUploadState"];
             variantState: components["schemas"]["PhotoVariantState"];
@@ -2408,6 +2418,7 @@ export interface components {
             uploadedByName: string | null;
             pinX: number | null;
             pinY: number | null;
+            scale: components["schemas"]["PhotoScaleDto"] | null;
             width: number | null;
             height: number | null;
             /** Format: date-time */
@@ -2451,6 +2462,8 @@ export interface components {
             facePart?: components["schemas"]["FacePart"] | null;
             pinX?: number | null;
             pinY?: number | null;
+            /** @description The scale marked on the photo; null removes it */
+            scale?: components["schemas"]["PhotoScaleDto"] | null;
             caption?: string;
         };
         /** @enum {string} */

@@ -4,6 +4,7 @@ import { driveTrendAt, formatChainageFor } from '@roundbook/domain';
 import { driveOf } from '@roundbook/geomath';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import type { QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
 import type { LoaderFunctionArgs, ShouldRevalidateFunction } from 'react-router-dom';
 import { Link, useParams } from 'react-router-dom';
 import { headingQueryOptions } from '@/api/resources/headings';
@@ -16,6 +17,7 @@ import { RaiseHazardButton } from '@/features/hazards/components/raise-hazard-bu
 import { RoundOrientationPanel } from '@/features/orientation/components/round-orientation-panel';
 import { SET_COLOURS_LIGHT } from '@/features/orientation/scene/palette';
 import { PhotosSection } from '@/features/photos';
+import { usePhotoPins } from '@/features/photos/hooks/use-photo-pins';
 import { ReviewPanel } from '@/features/review/components/review-panel';
 import { SectionComments } from '@/features/review/components/section-comments';
 import {
@@ -24,7 +26,7 @@ import {
   useRoundProject,
   useRoundSupportClasses,
 } from '@/features/rounds/api/get-round';
-import { ROUND_SECTIONS, RoundEditor } from '@/features/rounds/components/round-editor';
+import { ROUND_SECTIONS, RoundEditor, type RoundSection } from '@/features/rounds/components/round-editor';
 import { pendingRoundOf, sendPendingRound } from '@/features/rounds/utils/offline-round';
 import { SketchSection } from '@/features/sketch';
 import { SupportRecordSection } from '@/features/support-records/components/support-record-section';
@@ -89,6 +91,9 @@ export function RoundRoute() {
   const { data: heading } = useRoundHeading(projectId, round.headingId);
   const { data: library } = useRoundSupportClasses(projectId);
   const { mode } = useThemePreference();
+  // "Pin on the sketch" from a photo: the Sketch section opens and its next tap places the pin.
+  const photoPins = usePhotoPins(projectId, roundId);
+  const [sectionRequest, setSectionRequest] = useState<{ section: RoundSection; seq: number }>();
   // The drive at the face: the alignment's tangent there (straights and arcs), the gradient's plunge.
   const driveAt = (faceChainage: number) => {
     try {
@@ -124,6 +129,7 @@ export function RoundRoute() {
         supportClasses={library.classes}
         canEdit={project.role === 'geologist'}
         initialSection={initialSection}
+        sectionRequest={sectionRequest}
         onSectionChange={setSection}
         sectionNoteSlot={
           round.status === 'draft' && round.revision === 1
@@ -163,6 +169,11 @@ export function RoundRoute() {
                 label: s.label,
                 colour: colours[i % colours.length],
               }))}
+              photoPins={photoPins.pins}
+              pinning={photoPins.pinning}
+              pinError={photoPins.error}
+              onPin={photoPins.place}
+              onCancelPin={photoPins.cancel}
             />
           );
         }}
@@ -187,6 +198,13 @@ export function RoundRoute() {
         projectId={projectId}
         roundId={round.id}
         timeZone={project.timeZone}
+        onPinOnSketch={(photo, label) => {
+          photoPins.start(photo, label);
+          setSectionRequest((r) => ({ section: 'sketch', seq: (r?.seq ?? 0) + 1 }));
+          document
+            .querySelector('[role="tablist"][aria-label="Sections of the round"]')
+            ?.scrollIntoView({ block: 'start' });
+        }}
         canEdit={
           (project.role === 'geologist' || project.role === 'admin') &&
           (round.status === 'draft' || round.status === 'returned')

@@ -8,6 +8,7 @@ import {
   IsInt,
   IsNumber,
   IsOptional,
+  IsPositive,
   IsString,
   Length,
   Max,
@@ -29,6 +30,38 @@ import {
 
 export const PHOTO_VARIANTS = ['original', 'display', 'thumbnail'] as const;
 export type PhotoVariant = (typeof PHOTO_VARIANTS)[number];
+
+/** A point on the photo as fractions of its upright width (x, from the left) and height (y, from the top). */
+export class PhotoPointDto {
+  @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give x as a number from 0 to 1.' })
+  @Min(0, { message: 'x is a fraction of the photo width, from 0 to 1.' })
+  @Max(1, { message: 'x is a fraction of the photo width, from 0 to 1.' })
+  x: number;
+
+  @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give y as a number from 0 to 1.' })
+  @Min(0, { message: 'y is a fraction of the photo height, from 0 to 1.' })
+  @Max(1, { message: 'y is a fraction of the photo height, from 0 to 1.' })
+  y: number;
+}
+
+/** A scale on the photo: two marked points and the known distance between them. */
+export class PhotoScaleDto {
+  @IsObject({ message: 'Give the first point as { x, y }.' })
+  @ValidateNested()
+  @Type(() => PhotoPointDto)
+  a: PhotoPointDto;
+
+  @IsObject({ message: 'Give the second point as { x, y }.' })
+  @ValidateNested()
+  @Type(() => PhotoPointDto)
+  b: PhotoPointDto;
+
+  /** metres between the two points */
+  @IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'Give the distance in metres.' })
+  @IsPositive({ message: 'The distance between the two points must be more than 0 m.' })
+  @Max(1000, { message: 'The distance between the two points can be at most 1000 m.' })
+  distanceM: number;
+}
 
 /** A photo as the app shows it. */
 export class PhotoDto {
@@ -54,6 +87,8 @@ export class PhotoDto {
   pinX: number | null;
   @ApiProperty({ type: Number, nullable: true })
   pinY: number | null;
+  @ApiProperty({ type: PhotoScaleDto, nullable: true })
+  scale: PhotoScaleDto | null;
   @ApiProperty({ type: Number, nullable: true })
   width: number | null;
   @ApiProperty({ type: Number, nullable: true })
@@ -138,6 +173,15 @@ export class UpdatePhotoDto {
   @Min(-1000)
   @Max(1000)
   pinY?: number | null;
+
+  /** The scale marked on the photo; null removes it */
+  @ApiProperty({ type: PhotoScaleDto, nullable: true, required: false })
+  @IsOptional()
+  @ValidateIf((_o, v) => v !== null)
+  @IsObject({ message: 'Give the scale as { a, b, distanceM }, or null to remove it.' })
+  @ValidateNested()
+  @Type(() => PhotoScaleDto)
+  scale?: PhotoScaleDto | null;
 }
 
 export class PhotoUrlQueryDto {

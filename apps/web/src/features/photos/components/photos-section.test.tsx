@@ -1,5 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { pinsOf } from '../hooks/use-photo-pins';
 import { PhotosSection } from './photos-section';
 import type { Photo } from '@/api/resources/photos';
 import { saveSession } from '@/lib/session';
@@ -24,6 +25,7 @@ const stored = (over: Partial<Photo>): Photo => ({
   uploadedByName: 'Invented Geologist',
   pinX: null,
   pinY: null,
+  scale: null,
   width: 1500,
   height: 2000,
   createdAt: '2026-11-30T07:00:00.000Z',
@@ -201,5 +203,43 @@ describe('PhotosSection', () => {
     expect(await screen.findByText('Shear zone')).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Add photos' })).not.toBeInTheDocument();
     expect(screen.queryByRole('combobox')).not.toBeInTheDocument();
+  });
+});
+
+describe('pins on the sketch', () => {
+  it('numbers the pins as the gallery numbers its photos, skipping photos without one', () => {
+    expect(
+      pinsOf([
+        stored({ id: 'a', pinX: -1.5, pinY: 2 }),
+        stored({ id: 'b' }),
+        stored({ id: 'c', caption: 'Crown wedge', pinX: 0.25, pinY: 4.1 }),
+      ]),
+    ).toEqual([
+      { photoId: 'a', number: 1, at: [-1.5, 2], label: 'IMG_1.JPG' },
+      { photoId: 'c', number: 3, at: [0.25, 4.1], label: 'Crown wedge' },
+    ]);
+  });
+
+  it('asks the round page to pin a photo, shows a pinned one as pinned and removes its pin', async () => {
+    const patches: unknown[] = [];
+    mockApi({
+      [`GET ${BASE}`]: [stored({}), stored({ id: 'ph-2', originalName: 'IMG_2.JPG', pinX: 1, pinY: 2 })],
+      [`GET ${BASE}/ph-1/url`]: { url: 'http://storage.test/1.jpg', variant: 'thumbnail', expiresAt: 'x' },
+      [`GET ${BASE}/ph-2/url`]: { url: 'http://storage.test/2.jpg', variant: 'thumbnail', expiresAt: 'x' },
+      [`PATCH ${BASE}/ph-2`]: async (request) => {
+        patches.push(await request.json());
+        return jsonResponse(stored({ id: 'ph-2' }));
+      },
+    });
+    const onPin = jest.fn();
+    renderWithProviders(<PhotosSection projectId="p-1" roundId="r-1" canEdit onPinOnSketch={onPin} />);
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole('button', { name: 'Pin on the sketch' }));
+    expect(onPin).toHaveBeenCalledWith(expect.objectContaining({ id: 'ph-1' }), '1 · IMG_1.JPG');
+    expect(screen.getByText('Pinned on the sketch · 2')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Move the pin' }));
+    expect(onPin).toHaveBeenLastCalledWith(expect.objectContaining({ id: 'ph-2' }), '2 · IMG_2.JPG');
+    await user.click(screen.getByRole('button', { name: 'Remove the pin of IMG_2.JPG' }));
+    await waitFor(() => expect(patches).toEqual([{ pinX: null, pinY: null }]));
   });
 });

@@ -1,10 +1,7 @@
 import {
   Button,
+  Badge,
   Caption1,
-  Dialog,
-  DialogBody,
-  DialogSurface,
-  DialogTitle,
   Field,
   Input,
   ProgressBar,
@@ -18,10 +15,9 @@ import {
   ArrowClockwiseRegular,
   CameraAddRegular,
   ImageAddRegular,
-  ChevronLeftRegular,
-  ChevronRightRegular,
   DeleteRegular,
-  DismissRegular,
+  PinOffRegular,
+  PinRegular,
 } from '@fluentui/react-icons';
 import { formatProjectTime } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
@@ -29,6 +25,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState } from 'react';
 import type { UploadProgress } from '../upload/photo-upload';
 import { freshProgress, refuseBeforeUpload, uploadPhoto } from '../upload/photo-upload';
+import { PhotoViewer } from './photo-viewer';
 import type { FacePart, Photo, PhotoVariant } from '@/api/resources/photos';
 import {
   deletePhoto,
@@ -54,6 +51,7 @@ const useStyles = makeStyles({
   row: { display: 'flex', alignItems: 'center', gap: '8px', flexWrap: 'wrap' },
   touch: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
   hidden: { display: 'none' },
+  badge: { alignSelf: 'flex-start' },
   uploads: { display: 'flex', flexDirection: 'column', gap: '8px' },
   upload: { display: 'grid', gridTemplateColumns: '1fr auto', gap: '4px 8px', alignItems: 'center' },
   gallery: {
@@ -77,14 +75,6 @@ const useStyles = makeStyles({
     minHeight: `${TOUCH_TARGET_PX}px`,
   },
   thumb: { width: '100%', height: '140px', objectFit: 'cover', display: 'block' },
-  viewer: { maxWidth: '100vw', width: '100vw', height: '100vh', maxHeight: '100vh', padding: '8px' },
-  viewerImage: {
-    maxWidth: '100%',
-    maxHeight: 'calc(100vh - 140px)',
-    objectFit: 'contain',
-    margin: '0 auto',
-    display: 'block',
-  },
 });
 
 interface FileUpload {
@@ -104,10 +94,12 @@ export interface PhotosSectionProps {
   canEdit: boolean;
   /** The project's time zone: times taken are shown in it. */
   timeZone?: string;
+  /** "Pin on the sketch": the round page opens the sketch and waits for a tap (absent: no pin button). */
+  onPinOnSketch?: (photo: Photo, label: string) => void;
 }
 
 /** Photos of a round: add from the camera or files, a gallery with caption and part, a full-screen view. */
-export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosSectionProps) {
+export function PhotosSection({ projectId, roundId, canEdit, timeZone, onPinOnSketch }: PhotosSectionProps) {
   const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   const styles = useStyles();
   const queryClient = useQueryClient();
@@ -262,7 +254,9 @@ export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosS
             photo={photo}
             canEdit={canEdit}
             timeZone={zone}
+            number={i + 1}
             onOpen={() => setViewing(i)}
+            onPinOnSketch={onPinOnSketch}
           />
         ))}
       </div>
@@ -273,6 +267,8 @@ export function PhotosSection({ projectId, roundId, canEdit, timeZone }: PhotosS
           index={viewing}
           onIndex={setViewing}
           onClose={() => setViewing(null)}
+          canEdit={canEdit}
+          facePartLabels={facePartLabels}
         />
       )}
     </section>
@@ -289,12 +285,17 @@ function PhotoCard({
   canEdit,
   onOpen,
   timeZone,
+  number,
+  onPinOnSketch,
 }: {
   at: { projectId: string; roundId: string };
   photo: Photo;
   canEdit: boolean;
   timeZone: string;
+  /** Its place in the gallery: the number of its pin on the sketch. */
+  number: number;
   onOpen: () => void;
+  onPinOnSketch?: (photo: Photo, label: string) => void;
 }) {
   const styles = useStyles();
   const queryClient = useQueryClient();
@@ -324,6 +325,31 @@ function PhotoCard({
         {photo.uploadedByName ? ` · ${photo.uploadedByName}` : ''}
         {photo.variantState === 'pending' ? ' · thumbnail being made' : ''}
       </Caption1>
+      {photo.pinX !== null && (
+        <Badge appearance="tint" color="brand" className={styles.badge}>
+          {`Pinned on the sketch · ${number}`}
+        </Badge>
+      )}
+      {canEdit && onPinOnSketch && (
+        <div className={styles.row}>
+          <Button
+            className={styles.touch}
+            icon={<PinRegular />}
+            onClick={() => onPinOnSketch(photo, `${number} · ${label}`)}
+          >
+            {photo.pinX === null ? 'Pin on the sketch' : 'Move the pin'}
+          </Button>
+          {photo.pinX !== null && (
+            <Button
+              className={styles.touch}
+              appearance="subtle"
+              aria-label={`Remove the pin of ${label}`}
+              icon={<PinOffRegular />}
+              onClick={() => save.mutate({ pinX: null, pinY: null })}
+            />
+          )}
+        </div>
+      )}
       {canEdit ? (
         <>
           <Field label="Caption">
@@ -366,84 +392,5 @@ function PhotoCard({
         </Text>
       )}
     </div>
-  );
-}
-
-function PhotoViewer({
-  at,
-  photos,
-  index,
-  onIndex,
-  onClose,
-}: {
-  at: { projectId: string; roundId: string };
-  photos: Photo[];
-  index: number;
-  onIndex: (i: number) => void;
-  onClose: () => void;
-}) {
-  const styles = useStyles();
-  const photo = photos[index];
-  const url = usePhotoUrl(at, photo, 'display');
-  const touchX = useRef<number | null>(null);
-  const go = (step: number) => onIndex((index + step + photos.length) % photos.length);
-  return (
-    <Dialog open onOpenChange={(_e, d) => !d.open && onClose()}>
-      <DialogSurface
-        className={styles.viewer}
-        onKeyDown={(e) => {
-          if (e.key === 'ArrowRight') go(1);
-          if (e.key === 'ArrowLeft') go(-1);
-        }}
-        onTouchStart={(e) => (touchX.current = e.touches[0]?.clientX ?? null)}
-        onTouchEnd={(e) => {
-          const start = touchX.current;
-          const end = e.changedTouches[0]?.clientX;
-          if (start !== null && end !== undefined && Math.abs(end - start) > 50) go(end < start ? 1 : -1);
-          touchX.current = null;
-        }}
-      >
-        <DialogBody>
-          <DialogTitle
-            action={
-              <Button
-                className={styles.touch}
-                appearance="subtle"
-                aria-label="Close"
-                icon={<DismissRegular />}
-                onClick={onClose}
-              />
-            }
-          >
-            {photo.caption || photo.originalName}
-          </DialogTitle>
-          <div>
-            {url.data && (
-              <img
-                className={styles.viewerImage}
-                src={url.data.url}
-                alt={photo.caption || photo.originalName}
-              />
-            )}
-            <div className={styles.row}>
-              <Button
-                className={styles.touch}
-                aria-label="Previous photo"
-                icon={<ChevronLeftRegular />}
-                onClick={() => go(-1)}
-              />
-              <Text>{`${index + 1} of ${photos.length}`}</Text>
-              <Button
-                className={styles.touch}
-                aria-label="Next photo"
-                icon={<ChevronRightRegular />}
-                onClick={() => go(1)}
-              />
-              {photo.facePart && <Text>{facePartLabels[photo.facePart]}</Text>}
-            </div>
-          </div>
-        </DialogBody>
-      </DialogSurface>
-    </Dialog>
   );
 }

@@ -85,6 +85,8 @@ export interface RoundEditorProps {
   /** The person may edit rounds (geologist); the round's status decides the rest. */
   canEdit: boolean;
   initialSection?: RoundSection;
+  /** Asks to show a section (a new `seq` each time), e.g. the sketch when a photo is to be pinned on it. */
+  sectionRequest?: { section: RoundSection; seq: number };
   /** Told when the section shown changes (the route keeps it in the address, so a reload stays on it). */
   onSectionChange?: (section: RoundSection) => void;
   /**
@@ -180,6 +182,7 @@ function RoundEditorBody({
   supportClasses,
   canEdit,
   initialSection,
+  sectionRequest,
   onSectionChange,
   orientationSlot,
   sketchSlot,
@@ -189,6 +192,12 @@ function RoundEditorBody({
   const styles = useStyles();
   const { values, resetForm, setFieldValue } = useFormikContext<RoundFormValues>();
   const [section, setSection] = useState<RoundSection>(initialSection ?? 'position');
+  // A request from outside (the photos' "Pin on the sketch") switches once per seq (state adjusted while rendering).
+  const [requestSeen, setRequestSeen] = useState(sectionRequest?.seq ?? 0);
+  if (sectionRequest && sectionRequest.seq !== requestSeen) {
+    setRequestSeen(sectionRequest.seq);
+    setSection(sectionRequest.section);
+  }
   useEffect(() => onSectionChange?.(section), [onSectionChange, section]);
   const [submitErrors, setSubmitErrors] = useState<Record<string, string>>({});
   const [submitMessage, setSubmitMessage] = useState<string | null>(null);

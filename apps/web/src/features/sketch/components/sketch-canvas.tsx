@@ -41,6 +41,37 @@ export interface SketchCanvasProps {
   onPointerMove: (p: SketchPoint) => void;
   onPointerUp: (p: SketchPoint) => void;
   onDoubleTap: () => void;
+  /** Photos pinned on the face (not part of the document: each photo keeps its own pin). */
+  pins?: SketchPhotoPin[];
+}
+
+/** A photo's pin on the sketch, numbered as in the round's gallery. */
+export interface SketchPhotoPin {
+  photoId: string;
+  number: number;
+  at: SketchPoint;
+}
+
+/** Roundbook's photo pin: a numbered disc on a short stem whose foot is the spot (drawn over everything). */
+function PhotoPin({ pin, view }: { pin: SketchPhotoPin; view: ViewTransform }) {
+  const [x, y] = toPx(view, pin.at);
+  return (
+    <Group listening={false}>
+      <Line points={[x, y, x, y - 14]} stroke={SKETCH_INK.ink} strokeWidth={2} />
+      <Circle x={x} y={y} radius={3} fill={SKETCH_INK.ink} />
+      <Circle x={x} y={y - 26} radius={12} fill={SKETCH_INK.ink} stroke={SKETCH_INK.paper} strokeWidth={2} />
+      <Text
+        x={x - 12}
+        y={y - 33}
+        width={24}
+        align="center"
+        text={String(pin.number)}
+        fontSize={LABEL_FONT}
+        fontStyle="bold"
+        fill={SKETCH_INK.paper}
+      />
+    </Group>
+  );
 }
 
 const LABEL_FONT = 13;
@@ -413,6 +444,9 @@ export function SketchCanvas(props: SketchCanvasProps) {
             }
           }
         })}
+        {props.pins?.map((pin) => (
+          <PhotoPin key={pin.photoId} pin={pin} view={view} />
+        ))}
         {draft !== null && (
           <Line
             points={flatPx(view, draft.points)}

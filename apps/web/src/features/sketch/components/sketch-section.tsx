@@ -27,6 +27,7 @@ import type {
   SketchDocument,
   SketchElement,
   SketchHistory,
+  SketchPoint,
   Stage,
   TraceLink,
   WaterState,
@@ -47,6 +48,7 @@ import {
 } from '@roundbook/domain';
 import { TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useCallback, useLayoutEffect, useMemo, useRef, useState, type ReactElement } from 'react';
+import type { SketchPhotoPin } from '@/features/sketch/components/sketch-canvas';
 import { SKETCH_INK, SketchCanvas } from '@/features/sketch/components/sketch-canvas';
 import type { SketchProfileInput, ViewTransform } from '@/features/sketch/utils/face-frame';
 import { faceFrameOf, fitView } from '@/features/sketch/utils/face-frame';
@@ -57,6 +59,7 @@ import {
   pointerMove,
   pointerUp,
   SKETCH_TOOLS,
+  snap,
   toolLabels,
 } from '@/features/sketch/utils/tools';
 
@@ -78,6 +81,14 @@ export interface SketchSectionProps {
   joints: SketchJoint[];
   /** The round's sets with their colours (the stereonet's). */
   sets: { label: string; colour: string }[];
+  /** The round's photos pinned on the face, numbered as in the gallery. */
+  photoPins?: (SketchPhotoPin & { label: string })[];
+  /** A photo waiting for its pin: the next tap on the face places it (the sketch itself is not changed). */
+  pinning?: { photoId: string; label: string } | null;
+  onPin?: (photoId: string, at: SketchPoint) => void;
+  onCancelPin?: () => void;
+  /** The pin could not be saved. */
+  pinError?: string | null;
 }
 
 const useStyles = makeStyles({
@@ -136,7 +147,7 @@ const linkOf = (value: string): TraceLink =>
 
 /** The Sketch section of a round: the face on the heading's profile, drawn with tools, linked to the joints. */
 export function SketchSection(props: SketchSectionProps) {
-  const { document: doc, onChange, readOnly, joints, sets } = props;
+  const { document: doc, onChange, readOnly, joints, sets, pinning } = props;
   const styles = useStyles();
   const frame = useMemo(() => faceFrameOf(props.heading, props.stage), [props.heading, props.stage]);
   const [history, setHistory] = useState<SketchHistory>(() => historyOf(doc));
@@ -399,6 +410,15 @@ export function SketchSection(props: SketchSectionProps) {
           )}
         </div>
       )}
+      {pinning && (
+        <div className={styles.bar} role="status" data-testid="sketch-pinning">
+          <Text weight="semibold">{`Tap the face where “${pinning.label}” was taken.`}</Text>
+          <Button className={styles.tool} size="large" onClick={() => props.onCancelPin?.()}>
+            Cancel the pin
+          </Button>
+          {props.pinError && <Text role="alert">{props.pinError}</Text>}
+        </div>
+      )}
       {error !== null && (
         <Text role="alert" style={{ color: tokens.colorPaletteRedForeground1 }}>
           {error}
@@ -418,13 +438,17 @@ export function SketchSection(props: SketchSectionProps) {
             colourOf={colourOf}
             selectedId={selectedId}
             highlighted={highlighted}
-            selecting={readOnly || tool === 'select'}
+            selecting={!pinning && (readOnly || tool === 'select')}
+            pins={props.photoPins}
             onPick={pick}
             onMove={(id, dx, dy) => act('move', { ids: [id], dx, dy })}
-            onPointerDown={(p) => !readOnly && apply(pointerDown(tool, draft, p, settings))}
-            onPointerMove={(p) => setDraft((d) => pointerMove(d, p))}
-            onPointerUp={(p) => !readOnly && apply(pointerUp(draft, p, settings))}
-            onDoubleTap={() => !readOnly && apply(finishLine(draft, settings))}
+            onPointerDown={(p) => {
+              if (pinning) props.onPin?.(pinning.photoId, snap(p));
+              else if (!readOnly) apply(pointerDown(tool, draft, p, settings));
+            }}
+            onPointerMove={(p) => !pinning && setDraft((d) => pointerMove(d, p))}
+            onPointerUp={(p) => !readOnly && !pinning && apply(pointerUp(draft, p, settings))}
+            onDoubleTap={() => !readOnly && !pinning && apply(finishLine(draft, settings))}
           />
         </div>
         <div className={styles.side}>
@@ -501,9 +525,20 @@ export function SketchSection(props: SketchSectionProps) {
               </ToggleButton>
             );
           })}
+          {(props.photoPins?.length ?? 0) > 0 && (
+            <>
+              <Text weight="semibold">Photos pinned on the sketch</Text>
+              {props.photoPins!.map((pin) => (
+                <Text key={pin.photoId} data-testid={`sketch-pin-${pin.photoId}`}>
+                  {`${pin.number} · ${pin.label}`}
+                </Text>
+              ))}
+            </>
+          )}
           <Text size={200}>
             Damp: dashed ring · Dripping: ring with a falling drop · Flowing: filled drop with a run-off line
-            and its inflow. Overbreak: dashed outline with its area.
+            and its inflow. Overbreak: dashed outline with its area. Numbered disc on a stem: where a photo of
+            the round was taken (its number in Photos).
           </Text>
         </div>
       </div>
