@@ -43,7 +43,7 @@ describe('Round screen and Setup share one copy of the project data', () => {
     const user = userEvent.setup();
     await user.click(await screen.findByRole('tab', { name: 'Support' }));
     const classB = () => screen.getAllByTestId('support-class').find((c) => c.textContent?.startsWith('B'));
-    expect(classB()).toHaveTextContent('Q 1–10');
+    expect(classB()).toHaveTextContent('1 ≤ Q < 10'); // as the band is applied (issue 19 item 1)
     expect(classB()).toHaveTextContent('Fits the ratings');
     const roundReads = requestedRoutes(api).filter((r) => r === ROUND).length;
 
@@ -56,7 +56,7 @@ describe('Round screen and Setup share one copy of the project data', () => {
       result.current.mutateAsync({ kind: 'update', classId: 'c-B', body: { qMin: 2, version: 1 } }),
     );
 
-    await waitFor(() => expect(classB()).toHaveTextContent('Q 2–10'));
+    await waitFor(() => expect(classB()).toHaveTextContent('2 ≤ Q < 10'));
     await waitFor(() => expect(requestedRoutes(api).filter((r) => r === ROUND)).toHaveLength(roundReads + 1));
     const classA = () => screen.getAllByTestId('support-class').find((c) => c.textContent?.startsWith('A'));
     await waitFor(() => expect(classA()).toHaveTextContent('Fits the ratings'));

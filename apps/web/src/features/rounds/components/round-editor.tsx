@@ -539,6 +539,7 @@ function RoundEditorBody({
           <SupportSection
             classes={supportClasses}
             suggestedClassIds={server.suggestedClassIds}
+            suggestion={assessment.suggestion}
             plannedRoundLength={server.plannedRoundLength}
             canSubmit={!readOnly}
             submitting={submitting}

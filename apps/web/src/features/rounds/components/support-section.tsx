@@ -11,6 +11,7 @@ import {
   tokens,
 } from '@fluentui/react-components';
 import { SendRegular } from '@fluentui/react-icons';
+import { qBandText, rmrBandText, type SupportSuggestion } from '@roundbook/domain';
 import { ratingCaution } from '@roundbook/geomath';
 import { useFormikContext } from 'formik';
 import type { SupportClass } from '@/features/rounds/api/types';
@@ -21,6 +22,11 @@ import { valueOf } from '@/features/rounds/schemas/round-form';
 export interface SupportSectionProps {
   classes: SupportClass[];
   suggestedClassIds: string[];
+  /**
+   * What the ratings point to and why (the round's assessment): its reason is shown, and when no class fits
+   * both ratings the more cautious class it names is offered first.
+   */
+  suggestion?: Pick<SupportSuggestion, 'suggested' | 'reason'>;
   /** The heading's planned round length: the next round length starts at it, or at the class's maximum if less */
   plannedRoundLength?: number;
   canSubmit: boolean;
@@ -88,18 +94,12 @@ const useStyles = makeStyles({
   error: { color: tokens.colorPaletteRedForeground1, fontWeight: tokens.fontWeightSemibold },
 });
 
-function range(min: number | null, max: number | null, system: string): string | null {
-  if (min === null && max === null) return null;
-  if (min === null) return `${system} under ${max}`;
-  if (max === null) return `${system} ${min} or more`;
-  return `${system} ${min}–${max}`;
-}
-
 /** A class in two lines of words: its bands and round length, then what is built (cards and summaries). */
 export function classLines(c: SupportClass): string[] {
   const bands = [
-    range(c.qMin, c.qMax, 'Q'),
-    range(c.rmrMin, c.rmrMax, 'RMR'),
+    // The bands exactly as they are applied (Q half-open, RMR89 both ends included; packages/domain).
+    qBandText(c),
+    rmrBandText(c),
     `rounds up to ${c.maxRoundLength} m`,
   ]
     .filter((s) => s !== null)
@@ -119,6 +119,7 @@ export function classLines(c: SupportClass): string[] {
 export function SupportSection({
   classes,
   suggestedClassIds,
+  suggestion,
   plannedRoundLength,
   canSubmit,
   submitting,
@@ -132,8 +133,13 @@ export function SupportSection({
   const suggested = suggestedClassIds
     .map((id) => active.find((c) => c.id === id))
     .filter((c): c is SupportClass => c !== undefined);
+  // No class fits both ratings: the more cautious of the two the ratings point to comes first, with the reason.
+  const cautious =
+    suggested.length === 0 && suggestion?.suggested
+      ? (active.find((c) => c.id === suggestion.suggested) ?? null)
+      : null;
   const others = active
-    .filter((c) => !suggestedClassIds.includes(c.id))
+    .filter((c) => !suggestedClassIds.includes(c.id) && c.id !== cautious?.id)
     .sort((a, b) => a.sortOrder - b.sortOrder);
   const chosen = active.find((c) => c.id === values.recommendedClassId) ?? null;
   const outside = chosen !== null && !suggestedClassIds.includes(chosen.id);
@@ -141,7 +147,7 @@ export function SupportSection({
   const overMax = chosen !== null && next !== null && next > chosen.maxRoundLength;
   const caution = ratingCaution('who-decides');
 
-  const card = (c: SupportClass, isSuggested: boolean) => (
+  const card = (c: SupportClass, isSuggested: boolean, badge = 'Fits the ratings') => (
     <button
       key={c.id}
       type="button"
@@ -172,7 +178,7 @@ export function SupportSection({
         <span className={styles.code}>{c.code}</span>
         {isSuggested && (
           <Badge appearance="filled" color="success" size="large" shape="rounded">
-            Fits the ratings
+            {badge}
           </Badge>
         )}
       </span>
@@ -198,7 +204,15 @@ export function SupportSection({
         <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           {suggested.length > 0 ? 'Classes that fit the ratings' : 'No class fits the ratings as saved'}
         </Text>
+        {suggestion?.reason ? (
+          <Text className={styles.muted} data-testid="support-reason">
+            {suggestion.reason}
+          </Text>
+        ) : null}
         {suggested.length > 0 && <div className={styles.list}>{suggested.map((c) => card(c, true))}</div>}
+        {cautious !== null && (
+          <div className={styles.list}>{card(cautious, true, 'The more cautious of the two')}</div>
+        )}
         <Text as="h3" weight="semibold" size={500} className={styles.heading}>
           Other active classes
         </Text>
