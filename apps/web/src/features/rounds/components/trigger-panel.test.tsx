@@ -102,7 +102,7 @@ describe('TriggerPanel', () => {
     expect(formatTimeAllowed(72)).toBe('within 72 h (3 days)');
   });
 
-  it('says "not evaluated (2 rules)" and which data are missing, never "no rules", when the project has rules (issue 10 item 8, issue 19 item 10)', () => {
+  it('says "not evaluated (2 rules)" and, when asked, which data are missing, never "no rules", when the project has rules (issue 10 item 8, issue 19 items 4 and 10)', async () => {
     renderWithProviders(
       <TriggerPanel
         level={null}
@@ -116,7 +116,20 @@ describe('TriggerPanel', () => {
     );
     const panel = screen.getByTestId('trigger-panel');
     expect(within(panel).getByText('not evaluated (2 rules)')).toBeInTheDocument();
-    expect(panel).toHaveTextContent('Q < 1 → amber (Q is not recorded yet)');
+    // One line until asked for: the rules and what each waits for are behind a toggle.
+    expect(panel).toHaveTextContent('2 rules wait for the data they read.');
+    expect(panel).not.toHaveTextContent('Q is not recorded yet');
+    const toggle = within(panel).getByRole('button', { name: 'Show which rules wait' });
+    expect(toggle).toHaveAttribute('aria-expanded', 'false');
+    await userEvent.setup().click(toggle);
+    expect(within(panel).getByTestId('rules-waiting')).toHaveTextContent(
+      'Q < 1 → amber — Q is not recorded yet',
+    );
+    expect(panel).toHaveTextContent('Inflow per 10 m > 5 l/min → amber — the inflow is not recorded yet');
+    expect(within(panel).getByRole('button', { name: 'Hide the waiting rules' })).toHaveAttribute(
+      'aria-expanded',
+      'true',
+    );
     expect(panel).not.toHaveTextContent('no trigger rules');
   });
 

@@ -113,6 +113,10 @@ export function TriggerPanel({
   const titleId = useId();
   const listId = useId();
   const [open, setOpen] = useState(false);
+  // A new round has no data yet: the rules that wait for it are one line until asked for (issue 19 item 4).
+  const [waitingOpen, setWaitingOpen] = useState(false);
+  const waitingId = useId();
+  const waiting = level === null ? notEvaluated : [];
   const folded = firings.length > shownAtFirst && !open;
   const shown = folded ? firings.slice(0, shownAtFirst) : firings;
   const hidden = firings.length - shownAtFirst;
@@ -120,7 +124,7 @@ export function TriggerPanel({
   const basis = live ? 'As typed; saved with the round.' : 'As of the last save.';
   const note =
     level === null && notEvaluated.length > 0
-      ? `Not evaluated until the round has their data: ${notEvaluated.map((r) => `${r.summary} (${r.detail})`).join('; ')}. ${basis}`
+      ? `${notEvaluated.length} ${notEvaluated.length === 1 ? 'rule waits' : 'rules wait'} for the data they read. ${basis}`
       : level === null
         ? 'The project has no trigger rules yet; an admin or engineer adds them in Setup.'
         : firings.length === 0
@@ -144,6 +148,30 @@ export function TriggerPanel({
         />
         <Caption1 className={styles.note}>{note}</Caption1>
       </div>
+      {waiting.length > 0 && (
+        <Button
+          className={styles.more}
+          size="large"
+          appearance="secondary"
+          aria-expanded={waitingOpen}
+          aria-controls={waitingId}
+          onClick={() => setWaitingOpen((o) => !o)}
+        >
+          {waitingOpen ? 'Hide the waiting rules' : 'Show which rules wait'}
+        </Button>
+      )}
+      {waiting.length > 0 && waitingOpen && (
+        <ul
+          className={styles.list}
+          id={waitingId}
+          aria-label="Rules waiting for data"
+          data-testid="rules-waiting"
+        >
+          {waiting.map((r, i) => (
+            <li key={`${i}-${r.summary}`} className={styles.note}>{`${r.summary} — ${r.detail}`}</li>
+          ))}
+        </ul>
+      )}
       {firings.length > 0 && (
         <ul className={styles.list} id={listId} aria-label="Rules that fire">
           {shown.map((firing) => (
