@@ -50,6 +50,9 @@ const useStyles = makeStyles({
   section: { display: 'flex', flexDirection: 'column', gap: '12px', marginTop: '24px' },
   row: { display: 'flex', alignItems: 'center', gap: '8px', flexWrap: 'wrap' },
   touch: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: `${TOUCH_TARGET_PX}px` },
+  // A card is as narrow as 180 px: its caption and part-of-face controls take its width (Fluent's input has a
+  // minimum width of its own that made it stick out of the card).
+  fill: { width: '100%', minWidth: 0, maxWidth: '100%', boxSizing: 'border-box' },
   hidden: { display: 'none' },
   badge: { alignSelf: 'flex-start' },
   uploads: { display: 'flex', flexDirection: 'column', gap: '8px' },
@@ -354,6 +357,7 @@ function PhotoCard({
         <>
           <Field label="Caption">
             <Input
+              className={styles.fill}
               value={caption}
               maxLength={500}
               onChange={(_e, d) => setCaption(d.value)}
@@ -362,6 +366,7 @@ function PhotoCard({
           </Field>
           <Field label="Part of the face">
             <Select
+              className={styles.fill}
               value={photo.facePart ?? ''}
               onChange={(_e, d) => save.mutate({ facePart: d.value === '' ? null : (d.value as FacePart) })}
             >
