@@ -82,8 +82,9 @@ try {
     'mariadb-client',
     'fonts-open-sans',
     ...(want('browser') ? ['chromium'] : []),
-    // pdfimages, which the handover e2e uses to list the pictures inside the PDF.
-    ...(want('e2e') ? ['poppler-utils'] : []),
+    // pdfimages and pdftoppm: the handover e2e lists the pictures inside the PDF, the handover browser walk
+    // renders its first page to PNG.
+    ...(want('e2e') || want('browser') ? ['poppler-utils'] : []),
   ]);
   ensureNodeModules();
 

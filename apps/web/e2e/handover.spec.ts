@@ -1,4 +1,5 @@
-import { mkdirSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, statSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Browser, Locator, Page } from '@playwright/test';
@@ -161,7 +162,37 @@ for (const v of variants) {
       message = mail[index];
     }).toPass({ timeout: 60_000, intervals: [1_000, 2_000, 3_000] });
     expect(message!.to).toContain(INCOMING);
-    expect(message!.attachments.some((a: Body) => a.contentType === 'application/pdf')).toBe(true);
+    const pdf = (message!.attachments as Body[]).find((a) => a.contentType === 'application/pdf');
+    expect(pdf).toBeDefined();
+    // The PDF's first page rendered to PNG (pdftoppm, poppler-utils), as the incoming supervisor sees it.
+    const bytes = await operator.evaluate(
+      async ({ id, index }) => {
+        const session = JSON.parse(window.localStorage.getItem('roundbook.session') ?? '{}') as {
+          accessToken?: string;
+        };
+        const r = await fetch(`/api/local/mail/${id}/attachments/${index}`, {
+          headers: { Authorization: `Bearer ${session.accessToken}` },
+        });
+        return [...new Uint8Array(await r.arrayBuffer())];
+      },
+      { id: message!.id as string, index: pdf!.index as number },
+    );
+    expect(Buffer.from(bytes).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const pdfFile = `${shots}handover-pdf-${v.name}.pdf`;
+    writeFileSync(pdfFile, Buffer.from(bytes));
+    execFileSync('pdftoppm', [
+      '-png',
+      '-r',
+      '60',
+      '-f',
+      '1',
+      '-l',
+      '1',
+      '-singlefile',
+      pdfFile,
+      `${shots}handover-pdf-page1-${v.name}`,
+    ]);
+    expect(statSync(`${shots}handover-pdf-page1-${v.name}.png`).size).toBeGreaterThan(10_000);
     const inbox = operator.getByRole('navigation', { name: 'Received e-mails' }).getByRole('button');
     await expect(inbox.nth(index)).toContainText(message!.subject as string);
     await inbox.nth(index).click();
