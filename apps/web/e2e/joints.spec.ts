@@ -2,12 +2,12 @@ import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
+import { openNewRoundOnHrU } from './flows';
 
 // Issue 19 items 4 and 8 on a 1280 × 800 touch tablet: twelve joints typed into a new round on HR-U, one
 // line each, at least ten of them on one screen; every target at least 44 px; removing a joint is undone.
 // Screenshots of the Joints section in both themes (apps/web/e2e/screenshots/joints-*.png).
 
-const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
 mkdirSync(shots, { recursive: true });
 
@@ -37,25 +37,7 @@ test('twelve joints on a tablet: one line each, ten or more on a screen, remove 
   page,
 }) => {
   test.setTimeout(120_000);
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill('geologist@roundbook.test');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/$/);
-  // The card's title (its other links lead to the review count and the handovers).
-  await page
-    .getByTestId('heading-card')
-    .filter({ hasText: 'HR-U' })
-    .getByRole('heading', { level: 3 })
-    .getByRole('link')
-    .click();
-  await page.getByRole('button', { name: 'New round' }).click();
-  const dialog = page.getByRole('region', { name: 'New round on HR-U' });
-  const stages = dialog.getByRole('radio');
-  if ((await stages.count()) > 1) await stages.first().click();
-  await expect(dialog.getByTestId('next-round')).toBeVisible();
-  await dialog.getByRole('button', { name: 'Open the round' }).click();
-  await expect(page).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
+  await openNewRoundOnHrU(page);
 
   const tabs = page.getByRole('tablist', { name: 'Sections of the round' });
   await tabs.getByRole('tab', { name: 'Joints' }).click();

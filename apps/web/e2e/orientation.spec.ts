@@ -2,12 +2,12 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
+import { openNewRoundOnHrU, signInAs } from './flows';
 
 // The heading's Orientation tab on the demo heading HR-U: opens it, changes the chainage window, saves
 // the net as SVG, and takes screenshots in the light and the high-contrast theme. Signs in once (logins
 // are rate-limited).
 
-const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
 mkdirSync(shots, { recursive: true });
 
@@ -24,11 +24,7 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   test.setTimeout(90_000);
   const problems = watchForProblems(page);
 
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill('engineer@roundbook.test');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/$/);
+  await signInAs(page, 'engineer@roundbook.test');
 
   // The card's first link is the heading itself (the count of rounds to review links to To confirm).
   await page
@@ -137,23 +133,7 @@ test.describe('on a touch tablet', () => {
   }) => {
     test.setTimeout(120_000);
     const problems = watchForProblems(page);
-    await page.goto('/sign-in');
-    await page.getByLabel('E-mail').fill('geologist@roundbook.test');
-    await page.getByLabel('Password').fill(password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect(page).toHaveURL(/\/$/);
-    await page
-      .getByTestId('heading-card')
-      .filter({ hasText: 'HR-U' })
-      .getByRole('heading', { level: 3 })
-      .getByRole('link')
-      .click();
-    await page.getByRole('button', { name: 'New round' }).click();
-    const dialog = page.getByRole('region', { name: 'New round on HR-U' });
-    const stages = dialog.getByRole('radio');
-    if ((await stages.count()) > 1) await stages.first().click();
-    await dialog.getByRole('button', { name: 'Open the round' }).click();
-    await expect(page).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
+    await openNewRoundOnHrU(page);
     await page
       .getByRole('tablist', { name: 'Sections of the round' })
       .getByRole('tab', { name: 'Joints' })

@@ -1,8 +1,9 @@
 import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
-import type { Locator, Page } from '@playwright/test';
+import type { Locator } from '@playwright/test';
 import sharp from 'sharp';
+import { openNewRoundOnHrU } from './flows';
 
 // The Photos section on a tablet (1280 × 800, touch): a geologist opens a new round on HR-U, adds three
 // photos (made here with sharp: an invented face with a tape laid across it) and watches their progress,
@@ -11,7 +12,6 @@ import sharp from 'sharp';
 
 test.use({ viewport: { width: 1280, height: 800 }, hasTouch: true });
 
-const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
 mkdirSync(shots, { recursive: true });
 
@@ -65,27 +65,6 @@ async function pointer(
   );
 }
 
-async function openNewRound(page: Page): Promise<void> {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill('geologist@roundbook.test');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/$/);
-  await page
-    .getByTestId('heading-card')
-    .filter({ hasText: 'HR-U' })
-    .getByRole('heading', { level: 3 })
-    .getByRole('link')
-    .click();
-  await page.getByRole('button', { name: 'New round' }).click();
-  const dialog = page.getByRole('region', { name: 'New round on HR-U' });
-  const stages = dialog.getByRole('radio');
-  if ((await stages.count()) > 1) await stages.first().click();
-  await expect(dialog.getByLabel('Face chainage')).not.toHaveValue('');
-  await dialog.getByRole('button', { name: 'Open the round' }).click();
-  await expect(page).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
-}
-
 test('a geologist adds three photos with progress, swipes in the viewer, zooms and marks a scale', async ({
   page,
 }) => {
@@ -95,7 +74,7 @@ test('a geologist adds three photos with progress, swipes in the viewer, zooms a
   page.on('response', (r) => {
     if (r.status() >= 500) problems.push(`${r.status()} ${r.url()}`);
   });
-  await openNewRound(page);
+  await openNewRoundOnHrU(page);
   const section = page.getByRole('region', { name: 'Photos', exact: true });
   await section.getByRole('button', { name: 'Add photos' }).scrollIntoViewIfNeeded();
 

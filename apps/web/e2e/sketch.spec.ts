@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { expect, test } from '@playwright/test';
 import type { Locator, Page } from '@playwright/test';
+import { openNewRoundOnHrU } from './flows';
 
 // The Sketch section on a tablet (1280 × 800, touch): a geologist opens a new round on HR-U, records a
 // joint, draws two freehand traces and an overbreak outline with touch pointer events, links the second
@@ -10,7 +11,6 @@ import type { Locator, Page } from '@playwright/test';
 
 test.use({ viewport: { width: 1280, height: 800 }, hasTouch: true });
 
-const password = process.env.ROUNDBOOK_DEMO_PASSWORD ?? 'rb-demo-2026';
 const shots = fileURLToPath(new URL('./screenshots/', import.meta.url));
 mkdirSync(shots, { recursive: true });
 
@@ -62,24 +62,7 @@ test('a geologist draws the face with a finger, links a trace to a joint, and th
     if (r.status() >= 500) problems.push(`${r.status()} ${r.url()}`);
   });
 
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill('geologist@roundbook.test');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/$/);
-  await page
-    .getByTestId('heading-card')
-    .filter({ hasText: 'HR-U' })
-    .getByRole('heading', { level: 3 })
-    .getByRole('link')
-    .click();
-  await page.getByRole('button', { name: 'New round' }).click();
-  const dialog = page.getByRole('region', { name: 'New round on HR-U' });
-  const stages = dialog.getByRole('radio');
-  if ((await stages.count()) > 1) await stages.first().click();
-  await expect(dialog.getByLabel('Face chainage')).not.toHaveValue('');
-  await dialog.getByRole('button', { name: 'Open the round' }).click();
-  await expect(page).toHaveURL(/\/projects\/[^/]+\/rounds\/[^/]+$/);
+  await openNewRoundOnHrU(page);
 
   const tabs = page.getByRole('tablist', { name: 'Sections of the round' });
   await tabs.getByRole('tab', { name: 'Joints' }).click();
