@@ -8,9 +8,9 @@ import { DataSource } from 'typeorm';
 import { AppModule } from '../app.module.js';
 import { loadAppConfig } from '../config/app-config.js';
 import { MailService } from '../infrastructure/mail/mail.service.js';
-import { Heading } from '../modules/headings/heading.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
 import { setupApp } from '../setup-app.js';
+import { benchHeading } from './bench-heading.js';
 
 /**
  * Benchmark (issue 11 "Done when"): the time from a round's submit (the request sent) to its "To confirm"
@@ -102,25 +102,7 @@ async function main(): Promise<void> {
 
     const ds = app.get(DataSource);
     const project = await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' });
-    const heading = await ds.getRepository(Heading).save({
-      projectId: project.id,
-      code: `NB${Date.now() % 1e6}`,
-      name: 'Invented notice benchmark heading',
-      startChainage: 1000,
-      chainageStyle: 'km+m',
-      chainageDecimals: 1,
-      driveTrend: 90,
-      gradientPercent: 0,
-      profileShape: 'circular',
-      profileWidth: 5,
-      profileHeight: 5,
-      axisHeight: 2.5,
-      stages: ['full-face'],
-      plannedRoundLength: 3,
-      startEasting: null,
-      startNorthing: null,
-      startElevation: null,
-    });
+    const heading = await benchHeading(ds, project.id, 'NB', 'Invented notice benchmark heading');
     const p = `/projects/${project.id}`;
     const { classes } = await call<{ classes: Array<{ id: string; retired?: boolean }> }>(
       'GET',

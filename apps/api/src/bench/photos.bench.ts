@@ -9,9 +9,9 @@ import sharp from 'sharp';
 import { DataSource } from 'typeorm';
 import { AppModule } from '../app.module.js';
 import { loadAppConfig } from '../config/app-config.js';
-import { Heading } from '../modules/headings/heading.entity.js';
 import { Project } from '../modules/projects/project.entity.js';
 import { setupApp } from '../setup-app.js';
+import { benchHeading } from './bench-heading.js';
 
 /**
  * Benchmark of issue 14's photos (run by `npm run bench`, `RB_BENCH=photos` alone; infra/bench.mjs starts
@@ -98,25 +98,7 @@ async function main(): Promise<void> {
     });
     const ds = app.get(DataSource);
     const project = await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' });
-    const heading = await ds.getRepository(Heading).save({
-      projectId: project.id,
-      code: `PB${Date.now() % 1e6}`,
-      name: 'Invented photo benchmark heading',
-      startChainage: 1000,
-      chainageStyle: 'km+m',
-      chainageDecimals: 1,
-      driveTrend: 90,
-      gradientPercent: 0,
-      profileShape: 'circular',
-      profileWidth: 5,
-      profileHeight: 5,
-      axisHeight: 2.5,
-      stages: ['full-face'],
-      plannedRoundLength: 3,
-      startEasting: null,
-      startNorthing: null,
-      startElevation: null,
-    });
+    const heading = await benchHeading(ds, project.id, 'PB', 'Invented photo benchmark heading');
     const p = `/projects/${project.id}`;
     const round = await call<{ id: string }>('POST', `${p}/headings/${heading.id}/rounds`, token, {
       stage: 'full-face',

@@ -9,6 +9,7 @@ import { Project } from '../modules/projects/project.entity.js';
 import type { RoundAssessor } from '../modules/rounds/round-assessor.service.js';
 import { RoundsQueries } from '../modules/rounds/rounds.queries.js';
 import { User } from '../modules/users/user.entity.js';
+import { benchHeading } from './bench-heading.js';
 
 /**
  * Benchmark: the Rounds tab of a heading with 30,000 rounds. Times RoundsQueries.list (the query behind
@@ -36,25 +37,7 @@ async function main(): Promise<void> {
   try {
     const project = await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' });
     const mapper = await ds.getRepository(User).findOneByOrFail({ email: 'geologist@roundbook.test' });
-    const heading = await ds.getRepository(Heading).save({
-      projectId: project.id,
-      code: `BENCH${Date.now() % 1e6}`,
-      name: 'Invented benchmark heading',
-      startChainage: 1000,
-      chainageStyle: 'km+m',
-      chainageDecimals: 1,
-      driveTrend: 90,
-      gradientPercent: 0,
-      profileShape: 'circular',
-      profileWidth: 5,
-      profileHeight: 5,
-      axisHeight: 2.5,
-      stages: ['full-face'],
-      plannedRoundLength: 3,
-      startEasting: null,
-      startNorthing: null,
-      startElevation: null,
-    });
+    const heading = await benchHeading(ds, project.id, 'BENCH', 'Invented benchmark heading');
     const others: string[] = [];
     for (let k = 0; k < OTHER_HEADINGS; k++) {
       const { id: _id, version: _v, createdAt: _c, updatedAt: _u, ...shape } = heading;
