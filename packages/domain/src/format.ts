@@ -119,17 +119,31 @@ export function formatProjectTimeNear(iso: string | Date, timeZone: string, now:
   }).format(date);
 }
 
-/** A calendar date (YYYY-MM-DD, no time zone) as "2 Dec 2026". */
-export function formatCalendarDate(isoDate: string): string {
+/**
+ * A calendar date (YYYY-MM-DD, no time zone) as "2 Dec 2026", or "Wed 2 Dec 2026" with the weekday, the same
+ * whatever the browser's language.
+ */
+export function formatCalendarDate(isoDate: string, options: { weekday?: boolean } = {}): string {
   const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(isoDate);
   if (!m) return isoDate;
   const date = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]), 12));
   return new Intl.DateTimeFormat('en-GB', {
+    weekday: options.weekday ? 'short' : undefined,
     day: 'numeric',
     month: 'short',
     year: 'numeric',
     timeZone: 'UTC',
-  }).format(date);
+  })
+    .format(date)
+    .replace(',', '');
+}
+
+/** A calendar date moved by whole days: ("2026-12-01", -1) → "2026-11-30"; anything unreadable unchanged. */
+export function addCalendarDays(isoDate: string, days: number): string {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(isoDate);
+  if (!m) return isoDate;
+  const date = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]) + days));
+  return date.toISOString().slice(0, 10);
 }
 
 /**

@@ -1,5 +1,7 @@
 import {
+  addCalendarDays,
   assessTriggers,
+  formatCalendarDate,
   formatAzimuth,
   formatChainageFor,
   formatProjectTimeNear,
@@ -59,6 +61,18 @@ describe('formatters', () => {
     expect(triggerLevelText(null, 1)).toBe('not evaluated (1 rule)');
     expect(triggerLevelText(null, 0)).toBe('no rules');
     expect(triggerLevelText('amber', 3)).toBe('Amber');
+  });
+
+  it('writes a calendar date one way whatever the language, and steps it by days across months and years', () => {
+    expect(formatCalendarDate('2026-12-02')).toBe('2 Dec 2026');
+    // 2 December 2026 is a Wednesday (ISO 8601 calendar; from memory, checked against Date.UTC's getUTCDay below).
+    expect(new Date(Date.UTC(2026, 11, 2)).getUTCDay()).toBe(3);
+    expect(formatCalendarDate('2026-12-02', { weekday: true })).toBe('Wed 2 Dec 2026');
+    expect(formatCalendarDate('not a date')).toBe('not a date');
+    expect(addCalendarDays('2026-12-01', -1)).toBe('2026-11-30');
+    expect(addCalendarDays('2026-12-31', 1)).toBe('2027-01-01');
+    expect(addCalendarDays('2028-02-28', 1)).toBe('2028-02-29'); // 2028 is a leap year (Gregorian rule)
+    expect(addCalendarDays('', 1)).toBe('');
   });
 
   it('puts 02:00 in the night shift of the day before, in the project time zone', () => {

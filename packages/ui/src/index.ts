@@ -33,3 +33,5 @@ export type {
   TriggerLevel,
   TriggerLevelBadgeProps,
 } from './components/trigger-level-badge/trigger-level-badge';
+export { CalendarDateInput } from './forms/calendar-date-input';
+export type { CalendarDateInputProps } from './forms/calendar-date-input';

@@ -25,7 +25,7 @@ import {
   type CycleStage,
   type Shift,
 } from '@roundbook/domain';
-import { EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
+import { CalendarDateInput, EmptyState, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useMemo, useState } from 'react';
 import type { HeadingSummary, ProjectRole } from '@/api/contract';
 import {
@@ -208,12 +208,12 @@ function Composer({ projectId, headings, headingId, onSent, onCancel }: Composer
         <>
           <div className={shared.bar}>
             <Field label="Shift date" required validationMessage={fields.shiftDate}>
-              <Input
+              <CalendarDateInput
                 className={shared.control}
-                size="large"
-                type="date"
+                label="Shift date"
+                steppers
                 value={shiftDate}
-                onChange={(_, d) => setShiftDate(d.value)}
+                onChange={setShiftDate}
               />
             </Field>
             <Field label="Shift" required validationMessage={fields.shift}>
@@ -410,12 +410,13 @@ export function HeadingHandovers({ projectId, heading, headings, role }: Heading
       )}
       <div className={shared.bar} role="search" aria-label="Filter handovers">
         <Field label="Shift date">
-          <Input
+          <CalendarDateInput
             className={shared.control}
-            size="large"
-            type="date"
+            label="Shift date"
+            placeholder="Any date"
+            clearable
             value={date}
-            onChange={(_, d) => setDate(d.value)}
+            onChange={setDate}
           />
         </Field>
         <Field label="Shift">

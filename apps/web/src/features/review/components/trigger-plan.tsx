@@ -8,7 +8,7 @@ import {
   Textarea,
   tokens,
 } from '@fluentui/react-components';
-import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { CalendarDateInput, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useState } from 'react';
 import type { AcceptedRule, LapsedAcceptance, RoundRule } from '@/features/review/api/review';
 import { useReviewAction } from '@/features/review/api/review';
@@ -173,12 +173,11 @@ function AcceptForm({
           />
         </Field>
         <Field label="Until (date)" validationMessage={failure?.fields.until}>
-          <Input
+          <CalendarDateInput
             className={styles.control}
-            size="large"
-            type="date"
+            label="Until (date)"
             value={until}
-            onChange={(_, d) => setUntil(d.value)}
+            onChange={setUntil}
           />
         </Field>
       </div>

@@ -10,7 +10,7 @@ import {
 } from '@fluentui/react-components';
 import { formatProjectTime } from '@roundbook/domain';
 import { formatChainage } from '@roundbook/geomath';
-import { TOUCH_TARGET_PX } from '@roundbook/ui';
+import { CalendarDateInput, TOUCH_TARGET_PX } from '@roundbook/ui';
 import { useFormikContext } from 'formik';
 import type { ChainageStyle, Round } from '@/features/rounds/api/types';
 import { NumberField, TextField, useRoundEdit } from '@/features/rounds/components/round-fields';
@@ -45,15 +45,6 @@ const useStyles = makeStyles({
   },
   shift: { display: 'flex', flexWrap: 'wrap', gap: tokens.spacingHorizontalS },
   shiftButton: { minHeight: `${TOUCH_TARGET_PX}px`, minWidth: '8rem' },
-  date: {
-    minHeight: `${TOUCH_TARGET_PX}px`,
-    fontSize: tokens.fontSizeBase400,
-    padding: `0 ${tokens.spacingHorizontalM}`,
-    border: `${tokens.strokeWidthThin} solid ${tokens.colorNeutralStroke1}`,
-    borderRadius: tokens.borderRadiusMedium,
-    backgroundColor: tokens.colorNeutralBackground1,
-    color: tokens.colorNeutralForeground1,
-  },
 });
 
 /** Round length warnings while typing (the server repeats them, with the support class's limit, on save). */
@@ -146,13 +137,12 @@ export function PositionSection({ round, chainage, timeZone }: PositionSectionPr
           validationState={serverErrors.shiftDate ? 'error' : 'none'}
           validationMessage={serverErrors.shiftDate}
         >
-          <input
-            className={styles.date}
-            type="date"
-            aria-label="Shift date"
+          <CalendarDateInput
+            label="Shift date"
+            steppers
             value={values.shiftDate}
             readOnly={readOnly}
-            onChange={(e) => void setFieldValue('shiftDate', e.target.value)}
+            onChange={(v) => void setFieldValue('shiftDate', v)}
           />
         </Field>
         <Field label="Shift" size="large" hint="a night shift belongs to the date it began">

@@ -197,7 +197,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     expect(saves[1]).toMatchObject({ version: 4, distantParts: 'Crown only', faceChainage: 1254 });
     await waitFor(() => expect(screen.getByTestId('save-state')).toHaveTextContent('Saved'));
     expect(distantField()).toHaveValue('Crown only');
-    expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
+    expect(screen.getByLabelText('Face chainage')).toHaveValue('1+254.0');
   });
 
   it('takes their value for a field when chosen, keeping the rest of the merge', async () => {
@@ -230,7 +230,7 @@ describe('Round editor: changed by someone else (409 STALE_VERSION)', () => {
     const view = await screen.findByTestId('conflict-view', {}, { timeout: 4000 });
     await user.click(within(view).getByRole('button', { name: 'Discard my typing and load theirs' }));
     expect(distantField()).toHaveValue('Whole face seen close up');
-    expect(screen.getByLabelText('Face chainage')).toHaveValue('1254');
+    expect(screen.getByLabelText('Face chainage')).toHaveValue('1+254.0');
     expect(screen.getByTestId('save-state')).toHaveTextContent('Saved');
     expect(readLocalDraft('r-1')).toBeNull();
     await pass(1800);

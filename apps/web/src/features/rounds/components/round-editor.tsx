@@ -147,20 +147,26 @@ const useStyles = makeStyles({
   saveState: { paddingInline: tokens.spacingHorizontalS },
 });
 
-/** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
 /** The sets the round was saved (or frozen at submit) with, when its stored assessment has them. */
 function frozenSets(round: Round): RoundAssessment['sets'] | null {
   const sets = (round.assessment as Partial<RoundAssessment>).sets;
   return sets && Array.isArray(sets.sets) ? sets : null;
 }
 
+/** The Round screen: five short sections behind big tabs, saved as you go, submitted from Support. */
 export function RoundEditor(props: RoundEditorProps) {
-  const { projectId, round, supportClasses, canEdit } = props;
+  const { projectId, round, supportClasses, canEdit, heading } = props;
   const classCode = useCallback(
     (id: string) => supportClasses.find((c) => c.id === id)?.code ?? id,
     [supportClasses],
   );
-  const autosave = useRoundAutosave({ projectId, initial: round, canEdit, classCode });
+  const autosave = useRoundAutosave({
+    projectId,
+    initial: round,
+    canEdit,
+    classCode,
+    chainage: { style: heading.chainageStyle, decimals: heading.chainageDecimals },
+  });
   return (
     <Formik<RoundFormValues>
       initialValues={autosave.initialValues}

@@ -5,7 +5,7 @@ import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import { getAuditEvents } from '@/api/resources/audit';
 import { getRound, roundQueryOptions, roundSaved, saveRound } from '@/api/resources/rounds';
 import type { Round, SaveRoundRequest } from '@/features/rounds/api/types';
-import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
+import type { ChainageInputStyle, RoundFormValues } from '@/features/rounds/schemas/round-form';
 import { formValuesOf, saveRequestOf } from '@/features/rounds/schemas/round-form';
 import { auditFieldLabel } from '@/features/rounds/utils/conflict-labels';
 import { roundDifferences } from '@/features/rounds/utils/differences';
@@ -75,6 +75,8 @@ export interface AutosaveOptions {
   canEdit: boolean;
   classCode?: (id: string) => string;
   pollMs?: number;
+  /** The heading's chainage style: chainage fields open in it (1+254.0), never rounding the stored value. */
+  chainage?: ChainageInputStyle;
 }
 
 type Payload = Omit<SaveRoundRequest, 'version'>;
@@ -99,7 +101,10 @@ export function useRoundAutosave({
   canEdit,
   classCode,
   pollMs = ROUND_POLL_MS,
+  chainage: chainageOption,
 }: AutosaveOptions) {
+  // Fixed when the round opens, like the engine below (the heading's style does not change under a round).
+  const [chainage] = useState(chainageOption);
   const queryClient = useQueryClient();
   const roundId = initial.id;
   const fallback = initial.faceChainage;
@@ -108,9 +113,9 @@ export function useRoundAutosave({
       new AutosaveEngine<RoundFormValues, Round>({
         key: roundId,
         server: initial,
-        document: formValuesOf(initial),
+        document: formValuesOf(initial, chainage),
         editable: (round) => canEdit && (round.status === 'draft' || round.status === 'returned'),
-        toDocument: formValuesOf,
+        toDocument: (round) => formValuesOf(round, chainage),
         payload: (values) => payloadOf(values, fallback),
         save: async (values, version) => {
           // A round opened offline is created first (once; utils/offline-round), then saved on top.
@@ -194,12 +199,12 @@ export function useRoundAutosave({
       theirs: conflict.theirs,
       differences: roundDifferences(
         payloadOf(conflict.mine, fallback),
-        payloadOf(formValuesOf(conflict.theirs), fallback),
+        payloadOf(formValuesOf(conflict.theirs, chainage), fallback),
         classCode,
       ),
       state: conflict.state,
     };
-  }, [sync.conflict, fallback, classCode]);
+  }, [sync.conflict, fallback, classCode, chainage]);
 
   /** The conflict as form values, for the field-by-field merge (features/rounds/components/conflict-view). */
   const conflict = useMemo(() => {
@@ -209,11 +214,11 @@ export function useRoundAutosave({
       message: c.message ?? 'Someone saved this round after your typing began.',
       base: c.base,
       mine: c.mine,
-      theirs: formValuesOf(c.theirs),
+      theirs: formValuesOf(c.theirs, chainage),
       theirRound: c.theirs,
       state: c.state,
     };
-  }, [sync.conflict]);
+  }, [sync.conflict, chainage]);
 
   const restored =
     sync.restored === null

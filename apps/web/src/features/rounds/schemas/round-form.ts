@@ -5,7 +5,8 @@ import {
   type SetParameters,
   type SketchDocument,
 } from '@roundbook/domain';
-import { parseChainage } from '@roundbook/geomath';
+import { formatChainage, parseChainage } from '@roundbook/geomath';
+import type { ChainageStyle } from '@roundbook/geomath';
 import type {
   QLocation,
   Rmr89Roughness,
@@ -171,6 +172,27 @@ const num = (value: string): number | null => {
 };
 
 /** A chainage typed as 1+250.0 or 1250.0, in metres; null when empty or unreadable. */
+/** How a heading writes its chainages (its style and decimals). */
+export interface ChainageInputStyle {
+  style: ChainageStyle;
+  decimals?: number;
+}
+
+/**
+ * A stored chainage as the text of a chainage field, in the heading's style (1254 → "1+254.0"), with as many
+ * decimals as the stored value has when it has more than the heading shows, so that opening a round and
+ * saving it again never rounds the stored value (1254.25 → "1+254.25" on a one-decimal heading).
+ */
+export function chainageInputOf(metres: number | null | undefined, chainage?: ChainageInputStyle): string {
+  if (metres === null || metres === undefined) return '';
+  if (chainage === undefined || !Number.isFinite(metres)) return String(metres);
+  const own = String(metres).split('.')[1]?.length ?? 0;
+  return formatChainage(metres, {
+    style: chainage.style,
+    decimals: Math.min(Math.max(chainage.decimals ?? 1, own), 6),
+  });
+}
+
 export function chainageOf(value: string): number | null {
   if (value.trim() === '') return null;
   try {
@@ -302,12 +324,12 @@ function sketchFormOf(sketch: Round['sketch']): SketchDocument {
   }
 }
 
-/** The form for a saved round. */
-export function formValuesOf(round: Round): RoundFormValues {
+/** The form for a saved round (chainages in the heading's style when it is given). */
+export function formValuesOf(round: Round, chainage?: ChainageInputStyle): RoundFormValues {
   return {
     sketch: sketchFormOf(round.sketch),
-    faceChainage: text(round.faceChainage),
-    previousChainage: text(round.previousChainage),
+    faceChainage: chainageInputOf(round.faceChainage, chainage),
+    previousChainage: chainageInputOf(round.previousChainage, chainage),
     roundLength: text(round.roundLength),
     shiftDate: round.shiftDate,
     shift: round.shift,
