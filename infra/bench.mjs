@@ -32,6 +32,8 @@ try {
     run(process.execPath, [path.join(root, `apps/api/dist/bench/${bench}.bench.js`)], {
       env: { ...process.env, ...env },
     });
+  if (!process.env.RB_BENCH || 'field-sync'.includes(process.env.RB_BENCH))
+    await (await import('./bench-field.mjs')).fieldSyncBench({ dataDir, env });
 } catch (err) {
   fail(err instanceof InfraError ? err.message : (err?.stack ?? String(err)));
   code = 1;

@@ -13,11 +13,17 @@ import { deviceStore } from '@/lib/sync/device-store';
 const container = document.getElementById('root');
 if (container === null) throw new Error('index.html has no #root element');
 
+const queryClient = createQueryClient();
+
 // The service worker keeps the app shell, fonts and the last answers of the API on this device, so the app
 // opens underground with no network (issue 17). Registered here, not by an inline script (strict CSP).
-if ('serviceWorker' in navigator) registerSW({ immediate: true });
-
-const queryClient = createQueryClient();
+if ('serviceWorker' in navigator) {
+  registerSW({ immediate: true });
+  // On the first visit the answers read before the worker took the page over (who is signed in, the
+  // Board) went past it and were not kept: they are asked again through it, so a reload underground
+  // without any reload in the open before still opens the app.
+  navigator.serviceWorker.addEventListener('controllerchange', () => void queryClient.invalidateQueries());
+}
 
 // Drafts and the outbox (IndexedDB) are read before the router runs its first loaders and the screens,
 // which read them synchronously.
