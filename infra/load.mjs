@@ -9,8 +9,14 @@
 //
 // Options (environment): LOAD_SECONDS (per phase, default 20), LOAD_CONNECTIONS (default 50),
 // LOAD_ROUNDS (default 30000), LOAD_JSON=<file> (writes the figures as JSON too); DB_POOL_SIZE and
-// DB_POOL_WAIT_MS are handed to the API.
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+// DB_POOL_WAIT_MS are handed to the API. LOAD_ROUTES=projects,rounds-page (only those phases after liveness,
+// no mixed phase: for trying a change); LOAD_CPU_PROF=<folder> (a V8 CPU profile of the API per phase,
+// infra/lib/cpu-profile.cjs, with the functions and packages that took most of its time printed).
+//
+// Besides req/s and p99 (which move with whatever else the machine runs), each phase prints the CPU time the
+// API process and MariaDB spent per request (from /proc/<pid>/stat over the phase): on a shared machine those
+// move much less than the rates, and they say which side of the connection a route's time is spent on.
+import { existsSync, readFileSync, readdirSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { buildAll, ensureAptPackages, ensureNodeModules, migrateAndSeed } from './lib/bootstrap.mjs';
 import { profileEnv, root } from './lib/env.mjs';
@@ -26,6 +32,8 @@ const TIMEOUT_S = Math.max(1, Math.min(10, Math.floor(SECONDS / 2)));
 const MIN_RATIO = 0.25;
 const MAX_P99_FACTOR = 10;
 const TARGETED = ['projects', 'rounds-page', 'round-detail'];
+const ONLY = process.env.LOAD_ROUTES ? process.env.LOAD_ROUTES.split(',').map((s) => s.trim()) : undefined;
+const CPU_PROF = process.env.LOAD_CPU_PROF ? path.resolve(process.env.LOAD_CPU_PROF) : undefined;
 
 process.env.RB_DATA_DIR ??= path.join(root, '.data/load');
 const shift = 20; // apart from the e2e tier of the same checkout
@@ -50,6 +58,12 @@ const env = {
   ...Object.fromEntries(
     ['DB_POOL_SIZE', 'DB_POOL_WAIT_MS'].filter((k) => process.env[k]).map((k) => [k, process.env[k]]),
   ),
+  ...(CPU_PROF
+    ? {
+        LOAD_CPU_PROF: CPU_PROF,
+        NODE_OPTIONS: `${process.env.NODE_OPTIONS ?? ''} --require ${path.join(root, 'infra/lib/cpu-profile.cjs')}`,
+      }
+    : {}),
 };
 const apiUrl = `http://127.0.0.1:${env.PORT}`;
 
@@ -64,6 +78,49 @@ process.on('SIGINT', () => void shutdown(130));
 process.on('SIGTERM', () => void shutdown(143));
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
+/** CPU time (user + system, ms) a process has used so far, from /proc/<pid>/stat (clock ticks of 10 ms). */
+function cpuMs(pid) {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) * 10; // utime, stime (fields 14 and 15 of stat)
+  } catch {
+    return NaN;
+  }
+}
+
+/** Self time of a V8 CPU profile summed by function and by package: where the API's time went in a phase. */
+function summariseProfile(file, top = 12) {
+  const { nodes, samples, timeDeltas } = JSON.parse(readFileSync(file, 'utf8'));
+  const byId = new Map(nodes.map((n) => [n.id, n]));
+  const self = new Map();
+  samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (timeDeltas[i] ?? 0)));
+  const total = [...self.values()].reduce((a, b) => a + b, 0) || 1;
+  const fns = new Map();
+  const pkgs = new Map();
+  for (const [id, us] of self) {
+    const { functionName, url, lineNumber } = byId.get(id).callFrame;
+    const where = url.replace(/^file:\/\//, '').replace(root + '/', '');
+    const fn = `${functionName || '(anonymous)'} ${where ? `${where}:${lineNumber + 1}` : ''}`.trim();
+    fns.set(fn, (fns.get(fn) ?? 0) + us);
+    const pkg =
+      /node_modules\/((?:@[^/]+\/)?[^/]+)/.exec(where)?.[1] ??
+      (where.startsWith('apps/') || where.startsWith('packages/')
+        ? where.split('/').slice(0, 2).join('/')
+        : where.startsWith('node:')
+          ? 'node'
+          : functionName.startsWith('(')
+            ? functionName
+            : 'other');
+    pkgs.set(pkg, (pkgs.get(pkg) ?? 0) + us);
+  }
+  const list = (m) =>
+    [...m]
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, top)
+      .map(([k, us]) => `${((us / total) * 100).toFixed(1).padStart(5)}%  ${k}`);
+  return { functions: list(fns), packages: list(pkgs) };
+}
 /** Deterministic choices, so two runs ask for the same pages and rounds (mulberry32). */
 function rng(seed) {
   let a = seed >>> 0;
@@ -147,7 +204,7 @@ try {
   );
   await startS3({ dataDir, env });
   await startSmtp({ dataDir, env });
-  await startApi({ dataDir, env });
+  const api = await startApi({ dataDir, env });
 
   const login = async (email) =>
     (await http('POST', '/api/auth/login', { body: { email, password: env.DEMO_PASSWORD } })).json
@@ -310,10 +367,39 @@ try {
       void name;
     });
   const figures = [];
-  for (const r of routes) {
+  if (CPU_PROF) {
+    // What start-up and the counting above sampled goes to a profile of its own, not the first phase's.
+    for (const f of readdirSync(CPU_PROF))
+      if (f.endsWith('.cpuprofile')) renameSync(path.join(CPU_PROF, f), path.join(CPU_PROF, `${f}.old`));
+    await profileCut('startup');
+  }
+  async function profileCut(name) {
+    if (!CPU_PROF) return;
+    const before = new Set(readdirSync(CPU_PROF));
+    process.kill(api.pid, 'SIGWINCH');
+    for (let i = 0; i < 100; i++) {
+      const fresh = readdirSync(CPU_PROF).find((f) => /^\d+\.cpuprofile$/.test(f) && !before.has(f));
+      if (fresh) {
+        await sleep(200); // written in one writeFileSync; a moment for it to be complete
+        const file = path.join(CPU_PROF, `${name}.cpuprofile`);
+        renameSync(path.join(CPU_PROF, fresh), file);
+        return file;
+      }
+      await sleep(100);
+    }
+    throw new InfraError('The API wrote no CPU profile (LOAD_CPU_PROF).');
+  }
+  const phases = routes.filter((r, i) => i === 0 || !ONLY || ONLY.includes(r.name));
+  for (const r of phases) {
     step(`${r.label}: ${CONNECTIONS} connections for ${SECONDS} s`);
     resetDrafts();
+    const cpu0 = { api: cpuMs(api.pid), db: cpuMs(db.child.pid) };
     const result = await runPhase(r.name, [r.request]);
+    const cpu = {
+      api: (cpuMs(api.pid) - cpu0.api) / Math.max(1, result.requests.total),
+      db: (cpuMs(db.child.pid) - cpu0.db) / Math.max(1, result.requests.total),
+    };
+    const profile = await profileCut(r.name);
     // A 409 on a joint edit is a version conflict (answered by reading the round again), not an error.
     // autocannon's `errors` already counts its timeouts (adding them again counted each one twice).
     const errors = result.errors + result.non2xx - conflicts.count;
@@ -328,28 +414,43 @@ try {
       queries: r.queries,
       bytes: r.bytes,
       total: result.requests.total,
+      apiCpuMs: cpu.api,
+      dbCpuMs: cpu.db,
     });
     info(
       `${Math.round(result.requests.average)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${errors} errors (${conflicts.count} version conflicts, not counted; ${conflicts.rereads} drafts read again; ${result.non2xx} non-2xx, ${result.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
     );
+    info(`CPU per request: API ${cpu.api.toFixed(2)} ms, MariaDB ${cpu.db.toFixed(2)} ms`);
+    if (profile) {
+      const { functions, packages } = summariseProfile(profile);
+      info(
+        `API profile (${path.relative(root, profile)}), self time by package:\n    ${packages.join('\n    ')}`,
+      );
+      info(`by function:\n    ${functions.join('\n    ')}`);
+    }
     await sleep(1000);
   }
-  step(`Mixed: Board, Rounds pages, round details, stereonet data and joint edits, ${SECONDS} s`);
-  resetDrafts();
-  const mixed = await runPhase('mixed', [
-    routes[1].request,
-    routes[2].request,
-    routes[2].request,
-    routes[3].request,
-    routes[3].request,
-    routes[4].request,
-    routes[5].request,
-  ]);
-  const mixedErrors = mixed.errors + mixed.non2xx - conflicts.count;
-  const mixedConflicts = conflicts.count;
-  info(
-    `mixed: ${Math.round(mixed.requests.average)} req/s, p99 ${mixed.latency.p99} ms, ${mixedErrors} errors (${mixedConflicts} version conflicts, not counted; ${conflicts.rereads} drafts read again; ${mixed.non2xx} non-2xx, ${mixed.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(mixed.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
-  );
+  let mixed;
+  let mixedErrors = 0;
+  let mixedConflicts = 0;
+  if (!ONLY) {
+    step(`Mixed: Board, Rounds pages, round details, stereonet data and joint edits, ${SECONDS} s`);
+    resetDrafts();
+    mixed = await runPhase('mixed', [
+      routes[1].request,
+      routes[2].request,
+      routes[2].request,
+      routes[3].request,
+      routes[3].request,
+      routes[4].request,
+      routes[5].request,
+    ]);
+    mixedErrors = mixed.errors + mixed.non2xx - conflicts.count;
+    mixedConflicts = conflicts.count;
+    info(
+      `mixed: ${Math.round(mixed.requests.average)} req/s, p99 ${mixed.latency.p99} ms, ${mixedErrors} errors (${mixedConflicts} version conflicts, not counted; ${conflicts.rereads} drafts read again; ${mixed.non2xx} non-2xx, ${mixed.timeouts} timeouts; status codes ${JSON.stringify(Object.fromEntries(Object.entries(mixed.statusCodeStats ?? {}).map(([k, v]) => [k, v.count])))})`,
+    );
+  }
 
   const live = figures[0];
   const rows = figures.map((f) => ({
@@ -363,7 +464,7 @@ try {
   const pad = (s, n) => String(s).padEnd(n);
   const padl = (s, n) => String(s).padStart(n);
   console.log(
-    `  ${pad('route', 30)}${padl('req/s', 8)}${padl('ratio', 8)}${padl('p99 ms', 8)}${padl('×live', 7)}${padl('errors', 8)}${padl('409s', 6)}${padl('SQL/req', 9)}${padl('bytes', 9)}  target`,
+    `  ${pad('route', 30)}${padl('req/s', 8)}${padl('ratio', 8)}${padl('p99 ms', 8)}${padl('×live', 7)}${padl('errors', 8)}${padl('409s', 6)}${padl('SQL/req', 9)}${padl('bytes', 9)}${padl('API ms', 8)}${padl('DB ms', 7)}  target`,
   );
   let ok = true;
   for (const r of rows) {
@@ -372,13 +473,15 @@ try {
       r.total > 0 && r.errors === 0 && (!targeted || (r.ratio >= MIN_RATIO && r.p99Factor <= MAX_P99_FACTOR));
     if (!pass) ok = false;
     console.log(
-      `  ${pad(r.label, 30)}${padl(Math.round(r.rps), 8)}${padl(`${(r.ratio * 100).toFixed(1)}%`, 8)}${padl(r.p99, 8)}${padl(r.p99Factor.toFixed(1), 7)}${padl(r.errors, 8)}${padl(r.conflicts, 6)}${padl(r.queries.toFixed(1), 9)}${padl(r.bytes, 9)}  ${targeted ? (pass ? 'met' : 'MISSED') : pass ? 'no errors' : r.total === 0 ? 'NO ANSWER' : 'ERRORS'}`,
+      `  ${pad(r.label, 30)}${padl(Math.round(r.rps), 8)}${padl(`${(r.ratio * 100).toFixed(1)}%`, 8)}${padl(r.p99, 8)}${padl(r.p99Factor.toFixed(1), 7)}${padl(r.errors, 8)}${padl(r.conflicts, 6)}${padl(r.queries.toFixed(1), 9)}${padl(r.bytes, 9)}${padl(r.apiCpuMs.toFixed(2), 8)}${padl(r.dbCpuMs.toFixed(2), 7)}  ${targeted ? (pass ? 'met' : 'MISSED') : pass ? 'no errors' : r.total === 0 ? 'NO ANSWER' : 'ERRORS'}`,
     );
   }
-  console.log(
-    `  ${pad('Mixed (all but liveness)', 30)}${padl(Math.round(mixed.requests.average), 8)}${padl('', 8)}${padl(mixed.latency.p99, 8)}${padl('', 7)}${padl(mixedErrors, 8)}${padl(mixedConflicts, 6)}`,
-  );
-  if (mixedErrors > 0 || mixed.requests.total === 0) ok = false;
+  if (mixed) {
+    console.log(
+      `  ${pad('Mixed (all but liveness)', 30)}${padl(Math.round(mixed.requests.average), 8)}${padl('', 8)}${padl(mixed.latency.p99, 8)}${padl('', 7)}${padl(mixedErrors, 8)}${padl(mixedConflicts, 6)}`,
+    );
+    if (mixedErrors > 0 || mixed.requests.total === 0) ok = false;
+  }
   console.log(
     `\n  Targets: Board projects list, Rounds page and round detail ≥ ${MIN_RATIO * 100}% of liveness req/s, p99 ≤ ${MAX_P99_FACTOR}× liveness p99, no errors anywhere (a 409 on a joint edit is a version conflict: the round is read again and the edit goes on).\n`,
   );
@@ -389,7 +492,7 @@ try {
         {
           seed: { rounds: seed.rounds, joints: seed.joints },
           rows,
-          mixed: {
+          mixed: mixed && {
             rps: mixed.requests.average,
             p99: mixed.latency.p99,
             errors: mixedErrors,
