@@ -19,8 +19,8 @@ import {
   type RmrRecord,
   type RoundRatings,
 } from './ratings.js';
-import { jointPositionsOf, type SketchDocument } from './sketch.js';
 import { DEFAULT_SET_PARAMETERS, findRoundSets, type RoundSets, type SetParameters } from './sets.js';
+import { jointPositionsOf, type SketchDocument } from './sketch.js';
 import {
   explainSuggestion,
   suggestClasses,
