@@ -54,12 +54,12 @@ async function bundleEntry() {
 }
 
 /** Runs the benchmark; the caller has the database, S3 and SMTP fakes running (infra/bench.mjs). */
-export async function fieldSyncBench({ dataDir, env }) {
+export async function fieldSyncBench({ dataDir, env, apiStarted = false }) {
   ensureAptPackages(['chromium', 'fonts-open-sans']);
   buildAll();
   step('field sync: bundling the in-page part');
   const script = await bundleEntry();
-  await startApi({ dataDir, env });
+  if (!apiStarted) await startApi({ dataDir, env });
   const { chromium } = await import('@playwright/test');
   const baseURL = `http://127.0.0.1:${env.PORT}`;
   const browser = await chromium.launch({

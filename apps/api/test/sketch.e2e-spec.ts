@@ -1,5 +1,12 @@
 import type { INestApplication } from '@nestjs/common';
-import { faceFrameOf, sketchSvgView, svgPx, type SketchDocument } from '@roundbook/domain';
+import {
+  faceFrameOf,
+  SKETCH_PIN_DISC_RADIUS_PX,
+  SKETCH_PIN_DISC_RISE_PX,
+  sketchSvgView,
+  svgPx,
+  type SketchDocument,
+} from '@roundbook/domain';
 import sharp from 'sharp';
 import request from 'supertest';
 import type { App } from 'supertest/types';
@@ -7,6 +14,7 @@ import { DataSource } from 'typeorm';
 import { Job } from '../src/infrastructure/jobs/job.entity';
 import { JobsWorker } from '../src/infrastructure/jobs/jobs.worker';
 import { StorageService } from '../src/infrastructure/storage/storage.service';
+import { Photo } from '../src/modules/photos/photo.entity';
 import { SKETCH_RENDER_PX_PER_M, sketchRenderKey } from '../src/modules/rounds/sketch-render.service';
 import { latestAudit, makeProject, saveBody, testJoint, type TestProject } from './factories';
 import { createTestApp } from './test-app';
@@ -266,6 +274,70 @@ describe('round sketch: saved with the round, validated, frozen (e2e, real Maria
     rgbAt([-1.05, 2.15]).forEach((v, k) => expect(Math.abs(v - ink[k])).toBeLessThanOrEqual(24));
     // 0.4 m below that point, off the trace and off the grid: paper (light)
     rgbAt([-1.05, 1.75]).forEach((v) => expect(v).toBeGreaterThan(200));
+  });
+
+  it('the picture draws the photos pinned on the face, numbered as in the gallery', async () => {
+    // Three photos of the round (issue 14 keeps each pin on its photo): the first without a pin, the second
+    // pinned at (1.5, 2) m, the third still uploading (not in the gallery, so not drawn).
+    const photos = app.get(DataSource).getRepository(Photo);
+    const photo = (n: number, extra: Partial<Photo>) => ({
+      id: globalThis.crypto.randomUUID(),
+      projectId: p.projectId,
+      roundId: round.id as string,
+      objectKey: `projects/${p.projectId}/rounds/${round.id as string}/photos/test-${n}.jpg`,
+      uploadState: 'stored' as const,
+      contentType: 'image/jpeg',
+      size: 1000,
+      partSize: 1000,
+      originalName: `face-${n}.jpg`,
+      uploadedBy: globalThis.crypto.randomUUID(),
+      createdAt: new Date(Date.UTC(2026, 0, 1, 8, n)),
+      ...extra,
+    });
+    await photos.insert([
+      photo(1, {}),
+      photo(2, { pinX: 1.5, pinY: 2 }),
+      photo(3, { pinX: -1.5, pinY: 2, uploadState: 'uploading' }),
+    ]);
+    const doc = sketchOf(trace('with-pins'));
+    const revision = await submitWith(doc);
+    expect((await runRenderJob(revision.id as string)).state).toBe('done');
+    const render = (await renderOf().expect(200)).body as Body;
+    const svg = await (await fetch(render.svgUrl as string)).text();
+    expect(svg.match(/<g data-pin="/g)).toHaveLength(1);
+    expect(svg).toMatch(/<g data-pin="2">[\s\S]*?>2<\/text>/);
+
+    const heading = (
+      await request(http).get(`${p.base}/headings/${p.headingId}`).set(p.as('viewer')).expect(200)
+    ).body as Body;
+    const view = sketchSvgView(doc as SketchDocument, faceFrameOf(heading as never, 'full-face')!, {
+      pxPerMetre: SKETCH_RENDER_PX_PER_M,
+      pins: [{ number: 2, at: [1.5, 2] }],
+    });
+    const png = Buffer.from(await (await fetch(render.pngUrl as string)).arrayBuffer());
+    const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    expect([info.width, info.height]).toEqual([view.width, view.height]);
+    const rgb = (x: number, y: number) => {
+      const i = (Math.round(y) * info.width + Math.round(x)) * 3;
+      return [data[i], data[i + 1], data[i + 2]];
+    };
+    const ink = [0x1f, 0x23, 0x28];
+    const isInk = (c: number[]) => c.every((v, k) => Math.abs(v - ink[k]) <= 24);
+    const [x, y] = svgPx(view, [1.5, 2]);
+    const discY = y - SKETCH_PIN_DISC_RISE_PX;
+    // the foot of the stem on the spot, and the disc's left part (beside its number): the ink
+    expect(isInk(rgb(x, y))).toBe(true);
+    expect(isInk(rgb(x - 8, discY))).toBe(true);
+    // the number: light pixels inside the disc, within its middle 8 px
+    let light = 0;
+    for (let dy = -6; dy <= 6; dy++)
+      for (let dx = -4; dx <= 4; dx++) if (rgb(x + dx, discY + dy).every((v) => v > 200)) light++;
+    expect(light).toBeGreaterThan(4);
+    // beyond the disc, off the trace: paper
+    expect(rgb(x, discY - SKETCH_PIN_DISC_RADIUS_PX - 8).every((v) => v > 200)).toBe(true);
+    // the uploading photo's spot has no pin: paper where its disc would be
+    const [ux, uy] = svgPx(view, [-1.5, 2]);
+    expect(isInk(rgb(ux - 8, uy - SKETCH_PIN_DISC_RISE_PX))).toBe(false);
   });
 
   it('no sketch, no render job and a 404 with the reason', async () => {

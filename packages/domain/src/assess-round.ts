@@ -20,6 +20,7 @@ import {
   type RoundRatings,
 } from './ratings.js';
 import { DEFAULT_SET_PARAMETERS, findRoundSets, type RoundSets, type SetParameters } from './sets.js';
+import { jointPositionsOf, type SketchDocument } from './sketch.js';
 import {
   explainSuggestion,
   suggestClasses,
@@ -100,6 +101,11 @@ export interface RoundRecordInput {
   gsiObserved: number | null;
   recommendedClassId: string | null;
   setParameters?: SetParameters | null;
+  /**
+   * The round's sketch: a trace linked to a joint gives its position on the face (sketch.ts
+   * jointPositionsOf) where the joint has no faceOffset of its own; absent or null: the face centre.
+   */
+  sketch?: SketchDocument | null;
 }
 
 export interface AssessmentContext {
@@ -249,6 +255,8 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
     context.previousRound?.classId != null
       ? context.supportClasses.find((c) => c.id === context.previousRound!.classId)
       : undefined;
+  // A joint's trace on the sketch places it on the face for the look-ahead and the crown-reach rule.
+  const traced = jointPositionsOf(record.sketch, context.heading.axisHeight);
   const facts: RoundFacts = {
     q: ratings.q.value,
     rmr: ratings.rmr.value,
@@ -263,7 +271,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       setLabel: sets.membership[j.id] || null,
       dipDirection: j.dipDirection,
       dip: j.dip,
-      faceOffset: j.faceOffset ?? null,
+      faceOffset: j.faceOffset ?? traced.get(j.id) ?? null,
       sameAsJointId: j.sameAsJointId ?? null,
     })),
     sets: sets.sets.map((s) => ({ label: s.label, plane: s.mean, count: s.count })),

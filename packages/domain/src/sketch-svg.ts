@@ -76,7 +76,19 @@ export interface SketchSvgOptions {
   title?: string;
   /** Colour of a trace (its set's colour); default the ink. */
   traceColour?: (trace: SketchTrace) => string;
+  /** The round's photos pinned on the face (each photo keeps its own pin), numbered as in the gallery. */
+  pins?: readonly SketchSvgPin[];
 }
+
+/** A photo's pin: its number in the round's gallery and its spot, metres in the face frame. */
+export interface SketchSvgPin {
+  number: number;
+  at: SketchPoint;
+}
+
+/** The pin's disc: this far above its spot, and this big, px (the canvas draws the same). */
+export const SKETCH_PIN_DISC_RISE_PX = 26;
+export const SKETCH_PIN_DISC_RADIUS_PX = 12;
 
 /** Where the face frame lies in the picture. */
 export interface SketchSvgView {
@@ -100,7 +112,7 @@ export function sketchSvgView(
 ): SketchSvgView {
   const scale = options.pxPerMetre ?? 60;
   const margin = options.marginM ?? 1.5;
-  const all = [...profile.outline, ...pointsOf(doc)];
+  const all = [...profile.outline, ...pointsOf(doc), ...(options.pins ?? []).map((p) => p.at)];
   if (all.length === 0) throw new RangeError('A sketch picture needs the profile outline.');
   const xs = all.map((p) => p[0]);
   const ys = all.map((p) => p[1]);
@@ -159,7 +171,7 @@ const pathOf = (v: SketchSvgView, points: readonly SketchPoint[]) =>
 /**
  * The sketch as a standalone SVG document: paper, 1 m grid, the excavation line (the stage part bold),
  * axis, springline and bench line, then traces, overbreak outlines with their areas, water marks and
- * labels, and a 1 m scale bar.
+ * labels, the photo pins, and a 1 m scale bar.
  */
 export function sketchToSvg(
   doc: SketchDocument,
@@ -252,6 +264,19 @@ export function sketchToSvg(
         break;
       }
     }
+  }
+  // photo pins over everything: a numbered disc on a short stem whose foot is the spot
+  for (const pin of options.pins ?? []) {
+    const [x, y] = svgPx(v, pin.at);
+    const cy = y - SKETCH_PIN_DISC_RISE_PX;
+    out.push(
+      `<g data-pin="${pin.number}">`,
+      `<line x1="${n(x)}" y1="${n(y)}" x2="${n(x)}" y2="${n(y - 14)}" stroke="${c.ink}" stroke-width="2"/>`,
+      `<circle cx="${n(x)}" cy="${n(y)}" r="3" fill="${c.ink}"/>`,
+      `<circle cx="${n(x)}" cy="${n(cy)}" r="${SKETCH_PIN_DISC_RADIUS_PX}" fill="${c.ink}" stroke="${c.paper}" stroke-width="2"/>`,
+      `<text x="${n(x)}" y="${n(cy + 4.5)}" font-size="13" font-weight="bold" fill="${c.paper}" text-anchor="middle" ${FONT}>${pin.number}</text>`,
+      '</g>',
+    );
   }
   // title and a 1 m scale bar
   if (options.title)

@@ -254,6 +254,49 @@ export function traceLength(points: readonly SketchPoint[]): number {
   return sum;
 }
 
+/**
+ * Where a trace lies on the face for the look-ahead: the point halfway along its length, relative to the
+ * tunnel axis (right of the centre line, up from the axis), the offset geomath planeCrossings takes. Every
+ * point of a trace lies on its plane; the middle one is the least sensitive to a stroke's loose ends.
+ */
+export function tracePosition(
+  points: readonly SketchPoint[],
+  axisHeight: number,
+): { right: number; up: number } {
+  if (points.length === 0) throw new RangeError('A trace needs at least one point.');
+  const half = traceLength(points) / 2;
+  let walked = 0;
+  for (let i = 1; i < points.length; i++) {
+    const [a, b] = [points[i - 1], points[i]];
+    const step = Math.hypot(b[0] - a[0], b[1] - a[1]);
+    if (walked + step >= half && step > 0) {
+      const t = (half - walked) / step;
+      return { right: a[0] + t * (b[0] - a[0]), up: a[1] + t * (b[1] - a[1]) - axisHeight };
+    }
+    walked += step;
+  }
+  return { right: points[0][0], up: points[0][1] - axisHeight };
+}
+
+/**
+ * The face position each joint's trace gives (tracePosition), by joint id: traces linked to the joint
+ * itself (a set link names no one joint); the longest trace when a joint has several.
+ */
+export function jointPositionsOf(
+  doc: SketchDocument | null | undefined,
+  axisHeight: number,
+): Map<string, { right: number; up: number }> {
+  const best = new Map<string, { length: number; at: { right: number; up: number } }>();
+  for (const e of doc?.elements ?? []) {
+    if (e.kind !== 'trace' || e.link === null || !('jointId' in e.link)) continue;
+    const length = traceLength(e.points);
+    const had = best.get(e.link.jointId);
+    if (had === undefined || length > had.length)
+      best.set(e.link.jointId, { length, at: tracePosition(e.points, axisHeight) });
+  }
+  return new Map([...best].map(([id, v]) => [id, v.at]));
+}
+
 /** Area inside an overbreak outline, m² (shoelace, either winding). */
 export const overbreakArea = (points: readonly SketchPoint[]): number => Math.abs(polygonArea(points));
 

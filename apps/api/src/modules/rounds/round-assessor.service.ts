@@ -162,6 +162,7 @@ export class RoundAssessor {
         gsiObserved: round.gsiObserved,
         recommendedClassId: round.recommendedClassId,
         setParameters: parameters,
+        sketch: round.sketch,
       },
       {
         heading: headingGeometry(h, round.stage, round.faceChainage),

@@ -21,6 +21,7 @@ import {
   StorageUnavailableError,
 } from '../../infrastructure/storage/storage.service.js';
 import { Heading } from '../headings/heading.entity.js';
+import { Photo } from '../photos/photo.entity.js';
 import type { SketchRenderDto } from './dto/sketch-render.dto.js';
 import { RoundRevision } from './round-revision.entity.js';
 import { Round } from './round.entity.js';
@@ -87,8 +88,18 @@ export class SketchRenders implements OnModuleInit {
     const frame = faceFrameOf(heading, stage as Round['stage']);
     if (frame === null) throw new PermanentJobError(`The profile of heading ${heading.id} cannot be drawn.`);
     const chainage = Number(revision.record.faceChainage ?? round.faceChainage);
+    // The photos' pins as they are now (a photo keeps its own pin), numbered as in the gallery: every stored
+    // photo of the round, oldest first (photos.service list).
+    const photos = await this.dataSource.getRepository(Photo).find({
+      where: { roundId: round.id, uploadState: 'stored' },
+      order: { createdAt: 'ASC', id: 'ASC' },
+    });
+    const pins = photos.flatMap((p, i) =>
+      p.pinX !== null && p.pinY !== null ? [{ number: i + 1, at: [p.pinX, p.pinY] as [number, number] }] : [],
+    );
     const svg = sketchToSvg(doc, frame, {
       pxPerMetre: SKETCH_RENDER_PX_PER_M,
+      pins,
       traceColour: traceColourBySet(
         (revision.assessment?.sets?.sets ?? []).map((x) => x.label),
         Array.isArray(revision.record.joints)

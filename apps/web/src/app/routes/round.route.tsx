@@ -94,6 +94,8 @@ export function RoundRoute() {
   // "Pin on the sketch" from a photo: the Sketch section opens and its next tap places the pin.
   const photoPins = usePhotoPins(projectId, roundId);
   const [sectionRequest, setSectionRequest] = useState<{ section: RoundSection; seq: number }>();
+  // A tap on a photo's pin on the sketch opens that photo in the Photos viewer.
+  const [photoRequest, setPhotoRequest] = useState<{ photoId: string; seq: number } | null>(null);
   // The drive at the face: the alignment's tangent there (straights and arcs), the gradient's plunge.
   const driveAt = (faceChainage: number) => {
     try {
@@ -174,6 +176,7 @@ export function RoundRoute() {
               pinError={photoPins.error}
               onPin={photoPins.place}
               onCancelPin={photoPins.cancel}
+              onOpenPhoto={(photoId) => setPhotoRequest((r) => ({ photoId, seq: (r?.seq ?? 0) + 1 }))}
             />
           );
         }}
@@ -198,6 +201,7 @@ export function RoundRoute() {
         projectId={projectId}
         roundId={round.id}
         timeZone={project.timeZone}
+        openRequest={photoRequest}
         onPinOnSketch={(photo, label) => {
           photoPins.start(photo, label);
           setSectionRequest((r) => ({ section: 'sketch', seq: (r?.seq ?? 0) + 1 }));

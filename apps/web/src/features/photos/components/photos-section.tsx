@@ -99,10 +99,19 @@ export interface PhotosSectionProps {
   timeZone?: string;
   /** "Pin on the sketch": the round page opens the sketch and waits for a tap (absent: no pin button). */
   onPinOnSketch?: (photo: Photo, label: string) => void;
+  /** A photo to show in the viewer, asked from outside (a tap on its pin on the sketch); a new `seq` each time. */
+  openRequest?: { photoId: string; seq: number } | null;
 }
 
 /** Photos of a round: add from the camera or files, a gallery with caption and part, a full-screen view. */
-export function PhotosSection({ projectId, roundId, canEdit, timeZone, onPinOnSketch }: PhotosSectionProps) {
+export function PhotosSection({
+  projectId,
+  roundId,
+  canEdit,
+  timeZone,
+  onPinOnSketch,
+  openRequest,
+}: PhotosSectionProps) {
   const zone = timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   const styles = useStyles();
   const queryClient = useQueryClient();
@@ -114,6 +123,16 @@ export function PhotosSection({ projectId, roundId, canEdit, timeZone, onPinOnSk
   const [viewing, setViewing] = useState<number | null>(null);
   const photos = useQuery(photosQueryOptions(projectId, roundId));
   const list = photos.data ?? [];
+  // A request from outside opens its photo once per seq, when the photo is in the list (state adjusted while
+  // rendering, React's pattern for state derived from a prop).
+  const [handled, setHandled] = useState<number | null>(null);
+  if (openRequest && openRequest.seq !== handled) {
+    const i = list.findIndex((p) => p.id === openRequest.photoId);
+    if (i >= 0) {
+      setHandled(openRequest.seq);
+      setViewing(i);
+    }
+  }
 
   const patch = (key: string, change: Partial<FileUpload>) =>
     setUploads((all) => all.map((u) => (u.key === key ? { ...u, ...change } : u)));

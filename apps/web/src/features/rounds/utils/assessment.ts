@@ -57,6 +57,7 @@ export function assessmentRecordOf(values: RoundFormValues, fallbackChainage: nu
     gsiObserved: sent.gsiObserved,
     recommendedClassId: sent.recommendedClassId,
     setParameters: values.setParameters,
+    sketch: values.sketch,
   };
 }
 

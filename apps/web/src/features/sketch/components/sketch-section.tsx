@@ -89,6 +89,8 @@ export interface SketchSectionProps {
   onCancelPin?: () => void;
   /** The pin could not be saved. */
   pinError?: string | null;
+  /** Opens a pinned photo in the photo viewer (a tap on its pin, or its line in the list). */
+  onOpenPhoto?: (photoId: string) => void;
 }
 
 const useStyles = makeStyles({
@@ -440,6 +442,7 @@ export function SketchSection(props: SketchSectionProps) {
             highlighted={highlighted}
             selecting={!pinning && (readOnly || tool === 'select')}
             pins={props.photoPins}
+            onPhotoPin={props.onOpenPhoto}
             onPick={pick}
             onMove={(id, dx, dy) => act('move', { ids: [id], dx, dy })}
             onPointerDown={(p) => {
@@ -528,17 +531,30 @@ export function SketchSection(props: SketchSectionProps) {
           {(props.photoPins?.length ?? 0) > 0 && (
             <>
               <Text weight="semibold">Photos pinned on the sketch</Text>
-              {props.photoPins!.map((pin) => (
-                <Text key={pin.photoId} data-testid={`sketch-pin-${pin.photoId}`}>
-                  {`${pin.number} · ${pin.label}`}
-                </Text>
-              ))}
+              {props.photoPins!.map((pin) =>
+                props.onOpenPhoto ? (
+                  <Button
+                    key={pin.photoId}
+                    className={styles.joint}
+                    size="large"
+                    appearance="subtle"
+                    data-testid={`sketch-pin-${pin.photoId}`}
+                    onClick={() => props.onOpenPhoto?.(pin.photoId)}
+                  >
+                    {`${pin.number} · ${pin.label}`}
+                  </Button>
+                ) : (
+                  <Text key={pin.photoId} data-testid={`sketch-pin-${pin.photoId}`}>
+                    {`${pin.number} · ${pin.label}`}
+                  </Text>
+                ),
+              )}
             </>
           )}
           <Text size={200}>
             Damp: dashed ring · Dripping: ring with a falling drop · Flowing: filled drop with a run-off line
             and its inflow. Overbreak: dashed outline with its area. Numbered disc on a stem: where a photo of
-            the round was taken (its number in Photos).
+            the round was taken (its number in Photos); tap it, with Select and move, to open the photo.
           </Text>
         </div>
       </div>
