@@ -84,8 +84,8 @@ describe('One round, one truth (e2e, real MariaDB)', () => {
     expect(frozen.assessment).toEqual(submitted.assessment);
     // Issue 10 changed the rules (water once, governing discontinuity, …): domain-2; issue 19 added the
     // suggestion with its reason: domain-3; issue 15 the open-red-hazard rule reading the register: domain-4;
-    // the issue 10 audit, sets for a given count seeded only inside the primitive: domain-5; domain-6 leaves accepted standing conditions out of the level; domain-7 an emptied set override means no set.
-    expect(frozen.assessmentVersion).toBe('domain-7');
+    // the issue 10 audit, sets for a given count seeded only inside the primitive: domain-5; domain-6 leaves accepted standing conditions out of the level; domain-7 an emptied set override means no set; domain-8 set labels matched along the heading.
+    expect(frozen.assessmentVersion).toBe('domain-8');
 
     const revisions = (
       await request(http).get(`${p.base}/rounds/${r0.id}/revisions`).set(p.as('viewer')).expect(200)

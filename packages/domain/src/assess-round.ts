@@ -19,7 +19,14 @@ import {
   type RmrRecord,
   type RoundRatings,
 } from './ratings.js';
-import { DEFAULT_SET_PARAMETERS, findRoundSets, type RoundSets, type SetParameters } from './sets.js';
+import {
+  DEFAULT_SET_PARAMETERS,
+  findRoundSets,
+  type HeadingSet,
+  type RoundSets,
+  type SetNames,
+  type SetParameters,
+} from './sets.js';
 import { jointPositionsOf, type SketchDocument } from './sketch.js';
 import {
   explainSuggestion,
@@ -48,8 +55,11 @@ import { readWater, waterConditionWarning } from './water.js';
  * domain-7: a joint the geologist took out of its set (override with no label) is in no set and out of the set
  * means (before, an empty override fell back to the computed set); the facts carry the previous round's values
  * for rules that fire on a change, and the round's length against the last class's allowance.
+ * domain-8: set labels follow the heading (sets.ts SET_MATCH_RULE: matched to the earlier rounds' set means,
+ * new sets take the next free label, the geologist's names rename or merge); before, S1, S2, … went by size
+ * on each round, so labels could swap between rounds.
  */
-export const ASSESSMENT_VERSION = 'domain-7';
+export const ASSESSMENT_VERSION = 'domain-8';
 
 export interface GroundRecord {
   units: Array<{
@@ -121,6 +131,13 @@ export interface AssessmentContext {
     sameAsJointId?: string | null;
     roundNumber?: number;
   }>;
+  /**
+   * The heading's sets as its earlier rounds left them (sets.ts headingSetsOf), which this round's sets are
+   * matched to; absent or empty: labels by size (S1 the largest).
+   */
+  headingSets?: HeadingSet[];
+  /** The geologist's names for the heading's sets (renames and merges, sets.ts SetNames). */
+  setNames?: SetNames;
   /**
    * The previous round of this heading and stage: its class (recommended, or confirmed once reviewed), and
    * its values and conditions for the rules that fire on a change (triggers.ts previousRoundValues; absent:
@@ -238,6 +255,7 @@ export function assessRound(record: RoundRecordInput, context: AssessmentContext
       : [],
     drive,
     parameters,
+    { sets: context.headingSets ?? [], names: context.setNames ?? {} },
   );
   const features: FeatureAssessment[] = readable
     .filter((j) => SINGLE_FEATURE_KINDS.includes(j.kind))

@@ -6,9 +6,11 @@ import {
   driveTrendAt,
   nextFaceChainage,
   explainSuggestion,
+  headingSetsOf,
   previousRoundValues,
   shiftOf,
   type PreviousRoundValues,
+  type RoundSet,
 } from '@roundbook/domain';
 import {
   driveOf,
@@ -27,6 +29,7 @@ import type { Heading, Stage } from '../../modules/headings/heading.entity.js';
 import { Project } from '../../modules/projects/project.entity.js';
 import { Joint, type JointKind } from '../../modules/rounds/joint.entity.js';
 import { readOrientation } from '../../modules/rounds/orientation-reading.js';
+import { HEADING_SET_ROUNDS } from '../../modules/rounds/round-assessor.service.js';
 import { RoundDecision } from '../../modules/rounds/round-review.entity.js';
 import { RoundRevision } from '../../modules/rounds/round-revision.entity.js';
 import { Round, type QRecord, type RmrRecord } from '../../modules/rounds/round.entity.js';
@@ -103,6 +106,9 @@ export async function seedDemoRounds(
     dipDirection: number;
     dip: number;
   }> = [];
+  // The sets each round found, oldest first: the heading's sets the next round's are matched to (as the
+  // API's headingSetsBefore reads them from the stored assessments).
+  const roundSets: Array<{ chainage: number; sets: RoundSet[] }> = [];
   let previousClassId: string | null | undefined = undefined;
   // The last round's values and conditions, for rules that fire on a change (none in the demo plan).
   let previousValues: PreviousRoundValues | undefined = undefined;
@@ -340,6 +346,7 @@ export async function seedDemoRounds(
         nearbyJoints: earlier.filter(
           (e) => Math.abs(e.faceChainage - face) <= DEFAULT_SET_PARAMETERS.windowM,
         ),
+        headingSets: headingSetsOf(roundSets.slice(-HEADING_SET_ROUNDS)),
         previousRound:
           previousClassId === undefined
             ? null
@@ -353,6 +360,7 @@ export async function seedDemoRounds(
     );
     for (const j of jointRows)
       j.setLabel = assessment.sets.membership[j.id] || (j.kind === 'fault' ? j.setLabel : null);
+    roundSets.push({ chainage: face, sets: assessment.sets.sets });
     Object.assign(saved, {
       assessment,
       assessmentVersion: assessment.version,

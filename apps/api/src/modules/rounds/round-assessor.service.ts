@@ -3,8 +3,12 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import {
   assessRound,
   DEFAULT_SET_PARAMETERS,
+  headingSetsOf,
   previousRoundValues,
+  type HeadingSet,
   type RoundAssessment,
+  type RoundSet,
+  type SetNames,
 } from '@roundbook/domain';
 import { Brackets, DataSource, type EntityManager } from 'typeorm';
 import { HazardsService } from '../hazards/hazards.service.js';
@@ -80,6 +84,39 @@ export async function nearbyPlanes(
   }));
 }
 
+/** How many of the heading's latest earlier rounds give its sets (a set unseen for longer is forgotten). */
+export const HEADING_SET_ROUNDS = 30;
+
+/**
+ * The heading's sets as its earlier rounds left them (mapped before this one; their stored sets, each
+ * label's latest mean): what this round's sets are matched to so that labels hold along the heading.
+ */
+export async function headingSetsBefore(
+  manager: EntityManager,
+  round: Pick<Round, 'id' | 'headingId' | 'mappedAt'>,
+  names: SetNames = {},
+): Promise<HeadingSet[]> {
+  const rows = await manager
+    .getRepository(Round)
+    .createQueryBuilder('r')
+    .select(['r.face_chainage AS chainage', "JSON_EXTRACT(r.assessment, '$.sets.sets') AS sets"])
+    .where('r.heading_id = :headingId', { headingId: round.headingId })
+    .andWhere('r.id <> :self', { self: round.id })
+    .andWhere('r.mapped_at < :at', { at: round.mappedAt })
+    .andWhere('r.assessment IS NOT NULL')
+    .orderBy('r.mapped_at', 'DESC')
+    .addOrderBy('r.round_number', 'DESC')
+    .limit(HEADING_SET_ROUNDS)
+    .getRawMany<{ chainage: string | number; sets: string | RoundSet[] | null }>();
+  return headingSetsOf(
+    rows.reverse().map((r) => ({
+      chainage: Number(r.chainage),
+      sets: (typeof r.sets === 'string' ? (JSON.parse(r.sets) as RoundSet[] | null) : r.sets) ?? [],
+    })),
+    names,
+  );
+}
+
 /**
  * Works out a round's assessment from its record and today's context (the heading, the project's support
  * classes and trigger rules, the previous round and the nearby joints), with packages/domain's assessRound.
@@ -102,30 +139,32 @@ export class RoundAssessor {
     heading?: Heading,
   ): Promise<RoundAssessment> {
     const parameters = round.setParameters ?? DEFAULT_SET_PARAMETERS;
-    const [h, classes, rules, project, previous, nearby, openHazards, acceptances] = await Promise.all([
-      heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
-      // Every read through `manager`: inside a transaction a second pooled connection could wait forever
-      // once every connection is held by a transaction waiting for the heading's lock (twelve rounds opened
-      // at once hung the API with a pool of ten before).
-      this.supportClasses.classesOf(round.projectId, manager),
-      this.triggerRules.rulesOf(round.projectId, manager),
-      this.projects.findProject(round.projectId, manager),
-      round.roundNumber > 1
-        ? manager.findOne(Round, {
-            where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
-            select: {
-              id: true,
-              recommendedClassId: true,
-              confirmedClassId: true,
-              faceChainage: true,
-              assessment: true,
-            },
-          })
-        : Promise.resolve(null),
-      nearbyPlanes(manager, round, parameters.windowM),
-      this.hazards.openForHeading(round.headingId, manager),
-      activeAcceptances(manager, round.headingId),
-    ]);
+    const [h, classes, rules, project, previous, nearby, openHazards, acceptances, headingSets] =
+      await Promise.all([
+        heading ?? this.headings.findForProject(round.projectId, round.headingId, manager),
+        // Every read through `manager`: inside a transaction a second pooled connection could wait forever
+        // once every connection is held by a transaction waiting for the heading's lock (twelve rounds opened
+        // at once hung the API with a pool of ten before).
+        this.supportClasses.classesOf(round.projectId, manager),
+        this.triggerRules.rulesOf(round.projectId, manager),
+        this.projects.findProject(round.projectId, manager),
+        round.roundNumber > 1
+          ? manager.findOne(Round, {
+              where: { headingId: round.headingId, stage: round.stage, roundNumber: round.roundNumber - 1 },
+              select: {
+                id: true,
+                recommendedClassId: true,
+                confirmedClassId: true,
+                faceChainage: true,
+                assessment: true,
+              },
+            })
+          : Promise.resolve(null),
+        nearbyPlanes(manager, round, parameters.windowM),
+        this.hazards.openForHeading(round.headingId, manager),
+        activeAcceptances(manager, round.headingId),
+        headingSetsBefore(manager, round),
+      ]);
     if (!h) throw new Error(`Heading ${round.headingId} of round ${round.id} is missing`);
     // The previous round's values and conditions as its own stored facts read them, for the rules that
     // fire on a change (judged at that round's face: the drive there, on a curved alignment).
@@ -168,6 +207,7 @@ export class RoundAssessor {
         heading: headingGeometry(h, round.stage, round.faceChainage),
         supportClasses: classes,
         nearbyJoints: nearby,
+        headingSets,
         // The class-change rule compares confirmed classes once the previous round is confirmed.
         previousRound: previous
           ? {

@@ -88,6 +88,8 @@ export function assessmentContextOf(setup: AssessmentSetup, faceChainage: number
     // Single features are not pooled into sets, on this face or on earlier ones.
     nearbyJoints: setup.nearbyJoints.filter((n) => !SINGLE_FEATURE_KINDS.includes(n.kind)),
     previousRound: previousRoundOf(setup.round),
+    // The heading's sets this round's are matched to, as the last save read them (sets.ts SET_MATCH_RULE).
+    headingSets: (setup.round.assessment as Partial<RoundAssessment>).sets?.matching?.headingSets ?? [],
     rules: setup.rules,
     qTableEdition: setup.project.qTableEdition,
     groundScale: setup.project.groundScale,
