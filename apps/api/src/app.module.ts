@@ -18,6 +18,7 @@ import { HazardsModule } from './modules/hazards/hazards.module.js';
 import { HeadingsModule } from './modules/headings/headings.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { LocalMailModule } from './modules/local-mail/local-mail.module.js';
+import { LongSectionsModule } from './modules/long-sections/long-sections.module.js';
 import { NoticeSettingsModule } from './modules/notice-settings/notice-settings.module.js';
 import { PhotosModule } from './modules/photos/photos.module.js';
 import { ProjectsModule } from './modules/projects/projects.module.js';
@@ -59,6 +60,7 @@ export class AppModule implements NestModule {
         SupportRecordsModule,
         HandoversModule,
         BoardModule,
+        LongSectionsModule,
         HealthModule,
         LocalMailModule,
         // The API also serves the built web app (setup-app.ts, common/http/web-app.ts): one address.

@@ -124,6 +124,7 @@ export const EXPECTED_ACCESS: Record<string, readonly Actor[]> = {
 
   // Hazards (issue 15 item 1): the register of a heading.
   'GET /api/projects/{projectId}/headings/{headingId}/hazards': MEMBERS,
+  'GET /api/projects/{projectId}/headings/{headingId}/long-section': MEMBERS,
   'POST /api/projects/{projectId}/headings/{headingId}/hazards': CONTRIBUTORS,
   'GET /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': MEMBERS,
   'PATCH /api/projects/{projectId}/headings/{headingId}/hazards/{hazardId}': CONTRIBUTORS,

@@ -1029,6 +1029,23 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/projects/{projectId}/headings/{headingId}/long-section": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The heading's long section: each round's ground along chainage, hazards, and the traces of faults and shear zones with the coming round that reaches them (any member) */
+        get: operations["LongSectionsController_get"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/health": {
         parameters: {
             query?: never;
@@ -2799,6 +2816,79 @@ export interface components {
         AcknowledgeHandoverDto: {
             /** @description A remark or a question back to the outgoing supervisor */
             comment?: string | null;
+        };
+        /** @enum {string} */
+        LongSectionSense: "increasing" | "decreasing";
+        LongSectionRoundDto: {
+            stage: components["schemas"]["Stage"];
+            status: components["schemas"]["RoundStatus"];
+            /** @description The unit with the largest share of the face */
+            rockUnit: string | null;
+            q: number | null;
+            rmr: number | null;
+            gsi: number | null;
+            /** @description Support class codes: the geologist's recommendation, the engineer's confirmation, what was installed */
+            recommendedClass: string | null;
+            confirmedClass: string | null;
+            installedClass: string | null;
+            triggerLevel: components["schemas"]["TriggerLevel"] | null;
+            /** @description Water inflow scaled to 10 m of tunnel, l/min (the inflow over the length it was measured on) */
+            inflowLpmPer10m: number | null;
+            /** @description Overbreak per metre of the round, m³/m */
+            overbreakM3PerM: number | null;
+            id: string;
+            roundNumber: number;
+            /** @description The chainage the round started from (the previous face), m */
+            fromChainage: number;
+            /** @description The round's face, m */
+            faceChainage: number;
+        };
+        LongSectionHazardDto: {
+            kind: components["schemas"]["HazardKind"];
+            level: components["schemas"]["TriggerLevel"];
+            status: components["schemas"]["HazardStatus"];
+            id: string;
+            fromChainage: number;
+            toChainage: number;
+            description: string;
+        };
+        LongSectionTraceDto: {
+            kind: components["schemas"]["JointKind"];
+            /** @description Where the plane meets the crown and the invert, m; null where it runs along the tunnel */
+            crownChainage: number | null;
+            invertChainage: number | null;
+            /** @description Along the drive from today's face, m (negative: behind it) */
+            crownAhead: number | null;
+            invertAhead: number | null;
+            /** @description The upcoming round (1 = the next) that reaches the crossing; null when it is behind the face */
+            crownRoundsAhead: number | null;
+            invertRoundsAhead: number | null;
+            jointId: string;
+            /** @description The feature across rounds (its first observation's id); each feature is drawn once, from its latest round */
+            featureKey: string;
+            roundId: string;
+            roundNumber: number;
+            label: string;
+            dipDirection: number;
+            dip: number;
+            /** @description Whether the trace's position on the face was recorded (else the face centre was used) */
+            traceKnown: boolean;
+        };
+        LongSectionDto: {
+            chainageSense: components["schemas"]["LongSectionSense"];
+            /** @description Today's face: the furthest handed-in round (else the furthest draft), m; null without rounds */
+            faceChainage: number | null;
+            /** @description The number of the round at today's face */
+            faceRoundNumber: number | null;
+            rounds: components["schemas"]["LongSectionRoundDto"][];
+            hazards: components["schemas"]["LongSectionHazardDto"][];
+            traces: components["schemas"]["LongSectionTraceDto"][];
+            headingId: string;
+            /** @description The length of the coming rounds: the last confirmed round's next round length, else the planned, m */
+            lookAheadRoundLength: number;
+            /** @description Heights of the full profile relative to the axis, m: the crown above and the invert below */
+            crownHeight: number;
+            invertDepth: number;
         };
         /** @enum {string} */
         HealthStatus: "ok" | "degraded";
@@ -6051,6 +6141,42 @@ export interface operations {
                 content: {
                     "application/json": components["schemas"]["HandoverDto"][];
                 };
+            };
+        };
+    };
+    LongSectionsController_get: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: string;
+                headingId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LongSectionDto"];
+                };
+            };
+            /** @description Member without one of the roles: any */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Not a member of this project, or no such project */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
             };
         };
     };

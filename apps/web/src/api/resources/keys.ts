@@ -45,6 +45,9 @@ export const resourceKeys = {
   /** The heading's hazard register (GET …/headings/{headingId}/hazards). */
   headingHazards: (projectId: string, headingId: string) =>
     [...resourceKeys.heading(projectId, headingId), 'hazards'] as const,
+  /** The heading's long section (GET …/headings/{headingId}/long-section). */
+  headingLongSection: (projectId: string, headingId: string) =>
+    [...resourceKeys.heading(projectId, headingId), 'long-section'] as const,
   nearbyJoints: (projectId: string, headingId: string, window: JointWindow) =>
     [...resourceKeys.heading(projectId, headingId), 'joints', window] as const,
   /** Parent of every round of the project (GET /projects/{id}/rounds/{roundId}). */

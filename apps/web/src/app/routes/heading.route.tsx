@@ -13,6 +13,7 @@ import { guarded } from '@/app/routes/session-guard';
 import { useThemePreference } from '@/app/theme-preference';
 import { HeadingHandovers } from '@/features/handovers/components/heading-handovers';
 import { HazardRegister } from '@/features/hazards/components/hazard-register';
+import { HeadingLongSection } from '@/features/long-section/components/heading-long-section';
 import { HeadingOrientation } from '@/features/orientation/components/heading-orientation';
 import { useRoundHeading, useRoundProject } from '@/features/rounds/api/get-round';
 import { NewRoundPanel } from '@/features/rounds/components/new-round-panel';
@@ -42,15 +43,14 @@ const useStyles = makeStyles({
   back: { minHeight: `${TOUCH_TARGET_PX}px` },
 });
 
-const VIEWS = ['rounds', 'orientation', 'hazards', 'handovers'] as const;
+const VIEWS = ['rounds', 'long-section', 'orientation', 'hazards', 'handovers'] as const;
 type HeadingView = (typeof VIEWS)[number];
 const viewOf = (v: string | null): HeadingView =>
   VIEWS.includes(v as HeadingView) ? (v as HeadingView) : 'rounds';
 
 /**
  * Heading: its rounds, orientation, hazards and handovers. The view is kept in the address (`?view=`), so a
- * reload, a shared link or the back button returns to it (issue 19 item 9). The long section has no tab
- * until it exists: a greyed tab read as an active one in high contrast (item 12).
+ * reload, a shared link or the back button returns to it (issue 19 item 9).
  */
 export function HeadingRoute() {
   const styles = useStyles();
@@ -94,6 +94,9 @@ export function HeadingRoute() {
         <Tab className={styles.tab} value="rounds">
           Rounds
         </Tab>
+        <Tab className={styles.tab} value="long-section">
+          Long section
+        </Tab>
         <Tab className={styles.tab} value="orientation">
           Orientation
         </Tab>
@@ -104,7 +107,9 @@ export function HeadingRoute() {
           Handovers
         </Tab>
       </TabList>
-      {tab === 'orientation' ? (
+      {tab === 'long-section' ? (
+        <HeadingLongSection projectId={projectId} headingId={headingId} />
+      ) : tab === 'orientation' ? (
         <HeadingOrientation projectId={projectId} heading={heading} highContrast={mode === 'high-contrast'} />
       ) : tab === 'handovers' ? (
         <HeadingHandovers
