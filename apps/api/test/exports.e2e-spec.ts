@@ -1,6 +1,8 @@
 // Issue 16 item 3: CSV exports of a heading's rounds and joints, read back with papaparse and compared with the
 // database row by row; formula-like text is defused for spreadsheets (OWASP "CSV Injection" [from memory]).
 import { randomUUID } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { INestApplication } from '@nestjs/common';
 import Papa from 'papaparse';
 import request from 'supertest';
@@ -11,7 +13,7 @@ import { Project } from '../src/modules/projects/project.entity';
 import { Joint } from '../src/modules/rounds/joint.entity';
 import { Round } from '../src/modules/rounds/round.entity';
 import { SupportClass } from '../src/modules/support-classes/support-class.entity';
-import { makeProject, signIn, type Role } from './factories';
+import { makeProject, saveBody, signIn, type Role } from './factories';
 import { createTestApp } from './test-app';
 
 type Body = Record<string, any>;
@@ -27,6 +29,13 @@ const parse = (text: string) => {
   const out = Papa.parse<Record<string, string>>(text.slice(1), { header: true, skipEmptyLines: true });
   expect(out.errors).toEqual([]);
   return out;
+};
+/** The CSV round trip's files (fixtures/joints-round-trip): joints saved, and their export with ids blanked. */
+const ROUND_TRIP = join(__dirname, '../../../fixtures/joints-round-trip');
+const ID_COLUMNS = ['joint id', 'round id'];
+const blankIds = (rows: string[][]) => {
+  const at = ID_COLUMNS.map((c) => rows[0].indexOf(c));
+  return rows.map((row, i) => (i === 0 ? row : row.map((v, c) => (at.includes(c) ? '' : v))));
 };
 const binary = (res: request.Response, cb: (e: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
@@ -112,7 +121,7 @@ describe('CSV exports (e2e, real MariaDB)', () => {
       roundId: round.id,
       headingId: p.headingId,
       faceChainage: 1003,
-      seq: 0,
+      seq: 1,
       kind: 'joint',
       orientationText: '130/50',
       notation: 'dip-direction/dip',
@@ -142,6 +151,7 @@ describe('CSV exports (e2e, real MariaDB)', () => {
     expect(data[0].notes).toBe(`'=HYPERLINK("http://example.invalid","open")`);
     expect(data[0].infill).toBe("'@SUM(A1:A9)");
     expect(data[0]['dip (°)']).toBe('50');
+    expect(data[0]['joint number']).toBe('1');
 
     // A member of another project reads nothing (404: the project is not revealed), nor does anyone signed out;
     // a heading of another project is 404 too.
@@ -150,5 +160,35 @@ describe('CSV exports (e2e, real MariaDB)', () => {
     const demo = await ds.getRepository(Project).findOneByOrFail({ code: 'BRH' });
     const other = await ds.getRepository(Heading).findOneByOrFail({ projectId: demo.id, code: 'HR-U' });
     await get(`${p.base}/headings/${other.id}/exports/rounds.csv`, p.as('viewer')).expect(404);
+  });
+
+  it('exports saved joints as the round trip fixture holds them (the web import reads it back: joint-import.test.ts)', async () => {
+    const fixture = JSON.parse(readFileSync(join(ROUND_TRIP, 'joints.json'), 'utf8')) as { joints: Body[] };
+    const p = await makeProject(app, { code: `RT${stamp}` });
+    const created = (
+      await request(http)
+        .post(`${p.base}/headings/${p.headingId}/rounds`)
+        .set(p.as('geologist'))
+        .send({ stage: 'full-face', faceChainage: 1003 })
+        .expect(201)
+    ).body as Body;
+    await request(http)
+      .put(`${p.base}/rounds/${created.id as string}`)
+      .set(p.as('geologist'))
+      .send(saveBody(created, { joints: fixture.joints }))
+      .expect(200);
+    const res = await get(`${p.base}/headings/${p.headingId}/exports/joints.csv`, p.as('viewer')).expect(200);
+    const text = csvOf(res);
+    const exported = Papa.parse<string[]>(text.slice(1), { skipEmptyLines: true });
+    expect(exported.errors).toEqual([]);
+    const expected = Papa.parse<string[]>(
+      readFileSync(join(ROUND_TRIP, 'joints-export.csv'), 'utf8').replace(/^\ufeff/, ''),
+      { skipEmptyLines: true },
+    );
+    expect(blankIds(exported.data)).toEqual(blankIds(expected.data));
+    // The ids are real: one round, five joints of it.
+    const roundIds = new Set(exported.data.slice(1).map((r) => r[exported.data[0].indexOf('round id')]));
+    expect([...roundIds]).toEqual([created.id]);
+    expect(exported.data).toHaveLength(1 + fixture.joints.length);
   });
 });

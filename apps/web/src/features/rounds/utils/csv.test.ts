@@ -1,6 +1,6 @@
-import { detectSeparator, parseCsv } from '@/features/rounds/utils/csv';
+import { parseCsv } from '@/features/rounds/utils/csv';
 
-describe('parseCsv (Roundbook’s own CSV reader)', () => {
+describe('parseCsv (papaparse, with line numbers)', () => {
   it('reads comma-separated rows with a header', () => {
     const { separator, rows } = parseCsv('orientation,kind\n130/50,joint\n045/80,fault\n');
     expect(separator).toBe(',');
@@ -11,10 +11,14 @@ describe('parseCsv (Roundbook’s own CSV reader)', () => {
     ]);
   });
 
-  it('takes the separator from the first line: semicolons and tabs (a spreadsheet copy)', () => {
-    expect(detectSeparator('a;b;c\n1,5;2;3')).toBe(';');
-    expect(detectSeparator('a\tb\tc')).toBe('\t');
-    expect(detectSeparator('"a;b",c')).toBe(',');
+  it('guesses the separator: semicolons with decimal commas, tabs (a spreadsheet copy), quoted separators', () => {
+    expect(parseCsv('a;b;c\n1,5;2;3').separator).toBe(';');
+    expect(parseCsv('a\tb\tc\n1\t2\t3').separator).toBe('\t');
+    expect(parseCsv('"a;b",c\n"1;2",3').separator).toBe(',');
+    expect(parseCsv('dip direction;dip\n130;50,5').rows.map((r) => r.fields)).toEqual([
+      ['dip direction', 'dip'],
+      ['130', '50,5'],
+    ]);
     expect(parseCsv('orientation;spacing\n130/50;0,4').rows[1].fields).toEqual(['130/50', '0,4']);
     expect(parseCsv('orientation\tkind\nN30E 40SE\tbedding').rows[1].fields).toEqual([
       'N30E 40SE',

@@ -1,12 +1,17 @@
+import Papa from 'papaparse';
+
 /**
- * A small CSV reader for pasting or importing joints (Roundbook's own; no library). It reads:
- * - fields separated by commas, semicolons or tabs (the separator is taken from the first line, outside quotes);
- * - quoted fields ("…") that may hold separators, line breaks and doubled quotes ("" → ");
- * - LF, CRLF or CR line ends, a byte-order mark at the start, and blank lines (skipped).
- * Each row keeps the line it started on, so a message can point at it.
+ * CSV for pasting or importing joints, read with papaparse (RFC 4180 quoting: fields in "…" may hold
+ * separators, line breaks and doubled quotes). Around papaparse:
+ * - the separator is guessed among tab, semicolon, comma and bar, in that order of preference, so a
+ *   semicolon sheet with decimal commas ("0,4") is not split at the commas;
+ * - LF, CRLF and CR line ends are all taken as line ends, even mixed (papaparse alone picks one kind);
+ * - a byte-order mark at the start is dropped (our own exports start with one) and blank lines are skipped;
+ * - each row keeps the line it starts on, and papaparse's complaints about it (a quote that never closes,
+ *   a malformed quote), so a message can point at the row. Nothing is dropped.
  */
 
-export type CsvSeparator = ',' | ';' | '\t';
+export type CsvSeparator = ',' | ';' | '\t' | '|';
 
 export interface CsvRow {
   /** 1-based line number where the row starts. */
@@ -21,85 +26,47 @@ export interface CsvResult {
   rows: CsvRow[];
 }
 
-const SEPARATORS: CsvSeparator[] = ['\t', ';', ','];
+const GUESS: CsvSeparator[] = ['\t', ';', ',', '|'];
 
-/** The separator used most on the first line, outside quotes (tab, then semicolon, then comma on ties). */
-export function detectSeparator(text: string): CsvSeparator {
-  const counts: Record<CsvSeparator, number> = { ',': 0, ';': 0, '\t': 0 };
-  let quoted = false;
-  for (const ch of text) {
-    if (ch === '"') quoted = !quoted;
-    else if (!quoted && (ch === '\n' || ch === '\r')) break;
-    else if (!quoted && (ch === ',' || ch === ';' || ch === '\t')) counts[ch] += 1;
-  }
-  let best: CsvSeparator = ',';
-  for (const sep of SEPARATORS) if (counts[sep] > counts[best]) best = sep;
-  return best;
-}
+const problemOf = (errors: Papa.ParseError[], line: number): string | undefined => {
+  const messages = errors
+    .filter((e) => e.type !== 'Delimiter')
+    .map((e) =>
+      e.code === 'MissingQuotes'
+        ? `A quote opened on line ${line} is never closed; the rest of the text was read as one value`
+        : e.code === 'InvalidQuotes'
+          ? `A quoted value on line ${line} has text after its closing quote`
+          : e.message,
+    );
+  return messages.length === 0 ? undefined : [...new Set(messages)].join('; ') + '.';
+};
 
 export function parseCsv(input: string, separator?: CsvSeparator): CsvResult {
-  const text = input.startsWith('\uFEFF') ? input.slice(1) : input;
-  const sep = separator ?? detectSeparator(text);
+  const text = (input.startsWith('\uFEFF') ? input.slice(1) : input).replace(/\r\n?/g, '\n');
   const rows: CsvRow[] = [];
-  let fields: string[] = [];
-  let field = '';
-  let quoted = false;
-  let fieldWasQuoted = false;
-  let line = 1;
-  let rowLine = 1;
+  let start = 0;
+  let lineEnds = 0;
+  let used: string = separator ?? ',';
+  Papa.parse<string[]>(text, {
+    ...(separator === undefined ? { delimitersToGuess: GUESS } : { delimiter: separator }),
+    newline: '\n',
+    step: (result) => {
+      used = result.meta.delimiter;
+      // The row runs from the previous row's end to the cursor; its line is the count of line ends before.
+      const line = 1 + lineEnds;
+      lineEnds += countLineEnds(text, start, result.meta.cursor);
+      start = result.meta.cursor;
+      const fields = result.data.map((f) => f.trim());
+      const problem = problemOf(result.errors, line);
+      if (fields.length === 1 && fields[0] === '' && problem === undefined) return; // a blank line
+      rows.push(problem === undefined ? { line, fields } : { line, fields, problem });
+    },
+  });
+  return { separator: (GUESS as string[]).includes(used) ? (used as CsvSeparator) : ',', rows };
+}
 
-  const endRow = () => {
-    fields.push(field);
-    const blank = fields.length === 1 && fields[0].trim() === '' && !fieldWasQuoted;
-    if (!blank) rows.push({ line: rowLine, fields });
-    fields = [];
-    field = '';
-    fieldWasQuoted = false;
-  };
-
-  for (let i = 0; i < text.length; i += 1) {
-    const ch = text[i];
-    if (quoted) {
-      if (ch === '"') {
-        if (text[i + 1] === '"') {
-          field += '"';
-          i += 1;
-        } else {
-          quoted = false;
-        }
-      } else {
-        if (ch === '\n' || (ch === '\r' && text[i + 1] !== '\n')) line += 1;
-        field += ch;
-      }
-      continue;
-    }
-    if (ch === '"' && field.trim() === '') {
-      // A quote opens a quoted field only at its start (spaces before it are dropped).
-      field = '';
-      quoted = true;
-      fieldWasQuoted = true;
-    } else if (ch === sep) {
-      fields.push(field);
-      field = '';
-      fieldWasQuoted = false;
-    } else if (ch === '\r' || ch === '\n') {
-      if (ch === '\r' && text[i + 1] === '\n') i += 1;
-      endRow();
-      line += 1;
-      rowLine = line;
-    } else {
-      field += ch;
-    }
-  }
-  if (quoted) {
-    fields.push(field);
-    rows.push({
-      line: rowLine,
-      fields,
-      problem: `A quote opened on line ${rowLine} is never closed; the rest of the text was read as one value.`,
-    });
-  } else if (field !== '' || fields.length > 0 || fieldWasQuoted) {
-    endRow();
-  }
-  return { separator: sep, rows: rows.map((r) => ({ ...r, fields: r.fields.map((f) => f.trim()) })) };
+function countLineEnds(text: string, from: number, to: number): number {
+  let n = 0;
+  for (let i = from; i < to; i += 1) if (text.charCodeAt(i) === 10) n += 1;
+  return n;
 }
