@@ -117,7 +117,12 @@ export default tseslint.config(
     },
   },
   {
-    files: ['apps/web/vite.config.ts', 'apps/web/playwright.config.ts', 'apps/web/e2e/**'],
+    files: [
+      'apps/web/vite.config.ts',
+      'apps/web/playwright.config.ts',
+      'apps/web/playwright.bench.config.ts',
+      'apps/web/e2e/**',
+    ],
     rules: { 'import-x/no-default-export': 'off' },
   },
   {
