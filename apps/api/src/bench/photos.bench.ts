@@ -218,10 +218,15 @@ async function main(): Promise<void> {
     }
     const ratio = median(ratios);
     console.log(
-      `photos: time ratio median ${ratio.toFixed(2)}× (rounds ${ratios.map((x) => x.toFixed(2)).join(', ')}; spread ${(Math.min(...ratios)).toFixed(2)}–${Math.max(...ratios).toFixed(2)}×), target ≤ ${RATIO_TARGET}×: ${ratio <= RATIO_TARGET ? 'met' : 'NOT MET'}`,
+      `photos: time ratio median ${ratio.toFixed(2)}× (rounds ${ratios.map((x) => x.toFixed(2)).join(', ')}; spread ${Math.min(...ratios).toFixed(2)}–${Math.max(...ratios).toFixed(2)}×), target ≤ ${RATIO_TARGET}×: ${ratio <= RATIO_TARGET ? 'met' : 'NOT MET'}`,
     );
     console.log(
-      `photos: API resident memory grew ${growths[0].toFixed(1)} MB during the first batch (later batches ${growths.slice(1).map((g) => `+${g.toFixed(1)}`).join(', ') || 'none'} MB), target < ${RSS_TARGET_MB} MB: ${growths[0] < RSS_TARGET_MB ? 'met' : 'NOT MET'}`,
+      `photos: API resident memory grew ${growths[0].toFixed(1)} MB during the first batch (later batches ${
+        growths
+          .slice(1)
+          .map((g) => `+${g.toFixed(1)}`)
+          .join(', ') || 'none'
+      } MB), target < ${RSS_TARGET_MB} MB: ${growths[0] < RSS_TARGET_MB ? 'met' : 'NOT MET'}`,
     );
   } finally {
     s3.destroy();
