@@ -66,10 +66,33 @@ describe('LongSectionPlot', () => {
     const { container } = renderWithProviders(
       <LongSectionPlot data={data} onOpenRound={(id) => opened.push(id)} />,
     );
-    expect(screen.getByText('crown in round 1 ahead')).toBeInTheDocument();
+    expect(screen.getByText('Fault of round 2: crown in round 1 ahead')).toBeInTheDocument();
     const target = container.querySelector('rect[data-round-id="r2"]')!;
     fireEvent.click(target);
     expect(opened).toEqual(['r2']);
+  });
+
+  it('drops a trace label a row when it would print over another (faults of one zone crossing close together)', () => {
+    const second = {
+      ...data.traces[0],
+      jointId: 'k',
+      featureKey: 'k',
+      label: 'Fault B',
+      crownChainage: 108.4,
+    };
+    const third = { ...data.traces[0], jointId: 'l', featureKey: 'l', label: 'Fault C', crownChainage: 140 };
+    renderWithProviders(
+      <LongSectionPlot
+        data={{ ...data, traces: [data.traces[0], second, third] }}
+        onOpenRound={() => undefined}
+      />,
+    );
+    const y = (text: string) => Number(screen.getByText(text).getAttribute('y'));
+    expect(y('Fault B: crown in round 1 ahead')).toBeGreaterThan(
+      y('Fault of round 2: crown in round 1 ahead'),
+    );
+    // Far enough along the tunnel, a label stays on the first row.
+    expect(y('Fault C: crown in round 1 ahead')).toBe(y('Fault of round 2: crown in round 1 ahead'));
   });
 
   it('zooms in around the middle of the view', () => {

@@ -185,6 +185,17 @@ export function longSectionScene(
       anchor: 'middle',
     });
   }
+  // Trace labels go in rows: one that would overlap a label already placed drops a row, inside the section
+  // (several faults of one zone cross the crown within a few metres and would print over one another).
+  const placed: Array<{ row: number; from: number; to: number }> = [];
+  const labelRow = (cx: number, text: string, size: number): number => {
+    const half = (text.length * size * 0.58) / 2 + 4;
+    for (let row = 0; ; row += 1)
+      if (!placed.some((p) => p.row === row && p.from < cx + half && cx - half < p.to)) {
+        placed.push({ row, from: cx - half, to: cx + half });
+        return row;
+      }
+  };
   for (const t of data.traces) {
     if (t.crownChainage === null || t.invertChainage === null) continue;
     if (!visible(t.crownChainage, t.invertChainage)) continue;
@@ -201,14 +212,15 @@ export function longSectionScene(
     });
     const note =
       t.crownRoundsAhead !== null
-        ? `crown in round ${t.crownRoundsAhead} ahead`
+        ? `${t.label}: crown in round ${t.crownRoundsAhead} ahead`
         : t.invertRoundsAhead !== null
-          ? `invert in round ${t.invertRoundsAhead} ahead`
+          ? `${t.label}: invert in round ${t.invertRoundsAhead} ahead`
           : t.label;
+    const row = labelRow(x(t.crownChainage), note, 11);
     nodes.push({
       type: 'text',
       x: x(t.crownChainage),
-      y: crownY - 2,
+      y: row === 0 ? crownY - 2 : crownY + 2 + 12 * row,
       text: note,
       fill: palette.trace,
       size: 11,

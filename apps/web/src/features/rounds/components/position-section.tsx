@@ -15,7 +15,7 @@ import { useFormikContext } from 'formik';
 import type { ChainageStyle, Round } from '@/features/rounds/api/types';
 import { NumberField, TextField, useRoundEdit } from '@/features/rounds/components/round-fields';
 import type { RoundFormValues } from '@/features/rounds/schemas/round-form';
-import { chainageOf, valueOf } from '@/features/rounds/schemas/round-form';
+import { chainageInputOf, chainageOf, valueOf } from '@/features/rounds/schemas/round-form';
 import { shiftLabels, stageLabels } from '@/features/rounds/utils/labels';
 
 export interface PositionSectionProps {
@@ -62,6 +62,11 @@ export function PositionSection({ round, chainage, timeZone }: PositionSectionPr
   const { values, setFieldValue } = useFormikContext<RoundFormValues>();
   const { readOnly, serverErrors } = useRoundEdit();
   const show = (metres: number | null) => (metres === null ? '—' : formatChainage(metres, chainage));
+  // How typed text was read ("2520" → "2+520.0"); nothing when the field already reads so.
+  const readBack = (metres: number, typed: string) => {
+    const read = show(metres);
+    return read === typed.trim() || chainageInputOf(metres, chainage) === typed.trim() ? undefined : read;
+  };
 
   const updateLength = (face: string, previous: string) => {
     const f = chainageOf(face);
@@ -101,14 +106,18 @@ export function PositionSection({ round, chainage, timeZone }: PositionSectionPr
           name="faceChainage"
           label="Face chainage"
           inputMode="text"
-          hint={face === null ? 'as 1+250.0 or 1250.0' : show(face)}
+          hint={face === null ? 'as 1+250.0 or 1250.0' : readBack(face, values.faceChainage)}
           onValueChange={(v) => updateLength(v, values.previousChainage)}
         />
         <NumberField
           name="previousChainage"
           label="Previous chainage"
           inputMode="text"
-          hint={previous === null ? 'from the last round of this stage' : show(previous)}
+          hint={
+            previous === null
+              ? 'from the last round of this stage'
+              : readBack(previous, values.previousChainage)
+          }
           onValueChange={(v) => updateLength(values.faceChainage, v)}
         />
         <NumberField
