@@ -127,13 +127,16 @@ export async function roundSaved(
   queryClient: QueryClient,
   projectId: string,
   round: Round,
-  { board = false }: { board?: boolean } = {},
+  { board = false, waitForLists = true }: { board?: boolean; waitForLists?: boolean } = {},
 ): Promise<void> {
   const key = resourceKeys.round(projectId, round.id);
   await queryClient.cancelQueries({ queryKey: key, exact: true });
   queryClient.setQueryData(key, round);
-  await Promise.all([
+  const lists = Promise.all([
     invalidateResource(queryClient, resourceKeys.headingRounds(projectId, round.headingId)),
     board ? invalidateResource(queryClient, resourceKeys.projects(), { exact: true }) : null,
   ]);
+  // A sync sending many rounds does not wait for the lists after each one: every invalidation cancels the
+  // refetch before it, so the lists are fetched once more when the last round is in, not fifty times.
+  if (waitForLists) await lists;
 }

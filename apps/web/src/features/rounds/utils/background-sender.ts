@@ -59,7 +59,7 @@ export async function sendWaitingRounds(
       // Typing may have gone on meanwhile (the round opened again): only the draft that was sent goes.
       if (drafts.read(roundId)?.savedAt === draft.savedAt) drafts.clear(roundId);
       result.sent += 1;
-      if (queryClient !== undefined) await roundSaved(queryClient, projectId, saved);
+      if (queryClient !== undefined) await roundSaved(queryClient, projectId, saved, { waitForLists: false });
     } catch (error) {
       if (!isApiError(error) || error.status === 0 || error.status >= 500) throw error;
       // A retry whose first try had landed (its answer lost): the server holds exactly this typing.
@@ -67,7 +67,8 @@ export async function sendWaitingRounds(
         error.code === STALE_VERSION_CODE ? (error.details?.current as Round | undefined) : undefined;
       if (current !== undefined && sameContent(saveRequestOf(formValuesOf(current), 0, fallback), body)) {
         if (drafts.read(roundId)?.savedAt === draft.savedAt) drafts.clear(roundId);
-        if (queryClient !== undefined) await roundSaved(queryClient, projectId, current);
+        if (queryClient !== undefined)
+          await roundSaved(queryClient, projectId, current, { waitForLists: false });
         continue;
       }
       // 409 (saved elsewhere since), 400 (refused), 403 (submitted meanwhile): the editor shows both sides

@@ -118,7 +118,8 @@ export function sendPendingRound(
   const run = createRound(pending.projectId, pending.headingId, pending.body)
     .then(async (round) => {
       outbox.remove(owner, roundId);
-      if (queryClient !== undefined) await roundSaved(queryClient, pending.projectId, round, { board: true });
+      if (queryClient !== undefined)
+        await roundSaved(queryClient, pending.projectId, round, { board: true, waitForLists: false });
       return round;
     })
     .finally(() => sending.delete(roundId));
