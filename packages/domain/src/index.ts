@@ -22,3 +22,4 @@ export * from './look-ahead.js';
 export * from './round-changes.js';
 export * from './notices.js';
 export * from './carried.js';
+export * from './roof-wedges.js';

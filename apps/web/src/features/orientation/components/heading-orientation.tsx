@@ -40,8 +40,13 @@ import {
   WINDOW_JOINT_LIMIT,
 } from '@/features/orientation/api/get-window-joints';
 import type { WindowJoint } from '@/features/orientation/api/get-window-joints';
-import { OrientationView, SymbolSwatch } from '@/features/orientation/components/orientation-view';
+import {
+  DEFAULT_FRICTION_ANGLE,
+  OrientationView,
+  SymbolSwatch,
+} from '@/features/orientation/components/orientation-view';
 import type { ViewJoint, ViewSet } from '@/features/orientation/components/orientation-view';
+import { RoofWedgeList } from '@/features/orientation/components/roof-wedge-list';
 import { SetHistoryChart } from '@/features/orientation/components/set-history-chart';
 import { setHistoryOf } from '@/features/orientation/scene/set-history';
 
@@ -204,13 +209,16 @@ export function HeadingOrientation({ projectId, heading, highContrast }: Heading
       fileName={`${heading.code}-stereonet-${Math.round(applied.fromChainage)}-${Math.round(applied.toChainage)}`}
       caption={caption}
       aside={
-        <SetHistoryChart
-          history={history}
-          fromChainage={applied.fromChainage}
-          toChainage={applied.toChainage}
-          chainage={chainage}
-          highContrast={highContrast}
-        />
+        <>
+          <SetHistoryChart
+            history={history}
+            fromChainage={applied.fromChainage}
+            toChainage={applied.toChainage}
+            chainage={chainage}
+            highContrast={highContrast}
+          />
+          <RoofWedgeList sets={analysis.sets} frictionAngle={DEFAULT_FRICTION_ANGLE} scope="this stretch" />
+        </>
       }
     >
       <Subtitle2 as="h2">Chainage window</Subtitle2>

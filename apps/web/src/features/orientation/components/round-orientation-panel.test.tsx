@@ -202,3 +202,80 @@ describe('RoundOrientationPanel', () => {
     });
   });
 });
+
+describe('RoundOrientationPanel roof wedges', () => {
+  const wedgeSets = (planes: [number, number][]) => ({
+    sets: planes.map(([dipDirection, dip], i) => ({
+      ...sets.sets[0],
+      label: `S${i + 1}`,
+      mean: { dipDirection, dip },
+    })),
+    membership: {},
+  });
+  const show = (s: ReturnType<typeof wedgeSets>) =>
+    renderWithProviders(
+      <MemoryRouter>
+        <RoundOrientationPanel joints={[]} sets={s} drive={drive} highContrast={false} fileName="r" />
+      </MemoryRouter>,
+    );
+
+  it('lists the falling and the sliding wedge of methods.md §5 at φ 30°', () => {
+    // methods.md §5 [computed here]: 045/60, 165/60, 285/60 falls; 060/70, 160/70, 110/20 slides along 110/60.5.
+    show(
+      wedgeSets([
+        [45, 60],
+        [165, 60],
+        [285, 60],
+      ]),
+    );
+    const list = screen.getByRole('list', { name: 'Roof wedges that fall or slide' });
+    expect(within(list).getAllByRole('listitem')).toHaveLength(1);
+    expect(list.textContent).toContain('S1, S2 and S3: falls straight down');
+    expect(list.textContent).toContain('105/41, 225/41, 345/41');
+  });
+
+  it('names the sliding line of 060/70, 160/70, 110/20 (methods.md §5 [computed here])', () => {
+    show(
+      wedgeSets([
+        [60, 70],
+        [160, 70],
+        [110, 20],
+      ]),
+    );
+    const list = screen.getByRole('list', { name: 'Roof wedges that fall or slide' });
+    expect(list.textContent).toContain('slides along the line where S1 and S2 meet, 110/60');
+    expect(list.textContent).toContain('φ 30°');
+  });
+
+  it('says when no wedge falls or slides, and when there are fewer than three sets', () => {
+    // S1 and S2 of the fixture (near 300/70 and 040/30) are two sets only.
+    renderWithProviders(
+      <MemoryRouter>
+        <RoundOrientationPanel joints={joints} sets={sets} drive={drive} highContrast={false} fileName="r" />
+      </MemoryRouter>,
+    );
+    expect(screen.getByText(/Fewer than three sets in this round \(2\)/)).toBeTruthy();
+  });
+
+  it('says none when the three sets close off no wedge that falls or slides', () => {
+    // 060/70, 160/70, 110/20 at φ 70°: the steepest line 110/60.5 is gentler than φ (methods.md §5 [computed here]).
+    renderWithProviders(
+      <MemoryRouter>
+        <RoundOrientationPanel
+          joints={[]}
+          sets={wedgeSets([
+            [60, 70],
+            [160, 70],
+            [110, 20],
+          ])}
+          drive={drive}
+          highContrast={false}
+          fileName="r"
+          frictionAngle={70}
+        />
+      </MemoryRouter>,
+    );
+    expect(screen.getByText(/None of the 1 combination of three sets .* at φ 70°/)).toBeTruthy();
+    expect(screen.queryByRole('list', { name: 'Roof wedges that fall or slide' })).toBeNull();
+  });
+});

@@ -3,8 +3,9 @@ import type { FeatureAssessment, JointKind, RoundSets } from '@roundbook/domain'
 import { jointKindLabels } from '@roundbook/domain';
 import type { Drive } from '@roundbook/geomath';
 import { useMemo } from 'react';
-import { OrientationView } from '@/features/orientation/components/orientation-view';
+import { DEFAULT_FRICTION_ANGLE, OrientationView } from '@/features/orientation/components/orientation-view';
 import type { ViewJoint, ViewSet } from '@/features/orientation/components/orientation-view';
+import { RoofWedgeList } from '@/features/orientation/components/roof-wedge-list';
 
 /** A joint of the round as the record or the assessment has it (JointDto and AssessedJoint both fit). */
 export interface PanelJoint {
@@ -35,6 +36,8 @@ export interface RoundOrientationPanelProps {
    * for an editable draft only (a read-only round shows no choosing of poles).
    */
   onAssign?: ((ids: string[], label: string | null) => void) | null;
+  /** Friction angle of the joints for the friction circle and the roof wedges, degrees (default 30). */
+  frictionAngle?: number;
 }
 
 const useStyles = makeStyles({
@@ -56,6 +59,7 @@ export function RoundOrientationPanel({
   highContrast,
   fileName,
   onAssign = null,
+  frictionAngle = DEFAULT_FRICTION_ANGLE,
 }: RoundOrientationPanelProps) {
   const styles = useStyles();
   const readable = useMemo(
@@ -119,6 +123,7 @@ export function RoundOrientationPanel({
         highContrast={highContrast}
         fileName={fileName}
         onAssign={onAssign}
+        frictionAngle={frictionAngle}
         caption={
           `${readable.length} pole${readable.length === 1 ? '' : 's'} of this round.` +
           (earlier > 0
@@ -126,6 +131,7 @@ export function RoundOrientationPanel({
             : '')
         }
       />
+      <RoofWedgeList sets={sets.sets} frictionAngle={frictionAngle} scope="this round" />
     </section>
   );
 }
