@@ -51,14 +51,17 @@ test("the Orientation tab of HR-U shows the window's poles and sets, in both the
   // Narrow the window to the last 25 m: fewer poles, and the caption names the new chainages.
   await page.getByRole('button', { name: 'Last 25 m' }).click();
   await expect(caption).not.toHaveText(before ?? '');
-  const after = await caption.textContent();
-  expect(poles(after)).toBeLessThan(poles(before));
+  await expect.poll(async () => poles(await caption.textContent()), { timeout: 10_000 }).toBeGreaterThan(0);
+  expect(poles(await caption.textContent())).toBeLessThan(poles(before));
   // Type a window by hand (km+m), the whole mapped heading from its start.
   const from = page.getByRole('textbox', { name: 'From chainage' });
   await from.fill('2+450');
   await page.getByRole('button', { name: 'Show window' }).click();
   await expect(caption).toContainText('from 2+450.0');
-  expect(poles(await caption.textContent())).toBeGreaterThanOrEqual(poles(before));
+  // The caption names the new window before its poles have come in ("0 of 0 poles"): wait for them.
+  await expect
+    .poll(async () => poles(await caption.textContent()), { timeout: 10_000 })
+    .toBeGreaterThanOrEqual(poles(before));
 
   // Beside the net, each round's set means along the window's chainage, and the same figures as a table.
   const history = page.getByRole('region', { name: 'Sets along the chainage' });
